@@ -67,3 +67,19 @@ func (f Frequency) SeasonLength() int {
 	}
 	return 1
 }
+
+// DefaultHorizon returns the forecast length used when none is asked for:
+// 28 days, 26 weeks, 12 months, 8 quarters or 5 years.
+func (f Frequency) DefaultHorizon() int {
+	switch f {
+	case Daily:
+		return 28
+	case Weekly:
+		return 26
+	case Monthly:
+		return 12
+	case Quarterly:
+		return 8
+	}
+	return 5
+}

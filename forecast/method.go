@@ -120,11 +120,13 @@ type Model interface {
 	// Forecast returns the point forecasts for the h periods after the
 	// end of the data.
 	Forecast(h int) []float64
-	// Filter runs the model, with its fitted parameters and initial states
-	// held, over another series of the same length as the fitting data and
-	// returns the one-step-ahead predictions for it (NaN where the method
-	// has none). Cleaning past events relies on it.
-	Filter(y []float64) []float64
+	// Extend runs the model, with its fitted parameters and initial states
+	// held, over y (which may be longer or shorter than the fitting data, or
+	// hold other values) and returns the model positioned at the end of y:
+	// its Fitted are the one-step predictions for y and its Forecast starts
+	// after y. Backtests roll states forward with it, and cleaning past
+	// events relies on it. The receiver is not changed.
+	Extend(y []float64) Model
 	// VarianceFactors returns c_1..c_h such that the variance of the
 	// h-step forecast error is sigma^2 * c_h, where sigma^2 is the one-step
 	// error variance, and ok = true when the method has an analytic form

@@ -1,0 +1,272 @@
+package main
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"strings"
+	"text/tabwriter"
+
+	"github.com/spf13/cobra"
+
+	"forelay/forecast"
+)
+
+// FitOptions are the settings of "forelay fit".
+type FitOptions struct {
+	IO       *IOStreams
+	History  string
+	Series   string
+	Period   string
+	Fill     string
+	Units    string
+	JSON     bool
+	Workers  int
+	Baseline baselineFlags
+}
+
+func newCmdFit(f *Factory, runF func(*FitOptions) error) *cobra.Command {
+	opts := &FitOptions{IO: f.IO}
+	cmd := &cobra.Command{
+		Use:   "fit --history FILE [flags]",
+		Short: "Fit a baseline forecast to a history and report its accuracy",
+		Long: `Fit a statistical baseline to each series of a history file and show the
+method, its parameters, its accuracy (in-sample and in a rolling-origin
+backtest) and the forecast with error bands.
+
+The history is a CSV file, either wide (a "period" column, then one column per
+series) or long (columns "series", "period" and "value"). Periods look like
+2026-03 (month), 2026-03-15 (day, or week when 7 days apart), 2026-W11 (ISO
+week), 2026-Q1 (quarter) or 2026 (year).
+
+With --method auto (the default) every suitable method is backtested and the
+one with the lowest error on --metric wins; the table shows every candidate.`,
+		Example: `  forelay fit --history examples/dairy/history.csv --series bottled-l
+  forelay fit --history sales.csv --method holt-winters-additive --horizon 18 --coverage 0.9
+  forelay fit --history sales.csv --json > fits.jsonl`,
+		Args: cobra.NoArgs,
+		RunE: func(cmd *cobra.Command, args []string) error {
+			if opts.History == "" {
+				return flagErrorf("--history is required")
+			}
+			opts.Baseline.record(cmd)
+			if runF != nil {
+				return runF(opts)
+			}
+			return fitRun(opts)
+		},
+	}
+	fl := cmd.Flags()
+	fl.StringVar(&opts.History, "history", "", "history CSV file (required)")
+	fl.StringVar(&opts.Series, "series", "", "fit only this series (default: every series in the file)")
+	fl.StringVar(&opts.Period, "period", "", "force the frequency: day, week, month, quarter or year (default: inferred)")
+	fl.StringVar(&opts.Fill, "fill", "none", "missing periods: none (an error), zero or interpolate")
+	fl.StringVar(&opts.Units, "units", "", "unit of the values, for the tables (e.g. litres)")
+	fl.BoolVar(&opts.JSON, "json", false, "print one JSON object per series per line")
+	fl.IntVar(&opts.Workers, "workers", 0, "series fitted in parallel (0: one per core)")
+	opts.Baseline.register(fl)
+	return cmd
+}
+
+// loadHistory reads a history file with the period and fill flags.
+func loadHistory(path, period, fill string) (*forecast.History, error) {
+	freq, err := forecast.ParseFrequency(period)
+	if err != nil {
+		return nil, &flagError{err: fmt.Errorf("--period: %w", err)}
+	}
+	fm, err := forecast.ParseFillMode(fill)
+	if err != nil {
+		return nil, &flagError{err: fmt.Errorf("--fill: %w", err)}
+	}
+	fh, err := os.Open(path)
+	if err != nil {
+		return nil, &inputError{err: err}
+	}
+	defer fh.Close()
+	h, err := forecast.ReadHistory(fh, path, forecast.ReadOptions{Freq: freq, Fill: fm})
+	if err != nil {
+		return nil, &inputError{err: err}
+	}
+	return h, nil
+}
+
+func fitRun(opts *FitOptions) error {
+	spec, bands, err := opts.Baseline.spec()
+	if err != nil {
+		return err
+	}
+	h, err := loadHistory(opts.History, opts.Period, opts.Fill)
+	if err != nil {
+		return err
+	}
+	series := h.Series
+	if opts.Series != "" {
+		s, err := h.Lookup(opts.Series)
+		if err != nil {
+			return &inputError{err: fmt.Errorf("%s: %w", opts.History, err)}
+		}
+		series = []forecast.Series{s}
+	}
+	for _, fl := range h.Filled {
+		if opts.Series == "" || fl.Series == opts.Series {
+			fmt.Fprintf(opts.IO.ErrOut, "note: %s:%d: series %q has no value for %s; filled with %s (--fill %s)\n",
+				opts.History, fl.Line, fl.Series, fl.Period, fmtNum(fl.Value, 2), opts.Fill)
+		}
+	}
+	outcomes := forecast.FitAll(series, spec, opts.Workers)
+	var out bytes.Buffer
+	var failed []error
+	for i, oc := range outcomes {
+		horizon := spec.Horizon
+		if horizon == 0 {
+			horizon = series[i].Freq().DefaultHorizon()
+		}
+		if oc.Err != nil {
+			err := fmt.Errorf("%s: %w", opts.History, oc.Err)
+			failed = append(failed, err)
+			if opts.JSON {
+				line, _ := marshalLine(map[string]string{"series": series[i].Name, "error": err.Error()})
+				out.Write(line)
+			}
+			continue
+		}
+		if opts.JSON {
+			line, err := marshalLine(fitJSON(oc.Result, horizon, bands))
+			if err != nil {
+				return err
+			}
+			out.Write(line)
+			continue
+		}
+		if i > 0 {
+			out.WriteString("\n")
+		}
+		if err := writeFitText(&out, oc.Result, horizon, bands, opts.Units); err != nil {
+			return err
+		}
+	}
+	if _, err := opts.IO.Out.Write(out.Bytes()); err != nil {
+		return err
+	}
+	if len(failed) > 0 {
+		return &inputError{err: errors.Join(failed...)}
+	}
+	return nil
+}
+
+// writeFitText writes the human report of one fitted series.
+func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, units string) error {
+	s := r.Series
+	unit := ""
+	if units != "" {
+		unit = " (" + units + ")"
+	}
+	fmt.Fprintf(w, "Series %s: %d %s periods, %s to %s\n", s.Name, s.Len(), s.Freq(), s.Start, s.Period(s.Len()-1))
+	how := "as asked"
+	if r.Auto {
+		if r.Select == forecast.SelectAICc {
+			how = "chosen by lowest AICc"
+		} else {
+			how = fmt.Sprintf("chosen by lowest backtest %s", strings.ToUpper(r.Metric.String()))
+		}
+	}
+	fmt.Fprintf(w, "Method %s (%s)", r.Method, how)
+	if d := r.Model.Describe(); d != "" {
+		fmt.Fprintf(w, ", %s", d)
+	}
+	fmt.Fprintln(w)
+	if p := paramText(r.Model.Params()); p != "" {
+		fmt.Fprintf(w, "Parameters %s\n", p)
+	}
+	fmt.Fprintln(w)
+
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
+	fmt.Fprintf(tw, "Accuracy%s\tpoints\tMAD\tMSE (/%s)\tRMSE\tMAPE %%\tMASE\tbias\ttracking signal\t\n", unit, r.Accuracy.Divisor)
+	writeAccRow(tw, "in-sample, one step", r.Accuracy)
+	if bt := r.Backtest; bt != nil {
+		writeAccRow(tw, fmt.Sprintf("backtest, %d origins", bt.Origins), bt.Accuracy)
+	}
+	if err := tw.Flush(); err != nil {
+		return err
+	}
+	if r.Accuracy.MAPESkipped > 0 {
+		fmt.Fprintf(w, "MAPE leaves out %d period(s) with zero actuals.\n", r.Accuracy.MAPESkipped)
+	}
+
+	if len(r.Candidates) > 0 {
+		fmt.Fprintln(w)
+		tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+		fmt.Fprintf(tw, "Candidate\tparameters\tMAD\tMSE\tMAPE %%\tMASE\tAICc\t\n")
+		for _, c := range r.Candidates {
+			mark := "  "
+			if c.Chosen {
+				mark = "* "
+			}
+			if c.Skipped != "" {
+				fmt.Fprintf(tw, "%s%s\tskipped: %s\t\t\t\t\t\t\n", mark, c.Method, c.Skipped)
+				continue
+			}
+			p := paramText(c.Params)
+			if c.Describe != "" {
+				p = strings.TrimSpace(p + " " + c.Describe)
+			}
+			mad, mse, mape, mase := "-", "-", "-", "-"
+			if a := c.Backtest; a != nil {
+				mad, mse, mape, mase = fmtNum(a.MAD, 1), fmtNum(a.MSE, 0), fmtNum(a.MAPE, 2), fmtNum(a.MASE, 3)
+			}
+			fmt.Fprintf(tw, "%s%s\t%s\t%s\t%s\t%s\t%s\t%s\t\n", mark, c.Method, p, mad, mse, mape, mase, fmtNum(c.AICc, 1))
+		}
+		if err := tw.Flush(); err != nil {
+			return err
+		}
+		if r.Select == forecast.SelectAICc {
+			fmt.Fprintln(w, "* = chosen: lowest AICc of the in-sample fit.")
+		} else {
+			fmt.Fprintf(w, "* = chosen: lowest backtest %s (errors pooled over every origin and lead time).\n", strings.ToUpper(r.Metric.String()))
+		}
+	}
+
+	fmt.Fprintln(w)
+	pts := r.Forecast(horizon, b.Z, b.Mode)
+	_, src := r.Variance(horizon, b.Mode)
+	fmt.Fprintf(w, "Forecast%s, band = forecast +- %.3g x standard error (%s; %.1f%% if errors are normal)\n",
+		unit, b.Z, bandSourceText(src), 100*forecast.Coverage(b.Z))
+	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
+	fmt.Fprintf(tw, "period\tforecast\tlower\tupper\t\n")
+	for _, p := range pts {
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t\n", p.Period, fmtNum(p.Value, 1), fmtNum(p.Lower, 1), fmtNum(p.Upper, 1))
+	}
+	return tw.Flush()
+}
+
+func writeAccRow(w io.Writer, label string, a forecast.Accuracy) {
+	fmt.Fprintf(w, "%s\t%d\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t\n", label, a.N, fmtNum(a.MAD, 1), fmtNum(a.MSE, 0),
+		fmtNum(a.RMSE, 1), fmtNum(a.MAPE, 2), fmtNum(a.MASE, 3), fmtNum(a.Bias, 1), fmtNum(a.TrackingSignal, 2))
+}
+
+func bandSourceText(src forecast.VarianceSource) string {
+	switch src {
+	case forecast.VarFlat:
+		return "flat: sqrt(MSE) at every lead time"
+	case forecast.VarAnalytic:
+		return "widening with lead time: analytic variance of the model class"
+	case forecast.VarBacktest:
+		return "widening with lead time: backtest RMSE per lead time"
+	}
+	return "widening with lead time: MSE x lead time (no backtest available)"
+}
+
+func paramText(p forecast.Params) string {
+	var parts []string
+	for _, kv := range []struct {
+		k string
+		v float64
+	}{{"alpha", p.Alpha}, {"beta", p.Beta}, {"gamma", p.Gamma}, {"phi", p.Phi}} {
+		if kv.v == kv.v { // not NaN
+			parts = append(parts, kv.k+" "+fmtParam(kv.v))
+		}
+	}
+	return strings.Join(parts, " ")
+}

@@ -1,0 +1,127 @@
+package main
+
+import (
+	"math"
+
+	"forelay/forecast"
+)
+
+// The JSON shapes of "forelay fit --json". Field names are part of the
+// documented interface (README, "JSON output"); keep them stable.
+
+type accuracyJSON struct {
+	N              int `json:"n"`
+	MAD            num `json:"mad"`
+	MSE            num `json:"mse"`
+	RMSE           num `json:"rmse"`
+	MAPE           num `json:"mape"`
+	MAPESkipped    int `json:"mape_skipped"`
+	MASE           num `json:"mase"`
+	Bias           num `json:"bias"`
+	TrackingSignal num `json:"tracking_signal"`
+}
+
+func toAccuracyJSON(a forecast.Accuracy) accuracyJSON {
+	return accuracyJSON{N: a.N, MAD: num(a.MAD), MSE: num(a.MSE), RMSE: num(a.RMSE), MAPE: num(a.MAPE),
+		MAPESkipped: a.MAPESkipped, MASE: num(a.MASE), Bias: num(a.Bias), TrackingSignal: num(a.TrackingSignal)}
+}
+
+// paramsJSON lists only the parameters that apply to the model.
+func paramsJSON(p forecast.Params) map[string]num {
+	m := map[string]num{}
+	for _, kv := range []struct {
+		k string
+		v float64
+	}{{"alpha", p.Alpha}, {"beta", p.Beta}, {"gamma", p.Gamma}, {"phi", p.Phi}} {
+		if kv.v == kv.v {
+			m[kv.k] = num(kv.v)
+		}
+	}
+	return m
+}
+
+type candidateJSON struct {
+	Method   string         `json:"method"`
+	Params   map[string]num `json:"params"`
+	Settings string         `json:"settings,omitempty"`
+	Backtest *accuracyJSON  `json:"backtest"`
+	AICc     num            `json:"aicc"`
+	Chosen   bool           `json:"chosen"`
+	Skipped  string         `json:"skipped,omitempty"`
+}
+
+type backtestJSON struct {
+	Train       int          `json:"train"`
+	Origins     int          `json:"origins"`
+	Accuracy    accuracyJSON `json:"accuracy"`
+	HorizonRMSE []num        `json:"horizon_rmse"`
+}
+
+type pointJSON struct {
+	Period string `json:"period"`
+	Value  num    `json:"value"`
+	Lower  num    `json:"lower"`
+	Upper  num    `json:"upper"`
+}
+
+type bandsJSON struct {
+	Z        num    `json:"z"`
+	Coverage num    `json:"coverage"`
+	Mode     string `json:"mode"`
+	Variance string `json:"variance"`
+}
+
+type fitOutJSON struct {
+	Series     string          `json:"series"`
+	Period     string          `json:"period"`
+	Start      string          `json:"start"`
+	Method     string          `json:"method"`
+	Auto       bool            `json:"auto"`
+	Selection  string          `json:"selection,omitempty"`
+	Metric     string          `json:"metric,omitempty"`
+	Settings   string          `json:"settings,omitempty"`
+	Season     int             `json:"season"`
+	Params     map[string]num  `json:"params"`
+	N          int             `json:"n"`
+	SSE        num             `json:"sse"`
+	Accuracy   accuracyJSON    `json:"accuracy"`
+	MSEDivisor string          `json:"mse_divisor"`
+	Backtest   *backtestJSON   `json:"backtest"`
+	Candidates []candidateJSON `json:"candidates,omitempty"`
+	Bands      bandsJSON       `json:"bands"`
+	Forecast   []pointJSON     `json:"forecast"`
+}
+
+func fitJSON(r *forecast.Result, horizon int, b bandSettings) fitOutJSON {
+	o := fitOutJSON{
+		Series: r.Series.Name, Period: r.Series.Freq().String(), Start: r.Series.Start.String(),
+		Method: r.Method.String(), Auto: r.Auto, Settings: r.Model.Describe(), Season: r.Config.Season,
+		Params: paramsJSON(r.Model.Params()), N: r.Series.Len(), SSE: num(r.SSE),
+		Accuracy: toAccuracyJSON(r.Accuracy), MSEDivisor: r.Accuracy.Divisor.String(),
+	}
+	if r.Auto {
+		o.Selection, o.Metric = r.Select.String(), r.Metric.String()
+	}
+	if bt := r.Backtest; bt != nil {
+		rm := make([]num, len(bt.HorizonMSE))
+		for i, v := range bt.HorizonMSE {
+			rm[i] = num(math.Sqrt(v))
+		}
+		o.Backtest = &backtestJSON{Train: bt.Train, Origins: bt.Origins, Accuracy: toAccuracyJSON(bt.Accuracy), HorizonRMSE: rm}
+	}
+	for _, c := range r.Candidates {
+		cj := candidateJSON{Method: c.Method.String(), Params: paramsJSON(c.Params), Settings: c.Describe,
+			AICc: num(c.AICc), Chosen: c.Chosen, Skipped: c.Skipped}
+		if c.Backtest != nil {
+			a := toAccuracyJSON(*c.Backtest)
+			cj.Backtest = &a
+		}
+		o.Candidates = append(o.Candidates, cj)
+	}
+	_, src := r.Variance(horizon, b.Mode)
+	o.Bands = bandsJSON{Z: num(b.Z), Coverage: num(forecast.Coverage(b.Z)), Mode: b.Mode.String(), Variance: string(src)}
+	for _, p := range r.Forecast(horizon, b.Z, b.Mode) {
+		o.Forecast = append(o.Forecast, pointJSON{Period: p.Period.String(), Value: num(p.Value), Lower: num(p.Lower), Upper: num(p.Upper)})
+	}
+	return o
+}

@@ -1,0 +1,91 @@
+package forecast
+
+import "math"
+
+// Backtest is the result of a rolling-origin evaluation: the model is
+// fitted on the first Train observations, then for each origin
+// o = Train, ..., n-1 its states are rolled forward through y[:o] (or, with
+// refit, it is fitted again on y[:o]) and it forecasts up to MaxHorizon
+// periods ahead; every forecast that has an actual is scored.
+type Backtest struct {
+	Train   int // observations in the first training window
+	Origins int // forecast origins evaluated
+	// Accuracy pools the errors of every origin and horizon. Its MASE is
+	// scaled by the seasonal-naive error of the first training window.
+	Accuracy Accuracy
+	// HorizonMSE[h-1] is the mean squared h-step error (divided by the
+	// number of h-step errors) and HorizonCount[h-1] that number.
+	HorizonMSE   []float64
+	HorizonCount []int
+	// Model is the model fitted on the first training window.
+	Model Model
+}
+
+// DefaultHoldout returns the number of backtest origins used when a Spec
+// does not set one: a fifth of the series, at least 1 and at most 36.
+func DefaultHoldout(n int) int {
+	h := n / 5
+	if h < 1 {
+		h = 1
+	}
+	if h > 36 {
+		h = 36
+	}
+	return h
+}
+
+// RunBacktest evaluates method m with cfg on y over the last holdout
+// origins, scoring forecasts up to maxH periods ahead. With refit the model
+// is fitted again at every origin; otherwise it is fitted once on the first
+// training window and its states are rolled forward with Model.Extend.
+// It returns a *TooShortError when the training window is shorter than the
+// method needs.
+func RunBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit bool, div Divisor) (*Backtest, error) {
+	n := len(y)
+	if holdout < 1 || holdout >= n {
+		return nil, &TooShortError{Method: m, Need: MinPoints(m, cfg) + 1, Have: n}
+	}
+	if maxH < 1 {
+		maxH = 1
+	}
+	train := n - holdout
+	base, err := FitMethod(y[:train], m, cfg)
+	if err != nil {
+		return nil, err
+	}
+	bt := &Backtest{Train: train, Origins: holdout, Model: base,
+		HorizonMSE: make([]float64, maxH), HorizonCount: make([]int, maxH)}
+	var act, pred []float64
+	for o := train; o < n; o++ {
+		model := base
+		switch {
+		case refit && o > train:
+			if model, err = FitMethod(y[:o], m, cfg); err != nil {
+				return nil, err
+			}
+		case o > train:
+			model = base.Extend(y[:o])
+		}
+		h := min(maxH, n-o)
+		f := model.Forecast(h)
+		for k := 0; k < h; k++ {
+			e := y[o+k] - f[k]
+			if math.IsNaN(e) {
+				continue
+			}
+			bt.HorizonMSE[k] += e * e
+			bt.HorizonCount[k]++
+			act = append(act, y[o+k])
+			pred = append(pred, f[k])
+		}
+	}
+	for k := range bt.HorizonMSE {
+		if bt.HorizonCount[k] > 0 {
+			bt.HorizonMSE[k] /= float64(bt.HorizonCount[k])
+		} else {
+			bt.HorizonMSE[k] = math.NaN()
+		}
+	}
+	bt.Accuracy = Measure(act, pred, MASEScale(y[:train], cfg.Season), div)
+	return bt, nil
+}

@@ -1,0 +1,42 @@
+package forecast
+
+import (
+	"runtime"
+	"sync"
+)
+
+// Outcome is the result of fitting one series in FitAll: a Result or the
+// error that stopped it.
+type Outcome struct {
+	Result *Result
+	Err    error
+}
+
+// FitAll fits spec to every series, spreading the work over workers
+// goroutines (zero or less means runtime.GOMAXPROCS(0)). Outcomes come back
+// in the order of the input, whatever order the work finished in, so output
+// built from them is reproducible.
+func FitAll(series []Series, spec Spec, workers int) []Outcome {
+	if workers <= 0 {
+		workers = runtime.GOMAXPROCS(0)
+	}
+	out := make([]Outcome, len(series))
+	next := make(chan int)
+	var wg sync.WaitGroup
+	for w := 0; w < min(workers, len(series)); w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range next {
+				r, err := Fit(series[i], spec)
+				out[i] = Outcome{Result: r, Err: err}
+			}
+		}()
+	}
+	for i := range series {
+		next <- i
+	}
+	close(next)
+	wg.Wait()
+	return out
+}
