@@ -119,17 +119,18 @@ func TestDairyShape(t *testing.T) {
 // elsewhere. (All sizes are whole litres, so rounding cannot blur them.)
 func TestDairyEffects(t *testing.T) {
 	// Source: examples/dairy/README.md, "Injected effects" (the task's
-	// sizes: fair 4,000-5,000 litres each August 2019..2025, outage -60,000
-	// and -35,000 litres in July and August 2025).
+	// sizes: fair about +24,000 litres each August 2019..2026, varying by
+	// year; outage -60,000 and -35,000 litres in July and August 2025).
 	want := map[string]float64{
-		"2019-08": 4200,
-		"2020-08": 4600,
-		"2021-08": 4300,
-		"2022-08": 4800,
-		"2023-08": 4400,
-		"2024-08": 4700,
+		"2019-08": 22500,
+		"2020-08": 23800,
+		"2021-08": 24600,
+		"2022-08": 23100,
+		"2023-08": 25200,
+		"2024-08": 24000,
 		"2025-07": -60000,
-		"2025-08": 4500 - 35000, // = -30500, fair and outage in one month
+		"2025-08": 24400 - 35000, // = -10600, fair and outage in one month
+		"2026-08": 24400,
 	}
 	with, without := dairy(1, true), dairy(1, false)
 	for i := range with.rows() {
@@ -145,8 +146,8 @@ func TestDairyEffects(t *testing.T) {
 			}
 		}
 	}
-	// The fair averages 4,500 litres: (4200+4600+4300+4800+4400+4700+4500)/7
-	// = 31500/7 = 4500.
+	// The fair averages 24,000 litres over its 8 years:
+	// (22500+23800+24600+23100+25200+24000+24400+24400)/8 = 192000/8 = 24000.
 	var sum float64
 	var n int
 	for _, e := range bottledEffects {
@@ -155,8 +156,23 @@ func TestDairyEffects(t *testing.T) {
 			n++
 		}
 	}
-	if n != 7 || sum/float64(n) != 4500 {
-		t.Errorf("%d fairs averaging %v, want 7 averaging 4500", n, sum/float64(n))
+	if n != 8 || sum/float64(n) != 24000 {
+		t.Errorf("%d fairs averaging %v, want 8 averaging 24000", n, sum/float64(n))
+	}
+	// Each fair stands out of the noise of its own August: the noise sd is
+	// bottledNoise * level*(1+trend)^t * season[Aug], e.g. 2019-08 (t = 7):
+	// 0.015 * 430000*1.003^7*0.90 = 0.015*395201 = 5928 litres, so
+	// 22500/5928 = 3.80 sd; 2026-08 (t = 91): 0.015*508272 = 7624 litres,
+	// 24400/7624 = 3.20 sd (the smallest ratio). Hand calculation; want > 3.
+	for _, e := range bottledEffects {
+		if e.what != "festival" {
+			continue
+		}
+		i := mustMonth(e.label).Sub(dairyStart)
+		sd := bottledNoise * bottledLevel * math.Pow(1+bottledTrend, float64(i)) * bottledSeason[7]
+		if e.litres < 3*sd {
+			t.Errorf("%s fair %v litres is under 3 noise sd (%.0f)", e.label, e.litres, sd)
+		}
 	}
 }
 
@@ -239,7 +255,8 @@ func TestDairyStatistics(t *testing.T) {
 		if !scalar.EqualWithinAbsOrRel(sd, tc.wantNoise, 0, tc.tol) {
 			t.Errorf("%s: relative noise sd %v, want %v", tc.name, sd, tc.wantNoise)
 		}
-		// The mean of 94 draws has sd sigma/sqrt(94) ~ 0.003; allow 4 of them.
+		// The mean of 94 draws has sd sigma/sqrt(94), 0.015/9.70 = 0.0015 for
+		// bottled-l and 0.03/9.70 = 0.0031 for the others; allow 4 of them.
 		if math.Abs(mean) > 4*tc.wantNoise/math.Sqrt(float64(len(y))) {
 			t.Errorf("%s: relative noise mean %v, want about 0", tc.name, mean)
 		}
