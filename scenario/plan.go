@@ -1,0 +1,358 @@
+package scenario
+
+import (
+	"crypto/sha256"
+	"encoding/hex"
+	"errors"
+	"fmt"
+	"math"
+	"os"
+
+	"forelay/forecast"
+)
+
+// A Plan is the adjusted plan built from a scenario file: the baseline
+// fitted to the cleaned history, and for each scenario the baseline plus
+// its events, with bands.
+type Plan struct {
+	// File is the scenario the plan was built from.
+	File *File
+	// History is the series as read; Cleaned is it with the past events
+	// taken out (what the baseline was fitted to).
+	History forecast.Series
+	Cleaned []float64
+	// Filled lists the history cells filled under history.fill.
+	Filled []forecast.Filled
+	// Fit is the baseline fitted to the cleaned history.
+	Fit *forecast.Result
+	// Cleaning holds one estimate per past event or past occurrence, in
+	// file order.
+	Cleaning []Estimate
+	// Periods are the plan's periods, Horizon of them from the first
+	// period after the history.
+	Periods []forecast.Period
+	// Baseline is the baseline forecast and BaselineVar its error variance
+	// per period (from VarSource).
+	Baseline    []float64
+	BaselineVar []float64
+	VarSource   forecast.VarianceSource
+	// Z is the band half-width in standard errors, Mode how the baseline
+	// variance grows, and Floor the lower-band floor (nil: none).
+	Z     float64
+	Mode  forecast.BandMode
+	Floor *float64
+	// Scenarios are the plans of each scenario, in file order.
+	Scenarios []ScenarioPlan
+	// Future lists the events that act on the plan's periods, in file
+	// order; past events (cleaned out of the history) are not in it.
+	Future []*Event
+	// Notes are plain-language remarks for the planner (prorated dates,
+	// floored bands, filled history cells, learnt effects).
+	Notes []string
+	// Digests are the SHA-256 digests of the input files, keyed by role:
+	// "scenario" and "history".
+	Digests map[string]string
+}
+
+// An Estimate is the size of a past event found while cleaning the history.
+type Estimate struct {
+	// ID is the event's id; When is the occurrence (the event's own start,
+	// or one of its past dates).
+	ID   string
+	When string
+	// Kind is the event's kind: for a pulse Effect is the effect per
+	// period at full size, for a step the level shift.
+	Kind   Kind
+	Effect float64
+	StdErr float64
+}
+
+// ScenarioPlan is one scenario's adjusted plan.
+type ScenarioPlan struct {
+	Name string
+	// Events are the scenario's future events, in file order.
+	Events []*Event
+	// Adjusted = baseline + sum of the included events' contributions;
+	// RiskWeighted = baseline + sum of probability * contribution.
+	Adjusted, RiskWeighted []float64
+	// Var is the total variance per period (baseline plus events) and
+	// Lower, Upper = Adjusted -/+ z sqrt(Var), floored when asked.
+	Var, Lower, Upper []float64
+	// Contrib[i] is the contribution per period of Plan.Future[i]; all
+	// zeros when that event is not in the scenario.
+	Contrib [][]float64
+	// Floored counts the periods whose lower band was raised to the floor.
+	Floored int
+}
+
+// Total returns the sum of v.
+func Total(v []float64) float64 {
+	s := 0.0
+	for _, x := range v {
+		s += x
+	}
+	return s
+}
+
+// Peak returns the index and value of the largest element of v (the first
+// when tied); -1 and NaN for an empty v.
+func Peak(v []float64) (int, float64) {
+	best, bv := -1, math.NaN()
+	for i, x := range v {
+		if best < 0 || x > bv {
+			best, bv = i, x
+		}
+	}
+	return best, bv
+}
+
+// Spec returns the forecast settings of the file's baseline block.
+func (f *File) Spec() (forecast.Spec, error) {
+	b := f.Baseline
+	s := forecast.Spec{Method: b.Method, Config: b.Config, Holdout: b.Holdout, Refit: b.Refit, Horizon: f.Horizon}
+	var err error
+	if s.Metric, err = forecast.ParseMetric(b.Metric); err != nil {
+		return s, err
+	}
+	if s.Select, err = forecast.ParseSelection(b.Select); err != nil {
+		return s, err
+	}
+	if s.Divisor, err = forecast.ParseDivisor(b.MSEDivisor); err != nil {
+		return s, err
+	}
+	return s, nil
+}
+
+// LoadHistory reads the series the file's history block names. Errors
+// name the history file and line, or the scenario file's history key.
+func (f *File) LoadHistory() (*forecast.History, forecast.Series, error) {
+	fill, err := forecast.ParseFillMode(f.History.Fill)
+	if err != nil {
+		return nil, forecast.Series{}, f.errAt(f.History.Pos, "history.fill", err)
+	}
+	fh, err := os.Open(f.History.File)
+	if err != nil {
+		return nil, forecast.Series{}, f.errAt(f.History.Pos, "history.file", err)
+	}
+	defer fh.Close()
+	h, err := forecast.ReadHistory(fh, f.History.File, forecast.ReadOptions{Freq: f.History.Period, Fill: fill})
+	if err != nil {
+		return nil, forecast.Series{}, err
+	}
+	name := f.History.Series
+	if name == "" {
+		if len(h.Series) != 1 {
+			names := make([]string, len(h.Series))
+			for i, s := range h.Series {
+				names[i] = s.Name
+			}
+			return nil, forecast.Series{}, f.errAt(f.History.Pos, "history.series",
+				fmt.Errorf("%s holds %d series (%v); name one", f.History.File, len(h.Series), names))
+		}
+		return h, h.Series[0], nil
+	}
+	s, err := h.Lookup(name)
+	if err != nil {
+		return nil, forecast.Series{}, f.errAt(f.History.Pos, "history.series", err)
+	}
+	return h, s, nil
+}
+
+func (f *File) errAt(p Pos, field string, err error) error {
+	return &forecast.ParseError{File: f.Path, Line: p.Line, Column: p.Column, Field: field, Err: err}
+}
+
+// Build fits the baseline and lays the events on it. The history is read
+// from the file the scenario names. It returns input errors (*ParseError,
+// *TooShortError) for bad files and data.
+func Build(f *File) (*Plan, error) {
+	h, ser, err := f.LoadHistory()
+	if err != nil {
+		return nil, err
+	}
+	if err := f.Resolve(ser.Freq()); err != nil {
+		return nil, err
+	}
+	spec, err := f.Spec()
+	if err != nil {
+		return nil, f.errAt(f.Baseline.Pos, "baseline", err)
+	}
+	p := &Plan{File: f, History: ser, Z: f.Bands.Z, Floor: f.Bands.Floor, Digests: map[string]string{}}
+	for _, fl := range h.Filled {
+		if fl.Series == ser.Name {
+			p.Filled = append(p.Filled, fl)
+			p.Notes = append(p.Notes, fmt.Sprintf("%s:%d: no value for %s; filled with %.6g (history.fill %s)",
+				f.History.File, fl.Line, fl.Period, fl.Value, f.History.Fill))
+		}
+	}
+	if p.Mode, err = forecast.ParseBandMode(f.Bands.Widen); err != nil {
+		return nil, f.errAt(f.Bands.Pos, "bands.widen", err)
+	}
+	for role, path := range map[string]string{"scenario": f.Path, "history": f.History.File} {
+		if d, err := digest(path); err == nil {
+			p.Digests[role] = d
+		}
+	}
+
+	first := ser.Next()
+	n := ser.Len()
+
+	// Past events and past occurrences become interventions; future
+	// events whose window reaches back into the history have their known
+	// effect taken out of it.
+	var ivs []forecast.Intervention
+	var ivEvent []*Event
+	var ivWhen []string
+	y := append([]float64(nil), ser.Values...)
+	for _, e := range f.Events {
+		if e.IsPast(first) {
+			shape := e.Profile(ser.Start, n)
+			if e.Kind == Step && !e.HasEnd {
+				// An ongoing step is already in today's level: lift the
+				// history before it instead of lowering the history after.
+				last := shape[n-1]
+				for t := range shape {
+					shape[t] -= last
+				}
+			}
+			ivs = append(ivs, forecast.Intervention{Name: e.ID, Shape: shape})
+			ivEvent, ivWhen = append(ivEvent, e), append(ivWhen, e.Start.Label)
+		} else {
+			p.Future = append(p.Future, e)
+			if e.Start.From.Before(first.Start()) && !e.Effect.FromPast {
+				c := e.Contribution(ser.Start, ser.Values)
+				for t := range y {
+					y[t] -= c[t]
+				}
+				p.Notes = append(p.Notes, fmt.Sprintf("event %q starts inside the history; its planned effect was taken out of the history before fitting", e.ID))
+			}
+		}
+		for i, occ := range e.Occurrences() {
+			ivs = append(ivs, forecast.Intervention{Name: e.ID, Shape: occ.Profile(ser.Start, n)})
+			ivEvent, ivWhen = append(ivEvent, e), append(ivWhen, e.Past[i].Label)
+		}
+	}
+	work := ser
+	work.Values = y
+	ifit, err := forecast.FitInterventions(work, spec, ivs, 0)
+	if err != nil {
+		var ts *forecast.TooShortError
+		if errors.As(err, &ts) {
+			ts.Series = ser.Name
+			return nil, &forecast.ParseError{File: f.History.File, Err: err}
+		}
+		return nil, f.errAt(Pos{}, "events", err)
+	}
+	p.Fit, p.Cleaned = ifit.Fit, ifit.Cleaned
+	for j, e := range ivEvent {
+		p.Cleaning = append(p.Cleaning, Estimate{ID: e.ID, When: ivWhen[j], Kind: e.Kind, Effect: ifit.Effect[j], StdErr: ifit.StdErr[j]})
+	}
+	learnFromPast(p)
+
+	hz := f.Horizon
+	p.Periods = make([]forecast.Period, hz)
+	for i := range p.Periods {
+		p.Periods[i] = first.Add(i)
+	}
+	p.Baseline = p.Fit.Model.Forecast(hz)
+	p.BaselineVar, p.VarSource = p.Fit.Variance(hz, p.Mode)
+
+	for _, e := range p.Future {
+		if e.Prorated(ser.Freq()) {
+			p.Notes = append(p.Notes, fmt.Sprintf("event %q has dates finer than the %s periods; its effect is prorated by the share of days in each period", e.ID, ser.Freq()))
+		}
+	}
+	for _, c := range f.Cases() {
+		p.Scenarios = append(p.Scenarios, p.layer(c))
+	}
+	if p.Floor != nil {
+		for _, sp := range p.Scenarios {
+			if sp.Floored > 0 {
+				p.Notes = append(p.Notes, fmt.Sprintf("scenario %q: the lower band was cut at the floor %g in %d period(s)", sp.Name, *p.Floor, sp.Floored))
+			}
+		}
+	}
+	return p, nil
+}
+
+// layer adds the future events of case c to the baseline.
+func (p *Plan) layer(c Case) ScenarioPlan {
+	hz := len(p.Baseline)
+	sp := ScenarioPlan{Name: c.Name,
+		Adjusted: append([]float64(nil), p.Baseline...), RiskWeighted: append([]float64(nil), p.Baseline...),
+		Var: append([]float64(nil), p.BaselineVar...), Lower: make([]float64, hz), Upper: make([]float64, hz),
+		Contrib: make([][]float64, len(p.Future))}
+	in := map[*Event]bool{}
+	for _, e := range c.Events {
+		in[e] = true
+	}
+	first := p.Periods[0]
+	for i, e := range p.Future {
+		if !in[e] {
+			sp.Contrib[i] = make([]float64, hz)
+			continue
+		}
+		sp.Events = append(sp.Events, e)
+		contrib := e.Contribution(first, p.Baseline)
+		sigma := e.Sigma(first, p.Baseline)
+		for t := range contrib {
+			sp.Adjusted[t] += contrib[t]
+			sp.RiskWeighted[t] += e.Probability * contrib[t]
+			sp.Var[t] += sigma[t] * sigma[t]
+		}
+		sp.Contrib[i] = contrib
+	}
+	for t := range sp.Var {
+		w := p.Z * math.Sqrt(sp.Var[t])
+		sp.Lower[t], sp.Upper[t] = sp.Adjusted[t]-w, sp.Adjusted[t]+w
+		if p.Floor != nil && sp.Lower[t] < *p.Floor {
+			sp.Lower[t] = *p.Floor
+			sp.Floored++
+		}
+	}
+	return sp
+}
+
+// learnFromPast sets the effect of every future event marked
+// effect: {from: past} to the mean of its past occurrences' estimates, and
+// its range to a 90% interval around that mean: mean -/+ 1.645 s, where s is
+// the standard deviation of the estimates when there are two or more and
+// the standard error of the single estimate otherwise.
+func learnFromPast(p *Plan) {
+	for _, e := range p.Future {
+		if !e.Effect.FromPast {
+			continue
+		}
+		var est, se []float64
+		for _, c := range p.Cleaning {
+			if c.ID == e.ID {
+				est, se = append(est, c.Effect), append(se, c.StdErr)
+			}
+		}
+		if len(est) == 0 {
+			continue
+		}
+		mean := Total(est) / float64(len(est))
+		s := se[0]
+		if len(est) > 1 {
+			ss := 0.0
+			for _, v := range est {
+				ss += (v - mean) * (v - mean)
+			}
+			s = math.Sqrt(ss / float64(len(est)-1))
+		}
+		e.Effect = Effect{Units: mean, FromPast: true}
+		e.Range = &Range{Low: mean - 1.645*s, High: mean + 1.645*s}
+		p.Notes = append(p.Notes, fmt.Sprintf("event %q: effect learnt from %d past occurrence(s): %.0f per period, 90%% range %.0f to %.0f",
+			e.ID, len(est), mean, e.Range.Low, e.Range.High))
+	}
+}
+
+func digest(path string) (string, error) {
+	b, err := os.ReadFile(path)
+	if err != nil {
+		return "", err
+	}
+	sum := sha256.Sum256(b)
+	return "sha256:" + hex.EncodeToString(sum[:]), nil
+}
