@@ -138,15 +138,16 @@ func (m *movingAverageModel) Params() Params    { return simpleNoParams() }
 func (m *movingAverageModel) Fitted() []float64 { return append([]float64(nil), m.fitted...) }
 
 // Describe gives "window k" for the plain average and "weights
-// w1/w2/.../wk" (oldest first, three significant digits, ", fitted" when
-// estimated) for the weighted one.
+// w1/w2/.../wk" (oldest first, three decimals with trailing zeros dropped,
+// ", fitted" when estimated) for the weighted one.
 func (m *movingAverageModel) Describe() string {
 	if m.method == MovingAverage {
 		return fmt.Sprintf("window %d", len(m.weights))
 	}
 	parts := make([]string, len(m.weights))
 	for i, v := range m.weights {
-		parts[i] = strconv.FormatFloat(v, 'g', 3, 64)
+		p := strings.TrimRight(strconv.FormatFloat(v, 'f', 3, 64), "0")
+		parts[i] = strings.TrimSuffix(p, ".")
 	}
 	s := "weights " + strings.Join(parts, "/")
 	if m.fit {
