@@ -60,7 +60,7 @@ func fitMovingAverage(y []float64, cfg Config) (Model, error) {
 //
 // a small convex quadratic programme solved exactly by a primal active-set
 // method (Nocedal & Wright, Numerical Optimization, 2nd ed., Algorithm
-// 16.3). A ridge of 1e-10 times the mean diagonal of the normal matrix
+// 16.3, cited from memory). A ridge of 1e-10 times the mean diagonal of the normal matrix
 // keeps the problem strictly convex, so collinear windows (a constant
 // series, say) get a unique answer.
 //
