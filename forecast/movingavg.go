@@ -60,9 +60,9 @@ func fitMovingAverage(y []float64, cfg Config) (Model, error) {
 //
 // a small convex quadratic programme solved exactly by a primal active-set
 // method (Nocedal & Wright, Numerical Optimization, 2nd ed., Algorithm
-// 16.3, cited from memory). A ridge of 1e-10 times the mean diagonal of the normal matrix
-// keeps the problem strictly convex, so collinear windows (a constant
-// series, say) get a unique answer.
+// 16.3, cited from memory). A ridge of 1e-10 times the mean diagonal of
+// the normal matrix keeps the problem strictly convex, so collinear windows
+// (a constant series, say) get a unique answer.
 //
 // Fitted[t] is NaN for t < k. It returns an error if cfg.Window is
 // negative, if a weight is negative, NaN or infinite, if all weights are
