@@ -58,7 +58,7 @@ func TestCrostonByHand(t *testing.T) {
 			if got := m.Fitted(); !simpleSameFloats(got, tc.wantFitted, tc.tol) {
 				t.Errorf("Fitted = %v,\nwant %v", got, tc.wantFitted)
 			}
-			if got := m.Filter(simpleDemand); !simpleSameFloats(got, tc.wantFitted, tc.tol) {
+			if got := m.Extend(simpleDemand).Fitted(); !simpleSameFloats(got, tc.wantFitted, tc.tol) {
 				t.Errorf("Filter = %v,\nwant %v", got, tc.wantFitted)
 			}
 			want := []float64{tc.wantForecast, tc.wantForecast, tc.wantForecast}
@@ -99,7 +99,7 @@ func TestCrostonFilterOtherData(t *testing.T) {
 	y[6] = 6
 	n := simpleNaN
 	want := []float64{n, n, n, 5.0 / 3, 5.0 / 3, 5.0 / 3, 5.0 / 3, 5.1 / 3.1, 5.1 / 3.1, 4.99 / 2.99}
-	if got := m.Filter(y); !simpleSameFloats(got, want, 1e-12) {
+	if got := m.Extend(y).Fitted(); !simpleSameFloats(got, want, 1e-12) {
 		t.Errorf("Filter = %v,\nwant %v", got, want)
 	}
 }

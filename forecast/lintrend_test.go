@@ -43,7 +43,7 @@ func TestLinearTrendByHand(t *testing.T) {
 		t.Errorf("NumParams = %d, want 2", m.NumParams())
 	}
 	// Filter holds the coefficients: the line depends on t only.
-	if want, got := []float64{1, 3, 5, 7, 9}, m.Filter([]float64{0, 0, 0, 0, 0}); !simpleSameFloats(got, want, tol) {
+	if want, got := []float64{1, 3, 5, 7, 9}, m.Extend([]float64{0, 0, 0, 0, 0}).Fitted(); !simpleSameFloats(got, want, tol) {
 		t.Errorf("Filter = %v, want %v", got, want)
 	}
 }
@@ -104,7 +104,7 @@ func TestLinearTrendStatsmodels(t *testing.T) {
 			if got := m.Fitted(); !simpleSameFloats(got, tc.Fitted, tol) {
 				t.Errorf("Fitted differs from statsmodels fittedvalues")
 			}
-			if got := m.Filter(tc.Y); !simpleSameFloats(got, tc.Fitted, tol) {
+			if got := m.Extend(tc.Y).Fitted(); !simpleSameFloats(got, tc.Fitted, tol) {
 				t.Errorf("Filter(y) differs from statsmodels fittedvalues")
 			}
 			if got := m.Forecast(g.Horizon); !simpleSameFloats(got, tc.Forecast, tol) {

@@ -78,7 +78,7 @@ func TestMovingAverage(t *testing.T) {
 			if got := m.Fitted(); !simpleSameFloats(got, tc.wantFitted, tc.tol) {
 				t.Errorf("Fitted = %v, want %v", got, tc.wantFitted)
 			}
-			if got := m.Filter(y); !simpleSameFloats(got, tc.wantFitted, tc.tol) {
+			if got := m.Extend(y).Fitted(); !simpleSameFloats(got, tc.wantFitted, tc.tol) {
 				t.Errorf("Filter = %v, want %v", got, tc.wantFitted)
 			}
 			want := []float64{tc.wantForecast, tc.wantForecast, tc.wantForecast}
@@ -214,11 +214,11 @@ func TestWMAFilterOtherData(t *testing.T) {
 	}
 	// Weights 0.2/0.4/0.4: 0.2*1 + 0.4*2 + 0.4*3 = 2.2; 0.2*2 + 0.4*3 + 0.4*4 = 3.2.
 	want := []float64{simpleNaN, simpleNaN, simpleNaN, 2.2, 3.2}
-	if got := m.Filter([]float64{1, 2, 3, 4, 5}); !simpleSameFloats(got, want, 1e-14) {
+	if got := m.Extend([]float64{1, 2, 3, 4, 5}).Fitted(); !simpleSameFloats(got, want, 1e-14) {
 		t.Errorf("Filter = %v, want %v", got, want)
 	}
 	// Shorter than the window: no prediction at all.
-	if got := m.Filter([]float64{1, 2}); !simpleSameFloats(got, []float64{simpleNaN, simpleNaN}, 0) {
+	if got := m.Extend([]float64{1, 2}).Fitted(); !simpleSameFloats(got, []float64{simpleNaN, simpleNaN}, 0) {
 		t.Errorf("Filter(short) = %v, want all NaN", got)
 	}
 }

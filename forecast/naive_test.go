@@ -47,7 +47,7 @@ func TestNaive(t *testing.T) {
 	if got := m.Fitted(); !simpleSameFloats(got, wantFitted, tol) {
 		t.Errorf("Fitted = %v, want %v", got, wantFitted)
 	}
-	if got := m.Filter(y); !simpleSameFloats(got, wantFitted, tol) {
+	if got := m.Extend(y).Fitted(); !simpleSameFloats(got, wantFitted, tol) {
 		t.Errorf("Filter(y) = %v, want %v", got, wantFitted)
 	}
 	if got := m.Forecast(3); !simpleSameFloats(got, wantForecast, tol) {
@@ -121,7 +121,7 @@ func TestSeasonalNaive(t *testing.T) {
 			if got := m.Fitted(); !simpleSameFloats(got, tc.wantFitted, tc.tol) {
 				t.Errorf("Fitted = %v, want %v", got, tc.wantFitted)
 			}
-			if got := m.Filter(tc.y); !simpleSameFloats(got, tc.wantFitted, tc.tol) {
+			if got := m.Extend(tc.y).Fitted(); !simpleSameFloats(got, tc.wantFitted, tc.tol) {
 				t.Errorf("Filter = %v, want %v", got, tc.wantFitted)
 			}
 			if got := m.Forecast(tc.h); !simpleSameFloats(got, tc.wantForecast, tc.tol) {
