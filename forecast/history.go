@@ -201,6 +201,8 @@ type historyReader struct {
 
 	long   bool
 	header []cell
+	// indices of the key columns of the long layout
+	seriesCol, periodCol, valueCol int
 	// field names of the period and value columns, for ParseError.Field
 	periodField, valueField, seriesField string
 	rows                                 []*row
@@ -270,7 +272,7 @@ func (hr *historyReader) readRows(r io.Reader) error {
 				csv.ErrFieldCount, len(cells), hr.header[0].line, len(hr.header)))
 		}
 		if hr.long {
-			rw := &row{label: cells[hr.periodIdx()], series: cells[hr.seriesIdx()], values: []cell{cells[hr.valueIdx()]}}
+			rw := &row{label: cells[hr.periodCol], series: cells[hr.seriesCol], values: []cell{cells[hr.valueCol]}}
 			if err := hr.parseRow(rw); err != nil {
 				return err
 			}
@@ -304,20 +306,6 @@ func (hr *historyReader) readRows(r io.Reader) error {
 	return nil
 }
 
-// Column indices of the long layout, kept in the header's cells' order.
-func (hr *historyReader) periodIdx() int { return hr.keyIdx("period") }
-func (hr *historyReader) seriesIdx() int { return hr.keyIdx("series") }
-func (hr *historyReader) valueIdx() int  { return hr.keyIdx("value") }
-
-func (hr *historyReader) keyIdx(key string) int {
-	for i, c := range hr.header {
-		if strings.EqualFold(c.text, key) {
-			return i
-		}
-	}
-	panic("forecast: no " + key + " column") // readHeader checked
-}
-
 // readHeader decides the layout from the header row.
 func (hr *historyReader) readHeader(cells []cell) error {
 	first := map[string]int{} // lower-case name -> index of first cell
@@ -341,9 +329,10 @@ func (hr *historyReader) readHeader(cells []cell) error {
 			}
 		}
 		hr.header = cells
-		hr.seriesField = cells[first["series"]].text
-		hr.periodField = cells[first["period"]].text
-		hr.valueField = cells[first["value"]].text
+		hr.seriesCol, hr.periodCol, hr.valueCol = first["series"], first["period"], first["value"]
+		hr.seriesField = cells[hr.seriesCol].text
+		hr.periodField = cells[hr.periodCol].text
+		hr.valueField = cells[hr.valueCol].text
 		return nil
 	case strings.EqualFold(cells[0].text, "period"):
 		seen := map[string]int{strings.ToLower(cells[0].text): 0}
