@@ -45,7 +45,10 @@ func PeriodOf(f Frequency, t time.Time) Period {
 	panic("forecast: PeriodOf with unknown frequency")
 }
 
-func dayNumber(t time.Time) int { return int(t.Sub(epoch).Hours()) / 24 }
+// dayNumber returns the number of days from 1970-01-01 to the day of t (a
+// midnight UTC). It works from Unix seconds rather than a time.Duration,
+// which saturates about 292 years from the epoch.
+func dayNumber(t time.Time) int { return floorDiv(int(t.Unix()), 86400) }
 
 // Add returns the period h steps after p (before it when h < 0).
 func (p Period) Add(h int) Period {

@@ -1,0 +1,652 @@
+// # History files
+//
+// ReadHistory reads the past values of one or more series from a CSV file
+// (RFC 4180, comma delimiter). A UTF-8 byte order mark at the start is
+// skipped, and so is every blank row (empty, spaces only, or only empty
+// cells). The first row left is the header; its cells are compared with
+// spaces trimmed and case ignored. It decides the layout:
+//
+// Long layout: the header has the columns series, period and value, in any
+// order. Other columns (a note, say) are ignored. Each row holds one value of
+// one series; the series appear in the order of their first row:
+//
+//	series,period,value,note
+//	north,2026-01,120,
+//	north,2026-02,131,promotion
+//	south,2026-01,88,
+//
+// Wide layout: otherwise, when the first column is period. Each other column
+// is one series, named by its header cell (kept as written, spaces trimmed;
+// an empty or repeated name is an error), in column order. A series may start
+// later or stop earlier than the others: empty cells before its first value
+// and after its last one are not part of it.
+//
+//	period,north,south
+//	2026-01,120,
+//	2026-02,131,88
+//
+// Any other header is an error naming the header line.
+//
+// # Periods
+//
+// A period label is one of
+//
+//	2026        a year
+//	2026-Q1     a quarter
+//	2026-03     a month
+//	2026-W11    an ISO 8601 week (Monday to Sunday)
+//	2026-03-15  a day, or the first day of a week
+//
+// All labels of a file have the same form. Unless ReadOptions.Freq says
+// otherwise, the form gives the frequency. Dates are days, except when the
+// smallest spacing between consecutive dates of a series, across all series
+// of the file, is a multiple of 7 days: then they are weeks, each starting on
+// its date, and every date of the file must fall on the weekday of the first
+// one. ReadOptions.Freq may ask for the frequency the labels have, or for
+// weeks when the labels are dates (each week then starts on its date, as
+// above); any other choice is an error, since forcing a coarser frequency
+// would need the values to be added up first, and a finer one cannot be had.
+//
+// Within a series the periods must increase, each at most once. A series
+// runs from its first value to its last one: in both layouts, missing values
+// (see below) before the first and after the last are dropped, and a series
+// with no value at all is an error. A period inside that run that has no
+// row, or whose value is missing, is a gap: an error, unless ReadOptions.Fill
+// says how to fill it (see FillMode). A gap of more than 10000 periods is an
+// error even then.
+//
+// # Values
+//
+// A value cell is read with strconv.ParseFloat after trimming spaces.
+// Negative values are allowed. An empty cell, NaN or an infinity is a
+// missing value (ErrEmptyCell when it is an error); other text that is not a
+// number is an error wrapping ErrBadNumber.
+//
+// # Errors
+//
+// Every error about the content of the file is a *ParseError whose File is
+// the name given to ReadHistory, with the 1-based line and column (in bytes,
+// after a byte order mark) of the offending cell, Field set to the header of
+// its column (empty for errors in the header), and Err wrapping one of the sentinels ErrMissingColumn,
+// ErrDuplicateColumn, ErrBadPeriod, ErrBadNumber, ErrEmptyCell,
+// ErrDuplicatePeriod, ErrUnsorted, ErrGap or ErrNoSeries, or, for a row
+// that is not valid CSV or has the wrong number of cells, the error of
+// encoding/csv (such as csv.ErrQuote or csv.ErrFieldCount). When a file
+// has several problems, the first one met is reported; the order and gap
+// checks, which need a whole series, report the earliest cell in the file.
+// An error from the io.Reader itself is returned wrapped as it is.
+package forecast
+
+import (
+	"bufio"
+	"bytes"
+	"cmp"
+	"encoding/csv"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"slices"
+	"strconv"
+	"strings"
+)
+
+// ErrDuplicateColumn is returned (wrapped) when a header names the same
+// column twice: a key column of the long layout, or a series of the wide
+// layout.
+var ErrDuplicateColumn = errors.New("duplicate column")
+
+// maxFillGap is the longest gap, in periods, that a fill mode may close.
+const maxFillGap = 10000
+
+// ReadOptions tells ReadHistory how to read periods and gaps. The zero value
+// infers the frequency and rejects gaps.
+type ReadOptions struct {
+	// Freq forces the frequency of the file. FreqUnknown (the zero value)
+	// infers it from the labels.
+	Freq Frequency
+	// Fill says what to do with gaps. FillNone (the zero value) makes them
+	// errors.
+	Fill FillMode
+}
+
+// A History is the content of one history file.
+type History struct {
+	// File is the name the file was read under, as given to ReadHistory.
+	File string
+	// Layout is "wide" or "long".
+	Layout string
+	// Series holds the series in file order (column order for the wide
+	// layout, order of first appearance for the long one). Each has at least
+	// one value and no gaps.
+	Series []Series
+	// Filled lists every value that a fill mode made up, by series in the
+	// order of Series and then by period. It is nil when nothing was filled.
+	Filled []Filled
+}
+
+// Lookup returns the series called name. An empty name picks the only
+// series of a file that has exactly one. When no series matches it returns
+// an error wrapping ErrNoSeries whose message lists the series of the file.
+func (h *History) Lookup(name string) (Series, error) {
+	if name == "" && len(h.Series) == 1 {
+		return h.Series[0], nil
+	}
+	names := make([]string, len(h.Series))
+	for i, s := range h.Series {
+		if s.Name == name {
+			return s, nil
+		}
+		names[i] = strconv.Quote(s.Name)
+	}
+	if name == "" {
+		return Series{}, fmt.Errorf("%w: %s holds %d series, name one of %s", ErrNoSeries, h.File, len(h.Series), strings.Join(names, ", "))
+	}
+	return Series{}, fmt.Errorf("%w %q in %s (it has %s)", ErrNoSeries, name, h.File, strings.Join(names, ", "))
+}
+
+// ReadHistory reads a history file in the format described in the package
+// documentation (see "History files"). The name is used in error messages
+// only. It panics if opt.Freq or opt.Fill is not one of the defined
+// constants; every problem with the data comes back as an error.
+func ReadHistory(r io.Reader, name string, opt ReadOptions) (*History, error) {
+	if opt.Freq < FreqUnknown || opt.Freq > Yearly {
+		panic(fmt.Sprintf("forecast: ReadHistory with %v", opt.Freq))
+	}
+	if opt.Fill < FillNone || opt.Fill > FillInterpolate {
+		panic(fmt.Sprintf("forecast: ReadHistory with %v", opt.Fill))
+	}
+	hr := &historyReader{file: name, opt: opt}
+	if err := hr.readRows(r); err != nil {
+		return nil, err
+	}
+	f, err := hr.frequency()
+	if err != nil {
+		return nil, err
+	}
+	if err := hr.parsePeriods(f); err != nil {
+		return nil, err
+	}
+	return hr.build()
+}
+
+// A cell is one field of the file with its 1-based position.
+type cell struct {
+	text      string // trimmed
+	line, col int
+}
+
+// A row is one data row. For the long layout series holds the series name
+// and values one cell; for the wide layout values holds one cell per series.
+type row struct {
+	period Period
+	label  cell
+	series cell
+	values []cell
+	nums   []float64 // parsed values, NaN when missing
+}
+
+// A column is one series being read: its header (wide layout) and the rows
+// that belong to it, with the index of its value cell in row.values.
+type column struct {
+	name   string
+	header cell
+	rows   []*row
+	vi     []int
+}
+
+type historyReader struct {
+	file string
+	opt  ReadOptions
+
+	long   bool
+	header []cell
+	// indices of the key columns of the long layout
+	seriesCol, periodCol, valueCol int
+	// field names of the period and value columns, for ParseError.Field
+	periodField, valueField, seriesField string
+	rows                                 []*row
+	cols                                 []*column
+
+	form     Frequency // frequency of the label form
+	formCell cell      // first label, where the form was set
+}
+
+func (hr *historyReader) errAt(c cell, field string, err error) *ParseError {
+	return &ParseError{File: hr.file, Line: c.line, Column: c.col, Field: field, Err: err}
+}
+
+var utf8BOM = []byte{0xEF, 0xBB, 0xBF}
+
+// readRows reads the header and the raw data rows and sorts the rows into
+// columns.
+func (hr *historyReader) readRows(r io.Reader) error {
+	br := bufio.NewReader(r)
+	if b, err := br.Peek(len(utf8BOM)); err == nil && bytes.Equal(b, utf8BOM) {
+		br.Discard(len(utf8BOM))
+	}
+	cr := csv.NewReader(br)
+	cr.FieldsPerRecord = -1 // checked here, so that blank rows of any width pass
+	cr.TrimLeadingSpace = true
+	var (
+		byName  = map[string]*column{}
+		lastRow int // line of the last row read, for the no-data error
+	)
+	for {
+		rec, err := cr.Read()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			var pe *csv.ParseError
+			if errors.As(err, &pe) {
+				return &ParseError{File: hr.file, Line: pe.Line, Column: pe.Column, Err: pe.Err}
+			}
+			return fmt.Errorf("%s: %w", hr.file, err)
+		}
+		cells := make([]cell, len(rec))
+		blank := true
+		for i, s := range rec {
+			line, col := cr.FieldPos(i)
+			cells[i] = cell{text: strings.TrimSpace(s), line: line, col: col}
+			if cells[i].text != "" {
+				blank = false
+			}
+		}
+		if blank {
+			continue
+		}
+		lastRow = cells[0].line
+		if hr.header == nil {
+			if err := hr.readHeader(cells); err != nil {
+				return err
+			}
+			continue
+		}
+		if len(cells) != len(hr.header) {
+			c := cell{line: cells[0].line, col: 1}
+			if len(cells) > len(hr.header) {
+				c = cells[len(hr.header)]
+			}
+			return hr.errAt(c, "", fmt.Errorf("%w: %d cells, but the header (line %d) has %d",
+				csv.ErrFieldCount, len(cells), hr.header[0].line, len(hr.header)))
+		}
+		if hr.long {
+			rw := &row{label: cells[hr.periodCol], series: cells[hr.seriesCol], values: []cell{cells[hr.valueCol]}}
+			if err := hr.parseRow(rw); err != nil {
+				return err
+			}
+			c := byName[rw.series.text]
+			if c == nil {
+				c = &column{name: rw.series.text, header: rw.series}
+				byName[c.name] = c
+				hr.cols = append(hr.cols, c)
+			}
+			c.rows = append(c.rows, rw)
+			c.vi = append(c.vi, 0)
+			hr.rows = append(hr.rows, rw)
+		} else {
+			rw := &row{label: cells[0], values: cells[1:]}
+			if err := hr.parseRow(rw); err != nil {
+				return err
+			}
+			for i, c := range hr.cols {
+				c.rows = append(c.rows, rw)
+				c.vi = append(c.vi, i)
+			}
+			hr.rows = append(hr.rows, rw)
+		}
+	}
+	if hr.header == nil {
+		return &ParseError{File: hr.file, Err: fmt.Errorf("%w: the file is empty", ErrNoSeries)}
+	}
+	if len(hr.rows) == 0 {
+		return &ParseError{File: hr.file, Line: lastRow, Err: fmt.Errorf("%w: no data rows after the header", ErrNoSeries)}
+	}
+	return nil
+}
+
+// readHeader decides the layout from the header row.
+func (hr *historyReader) readHeader(cells []cell) error {
+	first := map[string]int{} // lower-case name -> index of first cell
+	for i, c := range cells {
+		k := strings.ToLower(c.text)
+		if _, ok := first[k]; !ok {
+			first[k] = i
+		}
+	}
+	_, hasSeries := first["series"]
+	_, hasValue := first["value"]
+	_, hasPeriod := first["period"]
+	switch {
+	case hasSeries && hasPeriod && hasValue:
+		hr.long = true
+		for _, key := range []string{"series", "period", "value"} {
+			for _, c := range cells[first[key]+1:] {
+				if strings.EqualFold(c.text, key) {
+					return hr.errAt(c, "", fmt.Errorf("%w: %q is already column %d", ErrDuplicateColumn, c.text, first[key]+1))
+				}
+			}
+		}
+		hr.header = cells
+		hr.seriesCol, hr.periodCol, hr.valueCol = first["series"], first["period"], first["value"]
+		hr.seriesField = cells[hr.seriesCol].text
+		hr.periodField = cells[hr.periodCol].text
+		hr.valueField = cells[hr.valueCol].text
+		return nil
+	case strings.EqualFold(cells[0].text, "period"):
+		seen := map[string]int{strings.ToLower(cells[0].text): 0}
+		for i, c := range cells[1:] {
+			if c.text == "" {
+				return hr.errAt(c, "", fmt.Errorf("%w: column %d has no series name", ErrMissingColumn, i+2))
+			}
+			k := c.text
+			if strings.EqualFold(k, "period") {
+				k = "period"
+			}
+			if j, ok := seen[k]; ok {
+				return hr.errAt(c, "", fmt.Errorf("%w: %q is already column %d", ErrDuplicateColumn, c.text, j+1))
+			}
+			seen[k] = i + 1
+			hr.cols = append(hr.cols, &column{name: c.text, header: c})
+		}
+		if len(hr.cols) == 0 {
+			return hr.errAt(cells[0], "", fmt.Errorf("%w: the header has a period column but no series columns", ErrNoSeries))
+		}
+		hr.header = cells
+		hr.periodField = cells[0].text
+		return nil
+	}
+	texts := make([]string, len(cells))
+	for i, c := range cells {
+		texts[i] = c.text
+	}
+	return hr.errAt(cell{line: cells[0].line, col: 1}, "", fmt.Errorf(
+		"%w: header %q: want columns series, period and value (long layout), or period first and then one column per series (wide layout)",
+		ErrMissingColumn, strings.Join(texts, ",")))
+}
+
+// fieldOf returns the header of value cell i of a row.
+func (hr *historyReader) fieldOf(i int) string {
+	if hr.long {
+		return hr.valueField
+	}
+	return hr.cols[i].name
+}
+
+// parseRow checks the series name (long layout) and the label form of a
+// data row and reads its numbers, cell by cell from the left.
+func (hr *historyReader) parseRow(rw *row) error {
+	type check struct {
+		c   cell
+		run func() error
+	}
+	checks := []check{{rw.label, func() error { return hr.parseLabel(rw) }}}
+	if hr.long {
+		checks = append(checks, check{rw.series, func() error {
+			if rw.series.text == "" {
+				return hr.errAt(rw.series, hr.seriesField, fmt.Errorf("%w: no series name", ErrEmptyCell))
+			}
+			return nil
+		}})
+	}
+	rw.nums = make([]float64, len(rw.values))
+	for i, c := range rw.values {
+		checks = append(checks, check{c, func() error {
+			v, err := parseValue(c.text)
+			if err != nil {
+				return hr.errAt(c, hr.fieldOf(i), err)
+			}
+			rw.nums[i] = v
+			return nil
+		}})
+	}
+	slices.SortStableFunc(checks, func(a, b check) int {
+		return cmp.Or(cmp.Compare(a.c.line, b.c.line), cmp.Compare(a.c.col, b.c.col))
+	})
+	for _, ch := range checks {
+		if err := ch.run(); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// parseLabel checks the label of a row against the form of the labels
+// before it.
+func (hr *historyReader) parseLabel(rw *row) error {
+	if rw.label.text == "" {
+		return hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: no period label", ErrBadPeriod))
+	}
+	lf, err := LabelFrequency(rw.label.text)
+	if err != nil {
+		return hr.errAt(rw.label, hr.periodField, err)
+	}
+	// Check the label itself (a month 13, a 30 February, a week 53
+	// that does not exist) in its own frequency.
+	if _, err := ParsePeriod(rw.label.text, lf); err != nil {
+		return hr.errAt(rw.label, hr.periodField, err)
+	}
+	if hr.form == FreqUnknown {
+		hr.form, hr.formCell = lf, rw.label
+	} else if lf != hr.form {
+		return hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: %q is %s, but the labels before it are %s (line %d)",
+			ErrBadPeriod, rw.label.text, labelKind(lf, false), labelKind(hr.form, true), hr.formCell.line))
+	}
+	return nil
+}
+
+// parseValue reads one value cell; a missing value gives NaN.
+func parseValue(s string) (float64, error) {
+	if s == "" {
+		return math.NaN(), nil
+	}
+	v, err := strconv.ParseFloat(s, 64)
+	if err != nil {
+		var ne *strconv.NumError
+		if errors.As(err, &ne) && ne.Err == strconv.ErrRange {
+			return 0, fmt.Errorf("%w: %q is out of range", ErrBadNumber, s)
+		}
+		return 0, fmt.Errorf("%w: %q", ErrBadNumber, s)
+	}
+	if math.IsInf(v, 0) {
+		return math.NaN(), nil
+	}
+	return v, nil
+}
+
+// labelKind names a label form for messages: "a month" or "months".
+func labelKind(f Frequency, plural bool) string {
+	one := map[Frequency][2]string{
+		Daily:     {"a date", "dates"},
+		Weekly:    {"an ISO week", "ISO weeks"},
+		Monthly:   {"a month", "months"},
+		Quarterly: {"a quarter", "quarters"},
+		Yearly:    {"a year", "years"},
+	}[f]
+	if plural {
+		return one[1]
+	}
+	return one[0]
+}
+
+// frequency returns the frequency of the file: the forced one if it fits
+// the labels, else the one the labels give.
+func (hr *historyReader) frequency() (Frequency, error) {
+	if f := hr.opt.Freq; f != FreqUnknown {
+		if f == hr.form || f == Weekly && hr.form == Daily {
+			return f, nil
+		}
+		how := "aggregate first"
+		if f < hr.form {
+			how = fmt.Sprintf("%s cannot be split into %ss", labelKind(hr.form, true), f)
+		}
+		return 0, hr.errAt(hr.formCell, hr.periodField, fmt.Errorf("%w: labels are %s but --period %s was asked; %s",
+			ErrBadPeriod, labelKind(hr.form, true), f, how))
+	}
+	if hr.form != Daily {
+		return hr.form, nil
+	}
+	// Dates: the smallest spacing between consecutive dates of a series
+	// decides between days and weeks.
+	minGap := 0
+	for _, c := range hr.cols {
+		for i := 1; i < len(c.rows); i++ {
+			a, _ := ParsePeriod(c.rows[i-1].label.text, Daily)
+			b, _ := ParsePeriod(c.rows[i].label.text, Daily)
+			if d := b.Sub(a); d > 0 && (minGap == 0 || d < minGap) {
+				minGap = d
+			}
+		}
+	}
+	if minGap > 0 && minGap%7 == 0 {
+		return Weekly, nil
+	}
+	return Daily, nil
+}
+
+// parsePeriods reads every label in frequency f.
+func (hr *historyReader) parsePeriods(f Frequency) error {
+	var anchor Period // first week, for the weekday check
+	for _, rw := range hr.rows {
+		p, err := ParsePeriod(rw.label.text, f)
+		if err != nil {
+			return hr.errAt(rw.label, hr.periodField, err) // not reached: checked before
+		}
+		if f == Weekly && hr.form == Daily {
+			if anchor.IsZero() {
+				anchor = p
+			} else if wa, wp := anchor.Start().Weekday(), p.Start().Weekday(); wa != wp {
+				return hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: %s is a %s, but the weeks of this file start on %s (line %d)",
+					ErrBadPeriod, rw.label.text, wp, wa, hr.formCell.line))
+			}
+		}
+		rw.period = p
+	}
+	return nil
+}
+
+// earliest keeps the error at the smaller (line, column).
+func earliest(a, b *ParseError) *ParseError {
+	if a == nil || b != nil && (b.Line < a.Line || b.Line == a.Line && b.Column < a.Column) {
+		return b
+	}
+	return a
+}
+
+// forSeries names the series in a message of the long layout.
+func (hr *historyReader) forSeries(c *column) string {
+	if hr.long {
+		return fmt.Sprintf(" of series %q", c.name)
+	}
+	return ""
+}
+
+// build checks order and gaps, fills, and assembles the History.
+func (hr *historyReader) build() (*History, error) {
+	// Order: periods increase within each series.
+	var first *ParseError
+	for _, c := range hr.cols {
+		seen := map[Period]int{}
+		for i, rw := range c.rows {
+			if l, ok := seen[rw.period]; ok {
+				first = earliest(first, hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w %s%s (first on line %d)",
+					ErrDuplicatePeriod, rw.period, hr.forSeries(c), l)))
+				break
+			}
+			seen[rw.period] = rw.label.line
+			if i == 0 {
+				continue
+			}
+			if prev := c.rows[i-1]; rw.period.Before(prev.period) {
+				first = earliest(first, hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: %s%s comes after %s (line %d)",
+					ErrUnsorted, rw.period, hr.forSeries(c), prev.period, prev.label.line)))
+				break
+			}
+		}
+	}
+	if first != nil {
+		return nil, first
+	}
+
+	h := &History{File: hr.file, Layout: "wide"}
+	if hr.long {
+		h.Layout = "long"
+	}
+	for _, c := range hr.cols {
+		s, filled, err := hr.series(c)
+		if err != nil {
+			first = earliest(first, err)
+			continue
+		}
+		h.Series = append(h.Series, s)
+		h.Filled = append(h.Filled, filled...)
+	}
+	if first != nil {
+		return nil, first
+	}
+	return h, nil
+}
+
+// series turns one column into a Series, checking and filling its gaps.
+func (hr *historyReader) series(c *column) (Series, []Filled, *ParseError) {
+	lo, hi := -1, -1 // first and last row with a value
+	for i, rw := range c.rows {
+		if !math.IsNaN(rw.nums[c.vi[i]]) {
+			if lo < 0 {
+				lo = i
+			}
+			hi = i
+		}
+	}
+	if lo < 0 {
+		at, field := c.header, hr.periodField
+		if hr.long {
+			at, field = c.rows[0].values[0], hr.valueField
+		} else {
+			field = ""
+		}
+		return Series{}, nil, hr.errAt(at, field, fmt.Errorf("%w: series %q has no values", ErrEmptyCell, c.name))
+	}
+	rows, vi := c.rows[lo:hi+1], c.vi[lo:hi+1]
+	start := rows[0].period
+	n := rows[len(rows)-1].period.Sub(start) + 1
+	values := make([]float64, n)
+	lines := make([]int, n)
+	for k := range values {
+		values[k] = math.NaN()
+	}
+	for i, rw := range rows {
+		if i > 0 {
+			prev := rows[i-1]
+			d := rw.period.Sub(prev.period)
+			if d > maxFillGap && hr.opt.Fill != FillNone {
+				return Series{}, nil, hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: %d periods%s from %s to %s (between line %d and %d); too long to fill",
+					ErrGap, d-1, hr.forSeries(c), prev.period.Add(1), rw.period.Add(-1), prev.label.line, rw.label.line))
+			}
+			if d > 1 && hr.opt.Fill == FillNone {
+				what := fmt.Sprintf("value for %s", prev.period.Add(1))
+				if d > 2 {
+					what = fmt.Sprintf("values for %s to %s", prev.period.Add(1), rw.period.Add(-1))
+				}
+				return Series{}, nil, hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: no %s%s (between line %d and %d); use --fill zero|interpolate",
+					ErrGap, what, hr.forSeries(c), prev.label.line, rw.label.line))
+			}
+		}
+		k := rw.period.Sub(start)
+		v := rw.nums[vi[i]]
+		if math.IsNaN(v) && hr.opt.Fill == FillNone {
+			return Series{}, nil, hr.errAt(rw.values[vi[i]], hr.fieldOf(vi[i]), fmt.Errorf("%w for %s inside series %q (a %w); use --fill zero|interpolate",
+				ErrEmptyCell, rw.period, c.name, ErrGap))
+		}
+		values[k] = v
+		lines[k] = rw.label.line
+	}
+	var filled []Filled
+	if hr.opt.Fill != FillNone {
+		for _, k := range fillInterior(values, hr.opt.Fill) {
+			filled = append(filled, Filled{Series: c.name, Period: start.Add(k), Value: values[k], Line: lines[k]})
+		}
+	}
+	return Series{Name: c.name, Start: start, Values: values}, filled, nil
+}
