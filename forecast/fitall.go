@@ -1,6 +1,7 @@
 package forecast
 
 import (
+	"fmt"
 	"runtime"
 	"sync"
 )
@@ -28,8 +29,7 @@ func FitAll(series []Series, spec Spec, workers int) []Outcome {
 		go func() {
 			defer wg.Done()
 			for i := range next {
-				r, err := Fit(series[i], spec)
-				out[i] = Outcome{Result: r, Err: err}
+				out[i] = fitGuarded(series[i], spec)
 			}
 		}()
 	}
@@ -39,4 +39,17 @@ func FitAll(series []Series, spec Spec, workers int) []Outcome {
 	close(next)
 	wg.Wait()
 	return out
+}
+
+// fitGuarded fits one series and turns a panic (a bug, never bad data) into
+// an error naming the series, so one bad fit cannot take down a run over
+// thousands of series.
+func fitGuarded(s Series, spec Spec) (oc Outcome) {
+	defer func() {
+		if p := recover(); p != nil {
+			oc = Outcome{Err: fmt.Errorf("series %q: internal error while fitting: %v", s.Name, p)}
+		}
+	}()
+	r, err := Fit(s, spec)
+	return Outcome{Result: r, Err: err}
 }

@@ -7,7 +7,6 @@ import (
 	"io"
 	"os"
 	"strings"
-	"text/tabwriter"
 
 	"github.com/spf13/cobra"
 
@@ -182,13 +181,12 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 	}
 	fmt.Fprintln(w)
 
-	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
-	fmt.Fprintf(tw, "Accuracy%s\tpoints\tMAD\tMSE (/%s)\tRMSE\tMAPE %%\tMASE\tbias\ttracking signal\t\n", unit, r.Accuracy.Divisor)
-	writeAccRow(tw, "in-sample, one step", r.Accuracy)
+	acc := newTable("accuracy"+unit, "points", "MAD", "MSE (/"+r.Accuracy.Divisor.String()+")", "RMSE", "MAPE %", "MASE", "bias", "tracking signal")
+	accRow(acc, "in-sample, one step ahead", r.Accuracy)
 	if bt := r.Backtest; bt != nil {
-		writeAccRow(tw, fmt.Sprintf("backtest, %d origins", bt.Origins), bt.Accuracy)
+		accRow(acc, fmt.Sprintf("backtest, %d origins", bt.Origins), bt.Accuracy)
 	}
-	if err := tw.Flush(); err != nil {
+	if err := acc.write(w); err != nil {
 		return err
 	}
 	if r.Accuracy.MAPESkipped > 0 {
@@ -197,15 +195,14 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 
 	if len(r.Candidates) > 0 {
 		fmt.Fprintln(w)
-		tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-		fmt.Fprintf(tw, "Candidate\tparameters\tMAD\tMSE\tMAPE %%\tMASE\tAICc\t\n")
+		ct := newTable("candidate", "settings", "MAD", "MSE", "MAPE %", "MASE", "AICc").left(1)
 		for _, c := range r.Candidates {
 			mark := "  "
 			if c.Chosen {
 				mark = "* "
 			}
 			if c.Skipped != "" {
-				fmt.Fprintf(tw, "%s%s\tskipped: %s\t\t\t\t\t\t\n", mark, c.Method, c.Skipped)
+				ct.add(mark+c.Method.String(), "skipped: "+c.Skipped)
 				continue
 			}
 			p := paramText(c.Params)
@@ -216,9 +213,9 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 			if a := c.Backtest; a != nil {
 				mad, mse, mape, mase = fmtNum(a.MAD, 1), fmtNum(a.MSE, 0), fmtNum(a.MAPE, 2), fmtNum(a.MASE, 3)
 			}
-			fmt.Fprintf(tw, "%s%s\t%s\t%s\t%s\t%s\t%s\t%s\t\n", mark, c.Method, p, mad, mse, mape, mase, fmtNum(c.AICc, 1))
+			ct.add(mark+c.Method.String(), p, mad, mse, mape, mase, fmtNum(c.AICc, 1))
 		}
-		if err := tw.Flush(); err != nil {
+		if err := ct.write(w); err != nil {
 			return err
 		}
 		if r.Select == forecast.SelectAICc {
@@ -231,18 +228,17 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 	fmt.Fprintln(w)
 	pts := r.Forecast(horizon, b.Z, b.Mode)
 	_, src := r.Variance(horizon, b.Mode)
-	fmt.Fprintf(w, "Forecast%s, band = forecast +- %.3g x standard error (%s; %.1f%% if errors are normal)\n",
+	fmt.Fprintf(w, "Forecast%s; band = forecast +- %.3g x standard error (%s; %.1f%% if errors are normal)\n",
 		unit, b.Z, bandSourceText(src), 100*forecast.Coverage(b.Z))
-	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
-	fmt.Fprintf(tw, "period\tforecast\tlower\tupper\t\n")
+	ft := newTable("period", "forecast", "lower", "upper")
 	for _, p := range pts {
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t\n", p.Period, fmtNum(p.Value, 1), fmtNum(p.Lower, 1), fmtNum(p.Upper, 1))
+		ft.add(p.Period.String(), fmtNum(p.Value, 1), fmtNum(p.Lower, 1), fmtNum(p.Upper, 1))
 	}
-	return tw.Flush()
+	return ft.write(w)
 }
 
-func writeAccRow(w io.Writer, label string, a forecast.Accuracy) {
-	fmt.Fprintf(w, "%s\t%d\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t\n", label, a.N, fmtNum(a.MAD, 1), fmtNum(a.MSE, 0),
+func accRow(t *table, label string, a forecast.Accuracy) {
+	t.add(label, fmt.Sprint(a.N), fmtNum(a.MAD, 1), fmtNum(a.MSE, 0),
 		fmtNum(a.RMSE, 1), fmtNum(a.MAPE, 2), fmtNum(a.MASE, 3), fmtNum(a.Bias, 1), fmtNum(a.TrackingSignal, 2))
 }
 
