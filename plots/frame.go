@@ -149,7 +149,7 @@ func (f *frame) fit(w, h vg.Length) {
 	f.x.width = dw
 	f.x.style = p.X.Tick.Label
 	if f.x.nominal {
-		dw = f.fitNominal(dw)
+		dw = f.fitNominal(dw, h)
 	}
 
 	var room vg.Length
@@ -157,6 +157,9 @@ func (f *frame) fit(w, h vg.Length) {
 		room += t.reserve(dw, room, p.X.Min, p.X.Max)
 	}
 	dh := h - f.titleHeight() - f.xAxisHeight() - vg.Points(4)
+	// Value labels at least two and a half line heights apart.
+	lines := float64(dh / (2.5 * p.Y.Tick.Label.Height("0")))
+	p.Y.Tick.Marker = ValueTicks{Max: int(math.Max(2, math.Min(maxValueTicks, lines)))}
 	if room > 0 && dh > 0 {
 		room = vg.Length(math.Min(float64(room), 0.6*float64(dh)))
 		p.Y.Max = hi + (hi-lo)*float64(room/(dh-room))
@@ -253,11 +256,14 @@ const (
 )
 
 // fitNominal wraps category labels to their slots in a data area dw wide.
-// When even wrapped they do not fit in maxLabelLines lines, it turns them by
-// 30 degrees instead (shortening very long ones with an ellipsis) and, if
-// a label would then run off the left edge, moves the data right. It
+// When even wrapped they do not fit in maxLabelLines lines, it turns them
+// instead, by 30 degrees or more steeply when the slots are narrow (writing
+// only every k-th label if even upright ones would touch), shortens long
+// ones with an ellipsis so none reaches down more than a third of the
+// height h, and, if a label would then run off the left edge, moves the
+// data right. It
 // returns the data area's new width.
-func (f *frame) fitNominal(dw vg.Length) vg.Length {
+func (f *frame) fitNominal(dw, h vg.Length) vg.Length {
 	p := f.p
 	p.Y.Padding = vg.Points(2)
 	p.X.Tick.Label.Rotation = 0
@@ -276,17 +282,39 @@ func (f *frame) fitNominal(dw vg.Length) vg.Length {
 	if !turn {
 		return dw
 	}
-	const angle = math.Pi / 6
 	for i, l := range f.x.labels {
-		if r := []rune(l); len(r) > maxTurnedRunes {
-			l = string(r[:maxTurnedRunes-1]) + "…"
+		f.x.wrapped[i] = shorten(l, maxTurnedRunes)
+	}
+	// Parallel turned labels need a line height between them across the
+	// slant: slot * sin(angle) >= height. Steeper when needed; when even
+	// upright labels do not fit, only every k-th is written.
+	sty := p.X.Tick.Label
+	lh := sty.Height("M") * 1.15
+	angle := math.Pi / 6
+	if float64(slot)*math.Sin(angle) < float64(lh) {
+		angle = math.Asin(math.Min(1, float64(lh/slot)))
+	}
+	if k := int(math.Ceil(float64(lh / slot))); k > 1 {
+		for i := range f.x.wrapped {
+			if i%k != 0 {
+				f.x.wrapped[i] = ""
+			}
+		}
+	}
+	// No label may reach down more than a third of the drawing.
+	for i, l := range f.x.wrapped {
+		for n := len([]rune(l)); n > 4 && sty.Width(l)*vg.Length(math.Sin(angle)) > h/3; n-- {
+			l = shorten(f.x.labels[i], n-1)
 		}
 		f.x.wrapped[i] = l
 	}
 	p.X.Tick.Label.Rotation = angle
 	p.X.Tick.Label.XAlign = draw.XRight
 	p.X.Tick.Label.YAlign = draw.YTop
-	sty := p.X.Tick.Label
+	if angle > math.Pi/3 {
+		p.X.Tick.Label.YAlign = draw.YCenter
+	}
+	sty = p.X.Tick.Label
 	yw := f.yAxisWidth()
 	var over vg.Length
 	for i, l := range f.x.wrapped {
@@ -299,4 +327,14 @@ func (f *frame) fitNominal(dw vg.Length) vg.Length {
 		f.x.width = dw
 	}
 	return dw
+}
+
+// shorten cuts s to at most n characters, ending it with an ellipsis when
+// cut.
+func shorten(s string, n int) string {
+	r := []rune(s)
+	if len(r) <= n {
+		return s
+	}
+	return string(r[:n-1]) + "…"
 }

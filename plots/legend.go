@@ -28,11 +28,11 @@ type legendEntry struct {
 
 // Sizes of the key, in points.
 const (
-	keyThumb  = 26 // thumbnail width
-	keyTextGo = 5  // thumbnail to text
-	keyColGap = 14 // between columns
-	keyPad    = 4  // inside the box
-	keyInset  = 4  // box to the data area's edge
+	keyThumb   = 26 // thumbnail width
+	keyTextGap = 5  // thumbnail to text
+	keyColGap  = 14 // between columns
+	keyPad     = 4  // inside the box
+	keyInset   = 4  // box to the data area's edge
 )
 
 // add appends an entry drawn with thumbs laid over each other.
@@ -50,7 +50,7 @@ func (l *legend) colWidth() vg.Length {
 	for _, e := range l.entries {
 		w = vg.Length(math.Max(float64(w), float64(l.style.Width(e.name))))
 	}
-	return vg.Points(keyThumb+keyTextGo) + w
+	return vg.Points(keyThumb+keyTextGap) + w
 }
 
 // columns returns how many columns fit in width dw.
@@ -108,6 +108,6 @@ func (l *legend) Plot(c draw.Canvas, _ *plot.Plot) {
 		for _, t := range e.thumbs {
 			t.Thumbnail(&thumb)
 		}
-		c.FillText(sty, vg.Point{X: left + vg.Points(keyThumb+keyTextGo), Y: top - rowH/2}, e.name)
+		c.FillText(sty, vg.Point{X: left + vg.Points(keyThumb+keyTextGap), Y: top - rowH/2}, e.name)
 	}
 }

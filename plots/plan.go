@@ -14,8 +14,9 @@ import (
 // line where the forecast starts.
 //
 // Every curve is placed by x position, the index into Labels (see Curve).
-// Bands are drawn first, then windows' edges, then the scenarios, the
-// baseline and the history on top.
+// Windows are drawn first, then all bands, then the scenario lines, the
+// baseline and the history on top, so no band hides a line and the actuals
+// are never covered.
 type PlanChart struct {
 	// Title is the heading above the chart; empty for none.
 	Title string

@@ -65,4 +65,3 @@ func Render(p *plot.Plot, format string, width, height vg.Length) ([]byte, error
 	}
 	return buf.Bytes(), nil
 }
-

@@ -160,14 +160,6 @@ func (s *spans) Plot(c draw.Canvas, p *plot.Plot) {
 	}
 }
 
-// Thumbnail draws a window's key swatch. It implements plot.Thumbnailer.
-func (s *spans) Thumbnail(c *draw.Canvas) {
-	r := inset(c.Rectangle, 4, 0)
-	c.FillPolygon(s.fill, rectPoints(r))
-	c.StrokeLine2(s.edge, r.Min.X, r.Min.Y, r.Min.X, r.Max.Y)
-	c.StrokeLine2(s.edge, r.Max.X, r.Min.Y, r.Max.X, r.Max.Y)
-}
-
 // vmarker is a vertical line at x over the full height of the data area,
 // with a note on either side at the bottom (such as "actuals" and
 // "forecast").

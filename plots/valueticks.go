@@ -11,29 +11,37 @@ import (
 // ValueTicks is a plot.Ticker for value axes. It labels the multiples of a
 // round step, 1, 2 or 5 times a power of ten, writing them with a comma
 // between groups of three digits (540,000; 12,345.5). The step is the
-// smallest such number that gives at most seven labelled ticks in the range:
+// smallest such number that gives at most Max labelled ticks in the range:
 //
 //	step = min { f * 10^e : f in {1, 2, 5}, e an integer,
-//	             floor(max/step) - ceil(min/step) + 1 <= 7 }
+//	             floor(max/step) - ceil(min/step) + 1 <= Max }
 //
 // Labels carry max(0, -e) decimals. Unlabelled minor ticks split each step
 // in five (f = 1 or 5) or in two (f = 2).
 //
 // The zero value is ready to use. Ticks returns no ticks when min or max is
 // not finite or max <= min.
-type ValueTicks struct{}
+type ValueTicks struct {
+	// Max is the most labelled ticks; values below 2 mean the default, 7.
+	// The charts lower it on short axes so labels keep their distance.
+	Max int
+}
 
 var _ plot.Ticker = ValueTicks{}
 
-// maxValueTicks is the most labelled ticks ValueTicks puts on an axis.
+// maxValueTicks is the default most labelled ticks of ValueTicks.
 const maxValueTicks = 7
 
 // Ticks returns the ticks in [min, max].
-func (ValueTicks) Ticks(min, max float64) []plot.Tick {
+func (vt ValueTicks) Ticks(min, max float64) []plot.Tick {
 	if !(max > min) || math.IsInf(min, 0) || math.IsInf(max, 0) {
 		return nil
 	}
-	d, frac, e := niceStep(min, max, maxValueTicks)
+	n := vt.Max
+	if n < 2 {
+		n = maxValueTicks
+	}
+	d, frac, e := niceStep(min, max, n)
 	decimals := max0(-e)
 	minor := d / 5
 	if frac == 2 {
