@@ -31,7 +31,8 @@ type frame struct {
 
 	// lo and hi are the extent of the values on the y axis.
 	lo, hi float64
-	// zero keeps 0 as the bottom (or top) of the value axis, for bars.
+	// zero keeps 0 as the bottom of the value axis when no value is
+	// negative, for bar charts.
 	zero bool
 	// pad is the fraction of the data range added below and above.
 	pad float64
