@@ -1,0 +1,120 @@
+package plots
+
+import (
+	"fmt"
+	"math"
+)
+
+// A Curve is one series on a chart, placed by x position: Values[j] is drawn
+// at x = Start+j, the position of the period label Labels[Start+j] of the
+// chart it belongs to. A curve may carry a band (for example a prediction
+// interval), drawn as a light shaded area between Lower and Upper.
+//
+// The zero Curve has no values; charts either skip it or reject it, as each
+// chart's documentation says.
+type Curve struct {
+	// Name is the text of the curve's legend entry. An empty Name gets the
+	// chart's default ("History", "Baseline", "Scenario 2", ...).
+	Name string
+
+	// Start is the x position of Values[0]. It must be at least 0, and
+	// Start+len(Values) must not exceed the number of labels of the chart.
+	Start int
+
+	// Values are the curve's points, one per period. They must be finite.
+	Values []float64
+
+	// Lower and Upper are the optional band: either both nil (no band) or
+	// both as long as Values, finite, with Lower[j] <= Upper[j]. The band
+	// need not contain Values[j].
+	Lower, Upper []float64
+}
+
+// hasBand reports whether c carries a band.
+func (c Curve) hasBand() bool { return c.Lower != nil || c.Upper != nil }
+
+// check validates c against a chart with n labels. what names the curve in
+// errors. An empty curve is valid here; the chart decides whether it may be
+// empty.
+func (c Curve) check(what string, n int) error {
+	if len(c.Values) == 0 {
+		if c.hasBand() {
+			return fmt.Errorf("%s: band without values: %w", what, ErrLength)
+		}
+		return nil
+	}
+	if c.Start < 0 || c.Start+len(c.Values) > n {
+		return fmt.Errorf("%s: positions %d to %d, but the chart has %d labels: %w",
+			what, c.Start, c.Start+len(c.Values)-1, n, ErrRange)
+	}
+	if err := finite(what+": values", c.Values); err != nil {
+		return err
+	}
+	if !c.hasBand() {
+		return nil
+	}
+	if err := sameLength(what+": lower", c.Lower, len(c.Values), "value"); err != nil {
+		return err
+	}
+	if err := sameLength(what+": upper", c.Upper, len(c.Values), "value"); err != nil {
+		return err
+	}
+	if err := finite(what+": lower", c.Lower); err != nil {
+		return err
+	}
+	if err := finite(what+": upper", c.Upper); err != nil {
+		return err
+	}
+	for j := range c.Lower {
+		if c.Lower[j] > c.Upper[j] {
+			return fmt.Errorf("%s: lower[%d] = %v is above upper[%d] = %v: %w",
+				what, j, c.Lower[j], j, c.Upper[j], ErrOrder)
+		}
+	}
+	return nil
+}
+
+// A Window is a stretch of the x axis to shade and label, such as the periods
+// an event of a scenario covers. Positions are x positions (label indexes),
+// and fractions are allowed: to shade periods 30 to 32 whole, use From 29.5
+// and To 32.5.
+type Window struct {
+	// Label is the short text written at the top of the window. It may be
+	// empty.
+	Label string
+
+	// From and To bound the shaded region [From, To]. Both must be finite
+	// and From <= To. Parts outside the chart's x range are not drawn.
+	From, To float64
+}
+
+// check validates w; what names it in errors.
+func (w Window) check(what string) error {
+	if err := finiteScalar(what+": from", w.From); err != nil {
+		return err
+	}
+	if err := finiteScalar(what+": to", w.To); err != nil {
+		return err
+	}
+	if w.From > w.To {
+		return fmt.Errorf("%s: from %v is after to %v: %w", what, w.From, w.To, ErrOrder)
+	}
+	return nil
+}
+
+// extent returns the smallest and largest finite value over vs (NaN is
+// skipped). ok is false when there is none.
+func extent(vs ...[]float64) (lo, hi float64, ok bool) {
+	lo, hi = math.Inf(1), math.Inf(-1)
+	for _, s := range vs {
+		for _, v := range s {
+			if math.IsNaN(v) || math.IsInf(v, 0) {
+				continue
+			}
+			lo = math.Min(lo, v)
+			hi = math.Max(hi, v)
+			ok = true
+		}
+	}
+	return lo, hi, ok
+}

@@ -1,0 +1,51 @@
+// Package plots draws forelay's charts with gonum.org/v1/plot. It renders
+// only the data it is given: it never reads files and never fits models.
+//
+// Each chart is a plain struct of data with a Plot method that checks the
+// data and returns a *plot.Plot:
+//
+//   - PlanChart: history, baseline, one adjusted plan per scenario, their
+//     bands, event windows shaded and labelled, and where the forecast starts.
+//   - FanChart: Monte Carlo quantiles as nested bands (P5 to P95, P10 to P90)
+//     with the median and mean, an optional capacity step line and history.
+//   - ControlChart: forecast errors around zero with control limits, optional
+//     one and two sigma guides and the points where a rule fired.
+//   - SignalChart: a tracking signal with its plus and minus limits.
+//   - Waterfall: from a starting total through each event's contribution to
+//     the end total.
+//   - StockChart: demand, capacity, build and stock per period.
+//
+// Render turns a plot into PNG or SVG bytes of a given size; the caller
+// writes the file. The same input gives the same bytes.
+//
+// # Positions and labels
+//
+// The x axis of the period charts is a row of labels: Labels[i] names the
+// period at x = i, and every curve says at which x its first value sits. When
+// the labels are period labels (2026, 2026-Q1, 2026-03, 2026-W11 or
+// 2026-03-15) the axis shows those that fall on calendar boundaries (every
+// month, quarter, half year, year, ...), the finest choice whose labels do
+// not overlap at the size rendered, always including the first period of each
+// year while the choice is finer than a year. Other labels are thinned to
+// every k-th. The axis is named after the frequency ("Month", "Week (ISO)").
+//
+// # Look
+//
+// The charts are meant to be read in print and in greyscale. Series differ in
+// colour, in grey level, in dash pattern and in marker shape at once; bands
+// and windows are light translucent tints; decreases in a waterfall are
+// darker and hatched. The key sits in a box above the data, in as many
+// columns as fit, and the value axis is stretched so the key and window
+// labels never cover data. Value ticks fall on round steps and carry
+// thousands separators (540,000). Text is set in the Liberation Sans faces
+// that gonum/plot embeds, so output does not depend on installed fonts.
+//
+// # Errors
+//
+// Bad data comes back as an error from Plot, never a panic: empty labels or
+// series (ErrNoData), NaN or infinite values where a number is needed
+// (ErrNotFinite), slices of the wrong length (ErrLength), positions outside
+// the labels (ErrRange), and bands, windows, quantiles or limits the wrong
+// way round (ErrOrder). NaN is allowed only where a field's documentation
+// says so (a capacity with no limit, an undefined tracking signal).
+package plots

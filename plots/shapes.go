@@ -1,0 +1,327 @@
+package plots
+
+import (
+	"image/color"
+	"math"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/text"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+)
+
+// The plotters below draw the parts of the charts that gonum/plot has no
+// plotter for. They leave the axis ranges to the frame, so none of them
+// reports a data range.
+
+// band fills the area between lo and hi over the x positions xs, and draws
+// the two edges with edge when edge.Width > 0.
+type band struct {
+	xs, lo, hi []float64
+	fill       color.Color
+	edge       draw.LineStyle
+}
+
+// newBand returns the band of a curve-like run of values starting at x0. A
+// single point becomes a narrow block so it stays visible.
+func newBand(x0 int, lo, hi []float64, fill color.Color, edge draw.LineStyle) *band {
+	b := &band{fill: fill, edge: edge}
+	if len(lo) == 1 {
+		x := float64(x0)
+		b.xs = []float64{x - 0.3, x + 0.3}
+		b.lo = []float64{lo[0], lo[0]}
+		b.hi = []float64{hi[0], hi[0]}
+		return b
+	}
+	b.xs = make([]float64, len(lo))
+	for i := range b.xs {
+		b.xs[i] = float64(x0 + i)
+	}
+	b.lo, b.hi = lo, hi
+	return b
+}
+
+// Plot draws the band. It implements plot.Plotter.
+func (b *band) Plot(c draw.Canvas, p *plot.Plot) {
+	trX, trY := p.Transforms(&c)
+	n := len(b.xs)
+	poly := make([]vg.Point, 0, 2*n)
+	top := make([]vg.Point, n)
+	bot := make([]vg.Point, n)
+	for i := range n {
+		top[i] = vg.Point{X: trX(b.xs[i]), Y: trY(b.hi[i])}
+		bot[i] = vg.Point{X: trX(b.xs[i]), Y: trY(b.lo[i])}
+	}
+	poly = append(poly, top...)
+	for i := n - 1; i >= 0; i-- {
+		poly = append(poly, bot[i])
+	}
+	c.FillPolygon(b.fill, c.ClipPolygonXY(poly))
+	if b.edge.Width > 0 {
+		c.StrokeLines(b.edge, c.ClipLinesXY(top)...)
+		c.StrokeLines(b.edge, c.ClipLinesXY(bot)...)
+	}
+}
+
+// Thumbnail draws the band's key swatch. It implements plot.Thumbnailer.
+func (b *band) Thumbnail(c *draw.Canvas) {
+	r := inset(c.Rectangle, 0, 1)
+	c.FillPolygon(b.fill, rectPoints(r))
+	if b.edge.Width > 0 {
+		c.StrokeLine2(b.edge, r.Min.X, r.Max.Y, r.Max.X, r.Max.Y)
+		c.StrokeLine2(b.edge, r.Min.X, r.Min.Y, r.Max.X, r.Min.Y)
+	}
+}
+
+// spans shades the windows of a plan chart over the full height of the data
+// area, edges them with thin lines and writes their labels in rows in the
+// headroom, below the key.
+type spans struct {
+	ws    []Window
+	fill  color.Color
+	edge  draw.LineStyle
+	style text.Style
+
+	rows   []int     // label row of each window, set by reserve
+	offset vg.Length // distance of the first label row below the top
+}
+
+func (s *spans) rowHeight() vg.Length {
+	e := s.style.FontExtents()
+	return e.Ascent + e.Descent + vg.Points(2)
+}
+
+// labelX returns where the label of window w starts, for a data area from x
+// = left to right whose x axis maps x positions with tr.
+func (s *spans) labelX(w Window, tr func(float64) vg.Length, left, right vg.Length) vg.Length {
+	x := vg.Length(math.Max(float64(tr(w.From)), float64(left))) + vg.Points(3)
+	if lw := s.style.Width(w.Label); x+lw > right-vg.Points(2) {
+		x = vg.Length(math.Max(float64(right-vg.Points(2)-lw), float64(left+vg.Points(2))))
+	}
+	return x
+}
+
+// reserve assigns each label the first row where it does not run into an
+// earlier one, and returns the height of the rows.
+func (s *spans) reserve(dw, off vg.Length, xmin, xmax float64) vg.Length {
+	s.offset = off
+	s.rows = make([]int, len(s.ws))
+	tr := func(x float64) vg.Length { return vg.Length((x - xmin) / (xmax - xmin) * float64(dw)) }
+	var ends []vg.Length // right end of the last label in each row
+	used := false
+	for i, w := range s.ws {
+		if w.Label == "" || w.To < xmin || w.From > xmax {
+			s.rows[i] = -1
+			continue
+		}
+		used = true
+		x := s.labelX(w, tr, 0, dw)
+		r := 0
+		for r < len(ends) && ends[r]+vg.Points(6) > x {
+			r++
+		}
+		if r == len(ends) {
+			ends = append(ends, 0)
+		}
+		ends[r] = x + s.style.Width(w.Label)
+		s.rows[i] = r
+	}
+	if !used {
+		return 0
+	}
+	return vg.Length(len(ends))*s.rowHeight() + vg.Points(3)
+}
+
+// Plot draws the windows. It implements plot.Plotter.
+func (s *spans) Plot(c draw.Canvas, p *plot.Plot) {
+	trX, _ := p.Transforms(&c)
+	sty := s.style
+	sty.XAlign = draw.XLeft
+	sty.YAlign = draw.YTop
+	for i, w := range s.ws {
+		x0, x1 := trX(w.From), trX(w.To)
+		if x1 < c.Min.X || x0 > c.Max.X {
+			continue
+		}
+		r := vg.Rectangle{
+			Min: vg.Point{X: vg.Length(math.Max(float64(x0), float64(c.Min.X))), Y: c.Min.Y},
+			Max: vg.Point{X: vg.Length(math.Min(float64(x1), float64(c.Max.X))), Y: c.Max.Y},
+		}
+		c.FillPolygon(s.fill, rectPoints(r))
+		for _, x := range []vg.Length{x0, x1} {
+			if c.ContainsX(x) {
+				c.StrokeLine2(s.edge, x, c.Min.Y, x, c.Max.Y)
+			}
+		}
+		if s.rows != nil && s.rows[i] >= 0 {
+			y := c.Max.Y - s.offset - vg.Length(s.rows[i])*s.rowHeight()
+			c.FillText(sty, vg.Point{X: s.labelX(w, trX, c.Min.X, c.Max.X), Y: y}, w.Label)
+		}
+	}
+}
+
+// vmarker is a vertical line at x over the full height of the data area,
+// with a note on either side at the bottom (such as "actuals" and
+// "forecast").
+type vmarker struct {
+	x           float64
+	line        draw.LineStyle
+	left, right string
+	style       text.Style
+}
+
+// Plot draws the marker. It implements plot.Plotter.
+func (m *vmarker) Plot(c draw.Canvas, p *plot.Plot) {
+	trX, _ := p.Transforms(&c)
+	x := trX(m.x)
+	if !c.ContainsX(x) {
+		return
+	}
+	c.StrokeLine2(m.line, x, c.Min.Y, x, c.Max.Y)
+	sty := m.style
+	sty.YAlign = draw.YBottom
+	y := c.Min.Y + vg.Points(3)
+	if m.left != "" {
+		sty.XAlign = draw.XRight
+		c.FillText(sty, vg.Point{X: x - vg.Points(4), Y: y}, m.left)
+	}
+	if m.right != "" {
+		sty.XAlign = draw.XLeft
+		c.FillText(sty, vg.Point{X: x + vg.Points(4), Y: y}, m.right)
+	}
+}
+
+// hrule is a horizontal line at y across the data area.
+type hrule struct {
+	y    float64
+	line draw.LineStyle
+}
+
+// Plot draws the rule. It implements plot.Plotter.
+func (r *hrule) Plot(c draw.Canvas, p *plot.Plot) {
+	_, trY := p.Transforms(&c)
+	if y := trY(r.y); c.ContainsY(y) {
+		c.StrokeLine2(r.line, c.Min.X, y, c.Max.X, y)
+	}
+}
+
+// Thumbnail draws the rule's key swatch. It implements plot.Thumbnailer.
+func (r *hrule) Thumbnail(c *draw.Canvas) {
+	y := c.Center().Y
+	c.StrokeLine2(r.line, c.Min.X, y, c.Max.X, y)
+}
+
+// A swatch is the fill of a bar: colour, outline and, when hatch is not nil,
+// diagonal hatching.
+type swatch struct {
+	fill  color.Color
+	rim   draw.LineStyle
+	hatch color.Color
+}
+
+// paint fills, hatches and outlines the rectangle r of c, clipped to c.
+func (s swatch) paint(c *draw.Canvas, r vg.Rectangle) {
+	pts := c.ClipPolygonXY(rectPoints(r))
+	if len(pts) == 0 {
+		return
+	}
+	if r.Max.Y-r.Min.Y < vg.Points(0.5) {
+		// A zero amount: a short level line.
+		c.StrokeLines(s.rim, c.ClipLinesXY([]vg.Point{{X: r.Min.X, Y: r.Min.Y}, {X: r.Max.X, Y: r.Min.Y}})...)
+		return
+	}
+	if s.fill != nil {
+		c.FillPolygon(s.fill, pts)
+	}
+	if s.hatch != nil {
+		clip := vg.Rectangle{
+			Min: vg.Point{X: vg.Length(math.Max(float64(r.Min.X), float64(c.Min.X))), Y: vg.Length(math.Max(float64(r.Min.Y), float64(c.Min.Y)))},
+			Max: vg.Point{X: vg.Length(math.Min(float64(r.Max.X), float64(c.Max.X))), Y: vg.Length(math.Min(float64(r.Max.Y), float64(c.Max.Y)))},
+		}
+		hatch(c, clip, draw.LineStyle{Color: s.hatch, Width: vg.Points(0.7)}, vg.Points(4))
+	}
+	if s.rim.Width > 0 {
+		c.StrokeLines(s.rim, c.ClipLinesXY(append(rectPoints(r), r.Min))...)
+	}
+}
+
+// Thumbnail draws the swatch as a key entry. It implements plot.Thumbnailer.
+func (s swatch) Thumbnail(c *draw.Canvas) {
+	s.paint(c, inset(c.Rectangle, 4, 1))
+}
+
+// hatch strokes lines rising at 45 degrees, gap apart, across r. The lines
+// sit on a grid anchored at the origin so neighbouring bars line up.
+func hatch(c *draw.Canvas, r vg.Rectangle, sty draw.LineStyle, gap vg.Length) {
+	// Lines y = x - s for s a multiple of gap, s in [x0-y1, x1-y0].
+	first := math.Ceil(float64((r.Min.X - r.Max.Y) / gap))
+	last := math.Floor(float64((r.Max.X - r.Min.Y) / gap))
+	for k := first; k <= last; k++ {
+		s := vg.Length(k) * gap
+		xa := vg.Length(math.Max(float64(r.Min.X), float64(r.Min.Y+s)))
+		xb := vg.Length(math.Min(float64(r.Max.X), float64(r.Max.Y+s)))
+		if xb <= xa {
+			continue
+		}
+		c.StrokeLine2(sty, xa, xa-s, xb, xb-s)
+	}
+}
+
+// A bar is one rectangle of a bar chart in data units: centred on x, w wide,
+// from y0 to y1 (either order). cut draws an axis-break mark near the bar's
+// base, for bars whose base lies below a value axis that does not start at
+// zero.
+type bar struct {
+	x, w, y0, y1 float64
+	look         swatch
+	cut          bool
+}
+
+// bars draws a set of bars in order.
+type bars []bar
+
+// Plot draws the bars. It implements plot.Plotter.
+func (bs bars) Plot(c draw.Canvas, p *plot.Plot) {
+	trX, trY := p.Transforms(&c)
+	for _, b := range bs {
+		r := vg.Rectangle{
+			Min: vg.Point{X: trX(b.x - b.w/2), Y: trY(math.Min(b.y0, b.y1))},
+			Max: vg.Point{X: trX(b.x + b.w/2), Y: trY(math.Max(b.y0, b.y1))},
+		}
+		b.look.paint(&c, r)
+		if b.cut {
+			cutMark(&c, r)
+		}
+	}
+}
+
+// cutMark draws the break symbol across the lower part of bar r: a white
+// slanted gap edged by two thin lines.
+func cutMark(c *draw.Canvas, r vg.Rectangle) {
+	h := vg.Points(5)
+	base := vg.Length(math.Max(float64(r.Min.Y), float64(c.Min.Y))) + vg.Points(10)
+	if base+h+vg.Points(4) > r.Max.Y {
+		return
+	}
+	lean := vg.Points(4)
+	x0, x1 := r.Min.X-vg.Points(2), r.Max.X+vg.Points(2)
+	gap := []vg.Point{{X: x0, Y: base}, {X: x1, Y: base + lean}, {X: x1, Y: base + lean + h}, {X: x0, Y: base + h}}
+	c.FillPolygon(color.White, gap)
+	sty := draw.LineStyle{Color: colInk, Width: vg.Points(0.8)}
+	c.StrokeLine2(sty, x0, base, x1, base+lean)
+	c.StrokeLine2(sty, x0, base+h, x1, base+lean+h)
+}
+
+// rectPoints returns the corners of r, counter-clockwise from the lower left.
+func rectPoints(r vg.Rectangle) []vg.Point {
+	return []vg.Point{r.Min, {X: r.Max.X, Y: r.Min.Y}, r.Max, {X: r.Min.X, Y: r.Max.Y}}
+}
+
+// inset shrinks r by dx points on the left and right and dy on top and bottom.
+func inset(r vg.Rectangle, dx, dy float64) vg.Rectangle {
+	r.Min.X += vg.Points(dx)
+	r.Max.X -= vg.Points(dx)
+	r.Min.Y += vg.Points(dy)
+	r.Max.Y -= vg.Points(dy)
+	return r
+}
