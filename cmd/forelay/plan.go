@@ -1,0 +1,241 @@
+package main
+
+import (
+	"bytes"
+	"fmt"
+	"io"
+	"math"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"forelay/scenario"
+)
+
+// PlanOptions are the settings of "forelay plan".
+type PlanOptions struct {
+	IO      *IOStreams
+	File    string
+	Out     string
+	JSON    bool
+	Detail  bool
+	NoChart bool
+}
+
+func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
+	opts := &PlanOptions{IO: f.IO}
+	cmd := &cobra.Command{
+		Use:   "plan FILE [--out DIR]",
+		Short: "Build the adjusted plan from a scenario file",
+		Long: `Read a scenario file, fit the baseline to the history after taking known past
+events out of it, lay the future events on the baseline and report each
+scenario: totals, peak, change against the baseline and each event's share.
+
+With --out DIR it also writes plan.csv (one row per scenario and period),
+plan.json (the same with the fitted model, accuracy, cleaning estimates and
+input digests) and the chart plan.png / plan.svg. Files are written only when
+the whole run succeeds.`,
+		Example: `  forelay plan examples/dairy/plan.yaml --out out/dairy
+  forelay plan plan.yaml --detail
+  forelay plan plan.yaml --json | jq '.scenarios[].total'`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opts.File = args[0]
+			if runF != nil {
+				return runF(opts)
+			}
+			return planRun(opts)
+		},
+	}
+	fl := cmd.Flags()
+	fl.StringVar(&opts.Out, "out", "", "directory to write plan.csv, plan.json, plan.png and plan.svg into")
+	fl.BoolVar(&opts.JSON, "json", false, "print plan.json to standard output instead of the tables")
+	fl.BoolVar(&opts.Detail, "detail", false, "also print every period of every scenario")
+	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip plan.png and plan.svg")
+	return cmd
+}
+
+// buildPlan loads a scenario file and builds its plan; every failure is an
+// input error (exit code 2).
+func buildPlan(path string) (*scenario.Plan, error) {
+	f, err := scenario.Load(path)
+	if err != nil {
+		return nil, &inputError{err: err}
+	}
+	p, err := scenario.Build(f)
+	if err != nil {
+		return nil, &inputError{err: err}
+	}
+	return p, nil
+}
+
+func planRun(opts *PlanOptions) error {
+	p, err := buildPlan(opts.File)
+	if err != nil {
+		return err
+	}
+	js, err := marshalIndent(planJSON(p))
+	if err != nil {
+		return err
+	}
+	if opts.Out != "" {
+		set := newOutputSet(opts.Out)
+		set.add("plan.csv", planCSV(p))
+		set.add("plan.json", js)
+		if !opts.NoChart {
+			png, svg, err := planChart(p)
+			if err != nil {
+				return err
+			}
+			set.add("plan.png", png)
+			set.add("plan.svg", svg)
+		}
+		paths, err := set.commit()
+		if err != nil {
+			return err
+		}
+		for _, path := range paths {
+			fmt.Fprintf(opts.IO.ErrOut, "wrote %s\n", path)
+		}
+	}
+	if opts.JSON {
+		_, err := opts.IO.Out.Write(js)
+		return err
+	}
+	var b bytes.Buffer
+	writePlanText(&b, p, opts.Detail)
+	_, err = opts.IO.Out.Write(b.Bytes())
+	return err
+}
+
+// writePlanText writes the human summary of a plan.
+func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
+	f := p.File
+	units := ""
+	if f.Units != "" {
+		units = " " + f.Units
+	}
+	freq := p.History.Freq()
+	last := p.Periods[len(p.Periods)-1]
+	fmt.Fprintf(w, "Plan %s: series %s, %d %s periods %s to %s%s\n", f.Plan, p.History.Name, len(p.Periods), freq, p.Periods[0], last, inUnits(f.Units))
+	r := p.Fit
+	how := "as asked"
+	if r.Auto {
+		how = "chosen by lowest backtest " + strings.ToUpper(r.Metric.String())
+		if r.Select.String() == "aicc" {
+			how = "chosen by lowest AICc"
+		}
+	}
+	fmt.Fprintf(w, "Baseline %s (%s)", r.Method, how)
+	if pt := paramText(r.Model.Params()); pt != "" {
+		fmt.Fprintf(w, ", %s", pt)
+	}
+	fmt.Fprintf(w, "; fitted to %d periods %s to %s\n", p.History.Len(), p.History.Start, p.History.Period(p.History.Len()-1))
+	fmt.Fprintf(w, "Baseline accuracy (one step, in-sample): MAD %s, MSE %s (/%s), MAPE %s%%\n",
+		fmtNum(r.Accuracy.MAD, 0), fmtNum(r.Accuracy.MSE, 0), r.Accuracy.Divisor, fmtNum(r.Accuracy.MAPE, 2))
+	fmt.Fprintf(w, "Bands: adjusted +- %.3g x standard error (%s; event ranges count as 90%% intervals)\n", p.Z, bandSourceText(p.VarSource))
+
+	if len(p.Cleaning) > 0 {
+		fmt.Fprintln(w)
+		fmt.Fprintln(w, "Taken out of the history before fitting (estimate +- standard error):")
+		for _, c := range p.Cleaning {
+			verb := "added"
+			if c.Effect < 0 {
+				verb = "took away"
+			}
+			what := "per period in " + c.When
+			if c.Kind == scenario.Step {
+				what = "as a lasting level shift from " + c.When
+			}
+			fmt.Fprintf(w, "  %s %s %s +- %s%s %s\n", c.ID, verb, fmtNum(math.Abs(c.Effect), 0), fmtNum(c.StdErr, 0), units, what)
+		}
+	}
+
+	for _, sp := range p.Scenarios {
+		fmt.Fprintln(w)
+		ids := make([]string, len(sp.Events))
+		for i, e := range sp.Events {
+			ids[i] = e.ID
+		}
+		evs := "baseline only"
+		if len(ids) > 0 {
+			evs = "events: " + strings.Join(ids, ", ")
+		}
+		fmt.Fprintf(w, "Scenario %s (%s)\n", sp.Name, evs)
+		base := scenario.Total(p.Baseline)
+		t := newTable("", "total"+units, "vs baseline", "share")
+		t.add("baseline", fmtNum(base, 0), "", "")
+		for i, e := range p.Future {
+			if !contains(sp.Events, e) {
+				continue
+			}
+			c := scenario.Total(sp.Contrib[i])
+			label := e.ID
+			if e.Probability < 1 {
+				label += fmt.Sprintf(" (p=%.2g)", e.Probability)
+			}
+			t.add(label, "", signed(c, 0), pct(c, base))
+		}
+		adj := scenario.Total(sp.Adjusted)
+		t.add("adjusted plan", fmtNum(adj, 0), signed(adj-base, 0), pct(adj-base, base))
+		rw := scenario.Total(sp.RiskWeighted)
+		t.add("risk-weighted", fmtNum(rw, 0), signed(rw-base, 0), pct(rw-base, base))
+		t.write(w)
+		i, v := scenario.Peak(sp.Adjusted)
+		fmt.Fprintf(w, "Peak %s: %s%s (band %s to %s)\n", p.Periods[i], fmtNum(v, 0), units, fmtNum(sp.Lower[i], 0), fmtNum(sp.Upper[i], 0))
+		if detail {
+			dt := newTable("period", "baseline", "adjusted", "risk-weighted", "lower", "upper")
+			for k, per := range p.Periods {
+				dt.add(per.String(), fmtNum(p.Baseline[k], 0), fmtNum(sp.Adjusted[k], 0), fmtNum(sp.RiskWeighted[k], 0),
+					fmtNum(sp.Lower[k], 0), fmtNum(sp.Upper[k], 0))
+			}
+			fmt.Fprintln(w)
+			dt.write(w)
+		}
+	}
+	if len(p.Notes) > 0 {
+		fmt.Fprintln(w)
+		for _, n := range p.Notes {
+			fmt.Fprintf(w, "Note: %s.\n", strings.TrimSuffix(n, "."))
+		}
+	}
+	fmt.Fprintln(w)
+	fmt.Fprintln(w, cautionText)
+}
+
+// cautionText is printed under every plan and written into plan.json.
+const cautionText = "Caution: this plan is a statistical estimate. Where supply is safety-critical (utilities, medical supply),\n" +
+	"defer to the applicable reliability standards, local codes and licensed practice."
+
+func contains(list []*scenario.Event, e *scenario.Event) bool {
+	for _, x := range list {
+		if x == e {
+			return true
+		}
+	}
+	return false
+}
+
+func inUnits(u string) string {
+	if u == "" {
+		return ""
+	}
+	return " (" + u + ")"
+}
+
+// signed formats v with an explicit sign.
+func signed(v float64, decimals int) string {
+	s := fmtNum(v, decimals)
+	if v > 0 || (v == 0 && !math.Signbit(v)) {
+		return "+" + s
+	}
+	return s
+}
+
+// pct formats v as a signed percentage of base.
+func pct(v, base float64) string {
+	if base == 0 {
+		return "-"
+	}
+	return signed(100*v/base, 1) + "%"
+}
