@@ -286,12 +286,31 @@ func (d *decoder) document(src []byte) *yaml.Node {
 	return doc.Content[0]
 }
 
+// parserProblems are the messages of yaml.v3's parser (as opposed to its
+// scanner). For them yaml.v3 v3.0.1 prints a 0-based line (decode.go,
+// parser.fail adds 1 for scanner errors only), so one is added here.
+var parserProblems = []string{
+	"did not find expected", // ',' or ']', ',' or '}', key, node content, '-' indicator, <document start>
+	"found duplicate %",
+	"found incompatible YAML document",
+	"found undefined tag handle",
+}
+
+// scannerProblems are scanner messages that start like parser ones.
+var scannerProblems = []string{
+	"did not find expected alphabetic", "did not find expected whitespace", "did not find expected comment",
+	"did not find expected '!'", "did not find expected tag", "did not find expected hex", "did not find URI",
+}
+
 // syntax records a YAML parser error, with its line when the parser gives
 // one.
 func (d *decoder) syntax(err error) {
 	msg := err.Error()
 	if m := yamlErrorPattern.FindStringSubmatch(msg); m != nil {
 		line, _ := strconv.Atoi(m[1])
+		if hasPrefix(m[2], parserProblems) && !hasPrefix(m[2], scannerProblems) {
+			line++
+		}
 		d.fail(Pos{Line: line}, "", ErrSyntax, "%s", m[2])
 		return
 	}
@@ -374,6 +393,16 @@ func (d *decoder) mapping(n *yaml.Node, path string, keys []string) *mapping {
 		m.vals[k.Value] = v
 	}
 	return m
+}
+
+// hasPrefix reports whether s starts with one of the prefixes.
+func hasPrefix(s string, prefixes []string) bool {
+	for _, p := range prefixes {
+		if strings.HasPrefix(s, p) {
+			return true
+		}
+	}
+	return false
 }
 
 // contains reports whether list holds s.

@@ -45,54 +45,70 @@ func (r Ramp) Share(k int) float64 {
 	return 1
 }
 
-// span works out the event's profile over its own window on grid's grid:
-// vals[j] is the share in period start.Add(j), and tail the share in every
-// later period (1 for a step without end, else 0). An event of unknown
-// kind has no values.
-func (e *Event) span(grid forecast.Period) (start forecast.Period, vals []float64, tail float64) {
-	a := e.Start.From
-	var b time.Time // zero: no end
+// extent is the shape of an event on a grid of periods, worked out once:
+// the period holding its first day, the length of the step or pulse
+// itself, and its payback.
+type extent struct {
+	start  forecast.Period
+	length int     // periods of the step or pulse; unused for an open step
+	open   bool    // a step without end
+	back   int     // payback periods after the pulse
+	backAt float64 // the profile in each payback period
+}
+
+// extent works out the event's extent on grid's grid.
+func (e *Event) extent(grid forecast.Period) extent {
+	x := extent{start: containing(grid, e.Start.From)}
+	switch {
+	case e.HasEnd:
+		x.length = containing(grid, e.End.Last()).Sub(x.start) + 1
+	case e.Kind == Step:
+		x.open = true
+	default:
+		x.length = max(e.Periods, 1)
+	}
+	if pb := e.Payback; e.Kind == Pulse && pb != nil && pb.Periods > 0 && x.length > 0 {
+		// The lift is the sum of the pulse's profile: the first and last
+		// periods may be partial, the ones between are whole.
+		lift := float64(x.length)
+		if e.HasEnd {
+			lift = e.share(x.start)
+			if x.length > 1 {
+				lift += e.share(x.start.Add(x.length-1)) + float64(x.length-2)
+			}
+		}
+		x.back = pb.Periods
+		x.backAt = -pb.Share * lift / float64(pb.Periods)
+	}
+	return x
+}
+
+// share returns the part of period p's days inside [Start.From, End.To)
+// (no end when HasEnd is false).
+func (e *Event) share(p forecast.Period) float64 {
+	var to time.Time
 	if e.HasEnd {
-		b = e.End.To
+		to = e.End.To
 	}
-	start = containing(grid, a)
-	length := func() int {
-		return containing(grid, e.End.Last()).Sub(start) + 1
-	}
-	switch e.Kind {
-	case Step:
-		var L int
+	return overlap(p, e.Start.From, to)
+}
+
+// at returns the profile in period x.start+j.
+func (e *Event) at(x extent, j int) float64 {
+	switch {
+	case j < 0:
+		return 0
+	case e.Kind == Step && (x.open || j < x.length):
+		return e.Ramp.Share(j+1) * e.share(x.start.Add(j))
+	case e.Kind == Pulse && j < x.length:
 		if e.HasEnd {
-			L = length()
-		} else {
-			L = max(e.Ramp.Periods, 1)
-			tail = 1
+			return e.share(x.start.Add(j))
 		}
-		for j := 0; j < L; j++ {
-			vals = append(vals, e.Ramp.Share(j+1)*overlap(start.Add(j), a, b))
-		}
-	case Pulse:
-		if e.HasEnd {
-			for j := 0; j < length(); j++ {
-				vals = append(vals, overlap(start.Add(j), a, b))
-			}
-		} else {
-			for j := 0; j < max(e.Periods, 1); j++ {
-				vals = append(vals, 1)
-			}
-		}
-		if pb := e.Payback; pb != nil && pb.Periods > 0 {
-			lift := 0.0
-			for _, v := range vals {
-				lift += v
-			}
-			back := -pb.Share * lift / float64(pb.Periods)
-			for j := 0; j < pb.Periods; j++ {
-				vals = append(vals, back)
-			}
-		}
+		return 1
+	case e.Kind == Pulse && j < x.length+x.back:
+		return x.backAt
 	}
-	return start, vals, tail
+	return 0
 }
 
 // Profile returns the event's share of full size in each of the n periods
@@ -116,22 +132,16 @@ func (e *Event) span(grid forecast.Period) (start forecast.Period, vals []float6
 //	profile = −s * (sum of the pulse's profile) / Q,
 //
 // the sum running over the whole pulse even where it lies outside the n
-// periods asked for. Profile ignores Probability. It panics if n < 0.
+// periods asked for. An event of unknown kind has a zero profile. Profile
+// ignores Probability. It panics if n < 0 or first is the zero Period.
 func (e *Event) Profile(first forecast.Period, n int) []float64 {
 	if n < 0 {
 		panic("scenario: Profile with n < 0")
 	}
 	out := make([]float64, n)
-	start, vals, tail := e.span(first)
+	x := e.extent(first)
 	for i := range out {
-		j := first.Add(i).Sub(start)
-		switch {
-		case j < 0:
-		case j < len(vals):
-			out[i] = vals[j]
-		default:
-			out[i] = tail
-		}
+		out[i] = e.at(x, first.Add(i).Sub(x.start))
 	}
 	return out
 }
@@ -217,11 +227,11 @@ func (e *Event) Prorated(grid forecast.Period) bool {
 // where the event's profile is not zero (payback included). For a step
 // without end, open is true and last is the zero Period.
 func (e *Event) Window(grid forecast.Period) (first, last forecast.Period, open bool) {
-	start, vals, tail := e.span(grid)
-	if tail != 0 {
-		return start, forecast.Period{}, true
+	x := e.extent(grid)
+	if x.open {
+		return x.start, forecast.Period{}, true
 	}
-	return start, start.Add(len(vals) - 1), false
+	return x.start, x.start.Add(x.length + x.back - 1), false
 }
 
 // IsPast reports whether the event lies wholly before next, the first

@@ -55,9 +55,7 @@ func (d *decoder) validate(f *File) {
 	if d.given("history.file") && f.History.File == "" {
 		d.fail(d.at("history.file", Pos{}), "history.file", ErrValue, "must not be empty")
 	}
-	if d.given("horizon") && f.Horizon < 1 {
-		d.fail(d.at("horizon", Pos{}), "horizon", ErrValue, "must be at least 1, got %d", f.Horizon)
-	}
+	d.atLeast("horizon", f.Horizon, 1)
 	d.checkBaseline(&f.Baseline)
 	d.checkBands(&f.Bands)
 	for _, e := range f.Events {
@@ -69,10 +67,20 @@ func (d *decoder) validate(f *File) {
 	}
 }
 
-// atLeast reports a whole number below min.
+// maxCount bounds every count of periods in a file (horizon, periods,
+// ramp, payback, window, season, holdout): 100000 days is over 270 years,
+// and the bound keeps period arithmetic far from overflow.
+const maxCount = 100000
+
+// atLeast reports a whole number below min or above maxCount.
 func (d *decoder) atLeast(field string, v, min int) {
-	if d.given(field) && v < min {
+	if !d.given(field) {
+		return
+	}
+	if v < min {
 		d.fail(d.at(field, Pos{}), field, ErrValue, "must be at least %d, got %d", min, v)
+	} else if v > maxCount {
+		d.fail(d.at(field, Pos{}), field, ErrValue, "must be at most %d, got %d", maxCount, v)
 	}
 }
 
@@ -223,6 +231,7 @@ func (d *decoder) checkEvent(e *Event) {
 		d.atLeast(f("payback.periods"), e.Payback.Periods, 1)
 	}
 	if d.given(f("past")) && d.given(f("start")) {
+		seen := map[string]bool{}
 		for j, w := range e.Past {
 			pf := index(f("past"), j)
 			switch {
@@ -232,12 +241,10 @@ func (d *decoder) checkEvent(e *Event) {
 			case w.To.After(e.Start.From):
 				d.fail(w.Pos, pf, ErrValue, "past occurrence %s does not come before start %s", w, e.Start)
 			}
-			for k := 0; k < j; k++ {
-				if e.Past[k].Label == w.Label {
-					d.fail(w.Pos, pf, ErrDuplicate, "%s is listed twice", w)
-					break
-				}
+			if seen[w.Label] {
+				d.fail(w.Pos, pf, ErrDuplicate, "%s is listed twice", w)
 			}
+			seen[w.Label] = true
 		}
 	}
 }
