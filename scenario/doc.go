@@ -45,6 +45,9 @@
 //	  mode: follow             #   follow (production follows the plan) or frozen; default follow
 //	  plan: previous-plan.csv  #   a production plan CSV, relative to the scenario file's directory
 //
+// Counts of periods (horizon, window, season, holdout, and the periods of
+// pulses, ramps and paybacks) may not exceed 100000.
+//
 // # Dates and labels
 //
 // Wherever a date goes, a period label or a date may stand: 2027 (a year),
@@ -81,7 +84,7 @@
 //	                              # periods (at least 1; default 1)
 //	    past: [2024-08, 2025-08]  # earlier occurrences of the same kind and length, written in
 //	                              # the form of start and before it: cleaned out of the history
-//	                              # and used to learn the effect
+//	                              # and used to learn the effect (a step needs an end for this)
 //	    note: free text
 //
 // An event needs an effect unless it lies wholly in the past (it is then

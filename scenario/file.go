@@ -17,7 +17,8 @@ func (p Pos) String() string { return fmt.Sprintf("%d:%d", p.Line, p.Column) }
 
 // A File is a decoded and validated scenario file. Parse and Load fill
 // every default, so the zero values described on the fields only matter for
-// Files built in code.
+// Files built in code. Once the history is read, File.Resolve makes the
+// checks that depend on it.
 //
 // The history reference, the baseline settings and each event sit in their
 // own structs so that a later version can hold several histories and
@@ -73,7 +74,7 @@ type HistoryRef struct {
 	// Series names the series to use; empty means the file's only series.
 	Series string
 	// Period is the history's frequency; FreqUnknown means "infer it from
-	// the labels".
+	// the labels" (File.Resolve then sets it to the inferred one).
 	Period forecast.Frequency
 	// Fill is what to do with gaps: "none" (gaps are errors, the default),
 	// "zero" or "interpolate".

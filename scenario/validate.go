@@ -230,6 +230,9 @@ func (d *decoder) checkEvent(e *Event) {
 		d.between(f("payback.share"), e.Payback.Share, 0, 1, false)
 		d.atLeast(f("payback.periods"), e.Payback.Periods, 1)
 	}
+	if e.Kind == Step && !e.HasEnd && len(e.Past) > 0 && !d.given(f("end")) {
+		d.fail(d.at(f("past"), e.Pos), f("past"), ErrValue, "a step without end has no past occurrences (it would last until now); give end")
+	}
 	if d.given(f("past")) && d.given(f("start")) {
 		seen := map[string]bool{}
 		for j, w := range e.Past {
@@ -277,7 +280,7 @@ func (d *decoder) checkEffect(e *Event) {
 	if d.given(pct) && e.Effect.Percent < -100 {
 		d.fail(d.at(pct, e.Pos), pct, ErrValue, "must be at least -100 (a fall to zero), got %g", e.Effect.Percent)
 	}
-	if e.Effect.FromPast && !d.given(f("past")) && len(e.Past) == 0 && !d.failedUnder(f("past")) {
+	if e.Effect.FromPast && len(e.Past) == 0 && !d.failedUnder(f("past")) {
 		d.fail(d.at(from, e.Pos), from, ErrMissing, "from: past needs the past occurrences (past: [...])")
 	}
 	if e.Range == nil {
