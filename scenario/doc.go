@@ -1,0 +1,125 @@
+// Package scenario reads a planner's scenario file and turns its events into
+// period-by-period changes of demand.
+//
+// A scenario file is one YAML document, a mapping with these keys (a key
+// marked required must be given; every other key may be left out and gets
+// the default shown):
+//
+//	plan: north-plant-2027     # required; the plan's name in outputs: a-z, 0-9 and '-', starting with a letter or digit
+//	history:                   # required; where the history comes from
+//	  file: history.csv        #   required; a history CSV, relative to the scenario file's directory
+//	  series: bottled-l        #   the series to use; may be left out when the file holds one series
+//	  period: month            #   day, week, month, quarter or year; default: inferred from the labels
+//	  fill: none               #   gaps: none (gaps are errors), zero or interpolate; default none
+//	horizon: 18                # required; periods to plan, at least 1
+//	baseline:                  # how the baseline is fitted (the options of the fit command)
+//	  method: auto             #   a method name (auto, naive, seasonal-naive, moving-average,
+//	                           #   weighted-moving-average, ses, holt, damped-holt,
+//	                           #   holt-winters-additive, holt-winters-multiplicative, linear-trend,
+//	                           #   croston, sba); default auto
+//	  season: 12               #   periods per seasonal cycle, at least 1; default: the frequency's usual one
+//	  metric: mad              #   mad, mse, mape or mase; default mad
+//	  select: backtest         #   how auto chooses: backtest or aicc; default backtest
+//	  alpha: 0.3               #   alpha, beta, gamma in [0, 1] and phi in (0, 1] hold a smoothing
+//	                           #   parameter fixed; default: estimated
+//	  window: 3                #   moving-average window, at least 1; default 3
+//	  weights: [0.2, 0.3, 0.5] #   weighted-moving-average weights, oldest first, not negative, not all 0
+//	  dummies: false           #   seasonal dummies for linear-trend
+//	  damped: false            #   damped trend for holt-winters-multiplicative
+//	  mse_divisor: n-1         #   n-1 or n; default n-1
+//	  refit: false             #   refit at every backtest origin
+//	  holdout: 12              #   backtest periods, at least 1; default: the fit command's
+//	bands:                     # the error bands
+//	  z: 2                     #   band half-width in standard deviations, above 0; default 2
+//	  coverage: 0.95           #   or the share of outcomes inside, in (0, 1); not both
+//	  widen: horizon           #   horizon (bands widen with the lead time) or flat; default horizon
+//	  floor: 0                 #   cut the lower band at this value; default: no floor
+//	units: litres              # a label for tables and charts; default none
+//	events: [...]              # the events (see below)
+//	scenarios: [...]           # named sets of events (see below)
+//	capacity:                  # a capacity limit per period
+//	  units: 540000            #   required; above 0
+//	  changes:                 #   later levels, sorted by from, no two in one period
+//	    - {from: 2027-06, units: 600000}   # from: a label; units above 0
+//	production:
+//	  mode: follow             #   follow (production follows the plan) or frozen; default follow
+//	  plan: previous-plan.csv  #   a production plan CSV, relative to the scenario file's directory
+//
+// Counts of periods (horizon, window, season, holdout, and the periods of
+// pulses, ramps and paybacks) may not exceed 100000.
+//
+// # Dates and labels
+//
+// Wherever a date goes, a period label or a date may stand: 2027 (a year),
+// 2027-Q3 (a quarter), 2027-08 (a month), 2027-W33 (an ISO week, Monday to
+// Sunday) or 2027-08-14 (a day). A label stands for all its days; see When.
+// A start means the label's first day, an end its last day (ends are
+// inclusive). Labels need not match the history's frequency: on monthly
+// data an event from 2027-08-14 to 2027-08-23 covers 10 of August's 31
+// days and gets 10/31 of its size in August (it is "prorated"). Labels
+// coarser than the data are fine for steps and for ends (2028 ends with
+// December on monthly data).
+//
+// # Events
+//
+// Each item of events is a mapping:
+//
+//	events:
+//	  - id: school-contract       # required; unique; a-z, 0-9 and '-', starting with a letter or digit
+//	    kind: step                # required; step (a lasting change) or pulse (a temporary one)
+//	    start: 2027-02            # required; a label or a date
+//	    end: 2028-01              # the last period or day it applies (steps: default none, for ever)
+//	    periods: 1                # pulses only: length in periods of the data; default 1; not with end
+//	    effect: {units: 35000}    # size at full strength: {units: N} per period,
+//	                              # {percent: P} of each period's baseline (at least -100),
+//	                              # or {from: past} (learnt from the past occurrences); exactly one
+//	    ramp: {periods: 3, shape: linear}  # steps only: shape immediate (default), linear or s-curve;
+//	                              # periods (at least 1) is required for linear and s-curve, and
+//	                              # alone means linear
+//	    probability: 0.7          # in [0, 1]; default 1
+//	    range: {low: 25000, high: 42000}   # a 90% interval for the effect at full size, in the
+//	                              # effect's unit; both required; must contain the effect
+//	    payback: {share: 0.5, periods: 2}  # pulses only: the share in [0, 1] (required) of the
+//	                              # pulse's total lift taken back, spread evenly over the next
+//	                              # periods (at least 1; default 1)
+//	    past: [2024-08, 2025-08]  # earlier occurrences of the same kind and length, written in
+//	                              # the form of start and before it: cleaned out of the history
+//	                              # and used to learn the effect (a step needs an end for this)
+//	    note: free text
+//
+// An event needs an effect unless it lies wholly in the past (it is then
+// only cleaned out of the history) or it says from: past and lists past
+// occurrences. A pulse given by periods covers whole periods of the data,
+// so its start (and its past occurrences) must be a label no coarser than
+// the data that begins a period; give end instead to prorate a pulse by
+// days. A ramp may not be longer than its step. These checks need the
+// history and are made by File.Resolve; Parse makes all the others.
+//
+// Event.Profile gives the exact arithmetic of steps, ramps, pulses and
+// paybacks.
+//
+// # Scenarios
+//
+// Each item of scenarios is a mapping {name: committed, events: [fair-week]}
+// with a unique name (a-z, 0-9 and '-') and a list of event ids, each
+// listed once. Without scenarios the file has one scenario, "plan", with
+// every event.
+//
+// # Errors
+//
+// Decoding is strict. An unknown key is an error, with a suggestion when a
+// known key is close ("probabilty: unknown key; did you mean
+// probability?"); so are a key given twice, a value of the wrong type
+// (numbers must be YAML numbers, not quoted text) and a value out of range.
+// Each problem is a *forecast.ParseError printed as
+//
+//	plan.yaml:7:5: event "fair-week": ramp.periods: must be at least 1
+//
+// with the 1-based line and byte column of the offending value (or key, for
+// unknown and missing keys: a missing key is reported where its mapping
+// starts) and the key path; an event's path starts with its id, a
+// scenario's with its name. All problems found are returned, sorted by
+// position: one as a *forecast.ParseError, several as an ErrorList. The
+// errors wrap the sentinels of this package (ErrUnknownKey, ErrType, ...)
+// or forecast.ErrBadPeriod.
+package scenario

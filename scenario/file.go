@@ -1,0 +1,355 @@
+package scenario
+
+import (
+	"fmt"
+
+	"forelay/forecast"
+)
+
+// A Pos is a place in a scenario file. Line and Column are 1-based; Column
+// counts bytes. The zero Pos means "unknown" (a value built in code).
+type Pos struct {
+	Line, Column int
+}
+
+// String prints "line:column".
+func (p Pos) String() string { return fmt.Sprintf("%d:%d", p.Line, p.Column) }
+
+// A File is a decoded and validated scenario file. Parse and Load fill
+// every default, so the zero values described on the fields only matter for
+// Files built in code. Once the history is read, File.Resolve makes the
+// checks that depend on it.
+//
+// The history reference, the baseline settings and each event sit in their
+// own structs so that a later version can hold several histories and
+// events aimed at one series among many without changing these types.
+type File struct {
+	// Path is the file's path as given to Load or Parse; Dir is its
+	// directory, against which relative paths in the file are resolved.
+	Path, Dir string
+
+	// Plan is the plan's name, used in outputs: lower-case letters,
+	// digits and hyphens.
+	Plan string
+
+	// History says where the history comes from.
+	History HistoryRef
+
+	// Horizon is the number of periods to plan, at least 1.
+	Horizon int
+
+	// Baseline holds the settings of the baseline fit.
+	Baseline Baseline
+
+	// Bands holds the settings of the error bands.
+	Bands Bands
+
+	// Units is an optional label for the quantity (litres, cases); empty
+	// means none.
+	Units string
+
+	// Events are the events in file order.
+	Events []*Event
+
+	// Scenarios are the scenarios the file names, in file order; nil
+	// when the file names none (see Cases).
+	Scenarios []Case
+
+	// Capacity is the optional capacity limit; nil when not given.
+	Capacity *Capacity
+
+	// Production is the optional production setting; nil when not given.
+	Production *Production
+
+	// pos maps each decoded key path (as it appears in error messages) to
+	// the position of its value, for checks made after decoding.
+	pos map[string]Pos
+}
+
+// HistoryRef says where a plan's history comes from.
+type HistoryRef struct {
+	// File is the history CSV, resolved against the scenario file's
+	// directory when relative.
+	File string
+	// Series names the series to use; empty means the file's only series.
+	Series string
+	// Period is the history's frequency; FreqUnknown means "infer it from
+	// the labels" (File.Resolve then sets it to the inferred one).
+	Period forecast.Frequency
+	// Fill is what to do with gaps: "none" (gaps are errors, the default),
+	// "zero" or "interpolate".
+	Fill string
+	// Pos is where the history key stands.
+	Pos Pos
+}
+
+// Baseline holds the settings of the baseline fit, the options of the fit
+// command.
+type Baseline struct {
+	// Method is the baseline method; Parse sets Auto when none is given.
+	Method forecast.Method
+	// Config holds the method's settings (season, fixed parameters,
+	// window, weights, dummies, damped).
+	Config forecast.Config
+	// Metric ranks methods and backtests: "mad" (the default), "mse",
+	// "mape" or "mase".
+	Metric string
+	// Select is how auto picks a method: "backtest" (the default) or
+	// "aicc".
+	Select string
+	// MSEDivisor is the divisor of the mean squared error: "n-1" (the
+	// default) or "n".
+	MSEDivisor string
+	// Refit refits the model at each backtest origin when true.
+	Refit bool
+	// Holdout is the number of backtest periods; zero means the fit
+	// command's default.
+	Holdout int
+	// Pos is where the baseline key stands (zero when not given).
+	Pos Pos
+}
+
+// Bands holds the settings of the error bands around the plan.
+type Bands struct {
+	// Z is the multiple of the forecast error's standard deviation the
+	// bands reach. Parse derives it from Coverage when that is given,
+	//     Z = Φ⁻¹((1 + Coverage)/2),
+	// and sets 2 when neither is given.
+	Z float64
+	// Coverage is the share of outcomes the bands should hold under a
+	// normal error, in (0, 1); when Z was given Parse sets
+	//     Coverage = 2Φ(Z) − 1.
+	Coverage float64
+	// Widen is "horizon" (the default: bands widen with the lead time) or
+	// "flat" (one width for every period).
+	Widen string
+	// Floor, when not nil, cuts the lower band at this value.
+	Floor *float64
+	// Pos is where the bands key stands (zero when not given).
+	Pos Pos
+}
+
+// A Case is one scenario: a name and the events it includes.
+type Case struct {
+	// Name is the scenario's name: lower-case letters, digits and hyphens.
+	Name string
+	// Events are the events of the scenario, pointing into File.Events,
+	// in the order the scenario lists them.
+	Events []*Event
+	// Pos is where the scenario's list item stands.
+	Pos Pos
+}
+
+// DefaultCase is the name of the scenario a file without scenarios gets.
+const DefaultCase = "plan"
+
+// Cases returns the file's scenarios or, when it names none, one scenario
+// called "plan" holding every event. Wholly past events may be in a case:
+// they add nothing to the forecast periods (their profile there is zero).
+func (f *File) Cases() []Case {
+	if len(f.Scenarios) > 0 {
+		return append([]Case(nil), f.Scenarios...)
+	}
+	return []Case{{Name: DefaultCase, Events: append([]*Event(nil), f.Events...)}}
+}
+
+// Event returns the event with the given id, or nil.
+func (f *File) Event(id string) *Event {
+	for _, e := range f.Events {
+		if e.ID == id {
+			return e
+		}
+	}
+	return nil
+}
+
+// Capacity is the most a plant can make per period, with dated changes.
+type Capacity struct {
+	// Units is the capacity per period before the first change, > 0.
+	Units float64
+	// Changes are the later capacity levels, sorted by From, none
+	// overlapping another.
+	Changes []CapacityChange
+	// Pos is where the capacity key stands.
+	Pos Pos
+}
+
+// A CapacityChange sets a new capacity from a period on.
+type CapacityChange struct {
+	// From is the first period (or the first day of a coarser label) of
+	// the new level.
+	From When
+	// Units is the new capacity per period, > 0.
+	Units float64
+	// Pos is where the change's list item stands.
+	Pos Pos
+}
+
+// At returns the capacity in period p: the Units of the last change whose
+// From starts on or before p's first day, or c.Units before any change.
+// File.Resolve checks that changes fall on period boundaries.
+func (c *Capacity) At(p forecast.Period) float64 {
+	u := c.Units
+	start := p.Start()
+	for _, ch := range c.Changes {
+		if ch.From.From.After(start) {
+			break
+		}
+		u = ch.Units
+	}
+	return u
+}
+
+// Production says how the production plan treats the demand plan.
+type Production struct {
+	// Mode is "follow" (the default: production follows the plan) or
+	// "frozen" (production is held at Plan).
+	Mode string
+	// Plan is an optional production plan CSV, resolved against the
+	// scenario file's directory when relative; empty when not given.
+	Plan string
+	// Pos is where the production key stands.
+	Pos Pos
+}
+
+// Kind is the kind of an event.
+type Kind int
+
+// The kinds of event. KindUnknown is the zero value and is never the kind
+// of a parsed event.
+const (
+	KindUnknown Kind = iota
+	// Step is a lasting change of level: a new customer, a lost one.
+	Step
+	// Pulse is a temporary change over a few periods, possibly paid back
+	// afterwards: a promotion, a fair, an outage.
+	Pulse
+)
+
+var kindNames = [...]string{"unknown", "step", "pulse"}
+
+// String returns the kind's name as written in files: step or pulse.
+func (k Kind) String() string {
+	if k < 0 || int(k) >= len(kindNames) {
+		return fmt.Sprintf("Kind(%d)", int(k))
+	}
+	return kindNames[k]
+}
+
+// Shape is the shape of a step's ramp.
+type Shape int
+
+// The ramp shapes. Immediate, the zero value, reaches full size in the first
+// period.
+const (
+	Immediate Shape = iota
+	// Linear rises by equal amounts: k/P in the k-th of P ramp periods.
+	Linear
+	// SCurve rises slowly, then fast, then slowly (see Event.Profile).
+	SCurve
+)
+
+var shapeNames = [...]string{"immediate", "linear", "s-curve"}
+
+// String returns the shape's name as written in files: immediate, linear
+// or s-curve.
+func (s Shape) String() string {
+	if s < 0 || int(s) >= len(shapeNames) {
+		return fmt.Sprintf("Shape(%d)", int(s))
+	}
+	return shapeNames[s]
+}
+
+// An Event is a known future (or past) change of demand.
+type Event struct {
+	// ID names the event: lower-case letters, digits and hyphens,
+	// starting with a letter or digit, unique in the file.
+	ID string
+	// Kind is Step or Pulse.
+	Kind Kind
+	// Start is the first period or day of the event.
+	Start When
+	// End is the last period or day (inclusive) the event applies, valid
+	// when HasEnd is true. A step without an end lasts for ever; a pulse
+	// without an end lasts Periods periods.
+	End    When
+	HasEnd bool
+	// Periods is a pulse's length in periods of the data when it has no
+	// End; Parse sets 1 for a pulse given neither, and 0 for steps.
+	Periods int
+	// Effect is the size of the event at full strength.
+	Effect Effect
+	// Ramp is how a step reaches full size; the zero Ramp is immediate.
+	Ramp Ramp
+	// Probability is the chance the event happens, in [0, 1]. Parse sets
+	// 1 when the file gives none. Profile, Contribution and Sigma ignore
+	// it: the caller weighs or draws it.
+	Probability float64
+	// Range, when not nil, is a 90% interval for the effect at full size,
+	// in the unit of the effect (units or percent).
+	Range *Range
+	// Payback, when not nil, is the part of a pulse's lift taken back in
+	// the periods after it.
+	Payback *Payback
+	// Past are earlier occurrences of the same event (same kind and
+	// length), written in the same form as Start, to clean out of the
+	// history and to learn the effect from.
+	Past []When
+	// Note is free text.
+	Note string
+	// Pos is where the event's list item stands.
+	Pos Pos
+
+	// path is the key path the event's errors start with.
+	path string
+}
+
+// Effect is the size of an event at full strength: a number of units per
+// period, or a percentage of each period's baseline. The zero Effect adds
+// nothing.
+type Effect struct {
+	// Units is the change per period in the plan's units (used when
+	// IsPercent is false).
+	Units float64
+	// Percent is the change in percent of the period's baseline (used
+	// when IsPercent is true); 8 means +8%.
+	Percent   float64
+	IsPercent bool
+	// FromPast says the effect is to be learnt from the past occurrences.
+	// Until the caller sets Units or Percent (and IsPercent) from them,
+	// both are zero and the event contributes nothing.
+	FromPast bool
+}
+
+// Value returns the effect's number in its own unit: Percent for a percent
+// effect, Units otherwise.
+func (ef Effect) Value() float64 {
+	if ef.IsPercent {
+		return ef.Percent
+	}
+	return ef.Units
+}
+
+// Ramp is how a step grows to full size.
+type Ramp struct {
+	// Periods is the ramp's length P in periods of the data; 0 (or an
+	// Immediate shape) means full size at once.
+	Periods int
+	// Shape is the ramp's shape; the zero value is Immediate.
+	Shape Shape
+}
+
+// Range is a 90% interval for an event's effect at full size.
+type Range struct {
+	Low, High float64
+}
+
+// Payback is the part of a pulse's lift taken back after it.
+type Payback struct {
+	// Share is the fraction of the pulse's total lift taken back, in
+	// [0, 1].
+	Share float64
+	// Periods is the number of periods after the pulse over which the
+	// payback is spread evenly, at least 1.
+	Periods int
+}
