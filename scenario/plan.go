@@ -170,7 +170,7 @@ func Build(f *File) (*Plan, error) {
 	if err != nil {
 		return nil, err
 	}
-	if err := f.Resolve(ser.Freq()); err != nil {
+	if err := f.Resolve(ser.Next()); err != nil {
 		return nil, err
 	}
 	spec, err := f.Spec()
@@ -258,7 +258,7 @@ func Build(f *File) (*Plan, error) {
 	p.BaselineVar, p.VarSource = p.Fit.Variance(hz, p.Mode)
 
 	for _, e := range p.Future {
-		if e.Prorated(ser.Freq()) {
+		if e.Prorated(first) {
 			p.Notes = append(p.Notes, fmt.Sprintf("event %q has dates finer than the %s periods; its effect is prorated by the share of days in each period", e.ID, ser.Freq()))
 		}
 	}

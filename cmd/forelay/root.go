@@ -57,6 +57,9 @@ scenario file for the known events ("forelay init" writes a starter), and run
 	root.AddCommand(
 		newCmdVersion(f),
 		newCmdFit(f, nil),
+		newCmdPlan(f, nil),
+		newCmdCheck(f, nil),
+		newCmdInit(f, nil),
 	)
 	return root
 }

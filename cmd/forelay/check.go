@@ -1,0 +1,60 @@
+package main
+
+import (
+	"fmt"
+
+	"github.com/spf13/cobra"
+
+	"forelay/scenario"
+)
+
+// CheckOptions are the settings of "forelay check".
+type CheckOptions struct {
+	IO   *IOStreams
+	File string
+}
+
+func newCmdCheck(f *Factory, runF func(*CheckOptions) error) *cobra.Command {
+	opts := &CheckOptions{IO: f.IO}
+	return &cobra.Command{
+		Use:   "check FILE",
+		Short: "Validate a scenario file and its history without computing a plan",
+		Long: `Read a scenario file and the history it names and report every problem with
+its file, line and column: unknown or misspelt keys, wrong types, bad dates,
+duplicate ids, scenarios naming unknown events, impossible ranges and so on.
+Nothing is fitted and nothing is written. The exit code is 0 when the file is
+sound and 2 when it is not.`,
+		Example: `  forelay check examples/dairy/plan.yaml`,
+		Args:    cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opts.File = args[0]
+			if runF != nil {
+				return runF(opts)
+			}
+			return checkRun(opts)
+		},
+	}
+}
+
+func checkRun(opts *CheckOptions) error {
+	f, err := scenario.Load(opts.File)
+	if err != nil {
+		return &inputError{err: err}
+	}
+	_, ser, err := f.LoadHistory()
+	if err != nil {
+		return &inputError{err: err}
+	}
+	if err := f.Resolve(ser.Next()); err != nil {
+		return &inputError{err: err}
+	}
+	past := 0
+	for _, e := range f.Events {
+		if e.IsPast(ser.Next()) {
+			past++
+		}
+	}
+	_, err = fmt.Fprintf(opts.IO.Out, "%s: ok: plan %s, series %s (%d %s periods, %s to %s), %d event(s) of which %d past, %d scenario(s), horizon %d\n",
+		opts.File, f.Plan, ser.Name, ser.Len(), ser.Freq(), ser.Start, ser.Period(ser.Len()-1), len(f.Events), past, len(f.Cases()), f.Horizon)
+	return err
+}

@@ -1,0 +1,76 @@
+package main
+
+import (
+	"embed"
+	"errors"
+	"fmt"
+	"io/fs"
+	"os"
+	"path/filepath"
+
+	"github.com/spf13/cobra"
+)
+
+//go:embed starter/plan.yaml starter/history.csv
+var starterFiles embed.FS
+
+// InitOptions are the settings of "forelay init".
+type InitOptions struct {
+	IO    *IOStreams
+	Dir   string
+	Force bool
+}
+
+func newCmdInit(f *Factory, runF func(*InitOptions) error) *cobra.Command {
+	opts := &InitOptions{IO: f.IO}
+	cmd := &cobra.Command{
+		Use:   "init DIR",
+		Short: "Write a starter scenario and history to edit",
+		Long: `Write plan.yaml (a commented starter scenario with a step and a pulse) and
+history.csv (invented demo data) into DIR, creating it if needed. Existing
+files are left alone unless --force is given.`,
+		Example: `  forelay init my-plan && forelay plan my-plan/plan.yaml`,
+		Args:    cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opts.Dir = args[0]
+			if runF != nil {
+				return runF(opts)
+			}
+			return initRun(opts)
+		},
+	}
+	cmd.Flags().BoolVar(&opts.Force, "force", false, "overwrite existing files")
+	return cmd
+}
+
+func initRun(opts *InitOptions) error {
+	names := []string{"plan.yaml", "history.csv"}
+	if !opts.Force {
+		for _, n := range names {
+			p := filepath.Join(opts.Dir, n)
+			if _, err := os.Stat(p); err == nil {
+				return &inputError{err: fmt.Errorf("%s already exists; use --force to overwrite it", p)}
+			} else if !errors.Is(err, fs.ErrNotExist) {
+				return err
+			}
+		}
+	}
+	set := newOutputSet(opts.Dir)
+	for _, n := range names {
+		b, err := starterFiles.ReadFile("starter/" + n)
+		if err != nil {
+			return err
+		}
+		set.add(n, b)
+	}
+	paths, err := set.commit()
+	if err != nil {
+		return err
+	}
+	for _, p := range paths {
+		fmt.Fprintf(opts.IO.Out, "wrote %s\n", p)
+	}
+	fmt.Fprintf(opts.IO.Out, "next: forelay check %s, then forelay plan %s --out %s\n",
+		filepath.Join(opts.Dir, "plan.yaml"), filepath.Join(opts.Dir, "plan.yaml"), filepath.Join(opts.Dir, "out"))
+	return nil
+}
