@@ -263,20 +263,22 @@ type effect struct {
 }
 
 // bottledEffects are the events in the bottled milk history, in time order:
-// the harvest fair every August 2019..2026 (mean 24,000 litres, about 5% of
-// an August's sales, so it stands well clear of the 1.5% noise) and the
-// storm-related outage of July and August 2025. Keep examples/dairy/README.md
-// in step with this list.
+// the harvest fair once a year 2019..2026 (mean 24,000 litres, about 5% of
+// an August's sales) and the storm-related outage of July and August 2025.
+// The fair is a movable feast: it falls in August in 2019, 2021, 2024 and
+// 2026 and in September in 2020, 2022, 2023 and 2025, so it is not tied to
+// one calendar month and can be told apart from the season. Keep
+// examples/dairy/README.md in step with this list.
 var bottledEffects = []effect{
 	{"2019-08", "festival", 22500},
-	{"2020-08", "festival", 23800},
+	{"2020-09", "festival", 23800},
 	{"2021-08", "festival", 24600},
-	{"2022-08", "festival", 23100},
-	{"2023-08", "festival", 25200},
+	{"2022-09", "festival", 23100},
+	{"2023-09", "festival", 25200},
 	{"2024-08", "festival", 24000},
 	{"2025-07", "outage", -60000},
-	{"2025-08", "festival", 24400},
 	{"2025-08", "outage", -35000},
+	{"2025-09", "festival", 24400},
 	{"2026-08", "festival", 24400},
 }
 

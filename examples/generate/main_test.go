@@ -119,17 +119,19 @@ func TestDairyShape(t *testing.T) {
 // elsewhere. (All sizes are whole litres, so rounding cannot blur them.)
 func TestDairyEffects(t *testing.T) {
 	// Source: examples/dairy/README.md, "Injected effects" (the task's
-	// sizes: fair about +24,000 litres each August 2019..2026, varying by
-	// year; outage -60,000 and -35,000 litres in July and August 2025).
+	// sizes: fair about +24,000 litres once a year 2019..2026, varying by
+	// year, in August or September; outage -60,000 and -35,000 litres in
+	// July and August 2025).
 	want := map[string]float64{
 		"2019-08": 22500,
-		"2020-08": 23800,
+		"2020-09": 23800,
 		"2021-08": 24600,
-		"2022-08": 23100,
-		"2023-08": 25200,
+		"2022-09": 23100,
+		"2023-09": 25200,
 		"2024-08": 24000,
 		"2025-07": -60000,
-		"2025-08": 24400 - 35000, // = -10600, fair and outage in one month
+		"2025-08": -35000, // outage only: the 2025 fair is in September
+		"2025-09": 24400,
 		"2026-08": 24400,
 	}
 	with, without := dairy(1, true), dairy(1, false)
@@ -159,19 +161,32 @@ func TestDairyEffects(t *testing.T) {
 	if n != 8 || sum/float64(n) != 24000 {
 		t.Errorf("%d fairs averaging %v, want 8 averaging 24000", n, sum/float64(n))
 	}
-	// Each fair stands out of the noise of its own August: the noise sd is
-	// bottledNoise * level*(1+trend)^t * season[Aug], e.g. 2019-08 (t = 7):
-	// 0.015 * 430000*1.003^7*0.90 = 0.015*395201 = 5928 litres, so
-	// 22500/5928 = 3.80 sd; 2026-08 (t = 91): 0.015*508272 = 7624 litres,
-	// 24400/7624 = 3.20 sd (the smallest ratio). Hand calculation; want > 3.
+	// The fair moves between August and September (four years each), so
+	// it is not confounded with one month's seasonal factor:
+	// August 2019, 2021, 2024, 2026; September 2020, 2022, 2023, 2025.
+	months := map[int]int{}
+	for _, e := range bottledEffects {
+		if e.what == "festival" {
+			months[int(mustMonth(e.label).Start().Month())]++
+		}
+	}
+	if len(months) != 2 || months[8] != 4 || months[9] != 4 {
+		t.Errorf("fair months %v, want 4 in August (8) and 4 in September (9)", months)
+	}
+	// Each fair stands out of the noise of its own month: the noise sd is
+	// bottledNoise * level*(1+trend)^t * season[m]. Hand calculations:
+	// largest ratio 2021-08 (t = 31): 0.015 * 430000*1.003^31*0.90 =
+	// 0.015*424659 = 6370 litres, 24600/6370 = 3.86 sd; smallest 2025-09
+	// (t = 80): 0.015 * 430000*1.003^80*1.04 = 0.015*568298 = 8524 litres,
+	// 24400/8524 = 2.86 sd. Want > 2.5 sd for every fair.
 	for _, e := range bottledEffects {
 		if e.what != "festival" {
 			continue
 		}
 		i := mustMonth(e.label).Sub(dairyStart)
-		sd := bottledNoise * bottledLevel * math.Pow(1+bottledTrend, float64(i)) * bottledSeason[7]
-		if e.litres < 3*sd {
-			t.Errorf("%s fair %v litres is under 3 noise sd (%.0f)", e.label, e.litres, sd)
+		sd := bottledNoise * bottledLevel * math.Pow(1+bottledTrend, float64(i)) * bottledSeason[i%12]
+		if e.litres < 2.5*sd {
+			t.Errorf("%s fair %v litres is under 2.5 noise sd (%.0f)", e.label, e.litres, sd)
 		}
 	}
 }
