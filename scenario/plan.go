@@ -181,8 +181,8 @@ func Build(f *File) (*Plan, error) {
 	for _, fl := range h.Filled {
 		if fl.Series == ser.Name {
 			p.Filled = append(p.Filled, fl)
-			p.Notes = append(p.Notes, fmt.Sprintf("%s:%d: no value for %s; filled with %.6g (history.fill %s)",
-				f.History.File, fl.Line, fl.Period, fl.Value, f.History.Fill))
+			p.Notes = append(p.Notes, fmt.Sprintf("%s: no value for %s; filled with %.6g (history.fill %s)",
+				f.History.File, fl.Period, fl.Value, f.History.Fill))
 		}
 	}
 	if p.Mode, err = forecast.ParseBandMode(f.Bands.Widen); err != nil {

@@ -110,8 +110,8 @@ func fitRun(opts *FitOptions) error {
 	}
 	for _, fl := range h.Filled {
 		if opts.Series == "" || fl.Series == opts.Series {
-			fmt.Fprintf(opts.IO.ErrOut, "note: %s:%d: series %q has no value for %s; filled with %s (--fill %s)\n",
-				opts.History, fl.Line, fl.Series, fl.Period, fmtNum(fl.Value, 2), opts.Fill)
+			fmt.Fprintf(opts.IO.ErrOut, "note: %s: series %q has no value for %s; filled with %s (--fill %s)\n",
+				fileLine(opts.History, fl.Line), fl.Series, fl.Period, fmtNum(fl.Value, 2), opts.Fill)
 		}
 	}
 	outcomes := forecast.FitAll(series, spec, opts.Workers)
@@ -265,4 +265,12 @@ func paramText(p forecast.Params) string {
 		}
 	}
 	return strings.Join(parts, " ")
+}
+
+// fileLine formats "file:line", or just the file when line is 0.
+func fileLine(file string, line int) string {
+	if line > 0 {
+		return fmt.Sprintf("%s:%d", file, line)
+	}
+	return file
 }
