@@ -6,52 +6,6 @@ import (
 	"strconv"
 )
 
-// This file holds the exponential smoothing models: simple exponential
-// smoothing (SES), Holt's linear trend, Holt's damped trend and Holt-Winters
-// with an additive or a multiplicative season. They are written in the
-// component form with the parameter names of statsmodels' ExponentialSmoothing
-// (alpha = smoothing_level, beta = smoothing_trend, gamma =
-// smoothing_seasonal, phi = damping_trend), so that runs with the same
-// parameters and initial states give the same numbers.
-//
-// With data y_1..y_n, level l_t, trend b_t, season s_t of length m, and
-// φ = 1 for an undamped trend, b = 0 without a trend, s = 0 (additive) or 1
-// (multiplicative) without a season, the one-step prediction and the updates
-// for an additive season are
-//
-//	ŷ_t = l_{t-1} + φ b_{t-1} + s_{t-m}
-//	l_t = α (y_t - s_{t-m}) + (1-α)(l_{t-1} + φ b_{t-1})
-//	b_t = β (l_t - l_{t-1}) + (1-β) φ b_{t-1}
-//	s_t = γ (y_t - l_{t-1} - φ b_{t-1}) + (1-γ) s_{t-m}
-//
-// and for a multiplicative season
-//
-//	ŷ_t = (l_{t-1} + φ b_{t-1}) s_{t-m}
-//	l_t = α y_t / s_{t-m} + (1-α)(l_{t-1} + φ b_{t-1})
-//	b_t = β (l_t - l_{t-1}) + (1-β) φ b_{t-1}
-//	s_t = γ y_t / (l_{t-1} + φ b_{t-1}) + (1-γ) s_{t-m}
-//
-// The season is updated from the prediction l_{t-1} + φ b_{t-1}, not from
-// the new level l_t, as in statsmodels' ExponentialSmoothing. With the
-// one-step error e_t = y_t - ŷ_t the same updates read (error-correction
-// form, used by the code)
-//
-//	additive:        l_t = l_{t-1} + φ b_{t-1} + α e_t
-//	                 b_t = φ b_{t-1} + α β e_t
-//	                 s_t = s_{t-m} + γ e_t
-//	multiplicative:  l_t = l_{t-1} + φ b_{t-1} + α e_t / s_{t-m}
-//	                 b_t = φ b_{t-1} + α β e_t / s_{t-m}
-//	                 s_t = s_{t-m} + γ e_t / (l_{t-1} + φ b_{t-1})
-//
-// so in the innovations form of Hyndman, Koehler, Ord & Snyder (2008),
-// "Forecasting with Exponential Smoothing" (HKOS), the smoothing parameters
-// are α, αβ (their β) and γ (their γ, unchanged because the season is
-// updated from the prediction). The h-step forecast from the end of the data
-// is
-//
-//	ŷ_{n+h} = l_n + φ_h b_n + s_{n+h-m(k+1)}      (or × s for multiplicative)
-//	φ_h = φ + φ² + ... + φ^h  (= h undamped),     k = ⌊(h-1)/m⌋.
-
 // etsShape is the structure of an exponential smoothing model.
 type etsShape struct {
 	method Method
@@ -141,7 +95,8 @@ func etsMinPoints(m Method, season int) int {
 // parameters they point to (fields a method does not use are ignored).
 // Everything else, parameters and initial states, is estimated by
 // minimising the sum of squared one-step errors over all n observations
-// (see etsFitter for the method and the bounds).
+// (see etsFitter for the method and the bounds). The recursions are
+// documented on etsModel.
 //
 // It returns an error, never a panic, for bad data: a *TooShortError (with
 // Need = etsMinPoints and Series left empty for the caller to fill) when y
@@ -184,15 +139,16 @@ func fitETS(y []float64, m Method, cfg Config) (Model, error) {
 // returns them, NaN where a parameter is to be estimated.
 func etsCheckFixed(sh etsShape, fx Fixed) ([4]float64, error) {
 	out := [4]float64{math.NaN(), math.NaN(), math.NaN(), math.NaN()}
-	check := func(i int, name string, p *float64, use bool, lo float64, loOpen bool) error {
+	// check holds parameter i at *p if the model uses it, after checking
+	// it is in [0, 1] (or (0, 1] when zeroOK is false).
+	check := func(i int, name string, p *float64, use, zeroOK bool) error {
 		if p == nil || !use {
 			return nil
 		}
 		v := *p
-		bad := math.IsNaN(v) || v > 1 || v < lo || (loOpen && v == lo)
-		if bad {
+		if math.IsNaN(v) || v < 0 || v > 1 || (!zeroOK && v == 0) {
 			iv := "[0, 1]"
-			if loOpen {
+			if !zeroOK {
 				iv = "(0, 1]"
 			}
 			return fmt.Errorf("%s: %s = %s is outside %s", sh.method, name, strconv.FormatFloat(v, 'g', -1, 64), iv)
@@ -200,23 +156,71 @@ func etsCheckFixed(sh etsShape, fx Fixed) ([4]float64, error) {
 		out[i] = v
 		return nil
 	}
-	if err := check(0, "alpha", fx.Alpha, true, 0, false); err != nil {
+	if err := check(etsAlpha, "alpha", fx.Alpha, true, true); err != nil {
 		return out, err
 	}
-	if err := check(1, "beta", fx.Beta, sh.trend, 0, false); err != nil {
+	if err := check(etsBeta, "beta", fx.Beta, sh.trend, true); err != nil {
 		return out, err
 	}
-	if err := check(2, "gamma", fx.Gamma, sh.season > 0, 0, false); err != nil {
+	if err := check(etsGamma, "gamma", fx.Gamma, sh.season > 0, true); err != nil {
 		return out, err
 	}
-	if err := check(3, "phi", fx.Phi, sh.damped, 0, true); err != nil {
+	if err := check(etsPhi, "phi", fx.Phi, sh.damped, false); err != nil {
 		return out, err
 	}
 	return out, nil
 }
 
-// etsModel is a fitted (or given) exponential smoothing model. It
-// implements Model.
+// etsModel is a fitted (or given) exponential smoothing model: simple
+// exponential smoothing (SES), Holt's linear trend, Holt's damped trend or
+// Holt-Winters with an additive or a multiplicative season. It implements
+// Model. The models are written in the component form with the parameter
+// names of statsmodels' ExponentialSmoothing (alpha = smoothing_level,
+// beta = smoothing_trend, gamma = smoothing_seasonal, phi = damping_trend),
+// so that runs with the same parameters and initial states give the same
+// numbers.
+//
+// With data y_1..y_n, level l_t, trend b_t, season s_t of length m, and
+// φ = 1 for an undamped trend, b = 0 without a trend, s = 0 (additive) or 1
+// (multiplicative) without a season, the one-step prediction and the updates
+// for an additive season are
+//
+//	ŷ_t = l_{t-1} + φ b_{t-1} + s_{t-m}
+//	l_t = α (y_t - s_{t-m}) + (1-α)(l_{t-1} + φ b_{t-1})
+//	b_t = β (l_t - l_{t-1}) + (1-β) φ b_{t-1}
+//	s_t = γ (y_t - l_{t-1} - φ b_{t-1}) + (1-γ) s_{t-m}
+//
+// and for a multiplicative season
+//
+//	ŷ_t = (l_{t-1} + φ b_{t-1}) s_{t-m}
+//	l_t = α y_t / s_{t-m} + (1-α)(l_{t-1} + φ b_{t-1})
+//	b_t = β (l_t - l_{t-1}) + (1-β) φ b_{t-1}
+//	s_t = γ y_t / (l_{t-1} + φ b_{t-1}) + (1-γ) s_{t-m}
+//
+// The season is updated from the prediction l_{t-1} + φ b_{t-1}, not from
+// the new level l_t, as in statsmodels' ExponentialSmoothing. With the
+// one-step error e_t = y_t - ŷ_t the same updates read (error-correction
+// form, used by the code)
+//
+//	additive:        l_t = l_{t-1} + φ b_{t-1} + α e_t
+//	                 b_t = φ b_{t-1} + α β e_t
+//	                 s_t = s_{t-m} + γ e_t
+//	multiplicative:  l_t = l_{t-1} + φ b_{t-1} + α e_t / s_{t-m}
+//	                 b_t = φ b_{t-1} + α β e_t / s_{t-m}
+//	                 s_t = s_{t-m} + γ e_t / (l_{t-1} + φ b_{t-1})
+//
+// so in the innovations form of Hyndman, Koehler, Ord & Snyder (2008),
+// "Forecasting with Exponential Smoothing" (HKOS), the smoothing parameters
+// are α, αβ (their β) and γ (their γ, unchanged because the season is
+// updated from the prediction). The h-step forecast from the end of the data
+// is
+//
+//	ŷ_{n+h} = l_n + φ_h b_n + s_{n+h-m(k+1)}      (or × s for multiplicative)
+//	φ_h = φ + φ² + ... + φ^h  (= h undamped),     k = ⌊(h-1)/m⌋.
+//
+// (statsmodels' ExponentialSmoothing 0.13.5 forecasts at h = m, 2m, ...
+// with the seasonal state from before the last update; these follow the
+// recursion, as its ETSModel does.)
 type etsModel struct {
 	shape  etsShape
 	par    etsParams
@@ -270,7 +274,7 @@ func newETSModel(sh etsShape, p etsParams, init etsStates, y []float64) *etsMode
 func (md *etsModel) Method() Method { return md.shape.method }
 
 // Params returns alpha, and beta, gamma and phi where the model has them
-// (NaN otherwise), in the component form documented at the top of this file.
+// (NaN otherwise), in the component form documented on etsModel.
 func (md *etsModel) Params() Params {
 	p := Params{Alpha: md.par.alpha, Beta: math.NaN(), Gamma: math.NaN(), Phi: math.NaN()}
 	if md.shape.trend {
@@ -305,12 +309,11 @@ func (md *etsModel) Describe() string {
 // normalisation).
 func (md *etsModel) NumParams() int { return md.nEst }
 
-// Fitted returns the one-step predictions ŷ_1..ŷ_n. The caller must not
-// modify the slice.
-func (md *etsModel) Fitted() []float64 { return md.fitted }
+// Fitted returns a copy of the one-step predictions ŷ_1..ŷ_n.
+func (md *etsModel) Fitted() []float64 { return append([]float64(nil), md.fitted...) }
 
 // Forecast returns ŷ_{n+1}..ŷ_{n+h} from the states after the last
-// observation (formula at the top of this file). It returns an empty slice
+// observation (formula on etsModel). It returns an empty slice
 // for h = 0 and panics if h < 0.
 func (md *etsModel) Forecast(h int) []float64 {
 	if h < 0 {

@@ -105,7 +105,6 @@ type etsFitter struct {
 	bestX   []float64
 	bestPar [4]float64
 	bestU   []float64
-	evals   int
 }
 
 // newETSFitter prepares the estimation of a model of shape sh on y (which
@@ -291,32 +290,55 @@ func (f *etsFitter) freeFor(par [4]float64) []float64 {
 	return u
 }
 
-// The starting grid: alpha, beta, gamma as a fraction of its upper bound
-// 1-alpha, and phi. The first value of beta and of phi is the one used in
-// the first stage (see grid).
-var (
-	etsGridAlpha = []float64{0.1, 0.3, 0.5, 0.7, 0.9}
-	etsGridGamma = []float64{0.05, 0.35, 0.8}
-	etsGridBeta  = []float64{0.05, 0.01, 0.2}
-	etsGridPhi   = []float64{0.95, 0.85}
-)
-
-// gridPoint is one point of the starting grid and its SSE.
+// gridPoint is one point of the starting grid and its SSE; idx are its
+// positions in the grid's value lists (alpha, beta, gamma, phi).
 type gridPoint struct {
 	par [4]float64
+	idx [4]int
 	u   []float64
 	sse float64
 }
 
-// grid evaluates S(θ) at starting points and returns them sorted by SSE,
-// best first. It works in two stages over the free parameters (held ones
-// stay at their values): first alpha × gamma with beta 0.05 and phi 0.95,
-// then beta in {0.01, 0.05, 0.2} × phi in {0.85, 0.95} at the best alpha
-// and gamma; 20 points at most. For an additive season S(θ) is exact and
-// cheap (one linear pass, one solve). For a multiplicative season the
-// points are ranked on the additive season model of the same data, whose
-// smoothing parameters behave much alike, and the best few are then
-// evaluated properly (see fit).
+// gridValues returns the starting grid's values for each parameter (gamma
+// as a fraction of its upper bound 1-alpha): a full factorial design over
+// the free smoothing parameters, finer when there are fewer of them. Held
+// parameters get their value alone. With a season, phi, when free, is 0.9
+// here and tried at 0.85 and 0.95 afterwards (see grid).
+func (f *etsFitter) gridValues() (vals [4][]float64) {
+	nfree := 0
+	for _, i := range f.free {
+		if i != etsPhi {
+			nfree++
+		}
+	}
+	if nfree >= 3 {
+		vals[etsAlpha] = []float64{0.2, 0.5, 0.8}
+		vals[etsBeta] = []float64{0.02, 0.2, 0.8}
+	} else {
+		vals[etsAlpha] = []float64{0.1, 0.3, 0.5, 0.7, 0.9}
+		vals[etsBeta] = []float64{0.01, 0.1, 0.4, 0.9}
+	}
+	vals[etsGamma] = []float64{0.05, 0.35, 0.8}
+	vals[etsPhi] = []float64{0.9}
+	if nfree < 3 {
+		vals[etsPhi] = []float64{0.8, 0.9, 0.98}
+	}
+	for i, v := range f.fixed {
+		if !math.IsNaN(v) {
+			vals[i] = []float64{v}
+		}
+	}
+	return vals
+}
+
+// grid evaluates S(θ) on the starting grid (gridValues) and returns the
+// points sorted by SSE, best first; with a season and phi free it then
+// tries phi 0.85 and 0.95 at the best point. That is at most 60 points
+// without a season and 29 with one. For an additive
+// season S(θ) is exact and cheap (one linear pass, one solve). For a
+// multiplicative season the points are ranked on the additive season
+// model of the same data, whose smoothing parameters behave much alike,
+// and the best few are then evaluated properly (see fit).
 func (f *etsFitter) grid() []gridPoint {
 	lin := f
 	if f.mult {
@@ -326,50 +348,45 @@ func (f *etsFitter) grid() []gridPoint {
 		lin.initialStates()
 	}
 	var pts []gridPoint
-	eval := func(par [4]float64) {
+	eval := func(par [4]float64, idx [4]int) {
 		u := lin.freeFor(par)
 		lin.setParams(u)
 		sse := lin.passStatesLinear()
 		pred, ok := lin.step()
 		if ok && sse < math.Inf(1) {
-			pts = append(pts, gridPoint{lin.par, u, math.Max(sse-pred, 0)})
+			pts = append(pts, gridPoint{lin.par, idx, u, math.Max(sse-pred, 0)})
 		}
 	}
-	values := func(i int, vals []float64) []float64 {
-		if math.IsNaN(f.fixed[i]) {
-			return vals
-		}
-		return []float64{f.fixed[i]}
-	}
-	sortPts := func() {
-		slices.SortStableFunc(pts, func(p, q gridPoint) int { return cmp.Compare(p.sse, q.sse) })
-	}
-	beta, phi := values(etsBeta, etsGridBeta), values(etsPhi, etsGridPhi)
-	for _, a := range values(etsAlpha, etsGridAlpha) {
-		for _, g := range values(etsGamma, etsGridGamma) {
-			par := [4]float64{a, beta[0], g, phi[0]}
-			if math.IsNaN(f.fixed[etsGamma]) {
-				par[etsGamma] = g * math.Min(etsParamHi, 1-a)
+	vals := f.gridValues()
+	for ia, a := range vals[etsAlpha] {
+		for ib, b := range vals[etsBeta] {
+			for ig, g := range vals[etsGamma] {
+				for ip, p := range vals[etsPhi] {
+					par := [4]float64{a, b, g, p}
+					if math.IsNaN(f.fixed[etsGamma]) {
+						par[etsGamma] = g * math.Min(etsParamHi, 1-a)
+					}
+					eval(par, [4]int{ia, ib, ig, ip})
+				}
 			}
-			eval(par)
 		}
 	}
 	if len(pts) == 0 {
 		return nil
 	}
-	sortPts()
-	best := pts[0].par
-	for i, b := range beta {
-		for j, p := range phi {
-			if i == 0 && j == 0 {
-				continue
-			}
-			par := best
-			par[etsBeta], par[etsPhi] = b, p
-			eval(par)
-		}
+	sortPts := func() {
+		slices.SortStableFunc(pts, func(p, q gridPoint) int { return cmp.Compare(p.sse, q.sse) })
 	}
 	sortPts()
+	if math.IsNaN(f.fixed[etsPhi]) && len(vals[etsPhi]) == 1 {
+		best := pts[0]
+		for _, p := range []float64{0.85, 0.95} {
+			par := best.par
+			par[etsPhi] = p
+			eval(par, best.idx)
+		}
+		sortPts()
+	}
 	return pts
 }
 
@@ -464,16 +481,15 @@ func (f *etsFitter) step() (pred float64, ok bool) {
 // objective is the function the outer optimiser minimises: S(θ(u)) /
 // scale, with its gradient in u written into grad.
 func (f *etsFitter) objective(u, grad []float64) float64 {
-	f.evals++
 	f.setParams(u)
 	if !f.solveStates() {
-		copy(f.x, f.bestX)
+		f.restoreStates()
 		clear(grad)
 		return math.Inf(1)
 	}
 	sse := f.passParams()
 	if !(sse < math.Inf(1)) {
-		copy(f.x, f.bestX)
+		f.restoreStates()
 		clear(grad)
 		return math.Inf(1)
 	}
@@ -483,6 +499,11 @@ func (f *etsFitter) objective(u, grad []float64) float64 {
 			s += f.pgr[q] * f.dpar[i][j]
 		}
 		grad[j] = 2 * s / f.scale
+		if math.IsNaN(grad[j]) || math.IsInf(grad[j], 0) {
+			f.restoreStates()
+			clear(grad)
+			return math.Inf(1)
+		}
 	}
 	if sse < f.bestF {
 		f.bestF = sse
@@ -491,6 +512,16 @@ func (f *etsFitter) objective(u, grad []float64) float64 {
 		f.bestU = append(f.bestU[:0], u...)
 	}
 	return sse / f.scale
+}
+
+// restoreStates resets f.x after a failed evaluation: to the best states
+// so far, or to the heuristic start when there are none yet.
+func (f *etsFitter) restoreStates() {
+	if math.IsInf(f.bestF, 1) {
+		f.initialStates()
+		return
+	}
+	copy(f.x, f.bestX)
 }
 
 // evalStart evaluates the objective at u with scale 1 (recording the best
@@ -516,7 +547,9 @@ func (f *etsFitter) evalStart(u []float64) float64 {
 func (f *etsFitter) fit() (etsParams, etsStates, int) {
 	f.initialStates()
 	if len(f.free) == 0 {
-		f.solveStates()
+		if !f.solveStates() {
+			f.initialStates()
+		}
 		copy(f.bestX, f.x)
 		f.bestPar = f.par
 		return f.result()
@@ -533,7 +566,7 @@ func (f *etsFitter) fit() (etsParams, etsStates, int) {
 		// No grid point worked (a multiplicative season with wild data):
 		// try the middle of the grid from the heuristic states.
 		f.initialStates()
-		u := f.freeFor([4]float64{0.3, 0.05, 0.1, 0.9})
+		u := f.freeFor([4]float64{0.3, 0.05, 0.1, 0.9}) // a middling start
 		if math.IsInf(f.evalStart(u), 1) {
 			f.initialStates()
 			copy(f.bestX, f.x)
@@ -543,23 +576,28 @@ func (f *etsFitter) fit() (etsParams, etsStates, int) {
 		}
 	}
 	f.descend(f.bestU)
-	// A second descent from the best grid point with a clearly different
-	// alpha, in case the first one ended in a poorer local minimum; only
-	// when that point is already within 10% of the best SSE found, since
-	// a start further off rarely ends lower (and the descent costs as
-	// much as the first).
+	// A second descent from the best grid point two or more grid steps
+	// away from the first start in some parameter, in case the first
+	// descent ended in a poorer local minimum; only when that point is
+	// already within 10% of the best SSE found, since a start further off
+	// rarely ends lower (and the descent costs as much as the first).
 	if len(pts) > 0 {
-		a0 := pts[0].par[etsAlpha]
+		first := pts[0].idx
 		for _, p := range pts[1:] {
-			if math.Abs(p.par[etsAlpha]-a0) > 0.25 {
-				if p.sse < 1.1*f.bestF {
-					if f.mult {
-						copy(f.x, f.bestX)
-					}
-					f.descend(p.u)
-				}
-				break
+			far := false
+			for i := range first {
+				far = far || p.idx[i]-first[i] >= 2 || first[i]-p.idx[i] >= 2
 			}
+			if !far {
+				continue
+			}
+			if p.sse < 1.1*f.bestF {
+				if f.mult {
+					copy(f.x, f.bestX)
+				}
+				f.descend(p.u)
+			}
+			break
 		}
 	}
 	return f.result()

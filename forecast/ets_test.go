@@ -724,3 +724,63 @@ func TestETSDesignPasses(t *testing.T) {
 		}
 	}
 }
+
+// TestETSEdgeCases fits awkward series: constant, as short as allowed,
+// and a multiplicative season on data with wild swings; nothing may
+// panic and the results must be finite.
+func TestETSEdgeCases(t *testing.T) {
+	constant := make([]float64, 30)
+	for i := range constant {
+		constant[i] = 7
+	}
+	wild := make([]float64, 48)
+	for i := range wild {
+		wild[i] = 1 + 100*float64((i*7919)%13) + float64(i%12)
+	}
+	tests := []struct {
+		name string
+		y    []float64
+		m    Method
+		cfg  Config
+	}{
+		{"constant ses", constant, SES, Config{}},
+		{"constant holt", constant, Holt, Config{}},
+		{"constant damped", constant, DampedHolt, Config{}},
+		{"constant hw add", constant, HoltWintersAdditive, Config{Season: 12}},
+		{"constant hw mult", constant, HoltWintersMultiplicative, Config{Season: 4, Damped: true}},
+		{"short hw add", wild[:24], HoltWintersAdditive, Config{Season: 12}},
+		{"short hw mult", wild[:24], HoltWintersMultiplicative, Config{Season: 12}},
+		{"wild hw mult", wild, HoltWintersMultiplicative, Config{Season: 12, Damped: true}},
+		{"short ses", constant[:3], SES, Config{}},
+	}
+	for _, tc := range tests {
+		md, err := fitETS(tc.y, tc.m, tc.cfg)
+		if err != nil {
+			t.Errorf("%s: %v", tc.name, err)
+			continue
+		}
+		for _, v := range append(append([]float64(nil), md.Fitted()...), md.Forecast(12)...) {
+			if math.IsNaN(v) || math.IsInf(v, 0) {
+				t.Errorf("%s: non-finite value in fit or forecast", tc.name)
+				break
+			}
+		}
+		if strings.HasPrefix(tc.name, "constant") {
+			for i, v := range md.Forecast(5) {
+				if !scalar.EqualWithinAbsOrRel(v, 7, 1e-6, 1e-6) {
+					t.Errorf("%s: forecast %d = %v, want 7", tc.name, i+1, v)
+				}
+			}
+		}
+		checkETSBounds(t, md.(*etsModel))
+	}
+	// Held alpha 1 leaves no room for gamma (gamma <= 1 - alpha): it is 0.
+	one := 1.0
+	md, err := fitETS(wild, HoltWintersAdditive, Config{Season: 12, Fixed: Fixed{Alpha: &one}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if p := md.Params(); p.Alpha != 1 || p.Gamma != 0 {
+		t.Errorf("alpha held at 1: params %+v", p)
+	}
+}

@@ -10,7 +10,7 @@ import "math"
 // h < 0.
 //
 // Additive and no season (HKOS class 1, exact). In innovations form the
-// parameters are α, β_I = αβ and γ (see ets.go), and
+// parameters are α, β_I = αβ and γ (see etsModel), and
 //
 //	c_h = 1 + Σ_{j=1..h-1} ψ_j²
 //	ψ_j = α + β_I φ_j + γ d_{j,m}
@@ -25,7 +25,8 @@ import "math"
 // innovations β_I = αβ and γ, whose one-step error is relative:
 // y_t = ŷ_t (1 + ε_t), Var ε_t = σ_r². With μ̃_h = l_n + φ_h b_n the forecast
 // without season, s_h the seasonal state it is multiplied by,
-// k = ⌊(h-1)/m⌋ and c_j = α + β_I φ_j, HKOS's class 3 gives
+// k = ⌊(h-1)/m⌋ and c_j = α + β_I φ_j, HKOS's class 3 gives (written from
+// memory; for h <= m it checks against simulation, see the tests)
 //
 //	θ_1 = μ̃_1²,   θ_h = μ̃_h² + σ_r² Σ_{j=1..h-1} c_j² θ_{h-j}
 //	v_h ≈ s_h² [θ_h (1 + σ_r²)(1 + γ² σ_r²)^k - μ̃_h²]

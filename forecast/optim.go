@@ -25,7 +25,10 @@ type interval struct{ lo, hi float64 }
 // periodic, and it reaches both ends at finite u (u = 0 and u = π/2), where
 // dv/du = 0; a minimum on the boundary is therefore a stationary point in u
 // and a gradient method converges to it in a few steps instead of chasing
-// u to infinity as it would with a logistic map.
+// u to infinity as it would with a logistic map. The other side of this:
+// every bound is a stationary point, also one the function would rather
+// leave, so a caller should check the sign of the derivative in v at a
+// result on a bound.
 func (iv interval) fromFree(u float64) (v, dv float64) {
 	s, c := math.Sincos(u)
 	w := iv.hi - iv.lo
