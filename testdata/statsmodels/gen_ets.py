@@ -10,13 +10,14 @@ references come from statsmodels 0.13.5+dfsg (Debian bookworm package
 python3-statsmodels) with numpy 1.24.2 and pandas 1.5.3; the versions in use
 are recorded in the JSON.
 
-Data: open datasets that ship with statsmodels:
-  * nile        - sm.datasets.nile, annual Nile flow volume, 1871-1970 (100 points)
-  * elec_equip  - sm.datasets.elec_equip, monthly turnover index (257 points)
-  * co2_monthly - sm.datasets.co2, weekly CO2 readings averaged to calendar
+Data: open datasets that ship with statsmodels (named by their module):
+  * nile        - sm.datasets.nile, column 'volume', annual (100 points)
+  * elec_equip  - sm.datasets.elec_equip, its one column, monthly (257 points)
+  * co2_monthly - sm.datasets.co2, weekly readings averaged to calendar
                   months (resample('MS').mean()), the 5 empty months filled by
                   linear interpolation (526 points)
-  * realcons    - sm.datasets.macrodata, quarterly real consumption (203 points)
+  * realcons    - sm.datasets.macrodata, column 'realcons', quarterly (203
+                  points)
 
 Sections:
   fixed     - ExponentialSmoothing with the smoothing parameters held and the
@@ -29,7 +30,8 @@ Sections:
               'estimated' (default SLSQP optimiser with its grid search start)
               and parameter bounds alpha, beta in [0.0001, 0.9999], gamma in
               [0, 0.9999] and phi in [0.8, 0.98]; statsmodels itself adds
-              beta <= alpha and gamma <= 1 - alpha. Recorded: parameters, initial states, SSE.
+              beta <= alpha and gamma <= 1 - alpha. Recorded: parameters,
+              initial states, SSE.
   variance  - ETSModel (error='add') relative forecast variances
               (res._relative_forecast_variance, HKOS 2008 Table 6.1 class 1
               formulas) and res.get_prediction(...).var_pred_mean / res.mse.
@@ -41,8 +43,8 @@ Sections:
               to m steps ahead use no seasonal update, so there the two
               agree exactly, and beyond they differ at second order.
 
-ExponentialSmoothing 0.13.5 forecasts take the seasonal for forecast steps h = m, 2m,
-... from the seasonal state before the last update (see _predict:
+ExponentialSmoothing 0.13.5 forecasts take the seasonal for forecast steps
+h = m, 2m, ... from the seasonal state before the last update (see _predict:
 s[nobs + m - 1:] = [s[(nobs - 1) + j % m] ...]), so its forecasts at those
 steps differ from the recursion; ETSModel's forecasts follow the recursion
 at every step (additive models). All are recorded.
