@@ -1,0 +1,663 @@
+package forecast
+
+import (
+	"cmp"
+	"math"
+	"slices"
+)
+
+// Bounds of the estimated smoothing parameters (component form, see
+// ets.go). They are the usual region of HKOS (2008) for the innovations
+// form, 0 < α < 1, 0 < β_I < α, 0 < γ < 1 - α (from memory), which for
+// the component form means 0 < β < 1; the open ends are moved 0.0001
+// inside. The damping is held in 0.8 <= φ <= 0.98 (common practice: a
+// smaller φ damps the trend away within a few periods, a larger one is
+// hard to tell from an undamped trend).
+const (
+	etsParamLo = 0.0001
+	etsParamHi = 0.9999
+	etsPhiLo   = 0.8
+	etsPhiHi   = 0.98
+)
+
+// Indexes of the smoothing parameters in etsFitter's arrays.
+const (
+	etsAlpha = iota
+	etsBeta
+	etsGamma
+	etsPhi
+)
+
+// etsFitter estimates an exponential smoothing model by least squares: it
+// minimises the sum of squared one-step errors
+//
+//	SSE(θ, x0) = Σ_{t=1..n} (y_t - ŷ_t)²
+//
+// over the smoothing parameters θ that are not held and the initial states
+// x0, nested as
+//
+//	S(θ) = min over x0 of SSE(θ, x0)
+//
+// Bounds: α, β in [0.0001, 0.9999], γ in [0.0001, 1-α] (both ends capped
+// by 0.9999 and 1-α), φ in [0.8, 0.98]; a held γ lowers α's upper bound
+// to 1-γ.
+//
+// Initial states. Seasonal initial states are normalised, which loses no
+// fit (adding c to the level and -c to every additive seasonal state, or
+// scaling level and trend by c and the multiplicative states by 1/c,
+// leaves every prediction unchanged):
+//
+//	additive:        Σ_{j=1..m} s_{j-m} = 0
+//	multiplicative:  Σ_{j=1..m} s_{j-m} = m
+//
+// so the free states are the level, the trend and m-1 seasonal states.
+//
+// Inner problem. For an additive (or no) season the errors are affine in
+// x0 when θ is fixed, so the best x0 is a linear least-squares solution:
+// one pass through the data gives the errors and the impulse responses
+// from which the normal equations follow (passStatesLinear), solved by
+// Cholesky. For the multiplicative season the errors are not affine in
+// x0; the sensitivities ∂e_t/∂x0, propagated through the recursions
+// (passStates), give Gauss-Newton steps with step halving from the
+// previous solution, until a step gains less than 1e-11 of the SSE,
+// or is predicted to gain less than 1e-9, or is small (1e-5) and gains
+// what was predicted to a thousandth.
+//
+// Outer problem. S(θ) is smooth, and its gradient is ∂SSE/∂θ at the inner
+// solution (envelope theorem), propagated through the recursions in a
+// second pass (passParams). Each free parameter is kept in its bounds by
+// the transform of interval.fromFree, and gonum's BFGS (minimizeSmooth)
+// minimises S over the free variables, scaled by its value at the start.
+// The start comes from a small grid (see grid and fit).
+type etsFitter struct {
+	sh   etsShape
+	y    []float64
+	m    int  // season length used by the passes: sh.season, or 1 (held at 0)
+	mult bool // multiplicative season
+
+	// Free initial states x: x[0] = l0, x[kb] = b0 when kb > 0, and
+	// x[ks+j] = s_{j+1-m} for j < m-1; s_0 follows from the normalisation.
+	k, kb, ks int
+	x         []float64
+
+	fixed [4]float64    // held values (NaN = free); structural 0/1 included
+	free  []int         // indexes (etsAlpha...) of the free parameters
+	par   [4]float64    // current parameter values
+	dpar  [4][4]float64 // dpar[i][j] = ∂par[i]/∂u_j for the free variables u
+	ia    int           // position of alpha among the free variables, or -1
+	scale float64       // objective scale: SSE at the start
+
+	// Work space for the passes.
+	seas   []float64 // m seasonal states (circular)
+	dl, db []float64 // k state sensitivities of level and trend
+	ds     []float64 // m*k seasonal sensitivities, ds[c*k+i]
+	jm     []float64 // k*n: columns of J = ∂e/∂x (multiplicative season)
+	a, a2  []float64 // k*k normal matrix and a copy
+	g      []float64 // k: Σ e_t ∂e_t/∂x, then the step
+	xTry   []float64 // k
+	pds    []float64 // m*4 seasonal sensitivities to the parameters
+	// passStatesLinear: impulse responses, errors and raw sums.
+	hl, hb, hs, ev []float64 // n
+	rp, rq, rg, rr []float64 // m, m, m, m*m
+	pgr            [4]float64
+
+	bestF   float64
+	bestX   []float64
+	bestPar [4]float64
+	bestU   []float64
+}
+
+// newETSFitter prepares the estimation of a model of shape sh on y (which
+// it keeps, unmodified). fixed holds the held parameter values, NaN for
+// the ones to estimate, as etsCheckFixed returns them.
+func newETSFitter(sh etsShape, y []float64, fixed [4]float64) *etsFitter {
+	f := &etsFitter{sh: sh, y: y, m: max(sh.season, 1), mult: sh.mult, fixed: fixed, ia: -1}
+	if !sh.trend {
+		f.fixed[etsBeta] = 0
+	}
+	if sh.season == 0 {
+		f.fixed[etsGamma] = 0
+	}
+	if !sh.damped {
+		f.fixed[etsPhi] = 1
+	}
+	for i, v := range f.fixed {
+		if math.IsNaN(v) {
+			if i == etsAlpha {
+				f.ia = len(f.free)
+			}
+			f.free = append(f.free, i)
+		} else {
+			f.par[i] = v
+		}
+	}
+	f.k, f.kb, f.ks = 1, 0, 1
+	if sh.trend {
+		f.kb = 1
+		f.k, f.ks = 2, 2
+	}
+	f.k += f.m - 1
+	k, m := f.k, f.m
+	f.x = make([]float64, k)
+	f.seas = make([]float64, m)
+	f.dl = make([]float64, k)
+	f.db = make([]float64, k)
+	f.ds = make([]float64, m*k)
+	f.a = make([]float64, k*k)
+	f.a2 = make([]float64, k*k)
+	f.g = make([]float64, k)
+	f.xTry = make([]float64, k)
+	f.pds = make([]float64, m*4)
+	n := len(y)
+	f.ev = make([]float64, n)
+	if f.mult {
+		f.jm = make([]float64, k*n)
+	} else {
+		f.hl, f.hb, f.hs = make([]float64, n), make([]float64, n), make([]float64, n)
+		f.rp, f.rq, f.rg, f.rr = make([]float64, m), make([]float64, m), make([]float64, m), make([]float64, m*m)
+		if len(f.ds) < 3*m {
+			f.ds = make([]float64, 3*m)
+		}
+	}
+	f.bestX = make([]float64, k)
+	f.bestF = math.Inf(1)
+	return f
+}
+
+// expand writes the full initial states for the free states x: it returns
+// l0 and b0 and fills f.seas with s_{1-m}..s_0.
+func (f *etsFitter) expand(x []float64) (l0, b0 float64) {
+	l0 = x[0]
+	if f.kb > 0 {
+		b0 = x[f.kb]
+	}
+	m := f.m
+	var sum float64
+	for j := 0; j < m-1; j++ {
+		v := x[f.ks+j]
+		f.seas[j] = v
+		sum += v
+	}
+	if f.mult {
+		f.seas[m-1] = float64(m) - sum
+	} else {
+		f.seas[m-1] = -sum
+	}
+	return l0, b0
+}
+
+// initialStates sets x to a heuristic start: the level and trend from the
+// means of the first two seasons (first two values without a season) and
+// seasonal states from the first season around that line, normalised.
+func (f *etsFitter) initialStates() {
+	y, m, x := f.y, f.sh.season, f.x
+	if m == 0 {
+		x[0] = y[0]
+		if f.kb > 0 {
+			x[f.kb] = y[1] - y[0]
+		}
+		return
+	}
+	var m1, m2 float64
+	for j := 0; j < m; j++ {
+		m1 += y[j]
+		m2 += y[m+j]
+	}
+	m1 /= float64(m)
+	m2 /= float64(m)
+	b0 := (m2 - m1) / float64(m)
+	l0 := m1 - b0*float64(m+1)/2
+	if f.mult && (l0 <= 0 || l0+float64(m)*b0 <= 0) {
+		b0, l0 = 0, m1
+	}
+	x[0] = l0
+	x[f.kb] = b0
+	// Seasonal states around the line, normalised.
+	var sum float64
+	for j := 0; j < m; j++ {
+		base := l0 + float64(j+1)*b0
+		if f.mult {
+			f.seas[j] = y[j] / base
+		} else {
+			f.seas[j] = y[j] - base
+		}
+		sum += f.seas[j]
+	}
+	for j := 0; j < m-1; j++ {
+		if f.mult {
+			x[f.ks+j] = f.seas[j] * float64(m) / sum
+		} else {
+			x[f.ks+j] = f.seas[j] - sum/float64(m)
+		}
+	}
+}
+
+// paramInterval returns the bounds of free parameter i given the current
+// alpha (for gamma), and the derivatives of the ends with respect to alpha.
+func (f *etsFitter) paramInterval(i int) (iv interval, dlo, dhi float64) {
+	switch i {
+	case etsAlpha:
+		hi := etsParamHi
+		if g := f.fixed[etsGamma]; !math.IsNaN(g) && f.sh.season > 0 {
+			hi = math.Min(hi, 1-g)
+		}
+		return interval{math.Min(etsParamLo, hi), hi}, 0, 0
+	case etsGamma:
+		hi, dh := etsParamHi, 0.0
+		if 1-f.par[etsAlpha] < hi {
+			hi, dh = 1-f.par[etsAlpha], -1
+		}
+		lo, dl := etsParamLo, 0.0
+		if hi < lo {
+			lo, dl = hi, dh
+		}
+		return interval{lo, hi}, dl, dh
+	case etsPhi:
+		return interval{etsPhiLo, etsPhiHi}, 0, 0
+	}
+	return interval{etsParamLo, etsParamHi}, 0, 0
+}
+
+// setParams sets f.par and f.dpar from the free variables u.
+func (f *etsFitter) setParams(u []float64) {
+	f.dpar = [4][4]float64{}
+	for j, i := range f.free {
+		iv, dlo, dhi := f.paramInterval(i)
+		v, dv := iv.fromFree(u[j])
+		f.par[i] = v
+		f.dpar[i][j] = dv
+		if i == etsGamma && f.ia >= 0 {
+			// γ = lo(α) + (hi(α) - lo(α)) sin²u: chain through α.
+			r := 0.0
+			if w := iv.hi - iv.lo; w > 0 {
+				r = (v - iv.lo) / w
+			}
+			f.dpar[i][f.ia] = (dlo + (dhi-dlo)*r) * f.dpar[etsAlpha][f.ia]
+		}
+	}
+}
+
+// freeFor returns the free variables for the parameter values par
+// (clamped into their bounds); it sets f.par on the way.
+func (f *etsFitter) freeFor(par [4]float64) []float64 {
+	u := make([]float64, len(f.free))
+	for j, i := range f.free {
+		iv, _, _ := f.paramInterval(i)
+		v := math.Max(iv.lo, math.Min(iv.hi, par[i]))
+		u[j] = iv.toFree(v)
+		f.par[i], _ = iv.fromFree(u[j])
+	}
+	return u
+}
+
+// gridPoint is one point of the starting grid and its SSE; idx are its
+// positions in the grid's value lists (alpha, beta, gamma, phi).
+type gridPoint struct {
+	par [4]float64
+	idx [4]int
+	u   []float64
+	sse float64
+}
+
+// gridValues returns the starting grid's values for each parameter (gamma
+// as a fraction of its upper bound 1-alpha): a full factorial design over
+// the free smoothing parameters, finer when there are fewer of them. Held
+// parameters get their value alone. With a season, phi, when free, is 0.9
+// here and tried at 0.85 and 0.95 afterwards (see grid).
+func (f *etsFitter) gridValues() (vals [4][]float64) {
+	nfree := 0
+	for _, i := range f.free {
+		if i != etsPhi {
+			nfree++
+		}
+	}
+	if nfree >= 3 {
+		vals[etsAlpha] = []float64{0.2, 0.5, 0.8}
+		vals[etsBeta] = []float64{0.02, 0.2, 0.8}
+	} else {
+		vals[etsAlpha] = []float64{0.1, 0.3, 0.5, 0.7, 0.9}
+		vals[etsBeta] = []float64{0.01, 0.1, 0.4, 0.9}
+	}
+	vals[etsGamma] = []float64{0.05, 0.35, 0.8}
+	vals[etsPhi] = []float64{0.9}
+	if nfree < 3 {
+		vals[etsPhi] = []float64{0.8, 0.9, 0.98}
+	}
+	for i, v := range f.fixed {
+		if !math.IsNaN(v) {
+			vals[i] = []float64{v}
+		}
+	}
+	return vals
+}
+
+// grid evaluates S(θ) on the starting grid (gridValues) and returns the
+// points sorted by SSE, best first; with a season and phi free it then
+// tries phi 0.85 and 0.95 at the best point. That is at most 60 points
+// without a season and 29 with one. For an additive
+// season S(θ) is exact and cheap (one linear pass, one solve). For a
+// multiplicative season the points are ranked on the additive season
+// model of the same data, whose smoothing parameters behave much alike,
+// and the best few are then evaluated properly (see fit).
+func (f *etsFitter) grid() []gridPoint {
+	lin := f
+	if f.mult {
+		sh := f.sh
+		sh.mult = false
+		lin = newETSFitter(sh, f.y, f.fixed)
+		lin.initialStates()
+	}
+	var pts []gridPoint
+	eval := func(par [4]float64, idx [4]int) {
+		u := lin.freeFor(par)
+		lin.setParams(u)
+		sse := lin.passStatesLinear()
+		pred, ok := lin.step()
+		if ok && sse < math.Inf(1) {
+			pts = append(pts, gridPoint{lin.par, idx, u, math.Max(sse-pred, 0)})
+		}
+	}
+	vals := f.gridValues()
+	for ia, a := range vals[etsAlpha] {
+		for ib, b := range vals[etsBeta] {
+			for ig, g := range vals[etsGamma] {
+				for ip, p := range vals[etsPhi] {
+					par := [4]float64{a, b, g, p}
+					if math.IsNaN(f.fixed[etsGamma]) {
+						par[etsGamma] = g * math.Min(etsParamHi, 1-a)
+					}
+					eval(par, [4]int{ia, ib, ig, ip})
+				}
+			}
+		}
+	}
+	if len(pts) == 0 {
+		return nil
+	}
+	sortPts := func() {
+		slices.SortStableFunc(pts, func(p, q gridPoint) int { return cmp.Compare(p.sse, q.sse) })
+	}
+	sortPts()
+	if math.IsNaN(f.fixed[etsPhi]) && len(vals[etsPhi]) == 1 {
+		best := pts[0]
+		for _, p := range []float64{0.85, 0.95} {
+			par := best.par
+			par[etsPhi] = p
+			eval(par, best.idx)
+		}
+		sortPts()
+	}
+	return pts
+}
+
+// solveStates replaces f.x by the best initial states for the current
+// parameters and reports whether that worked (finite SSE).
+func (f *etsFitter) solveStates() bool {
+	if !f.mult {
+		f.passStatesLinear()
+		if _, ok := f.step(); !ok {
+			return false
+		}
+		for i, d := range f.g {
+			f.x[i] += d
+		}
+		return true
+	}
+	for it := 0; it < 50; it++ {
+		sse := f.passStates()
+		if !(sse < math.Inf(1)) {
+			return false
+		}
+		pred, ok := f.step()
+		if !ok {
+			return false
+		}
+		t := 1.0
+		moved := false
+		for try := 0; try < 20; try++ {
+			for i, d := range f.g {
+				f.xTry[i] = f.x[i] + t*d
+			}
+			if s := f.sseAt(f.xTry); s < sse {
+				copy(f.x, f.xTry)
+				moved = true
+				// Stop when the step gained next to nothing, or when it
+				// was small and gained what the linearisation predicted
+				// to a thousandth (the problem is locally linear, so
+				// another step would gain less than about 1e-8 of the SSE).
+				gain := sse - s
+				if gain <= 1e-11*sse || (t == 1 && (pred <= 1e-9*sse ||
+					(pred <= 1e-5*sse && math.Abs(gain-pred) <= 1e-3*pred))) {
+					return true
+				}
+				break
+			}
+			t /= 2
+		}
+		if !moved {
+			return true // no descent left: converged to rounding
+		}
+	}
+	return true
+}
+
+// step solves the normal equations left in f.a and f.g by passStates for
+// the Gauss-Newton step δ (A δ = -g), written into f.g, and returns the
+// decrease of the SSE the linearisation predicts for it, -gᵀδ. If A is
+// not positive definite to working precision it retries with a small
+// ridge; ok is false if that fails too or δ is not finite.
+func (f *etsFitter) step() (pred float64, ok bool) {
+	k := f.k
+	copy(f.a2, f.a)
+	for i := range f.g {
+		f.g[i] = -f.g[i]
+	}
+	copy(f.xTry, f.g)
+	var dmax float64
+	for i := 0; i < k; i++ {
+		dmax = math.Max(dmax, f.a[i*k+i])
+	}
+	ridge := 1e-12 * dmax
+	for try := 0; try < 6; try++ {
+		if cholSolve(f.a, k, f.g) {
+			for i, v := range f.g {
+				if math.IsNaN(v) || math.IsInf(v, 0) {
+					return 0, false
+				}
+				pred += f.xTry[i] * v
+			}
+			return pred, true
+		}
+		copy(f.a, f.a2)
+		copy(f.g, f.xTry)
+		for i := 0; i < k; i++ {
+			f.a[i*k+i] += ridge
+		}
+		ridge *= 100
+	}
+	return 0, false
+}
+
+// objective is the function the outer optimiser minimises: S(θ(u)) /
+// scale, with its gradient in u written into grad.
+func (f *etsFitter) objective(u, grad []float64) float64 {
+	f.setParams(u)
+	if !f.solveStates() {
+		f.restoreStates()
+		clear(grad)
+		return math.Inf(1)
+	}
+	sse := f.passParams()
+	if !(sse < math.Inf(1)) {
+		f.restoreStates()
+		clear(grad)
+		return math.Inf(1)
+	}
+	for j := range grad {
+		var s float64
+		for q, i := range f.free {
+			s += f.pgr[q] * f.dpar[i][j]
+		}
+		grad[j] = 2 * s / f.scale
+		if math.IsNaN(grad[j]) || math.IsInf(grad[j], 0) {
+			f.restoreStates()
+			clear(grad)
+			return math.Inf(1)
+		}
+	}
+	if sse < f.bestF {
+		f.bestF = sse
+		copy(f.bestX, f.x)
+		f.bestPar = f.par
+		f.bestU = append(f.bestU[:0], u...)
+	}
+	return sse / f.scale
+}
+
+// restoreStates resets f.x after a failed evaluation: to the best states
+// so far, or to the heuristic start when there are none yet.
+func (f *etsFitter) restoreStates() {
+	if math.IsInf(f.bestF, 1) {
+		f.initialStates()
+		return
+	}
+	copy(f.x, f.bestX)
+}
+
+// evalStart evaluates the objective at u with scale 1 (recording the best
+// point) and returns S(θ(u)).
+func (f *etsFitter) evalStart(u []float64) float64 {
+	f.scale = 1
+	return f.objective(u, make([]float64, len(u)))
+}
+
+// fit runs the estimation and returns the parameters, the initial states
+// and the number of estimated quantities.
+//
+// Start: S(θ) on a small grid (see grid); for a multiplicative season the
+// three best grid points are re-evaluated with the model itself. Then
+// BFGS from the best point (descend). The sin² transform makes every
+// bound a stationary point of the free variables, so a parameter can stop
+// on a bound that the SSE would rather leave; when the gradient in θ at
+// the result points into the interval for such a parameter, BFGS is
+// restarted with it moved inside (at most twice). Last, a second descent
+// from the best grid point with a clearly different alpha, if that point
+// is within 10% of the best SSE so far. All evaluations keep the best
+// point seen, which is the result.
+func (f *etsFitter) fit() (etsParams, etsStates, int) {
+	f.initialStates()
+	if len(f.free) == 0 {
+		if !f.solveStates() {
+			f.initialStates()
+		}
+		copy(f.bestX, f.x)
+		f.bestPar = f.par
+		return f.result()
+	}
+	pts := f.grid()
+	starts := 1
+	if f.mult {
+		starts = 3
+	}
+	for i := 0; i < starts && i < len(pts); i++ {
+		f.evalStart(pts[i].u)
+	}
+	if len(pts) == 0 || math.IsInf(f.bestF, 1) {
+		// No grid point worked (a multiplicative season with wild data):
+		// try the middle of the grid from the heuristic states.
+		f.initialStates()
+		u := f.freeFor([4]float64{0.3, 0.05, 0.1, 0.9}) // a middling start
+		if math.IsInf(f.evalStart(u), 1) {
+			f.initialStates()
+			copy(f.bestX, f.x)
+			f.setParams(u)
+			f.bestPar = f.par
+			return f.result()
+		}
+	}
+	f.descend(f.bestU)
+	// A second descent from the best grid point two or more grid steps
+	// away from the first start in some parameter, in case the first
+	// descent ended in a poorer local minimum; only when that point is
+	// already within 10% of the best SSE found, since a start further off
+	// rarely ends lower (and the descent costs as much as the first).
+	if len(pts) > 0 {
+		first := pts[0].idx
+		for _, p := range pts[1:] {
+			far := false
+			for i := range first {
+				far = far || p.idx[i]-first[i] >= 2 || first[i]-p.idx[i] >= 2
+			}
+			if !far {
+				continue
+			}
+			if p.sse < 1.1*f.bestF {
+				if f.mult {
+					copy(f.x, f.bestX)
+				}
+				f.descend(p.u)
+			}
+			break
+		}
+	}
+	return f.result()
+}
+
+// descend runs BFGS from u0, then up to two restarts from points moved off
+// the bounds where the SSE would rather leave them (see leaveBounds).
+func (f *etsFitter) descend(u0 []float64) {
+	for restart := 0; restart < 3; restart++ {
+		f.scale = f.bestF
+		if !(f.scale > 0) || math.IsInf(f.scale, 1) {
+			return // a perfect fit, or nothing to scale by
+		}
+		minimizeSmooth(f.objective, u0, smoothSettings{Step: 0.2})
+		u, moved := f.leaveBounds()
+		if !moved {
+			return
+		}
+		u0 = u
+	}
+}
+
+// leaveBounds looks at the best point for free parameters on a bound
+// whose SSE derivative points into the interval, and returns the free
+// variables with each such parameter moved 5% of its interval inside.
+func (f *etsFitter) leaveBounds() (u []float64, moved bool) {
+	u = append([]float64(nil), f.bestU...)
+	copy(f.x, f.bestX)
+	f.setParams(u)
+	if !(f.passParams() < math.Inf(1)) {
+		return u, false
+	}
+	for q, i := range f.free {
+		iv, _, _ := f.paramInterval(i)
+		w := iv.hi - iv.lo
+		if !(w > 0) {
+			continue
+		}
+		s := math.Sin(u[q])
+		s *= s
+		g := f.pgr[q] // ½ ∂SSE/∂θ_i, others held
+		switch {
+		case s < 1e-6 && g < 0:
+			u[q] = iv.toFree(iv.lo + 0.05*w)
+			moved = true
+		case s > 1-1e-6 && g > 0:
+			u[q] = iv.toFree(iv.hi - 0.05*w)
+			moved = true
+		}
+	}
+	return u, moved
+}
+
+// result returns the best parameters and initial states found.
+func (f *etsFitter) result() (etsParams, etsStates, int) {
+	p := etsParams{f.bestPar[etsAlpha], f.bestPar[etsBeta], f.bestPar[etsGamma], f.bestPar[etsPhi]}
+	l0, b0 := f.expand(f.bestX)
+	init := etsStates{level: l0, trend: b0}
+	if f.sh.season > 0 {
+		init.season = append([]float64(nil), f.seas...)
+	}
+	return p, init, len(f.free) + f.k
+}
