@@ -44,16 +44,19 @@ var ErrCollinear = errors.New("the events cannot be told apart in the history")
 // maxIter rounds; 0 means 6):
 //
 //  1. fit the baseline to the cleaned series y - A w;
-//  2. with the model held, take a Gauss-Newton step for w on the one-step
-//     errors e(w) of the cleaned series: G[:,j] = -de/dw_j is found by
-//     running the model (Model.Extend) over the series with shape j
-//     removed, and dw solves min ||e - G dw||.
+//  2. with the smoothing parameters held, take a Gauss-Newton step for w on
+//     the one-step errors e(w) of the cleaned series: G[:,j] = -de/dw_j is
+//     found by refitting the initial states (parameters held) to the series
+//     with shape j removed, and dw solves min ||e - G dw||.
 //
-// For the linear (additive) models the errors are affine in w, so a step
-// is exact for the held model; the rounds account for the baseline's own
+// For the linear (additive) models the errors are affine in w and in the
+// initial states, so one step is the exact joint least-squares solution for
+// the held parameters; the later rounds account for the smoothing
 // parameters moving as the events come out. Standard errors come from the
-// last step: Cov(w) = s^2 (G'G)^-1 with s^2 = SSE / (m - k), m the number of
-// one-step errors and k the number of interventions.
+// last step: Cov(w) = s^2 (G'G)^-1 with s^2 = SSE / (m - k - p), m the
+// number of one-step errors, k the number of interventions and p the
+// model's estimated quantities (Model.NumParams). For linear-trend this is
+// exactly ordinary least squares with the event dummies as regressors.
 //
 // Auto selection runs in the first round only; later rounds keep its
 // choice. An intervention whose shape is zero at every observation is an
@@ -89,20 +92,20 @@ func FitInterventions(s Series, spec Spec, ivs []Intervention, maxIter int) (*In
 	}
 	out := &InterventionFit{Effect: w, StdErr: make([]float64, k)}
 	spec = spec.resolve(s)
-	var res *Result
-	var err error
-	for it := 0; it < maxIter; it++ {
+	fit := func() (*Result, error) {
 		cs := s
 		cs.Values = append([]float64(nil), cleaned...)
-		if res, err = Fit(cs, spec); err != nil {
-			return nil, err
-		}
-		spec.Method, spec.Config = res.Method, res.Config
-		out.Iterations = it + 1
-		if k == 0 {
-			break
-		}
-		step, se, err := gaussNewtonStep(res.Model, cleaned, ivs)
+		return Fit(cs, spec)
+	}
+	first, err := fit()
+	if err != nil {
+		return nil, err
+	}
+	spec.Method, spec.Config = first.Method, first.Config
+	res := first
+	out.Iterations = 1
+	for it := 1; it < maxIter && k > 0; it++ {
+		step, se, err := gaussNewtonStep(heldPredictor(res, spec), cleaned, ivs, res.Model.NumParams())
 		if err != nil {
 			return nil, err
 		}
@@ -113,33 +116,57 @@ func FitInterventions(s Series, spec Spec, ivs []Intervention, maxIter int) (*In
 			moved = math.Max(moved, math.Abs(step[j])/math.Max(se[j], 1e-12))
 		}
 		clean()
+		if res, err = fit(); err != nil {
+			return nil, err
+		}
+		out.Iterations = it + 1
 		if moved < 1e-3 {
-			// Refit once more on the settled series.
-			cs := s
-			cs.Values = append([]float64(nil), cleaned...)
-			if res, err = Fit(cs, spec); err != nil {
-				return nil, err
-			}
 			break
 		}
 	}
-	if k > 0 && out.Iterations == maxIter {
-		cs := s
-		cs.Values = append([]float64(nil), cleaned...)
-		if res, err = Fit(cs, spec); err != nil {
-			return nil, err
-		}
-	}
+	// Report the selection made in the first round.
+	res.Auto, res.Candidates, res.Metric, res.Select = first.Auto, first.Candidates, first.Metric, first.Select
 	out.Fit = res
 	out.Cleaned = cleaned
 	return out, nil
 }
 
+// heldPredictor returns a function giving the one-step predictions of the
+// fitted model's method over other data with the smoothing parameters held
+// and the initial states estimated afresh, so that the Gauss-Newton step
+// accounts for the states moving with the events. Methods whose parameters
+// cannot be held through Config (fitted moving-average weights) roll the
+// model forward instead.
+func heldPredictor(r *Result, spec Spec) func(z []float64) []float64 {
+	cfg := spec.Config
+	p := r.Model.Params()
+	hold := func(v float64, dst **float64) {
+		if !math.IsNaN(v) {
+			x := v
+			*dst = &x
+		}
+	}
+	hold(p.Alpha, &cfg.Fixed.Alpha)
+	hold(p.Beta, &cfg.Fixed.Beta)
+	hold(p.Gamma, &cfg.Fixed.Gamma)
+	hold(p.Phi, &cfg.Fixed.Phi)
+	if r.Method == WeightedMovingAverage && len(cfg.Weights) == 0 {
+		return func(z []float64) []float64 { return r.Model.Extend(z).Fitted() }
+	}
+	return func(z []float64) []float64 {
+		m, err := FitMethod(z, r.Method, cfg)
+		if err != nil {
+			return r.Model.Extend(z).Fitted()
+		}
+		return m.Fitted()
+	}
+}
+
 // gaussNewtonStep returns the least-squares step for the intervention sizes
 // and their standard errors, with model m held, at the cleaned series yc.
-func gaussNewtonStep(m Model, yc []float64, ivs []Intervention) (step, se []float64, err error) {
+func gaussNewtonStep(predict func([]float64) []float64, yc []float64, ivs []Intervention, modelParams int) (step, se []float64, err error) {
 	n, k := len(yc), len(ivs)
-	p0 := m.Extend(yc).Fitted()
+	p0 := predict(yc)
 	// Rows where the model makes a prediction.
 	var rows []int
 	for t := 0; t < n; t++ {
@@ -147,7 +174,8 @@ func gaussNewtonStep(m Model, yc []float64, ivs []Intervention) (step, se []floa
 			rows = append(rows, t)
 		}
 	}
-	if len(rows) <= k {
+	dof := len(rows) - k - modelParams
+	if dof < 1 {
 		return nil, nil, fmt.Errorf("%w: %d usable points for %d events", ErrCollinear, len(rows), k)
 	}
 	G := mat.NewDense(len(rows), k, nil)
@@ -157,7 +185,7 @@ func gaussNewtonStep(m Model, yc []float64, ivs []Intervention) (step, se []floa
 		for t := range yc {
 			shifted[t] = yc[t] - iv.Shape[t]
 		}
-		pj := m.Extend(shifted).Fitted()
+		pj := predict(shifted)
 		// e(w + d) = yc - d x - pred(yc - d x); per unit d the error falls
 		// by x - (pred(yc) - pred(yc - x)).
 		for r, t := range rows {
@@ -185,7 +213,7 @@ func gaussNewtonStep(m Model, yc []float64, ivs []Intervention) (step, se []floa
 		d := e.AtVec(r) - fit.AtVec(r)
 		sse += d * d
 	}
-	s2 := sse / float64(len(rows)-k)
+	s2 := sse / float64(dof)
 	step, se = make([]float64, k), make([]float64, k)
 	for j := 0; j < k; j++ {
 		step[j] = x.AtVec(j)
