@@ -12,11 +12,12 @@ import (
 type CheckOptions struct {
 	IO   *IOStreams
 	File string
+	JSON bool
 }
 
 func newCmdCheck(f *Factory, runF func(*CheckOptions) error) *cobra.Command {
 	opts := &CheckOptions{IO: f.IO}
-	return &cobra.Command{
+	cmd := &cobra.Command{
 		Use:   "check FILE",
 		Short: "Validate a scenario file and its history without computing a plan",
 		Long: `Read a scenario file and the history it names and report every problem with
@@ -34,6 +35,8 @@ sound and 2 when it is not.`,
 			return checkRun(opts)
 		},
 	}
+	cmd.Flags().BoolVar(&opts.JSON, "json", false, "print the summary as JSON")
+	return cmd
 }
 
 func checkRun(opts *CheckOptions) error {
@@ -53,6 +56,16 @@ func checkRun(opts *CheckOptions) error {
 		if e.IsPast(ser.Next()) {
 			past++
 		}
+	}
+	if opts.JSON {
+		b, err := marshalLine(map[string]any{"file": opts.File, "ok": true, "plan": f.Plan, "series": ser.Name,
+			"period": ser.Freq().String(), "n": ser.Len(), "events": len(f.Events), "past_events": past,
+			"scenarios": len(f.Cases()), "horizon": f.Horizon})
+		if err != nil {
+			return err
+		}
+		_, err = opts.IO.Out.Write(b)
+		return err
 	}
 	_, err = fmt.Fprintf(opts.IO.Out, "%s: ok: plan %s, series %s (%d %s periods, %s to %s), %d event(s) of which %d past, %d scenario(s), horizon %d\n",
 		opts.File, f.Plan, ser.Name, ser.Len(), ser.Freq(), ser.Start, ser.Period(ser.Len()-1), len(f.Events), past, len(f.Cases()), f.Horizon)

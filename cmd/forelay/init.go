@@ -19,6 +19,7 @@ type InitOptions struct {
 	IO    *IOStreams
 	Dir   string
 	Force bool
+	JSON  bool
 }
 
 func newCmdInit(f *Factory, runF func(*InitOptions) error) *cobra.Command {
@@ -40,6 +41,7 @@ files are left alone unless --force is given.`,
 		},
 	}
 	cmd.Flags().BoolVar(&opts.Force, "force", false, "overwrite existing files")
+	cmd.Flags().BoolVar(&opts.JSON, "json", false, "print the files written as JSON")
 	return cmd
 }
 
@@ -65,6 +67,14 @@ func initRun(opts *InitOptions) error {
 	}
 	paths, err := set.commit()
 	if err != nil {
+		return err
+	}
+	if opts.JSON {
+		b, err := marshalLine(map[string]any{"written": paths})
+		if err != nil {
+			return err
+		}
+		_, err = opts.IO.Out.Write(b)
 		return err
 	}
 	for _, p := range paths {

@@ -82,13 +82,24 @@ func run(args []string, io *IOStreams, now func() time.Time) int {
 }
 
 func newCmdVersion(f *Factory) *cobra.Command {
-	return &cobra.Command{
+	var asJSON bool
+	cmd := &cobra.Command{
 		Use:   "version",
 		Short: "Print the forelay version",
 		Args:  cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
+			if asJSON {
+				b, err := marshalLine(map[string]string{"version": version})
+				if err != nil {
+					return err
+				}
+				_, err = f.IO.Out.Write(b)
+				return err
+			}
 			_, err := fmt.Fprintf(f.IO.Out, "forelay %s\n", version)
 			return err
 		},
 	}
+	cmd.Flags().BoolVar(&asJSON, "json", false, "print the version as JSON")
+	return cmd
 }
