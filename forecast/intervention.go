@@ -197,6 +197,9 @@ func gaussNewtonStep(predict func([]float64) []float64, yc []float64, ivs []Inte
 	}
 	var qr mat.QR
 	qr.Factorize(G)
+	if c := qr.Cond(); c > 1e10 || math.IsNaN(c) {
+		return nil, nil, fmt.Errorf("%w (condition number %.3g)", ErrCollinear, c)
+	}
 	var x mat.VecDense
 	if err := qr.SolveVecTo(&x, false, e); err != nil {
 		return nil, nil, fmt.Errorf("%w: %v", ErrCollinear, err)

@@ -232,6 +232,14 @@ func Build(f *File) (*Plan, error) {
 			ivEvent, ivWhen = append(ivEvent, e), append(ivWhen, e.Past[i].Label)
 		}
 	}
+	season := spec.Config.Season
+	if season == 0 {
+		season = ser.Freq().SeasonLength()
+	}
+	if e := seasonalConfounding(f, ser, season); e != nil {
+		return nil, f.errAt(e.Pos, fmt.Sprintf("event %q: past", e.ID), fmt.Errorf(
+			"every occurrence falls on the same %s of the season, in every cycle of the history, so the seasonal pattern already carries the event and its size cannot be told apart from it; leave out past (the baseline then plans it as part of the season) or list only some occurrences", ser.Freq()))
+	}
 	work := ser
 	work.Values = y
 	ifit, err := forecast.FitInterventions(work, spec, ivs, 0)
@@ -355,4 +363,36 @@ func digest(path string) (string, error) {
 	}
 	sum := sha256.Sum256(b)
 	return "sha256:" + hex.EncodeToString(sum[:]), nil
+}
+
+// seasonalConfounding returns the first event whose past occurrences fall
+// on the same position of the season in every cycle of the history (so the
+// seasonal pattern carries the event and its size cannot be estimated apart
+// from it), or nil.
+func seasonalConfounding(f *File, ser forecast.Series, m int) *Event {
+	if m < 2 {
+		return nil
+	}
+	n := ser.Len()
+	for _, e := range f.Events {
+		if len(e.Past) < 2 {
+			continue
+		}
+		pos := map[int]int{}
+		for _, w := range e.Past {
+			i := ser.Index(forecast.PeriodOf(ser.Freq(), w.From))
+			if i >= 0 && i < n {
+				pos[i%m]++
+			}
+		}
+		if len(pos) != 1 {
+			continue
+		}
+		for slot, count := range pos {
+			if cycles := (n - slot + m - 1) / m; count >= cycles {
+				return e
+			}
+		}
+	}
+	return nil
 }
