@@ -60,6 +60,7 @@ scenario file for the known events ("forelay init" writes a starter), and run
 		newCmdPlan(f, nil),
 		newCmdCheck(f, nil),
 		newCmdInit(f, nil),
+		newCmdTrack(f, nil),
 	)
 	return root
 }

@@ -1,0 +1,562 @@
+package main
+
+import (
+	"bytes"
+	"crypto/sha256"
+	"encoding/hex"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"forelay/forecast"
+	"forelay/scenario"
+)
+
+// TrackOptions are the settings of "forelay track".
+type TrackOptions struct {
+	IO *IOStreams
+	// File is the scenario file; Actuals the CSV of new actuals.
+	File, Actuals string
+	// Scenario names the scenario to track; empty picks the only one, or
+	// the one called "plan".
+	Scenario string
+	// PlanDir, when set, holds the plan.json to read instead of building
+	// the plan again.
+	PlanDir string
+	// Out, when set, is the directory for track.csv and the charts.
+	Out string
+	// JSON prints the JSON report instead of the tables.
+	JSON bool
+	// TSLimit is the tracking signal's limit; zero means the signal's
+	// default (4, or Trigg's 95% limit for the smoothed signal).
+	TSLimit float64
+	// Signal is "cumulative" or "smoothed".
+	Signal string
+	// Z is the control limit in sigmas; MADSmoothing the smoothing
+	// constant of the MAD.
+	Z, MADSmoothing float64
+	// FailOn is "", "bias", "outlier" or "any".
+	FailOn string
+}
+
+func newCmdTrack(f *Factory, runF func(*TrackOptions) error) *cobra.Command {
+	opts := &TrackOptions{IO: f.IO}
+	cmd := &cobra.Command{
+		Use:   "track FILE --actuals CSV [--scenario NAME] [--plan DIR]",
+		Short: "Follow new actuals against a plan: tracking signal, control chart, verdict",
+		Long: `Compare new actuals with the adjusted plan of one scenario, period by period:
+the error (actual minus plan), the cumulative error, a running MAD, the tracking
+signal, the error's position on a control chart, and a verdict:
+
+  in-control  the errors look like the plan's usual noise
+  bias        the tracking signal is beyond its limit, or a Western Electric
+              run rule of drift fired: re-forecast
+  outlier     one error beyond the control limits and no drift: check for an
+              unplanned event
+
+The plan is built again from FILE, or read from DIR/plan.json with --plan
+(written earlier by "forelay plan --out DIR"). The actuals use the history
+layouts, hold the plan's series, start at the first plan period and run
+without gaps.
+
+The running MAD starts at the baseline's in-sample MAD and is updated with
+each new error e_t as MAD_t = a |e_t| + (1-a) MAD_t-1, a = --mad-smoothing.
+The control limits are +-z sqrt(MSE), with the baseline's in-sample MSE.
+
+With --out DIR it also writes track.csv, control.png/.svg and signal.png/.svg.
+Exit codes: 0 done, 1 internal failure, 2 bad flags or input files, 3 when the
+latest period's verdict is one --fail-on names (the report is printed first).`,
+		Example: `  forelay track examples/dairy/plan.yaml --actuals examples/dairy/actuals.csv --scenario with-contract
+  forelay track plan.yaml --actuals new.csv --plan out --fail-on bias
+  forelay track plan.yaml --actuals new.csv --signal smoothed --json`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opts.File = args[0]
+			if opts.Actuals == "" {
+				return flagErrorf("--actuals is required")
+			}
+			if runF != nil {
+				return runF(opts)
+			}
+			return trackRun(opts)
+		},
+	}
+	fl := cmd.Flags()
+	fl.StringVar(&opts.Actuals, "actuals", "", "CSV of new actuals (history layouts), starting at the first plan period")
+	fl.StringVar(&opts.Scenario, "scenario", "", `scenario to track (default: the only one, or the one called "plan")`)
+	fl.StringVar(&opts.PlanDir, "plan", "", "read the plan from DIR/plan.json instead of building it again")
+	fl.StringVar(&opts.Out, "out", "", "directory to write track.csv, control.png/.svg and signal.png/.svg into")
+	fl.BoolVar(&opts.JSON, "json", false, "print the report as JSON instead of the tables")
+	fl.Float64Var(&opts.TSLimit, "ts-limit", 0, "tracking signal limit (default 4 for cumulative, Trigg's 95% limit for smoothed)")
+	fl.StringVar(&opts.Signal, "signal", "cumulative", "tracking signal: cumulative or smoothed (Trigg)")
+	fl.Float64Var(&opts.Z, "z", 3, "control limits in sigmas")
+	fl.Float64Var(&opts.MADSmoothing, "mad-smoothing", 0.1, "smoothing constant of the running MAD, in (0, 1]")
+	fl.StringVar(&opts.FailOn, "fail-on", "", "exit with code 3 when the latest verdict is bias, outlier or any of the two")
+	return cmd
+}
+
+// trackSettings checks the flags and returns the tracking configuration
+// (without the plan's MAD and MSE) and the verdicts --fail-on names.
+func trackSettings(opts *TrackOptions) (forecast.TrackConfig, []forecast.Verdict, error) {
+	var cfg forecast.TrackConfig
+	sig, err := forecast.ParseSignal(opts.Signal)
+	if err != nil {
+		return cfg, nil, flagErrorf("--signal: unknown signal %q (want cumulative or smoothed)", opts.Signal)
+	}
+	cfg.Signal = sig
+	switch {
+	case !(opts.TSLimit >= 0) || math.IsInf(opts.TSLimit, 0):
+		return cfg, nil, flagErrorf("--ts-limit must be positive (or 0 for the default), got %v", opts.TSLimit)
+	case sig == forecast.SignalSmoothed && opts.TSLimit >= 1:
+		return cfg, nil, flagErrorf("--ts-limit must be below 1 for the smoothed signal, which never exceeds 1; got %v", opts.TSLimit)
+	case !(opts.Z > 0) || math.IsInf(opts.Z, 0):
+		return cfg, nil, flagErrorf("--z must be positive, got %v", opts.Z)
+	case !(opts.MADSmoothing > 0 && opts.MADSmoothing <= 1):
+		return cfg, nil, flagErrorf("--mad-smoothing must lie in (0, 1], got %v", opts.MADSmoothing)
+	}
+	cfg.TSLimit, cfg.Z, cfg.MADSmoothing = opts.TSLimit, opts.Z, opts.MADSmoothing
+	// The rest (Trigg's limit needs the smoothing in its table's range)
+	// is checked by Resolved; the MAD and MSE here only stand in for the
+	// plan's.
+	probe := cfg
+	probe.InitialMAD, probe.MSE = 1, 1
+	if _, err := probe.Resolved(); err != nil {
+		return cfg, nil, flagErrorf("--mad-smoothing %v: %v", opts.MADSmoothing, err)
+	}
+	var fail []forecast.Verdict
+	switch strings.ToLower(opts.FailOn) {
+	case "":
+	case "bias":
+		fail = []forecast.Verdict{forecast.Bias}
+	case "outlier":
+		fail = []forecast.Verdict{forecast.Outlier}
+	case "any":
+		fail = []forecast.Verdict{forecast.Bias, forecast.Outlier}
+	default:
+		return cfg, nil, flagErrorf("--fail-on: unknown verdict %q (want bias, outlier or any)", opts.FailOn)
+	}
+	return cfg, fail, nil
+}
+
+func trackRun(opts *TrackOptions) error {
+	cfg, failOn, err := trackSettings(opts)
+	if err != nil {
+		return err
+	}
+	tp, source, err := loadTrackPlan(opts)
+	if err != nil {
+		return err
+	}
+	line, err := tp.Choose(opts.Scenario)
+	if err != nil {
+		if opts.Scenario != "" {
+			return flagErrorf("--scenario: %v", err)
+		}
+		return flagErrorf("%v (with --scenario)", err)
+	}
+	fh, err := os.Open(opts.Actuals)
+	if err != nil {
+		return &inputError{err: err}
+	}
+	actual, err := tp.ReadActuals(fh, opts.Actuals)
+	fh.Close()
+	if err != nil {
+		return &inputError{err: err}
+	}
+	tr, err := tp.Track(line.Name, actual, cfg)
+	if err != nil {
+		return &inputError{err: err}
+	}
+	rep := trackReport{tp: tp, tr: tr, source: source, defaultLimit: opts.TSLimit == 0}
+
+	if opts.Out != "" {
+		set := newOutputSet(opts.Out)
+		set.add("track.csv", trackCSV(rep))
+		charts, err := trackCharts(rep)
+		if err != nil {
+			return err
+		}
+		for _, c := range charts {
+			set.add(c.name, c.data)
+		}
+		paths, err := set.commit()
+		if err != nil {
+			return err
+		}
+		for _, p := range paths {
+			fmt.Fprintf(opts.IO.ErrOut, "wrote %s\n", p)
+		}
+	}
+	if opts.JSON {
+		js, err := marshalIndent(trackJSON(rep))
+		if err != nil {
+			return err
+		}
+		if _, err := opts.IO.Out.Write(js); err != nil {
+			return err
+		}
+	} else {
+		var b bytes.Buffer
+		writeTrackText(&b, rep)
+		if _, err := opts.IO.Out.Write(b.Bytes()); err != nil {
+			return err
+		}
+	}
+	per, last := tr.Latest()
+	for _, v := range failOn {
+		if last.Verdict == v {
+			return &alertError{msg: fmt.Sprintf("--fail-on %s: the latest period, %s, is %s", strings.ToLower(opts.FailOn), per, v)}
+		}
+	}
+	return nil
+}
+
+// trackReport is what the outputs of a tracking run are made from.
+type trackReport struct {
+	tp     scenario.TrackPlan
+	tr     *scenario.Tracking
+	source string // "read from out/plan.json" or "recomputed from plan.yaml"
+	// defaultLimit is true when the tracking signal limit is the signal's
+	// default rather than --ts-limit.
+	defaultLimit bool
+}
+
+// loadTrackPlan builds the plan from the scenario file or reads it from
+// plan.json, and says which.
+func loadTrackPlan(opts *TrackOptions) (scenario.TrackPlan, string, error) {
+	if opts.PlanDir == "" {
+		p, err := buildPlan(opts.File)
+		if err != nil {
+			return scenario.TrackPlan{}, "", err
+		}
+		return p.TrackPlan(), "recomputed from " + opts.File, nil
+	}
+	path := filepath.Join(opts.PlanDir, "plan.json")
+	tp, inputs, err := readSavedPlan(path)
+	if err != nil {
+		return scenario.TrackPlan{}, "", &inputError{err: err}
+	}
+	if err := checkInputs(opts.File, path, inputs, opts.IO.ErrOut); err != nil {
+		return scenario.TrackPlan{}, "", err
+	}
+	return tp, "read from " + path, nil
+}
+
+// checkInputs compares the digests plan.json records of the scenario and
+// history files with the files as they are now, and warns on w about any
+// that differ or cannot be checked. A scenario file that does not load is
+// an input error.
+func checkInputs(file, planPath string, inputs map[string]string, w io.Writer) error {
+	f, err := scenario.Load(file)
+	if err != nil {
+		return &inputError{err: err}
+	}
+	for _, in := range []struct{ role, path string }{{"scenario", file}, {"history", f.History.File}} {
+		want, ok := inputs[in.role]
+		if !ok {
+			fmt.Fprintf(w, "warning: %s records no digest of the %s file; cannot tell whether %s changed since\n", planPath, in.role, in.path)
+			continue
+		}
+		got, err := fileDigest(in.path)
+		if err != nil {
+			fmt.Fprintf(w, "warning: cannot compare %s with the plan: %v\n", in.path, err)
+			continue
+		}
+		if got != want {
+			fmt.Fprintf(w, "warning: %s has changed since %s was written; the plan read may not match it (run forelay plan again, or leave out --plan)\n", in.path, planPath)
+		}
+	}
+	return nil
+}
+
+// fileDigest returns "sha256:" and the hex SHA-256 of the file, the form
+// plan.json records.
+func fileDigest(path string) (string, error) {
+	b, err := os.ReadFile(path)
+	if err != nil {
+		return "", err
+	}
+	sum := sha256.Sum256(b)
+	return "sha256:" + hex.EncodeToString(sum[:]), nil
+}
+
+// writeTrackText writes the human report of a tracking run.
+func writeTrackText(w io.Writer, r trackReport) {
+	tp, tr := r.tp, r.tr
+	c := tr.Config
+	units := ""
+	if tp.Units != "" {
+		units = " " + tp.Units
+	}
+	dec := valueDecimals(tp.MAD)
+	n := len(tr.Points)
+	fmt.Fprintf(w, "Tracking %s against scenario %s of plan %s: %d %s period(s) %s to %s%s\n",
+		tp.Series, tr.Scenario, tp.Name, n, tr.Periods[0].Freq, tr.Periods[0], tr.Periods[n-1], inUnits(tp.Units))
+	fmt.Fprintf(w, "plan: %s\n", r.source)
+	fmt.Fprintln(w, "Limits in force:")
+	for _, l := range [...][2]string{
+		{"tracking signal", signalText(r)},
+		{"MAD", fmt.Sprintf("starts at %s%s (the baseline's in-sample MAD), then MAD_t = %s |error_t| + %s MAD_t-1",
+			fmtNum(tp.MAD, dec), units, fmtG(c.MADSmoothing), fmtG(1-c.MADSmoothing))},
+		{"control chart", fmt.Sprintf("sigma = sqrt(MSE) = %s%s; UCL %s, LCL %s%s (z = %s)",
+			fmtNum(tr.Limits.Sigma, dec), units, signed(tr.Limits.UCL, dec), signed(tr.Limits.LCL, dec), units, fmtG(c.Z))},
+	} {
+		fmt.Fprintf(w, "  %-15s  %s\n", l[0], l[1])
+	}
+	fmt.Fprintln(w)
+
+	sdec := 2
+	if c.Signal == forecast.SignalSmoothed {
+		sdec = 3
+	}
+	t := newTable("period", "actual", "plan", "error", "cum. error", "MAD", "tracking signal", "sigmas", "verdict", "rules")
+	t.left(8, 9)
+	for i, p := range tr.Points {
+		t.add(tr.Periods[i].String(), fmtNum(p.Actual, dec), fmtNum(p.Plan, dec), signed(p.Error, dec), signed(p.CumError, dec),
+			fmtNum(p.MAD, dec), signed(p.TrackingSignal, sdec), signed(p.Sigmas, 2), p.Verdict.String(), rulesText(p.Rules))
+	}
+	t.write(w)
+	fmt.Fprintln(w)
+
+	va := tr.ValueAdded
+	fmt.Fprintf(w, "Forecast value added over %d period(s) (error = actual - forecast):\n", va.N)
+	ft := newTable("", "MAD", "bias")
+	ft.add("  adjusted plan", fmtNum(va.PlanMAD, dec), signed(va.PlanBias, dec))
+	ft.add("  baseline", fmtNum(va.BaselineMAD, dec), signed(va.BaselineBias, dec))
+	ft.write(w)
+	fmt.Fprintln(w, fvaText(r, dec))
+	fmt.Fprintln(w)
+	fmt.Fprintln(w, latestText(r))
+}
+
+// signalText describes the tracking signal and its limit.
+func signalText(r trackReport) string {
+	c := r.tr.Config
+	if c.Signal == forecast.SignalSmoothed {
+		s := fmt.Sprintf("Trigg's smoothed error / MAD (smoothing %s); alarm beyond +-%s", fmtG(c.MADSmoothing), fmtG(c.TSLimit))
+		if r.defaultLimit {
+			s += " (the 95% limit for this smoothing)"
+		}
+		return s
+	}
+	return fmt.Sprintf("cumulative error / MAD; alarm beyond +-%s", fmtG(c.TSLimit))
+}
+
+// fvaText says whether the events helped.
+func fvaText(r trackReport, dec int) string {
+	tr := r.tr
+	line, _ := r.tp.Choose(tr.Scenario)
+	same := true
+	for i := range tr.Points {
+		if line.Adjusted[i] != tr.Baseline[i] {
+			same = false
+		}
+	}
+	va := tr.ValueAdded
+	units := ""
+	if r.tp.Units != "" {
+		units = " " + r.tp.Units
+	}
+	share := ""
+	if !math.IsNaN(va.ImprovementShare) {
+		share = fmt.Sprintf(" (%s%% of the baseline's)", fmtNum(100*math.Abs(va.ImprovementShare), 1))
+	}
+	switch {
+	case same:
+		return fmt.Sprintf("Scenario %s changes nothing on these periods: the adjusted plan is the baseline.", tr.Scenario)
+	case va.Improvement > 0:
+		return fmt.Sprintf("The events helped: they cut the MAD by %s%s%s.", fmtNum(va.Improvement, dec), units, share)
+	case va.Improvement < 0:
+		return fmt.Sprintf("The events did not help: they raised the MAD by %s%s%s.", fmtNum(-va.Improvement, dec), units, share)
+	}
+	return "The events made no difference to the MAD on these periods."
+}
+
+// latestText is the verdict on the latest period in plain words.
+func latestText(r trackReport) string {
+	per, p := r.tr.Latest()
+	c := r.tr.Config
+	sdec := 2
+	if c.Signal == forecast.SignalSmoothed {
+		sdec = 3
+	}
+	var why []string
+	side := p.Sigmas
+	for _, rule := range p.Rules {
+		switch rule {
+		case forecast.RuleTrackingSignal:
+			why = append(why, fmt.Sprintf("tracking signal %s beyond +-%s", signed(p.TrackingSignal, sdec), fmtG(c.TSLimit)))
+			side = p.TrackingSignal
+		case forecast.RuleBeyondLimit:
+			why = append(why, fmt.Sprintf("error %s sigma, beyond the %s-sigma limit", signed(p.Sigmas, 2), fmtG(c.Z)))
+		case forecast.RuleTwoOfThree:
+			why = append(why, "two of the last three errors beyond 2 sigma on one side (we2)")
+		case forecast.RuleFourOfFive:
+			why = append(why, "four of the last five errors beyond 1 sigma on one side (we3)")
+		case forecast.RuleEightInARow:
+			why = append(why, "eight errors in a row on one side (we4)")
+		}
+	}
+	dir := "actuals above the plan"
+	if side < 0 {
+		dir = "actuals below the plan"
+	}
+	switch p.Verdict {
+	case forecast.Bias:
+		return fmt.Sprintf("%s: bias: %s (%s); re-forecast.", per, strings.Join(why, "; "), dir)
+	case forecast.Outlier:
+		return fmt.Sprintf("%s: outlier: %s (%s) with no sign of drift; check for an unplanned event.", per, strings.Join(why, "; "), dir)
+	}
+	return fmt.Sprintf("%s: in-control: tracking signal %s within +-%s, error %s sigma; no action needed.",
+		per, signed(p.TrackingSignal, sdec), fmtG(c.TSLimit), signed(p.Sigmas, 2))
+}
+
+// rulesText lists rule names, "-" for none.
+func rulesText(rules []forecast.Rule) string {
+	if len(rules) == 0 {
+		return "-"
+	}
+	s := make([]string, len(rules))
+	for i, r := range rules {
+		s[i] = r.String()
+	}
+	return strings.Join(s, ", ")
+}
+
+// valueDecimals picks the decimals for values of the size of mad: none
+// from 100 up, one from 10, two below.
+func valueDecimals(mad float64) int {
+	switch {
+	case mad >= 100:
+		return 0
+	case mad >= 10:
+		return 1
+	}
+	return 2
+}
+
+// fmtG formats a setting with up to three significant digits: 4, 0.1,
+// 0.538.
+func fmtG(v float64) string { return strconv.FormatFloat(v, 'g', 3, 64) }
+
+// errSavedPlan marks a plan.json that lacks what tracking needs.
+var errSavedPlan = errors.New("not a usable plan.json")
+
+// savedPlanJSON holds the fields of plan.json (see planOutJSON) that
+// tracking reads; the rest is ignored.
+type savedPlanJSON struct {
+	Plan    string `json:"plan"`
+	Units   string `json:"units"`
+	History struct {
+		Series string `json:"series"`
+		Period string `json:"period"`
+		End    string `json:"end"`
+	} `json:"history"`
+	Inputs   map[string]string `json:"inputs"`
+	Baseline struct {
+		Accuracy struct {
+			MAD *float64 `json:"mad"`
+			MSE *float64 `json:"mse"`
+		} `json:"accuracy"`
+	} `json:"baseline"`
+	Scenarios []struct {
+		Name    string `json:"name"`
+		Periods []struct {
+			Period   string   `json:"period"`
+			Baseline *float64 `json:"baseline"`
+			Adjusted *float64 `json:"adjusted"`
+		} `json:"periods"`
+	} `json:"scenarios"`
+}
+
+// readSavedPlan reads a plan.json written by "forelay plan --out" and
+// returns the plan to track against and the input digests it records.
+// Errors are *forecast.ParseError naming the file (with the line and
+// column of a JSON syntax or type error) and the field at fault.
+func readSavedPlan(path string) (scenario.TrackPlan, map[string]string, error) {
+	var tp scenario.TrackPlan
+	src, err := os.ReadFile(path)
+	if err != nil {
+		return tp, nil, err
+	}
+	var sp savedPlanJSON
+	if err := json.Unmarshal(src, &sp); err != nil {
+		pe := &forecast.ParseError{File: path, Err: err}
+		var se *json.SyntaxError
+		var te *json.UnmarshalTypeError
+		switch {
+		case errors.As(err, &se):
+			pe.Line, pe.Column = offsetPos(src, se.Offset)
+		case errors.As(err, &te):
+			pe.Line, pe.Column = offsetPos(src, te.Offset)
+			pe.Field, pe.Err = te.Field, fmt.Errorf("%w: %s where %s was expected", errSavedPlan, te.Value, te.Type)
+		}
+		return tp, nil, pe
+	}
+	bad := func(field, format string, a ...any) error {
+		return &forecast.ParseError{File: path, Field: field, Err: fmt.Errorf("%w: "+format, append([]any{errSavedPlan}, a...)...)}
+	}
+	freq, err := forecast.ParseFrequency(sp.History.Period)
+	if err != nil || freq == forecast.FreqUnknown {
+		return tp, nil, bad("history.period", "%q is not a period length", sp.History.Period)
+	}
+	if tp.HistoryEnd, err = forecast.ParsePeriod(sp.History.End, freq); err != nil {
+		return tp, nil, bad("history.end", "%v", err)
+	}
+	if sp.History.Series == "" {
+		return tp, nil, bad("history.series", "no series name")
+	}
+	if sp.Baseline.Accuracy.MAD == nil || sp.Baseline.Accuracy.MSE == nil {
+		return tp, nil, bad("baseline.accuracy", "no in-sample MAD and MSE")
+	}
+	if len(sp.Scenarios) == 0 {
+		return tp, nil, bad("scenarios", "no scenarios")
+	}
+	tp.Name, tp.Units, tp.Series = sp.Plan, sp.Units, sp.History.Series
+	tp.MAD, tp.MSE = *sp.Baseline.Accuracy.MAD, *sp.Baseline.Accuracy.MSE
+	for i, s := range sp.Scenarios {
+		line := scenario.PlanLine{Name: s.Name}
+		if i > 0 && len(s.Periods) != len(tp.Periods) {
+			return tp, nil, bad(fmt.Sprintf("scenarios[%d].periods", i), "%d periods; the first scenario has %d", len(s.Periods), len(tp.Periods))
+		}
+		for k, p := range s.Periods {
+			field := fmt.Sprintf("scenarios[%d].periods[%d]", i, k)
+			per, err := forecast.ParsePeriod(p.Period, freq)
+			if err != nil {
+				return tp, nil, bad(field+".period", "%v", err)
+			}
+			if p.Adjusted == nil || p.Baseline == nil {
+				return tp, nil, bad(field, "no adjusted or baseline value")
+			}
+			if i == 0 {
+				tp.Periods = append(tp.Periods, per)
+				tp.Baseline = append(tp.Baseline, *p.Baseline)
+			} else if per.String() != tp.Periods[k].String() {
+				return tp, nil, bad(field+".period", "%s; the first scenario has %s here", per, tp.Periods[k])
+			}
+			line.Adjusted = append(line.Adjusted, *p.Adjusted)
+		}
+		tp.Scenarios = append(tp.Scenarios, line)
+	}
+	if err := tp.Check(); err != nil {
+		return tp, nil, &forecast.ParseError{File: path, Err: err}
+	}
+	return tp, sp.Inputs, nil
+}
+
+// offsetPos turns a byte offset of src into a 1-based line and column.
+func offsetPos(src []byte, off int64) (line, col int) {
+	off = min(max(off, 0), int64(len(src)))
+	before := src[:off]
+	line = bytes.Count(before, []byte("\n")) + 1
+	col = int(off) - bytes.LastIndexByte(before, '\n')
+	return line, col
+}

@@ -1,0 +1,445 @@
+package scenario
+
+import (
+	"bytes"
+	"encoding/csv"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"strings"
+
+	"forelay/forecast"
+)
+
+// Errors of tracking, matched with errors.Is.
+var (
+	// ErrOffPlan: an actual falls on a period the plan does not cover:
+	// inside the history, beyond the horizon, or (for weeks) on a week
+	// that starts on another day than the plan's weeks.
+	ErrOffPlan = errors.New("not a plan period")
+	// ErrScenarioChoice: the scenario asked for is not in the plan, or
+	// none was asked for and the plan has several, none called "plan".
+	ErrScenarioChoice = errors.New("no such scenario")
+	// ErrTrackPlan: a TrackPlan is not usable: lengths that do not match
+	// its periods, periods that do not follow each other, or an in-sample
+	// MAD or MSE that is not a positive number.
+	ErrTrackPlan = errors.New("plan unusable for tracking")
+)
+
+// A TrackPlan is what tracking needs of a plan: its periods, the baseline
+// and each scenario's adjusted plan on them, and the baseline's in-sample
+// error, which sets the starting MAD of the tracking signal and the sigma
+// of the control chart. Plan.TrackPlan takes it from a built plan; a
+// command may also fill it from a saved plan file.
+type TrackPlan struct {
+	// Name is the plan's name and Units the unit label (empty: none);
+	// both are for display only.
+	Name, Units string
+	// Series is the name of the planned series; the actuals must hold a
+	// series of that name.
+	Series string
+	// HistoryEnd is the last period of the history the plan was fitted
+	// to; Periods follow it, one after the other.
+	HistoryEnd forecast.Period
+	Periods    []forecast.Period
+	// Baseline is the baseline forecast per period.
+	Baseline []float64
+	// Scenarios are the adjusted plans, in file order.
+	Scenarios []PlanLine
+	// MAD and MSE are the baseline's one-step in-sample mean absolute and
+	// mean squared errors over the (cleaned) history.
+	MAD, MSE float64
+}
+
+// A PlanLine is one scenario's adjusted plan, one value per period of its
+// TrackPlan.
+type PlanLine struct {
+	Name     string
+	Adjusted []float64
+}
+
+// TrackPlan returns what tracking needs of p. The slices are shared with
+// p, not copied.
+func (p *Plan) TrackPlan() TrackPlan {
+	tp := TrackPlan{
+		Name: p.File.Plan, Units: p.File.Units, Series: p.History.Name,
+		HistoryEnd: p.History.Period(p.History.Len() - 1),
+		Periods:    p.Periods, Baseline: p.Baseline,
+		MAD: p.Fit.Accuracy.MAD, MSE: p.Fit.Accuracy.MSE,
+	}
+	for _, sp := range p.Scenarios {
+		tp.Scenarios = append(tp.Scenarios, PlanLine{Name: sp.Name, Adjusted: sp.Adjusted})
+	}
+	return tp
+}
+
+// Check reports whether tp can be tracked against. It returns an error
+// wrapping ErrTrackPlan when there are no periods or no scenarios, when
+// the periods do not start right after HistoryEnd and follow each other,
+// when the baseline or an adjusted plan has a length other than the
+// number of periods or a value that is NaN or infinite, or when MAD or
+// MSE is not a positive finite number (a history the baseline fits
+// exactly leaves nothing to measure new errors against).
+func (tp TrackPlan) Check() error {
+	bad := func(format string, a ...any) error {
+		return fmt.Errorf("%w: "+format, append([]any{ErrTrackPlan}, a...)...)
+	}
+	n := len(tp.Periods)
+	if n == 0 {
+		return bad("the plan has no periods")
+	}
+	if len(tp.Scenarios) == 0 {
+		return bad("the plan has no scenarios")
+	}
+	for i, p := range tp.Periods {
+		want := tp.HistoryEnd.Add(i + 1)
+		if !samePeriod(p, want) {
+			return bad("period %d is %s; want %s (the periods follow the history, which ends %s)", i+1, p, want, tp.HistoryEnd)
+		}
+	}
+	check := func(what string, v []float64) error {
+		if len(v) != n {
+			return bad("%s has %d values for %d periods", what, len(v), n)
+		}
+		for i, x := range v {
+			if math.IsNaN(x) || math.IsInf(x, 0) {
+				return bad("%s for %s is %v", what, tp.Periods[i], x)
+			}
+		}
+		return nil
+	}
+	if err := check("the baseline", tp.Baseline); err != nil {
+		return err
+	}
+	for _, s := range tp.Scenarios {
+		if err := check(fmt.Sprintf("scenario %q", s.Name), s.Adjusted); err != nil {
+			return err
+		}
+	}
+	for _, m := range []struct {
+		name string
+		v    float64
+	}{{"MAD", tp.MAD}, {"MSE", tp.MSE}} {
+		if !(m.v > 0) || math.IsInf(m.v, 1) {
+			return bad("the baseline's in-sample %s is %v; tracking needs a positive number (does the baseline fit the history exactly?)", m.name, m.v)
+		}
+	}
+	return nil
+}
+
+// Choose returns the scenario called name. An empty name picks the only
+// scenario when there is one, else the scenario called "plan" (DefaultCase)
+// when there is one. Otherwise the error wraps ErrScenarioChoice and lists
+// the scenario names.
+func (tp TrackPlan) Choose(name string) (PlanLine, error) {
+	names := make([]string, len(tp.Scenarios))
+	for i, s := range tp.Scenarios {
+		if s.Name == name || name == "" && len(tp.Scenarios) == 1 {
+			return s, nil
+		}
+		names[i] = s.Name
+	}
+	list := strings.Join(names, ", ")
+	if name != "" {
+		return PlanLine{}, fmt.Errorf("%w %q; the plan has %s", ErrScenarioChoice, name, list)
+	}
+	for _, s := range tp.Scenarios {
+		if s.Name == DefaultCase {
+			return s, nil
+		}
+	}
+	return PlanLine{}, fmt.Errorf("%w chosen: the plan has %d scenarios (%s) and none is called %q; name one",
+		ErrScenarioChoice, len(tp.Scenarios), list, DefaultCase)
+}
+
+// ReadActuals reads new actuals of the planned series from r, a CSV file
+// in one of the history layouts (see forecast.ReadHistory), and returns
+// them aligned with the plan: actual[i] belongs to tp.Periods[i]. The name
+// is used in error messages only.
+//
+// The actuals must start at the first plan period and run without gaps,
+// and may stop at any period up to the last one: the periods 1 to n of
+// the plan are tracked, n = len(actual). Labels are read in the plan's
+// frequency (dates label weeks when the plan is weekly).
+//
+// Every error about the file's content is a *forecast.ParseError naming
+// the file and, where there is one, the line and column of the row at
+// fault, for example
+//
+//	actuals.csv:3:1: period: not a plan period: 2026-09 is inside the history (which ends 2026-10); track only periods after it
+//
+// Its Err wraps one of forecast.ReadHistory's sentinels for a malformed
+// file, forecast.ErrNoSeries when the planned series is missing (the
+// message lists the series found), forecast.ErrBadPeriod when the labels
+// have another frequency than the plan, ErrOffPlan for a period inside
+// the history or beyond the horizon, and forecast.ErrGap when the actuals
+// start after the first plan period or skip a period (an empty cell
+// counts as a skipped period). An error from r is returned as it is, and
+// one wrapping ErrTrackPlan if tp fails Check.
+func (tp TrackPlan) ReadActuals(r io.Reader, name string) ([]float64, error) {
+	if err := tp.Check(); err != nil {
+		return nil, err
+	}
+	src, err := io.ReadAll(r)
+	if err != nil {
+		return nil, err
+	}
+	freq := tp.Periods[0].Freq
+	// Read with gaps filled, so that the filled list can name the gaps of
+	// the planned series alone, and with the frequency the labels give;
+	// dates are read again as weeks when the plan is weekly.
+	opt := forecast.ReadOptions{Fill: forecast.FillZero}
+	h, err := forecast.ReadHistory(bytes.NewReader(src), name, opt)
+	if err != nil {
+		return nil, err
+	}
+	loc := newRowFinder(src, name, tp.Series)
+	if got := h.Series[0].Freq(); got != freq {
+		if (got == forecast.Daily || got == forecast.Weekly) && (freq == forecast.Daily || freq == forecast.Weekly) {
+			opt.Freq = freq
+			if h, err = forecast.ReadHistory(bytes.NewReader(src), name, opt); err != nil {
+				return nil, err
+			}
+		} else {
+			return nil, loc.errAtFirst(fmt.Errorf("%w: the actuals are by %s but the plan is by %s", forecast.ErrBadPeriod, got, freq))
+		}
+	}
+	var s forecast.Series
+	found := false
+	names := make([]string, len(h.Series))
+	for i, c := range h.Series {
+		names[i] = fmt.Sprintf("%q", c.Name)
+		if c.Name == tp.Series {
+			s, found = c, true
+		}
+	}
+	if !found {
+		return nil, &forecast.ParseError{File: name, Line: loc.headerLine, Column: 1, Err: fmt.Errorf("%w: the plan's series %q is not in the file (it has %s)",
+			forecast.ErrNoSeries, tp.Series, strings.Join(names, ", "))}
+	}
+
+	first, last := tp.Periods[0], tp.Periods[len(tp.Periods)-1]
+	start := s.Start
+	switch {
+	case !start.Start().After(tp.HistoryEnd.Start()):
+		return nil, loc.errAt(start, fmt.Errorf("%w: %s is inside the history (which ends %s); track only periods after it",
+			ErrOffPlan, start, tp.HistoryEnd))
+	case start.Start().Before(first.Start()):
+		// Only weeks starting on another weekday get here.
+		return nil, loc.errAt(start, fmt.Errorf("%w: the week %s does not start on the day the plan's weeks start (the first is %s)",
+			ErrOffPlan, start, first))
+	case !samePeriod(start, first):
+		k := start.Sub(first)
+		if !samePeriod(first.Add(k), start) {
+			return nil, loc.errAt(start, fmt.Errorf("%w: the week %s does not start on the day the plan's weeks start (the first is %s)",
+				ErrOffPlan, start, first))
+		}
+		return nil, loc.errAt(start, fmt.Errorf("%w: the actuals start at %s but the plan at %s; actuals must start at the first plan period and run without gaps",
+			forecast.ErrGap, start, first))
+	}
+	for _, fl := range h.Filled {
+		if fl.Series != tp.Series {
+			continue
+		}
+		if fl.Line > 0 {
+			return nil, loc.errAt(fl.Period, fmt.Errorf("%w: no actual for %s (its cell is empty); actuals must run without gaps from the first plan period",
+				forecast.ErrGap, fl.Period))
+		}
+		next := fl.Period.Add(1)
+		for k := s.Index(next); k < s.Len(); k++ {
+			if loc.line(s.Period(k)) > 0 {
+				next = s.Period(k)
+				break
+			}
+		}
+		return nil, loc.errAt(next, fmt.Errorf("%w: no actual for %s (no row before %s); actuals must run without gaps from the first plan period",
+			forecast.ErrGap, fl.Period, next))
+	}
+	if n := s.Len(); n > len(tp.Periods) {
+		beyond := first.Add(len(tp.Periods))
+		return nil, loc.errAt(beyond, fmt.Errorf("%w: %s is beyond the plan's horizon (the plan ends %s)", ErrOffPlan, beyond, last))
+	}
+	return append([]float64(nil), s.Values...), nil
+}
+
+// samePeriod reports whether a and b are the same period, whatever their
+// label form (an ISO week and the date of its Monday are the same week).
+func samePeriod(a, b forecast.Period) bool {
+	return a.Freq == b.Freq && a.Start().Equal(b.Start())
+}
+
+// A rowFinder finds the line of a period's row in a history file that
+// forecast.ReadHistory has already accepted, for error messages.
+type rowFinder struct {
+	file       string
+	headerLine int
+	firstLine  int
+	rows       []foundRow
+}
+
+type foundRow struct {
+	label     string
+	line, col int
+}
+
+func newRowFinder(src []byte, file, series string) *rowFinder {
+	rf := &rowFinder{file: file}
+	cr := csv.NewReader(bytes.NewReader(bytes.TrimPrefix(src, []byte("\ufeff"))))
+	cr.FieldsPerRecord = -1
+	cr.TrimLeadingSpace = true
+	periodCol, seriesCol := 0, -1
+	for {
+		rec, err := cr.Read()
+		if err != nil {
+			break
+		}
+		if strings.TrimSpace(strings.Join(rec, "")) == "" {
+			continue
+		}
+		if rf.headerLine == 0 {
+			// The layout rule of forecast.ReadHistory: long when the header
+			// has series, period and value columns, else wide with the
+			// period first.
+			rf.headerLine, _ = cr.FieldPos(0)
+			at := map[string]int{}
+			for i, c := range rec {
+				k := strings.ToLower(strings.TrimSpace(c))
+				if _, ok := at[k]; !ok {
+					at[k] = i
+				}
+			}
+			_, hasValue := at["value"]
+			sc, hasSeries := at["series"]
+			pc, hasPeriod := at["period"]
+			if hasSeries && hasPeriod && hasValue {
+				periodCol, seriesCol = pc, sc
+			}
+			continue
+		}
+		if periodCol >= len(rec) || seriesCol >= len(rec) {
+			continue
+		}
+		if seriesCol >= 0 && strings.TrimSpace(rec[seriesCol]) != series {
+			continue
+		}
+		line, col := cr.FieldPos(periodCol)
+		if rf.firstLine == 0 {
+			rf.firstLine = line
+		}
+		rf.rows = append(rf.rows, foundRow{label: strings.TrimSpace(rec[periodCol]), line: line, col: col})
+	}
+	return rf
+}
+
+// line returns the line of p's row, or 0 when there is none.
+func (rf *rowFinder) line(p forecast.Period) int {
+	l, _ := rf.pos(p)
+	return l
+}
+
+func (rf *rowFinder) pos(p forecast.Period) (line, col int) {
+	for _, r := range rf.rows {
+		q, err := forecast.ParsePeriod(r.label, p.Freq)
+		if err == nil && samePeriod(p, q) {
+			return r.line, r.col
+		}
+	}
+	return 0, 0
+}
+
+// errAt returns a ParseError at the row of p (no line when it has none).
+func (rf *rowFinder) errAt(p forecast.Period, err error) error {
+	line, col := rf.pos(p)
+	return &forecast.ParseError{File: rf.file, Line: line, Column: col, Field: "period", Err: err}
+}
+
+// errAtFirst returns a ParseError at the first data row.
+func (rf *rowFinder) errAtFirst(err error) error {
+	col := 0
+	if rf.firstLine > 0 {
+		col = rf.rows[0].col
+	}
+	return &forecast.ParseError{File: rf.file, Line: rf.firstLine, Column: col, Field: "period", Err: err}
+}
+
+// Tracking is the result of following actuals against one scenario of a
+// plan.
+type Tracking struct {
+	// Scenario is the scenario tracked.
+	Scenario string
+	// Periods are the tracked periods, the first len(Points) of the plan.
+	Periods []forecast.Period
+	// Baseline is the baseline forecast on the tracked periods.
+	Baseline []float64
+	// Config is the tracking configuration in force, defaults filled in.
+	Config forecast.TrackConfig
+	// Limits are the control chart's lines.
+	Limits forecast.Limits
+	// Points holds one tracked period each (see forecast.Track).
+	Points []forecast.TrackPoint
+	// ValueAdded compares the adjusted plan with the baseline on the
+	// tracked periods (see forecast.ForecastValueAdded).
+	ValueAdded forecast.ValueAdded
+}
+
+// Track follows actual, the actuals of the first len(actual) plan periods
+// (as ReadActuals returns them), against the scenario called name (chosen
+// as Choose does). It fills cfg.InitialMAD and cfg.MSE from tp.MAD and
+// tp.MSE when they are zero, runs forecast.Track on the actuals and the
+// scenario's adjusted plan, and forecast.ForecastValueAdded on the
+// actuals, the adjusted plan and the baseline.
+//
+// It returns an error wrapping ErrTrackPlan if tp fails Check, one
+// wrapping ErrScenarioChoice from Choose, one wrapping forecast.ErrTooShort
+// for no actuals, one wrapping ErrOffPlan for more actuals than periods,
+// one wrapping forecast.ErrEmptyCell for a NaN or infinite actual, and one
+// wrapping forecast.ErrBadSetting for a cfg out of range (see
+// forecast.TrackConfig.Resolved).
+func (tp TrackPlan) Track(name string, actual []float64, cfg forecast.TrackConfig) (*Tracking, error) {
+	if err := tp.Check(); err != nil {
+		return nil, err
+	}
+	line, err := tp.Choose(name)
+	if err != nil {
+		return nil, err
+	}
+	n := len(actual)
+	if n == 0 {
+		return nil, fmt.Errorf("%w: no actuals to track", forecast.ErrTooShort)
+	}
+	if n > len(tp.Periods) {
+		return nil, fmt.Errorf("%w: %d actuals for a plan of %d periods", ErrOffPlan, n, len(tp.Periods))
+	}
+	if cfg.InitialMAD == 0 {
+		cfg.InitialMAD = tp.MAD
+	}
+	if cfg.MSE == 0 {
+		cfg.MSE = tp.MSE
+	}
+	rc, err := cfg.Resolved()
+	if err != nil {
+		return nil, err
+	}
+	plan := line.Adjusted[:n]
+	pts, err := forecast.Track(actual, plan, rc)
+	if err != nil {
+		return nil, err
+	}
+	va, err := forecast.ForecastValueAdded(actual, plan, tp.Baseline[:n])
+	if err != nil {
+		return nil, err
+	}
+	return &Tracking{
+		Scenario: line.Name, Periods: append([]forecast.Period(nil), tp.Periods[:n]...),
+		Baseline: append([]float64(nil), tp.Baseline[:n]...),
+		Config:   rc, Limits: forecast.ControlLimits(rc.MSE, rc.Z),
+		Points: pts, ValueAdded: va,
+	}, nil
+}
+
+// Latest returns the last tracked period and its point.
+func (t *Tracking) Latest() (forecast.Period, forecast.TrackPoint) {
+	n := len(t.Points) - 1
+	return t.Periods[n], t.Points[n]
+}
