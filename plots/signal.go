@@ -30,6 +30,10 @@ type SignalChart struct {
 	// Limit is the alarm level, drawn at +Limit and -Limit; finite and
 	// positive (4 is a common choice; common practice).
 	Limit float64
+
+	// YLabel is the value-axis label; empty means the cumulative signal's
+	// "Tracking signal (running error sum ÷ MAD)".
+	YLabel string
 }
 
 // Plot checks c and builds the chart. It returns an error wrapping ErrNoData
@@ -40,7 +44,11 @@ func (c SignalChart) Plot() (*plot.Plot, error) {
 	if err := c.check(); err != nil {
 		return nil, chartError("signal chart", err)
 	}
-	f := newFrame(c.Title, c.Labels, "Tracking signal (running error sum ÷ MAD)", false)
+	ylabel := c.YLabel
+	if ylabel == "" {
+		ylabel = "Tracking signal (running error sum ÷ MAD)"
+	}
+	f := newFrame(c.Title, c.Labels, ylabel, false)
 	f.pad = 0.08
 	f.include(c.Signal, []float64{c.Limit, -c.Limit})
 	dec := decimalsFor(c.Limit)

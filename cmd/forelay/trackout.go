@@ -147,11 +147,12 @@ func trackCharts(r trackReport) ([]chartFile, error) {
 	what := tp.Series + ", scenario " + tr.Scenario
 	cc := plots.ControlChart{Title: "Errors against the plan (actual - plan): " + what, Units: tp.Units,
 		Labels: labels, Errors: errs, UCL: tr.Limits.UCL, LCL: tr.Limits.LCL, Sigma: tr.Limits.Sigma, Hits: hits}
-	title := "Tracking signal: " + what
+	title, ylabel := "Tracking signal: "+what, ""
 	if tr.Config.Signal == forecast.SignalSmoothed {
 		title = "Trigg's smoothed tracking signal: " + what
+		ylabel = "Smoothed error ÷ smoothed MAD"
 	}
-	sc := plots.SignalChart{Title: title, Labels: labels, Signal: sig, Limit: tr.Config.TSLimit}
+	sc := plots.SignalChart{Title: title, Labels: labels, Signal: sig, Limit: tr.Config.TSLimit, YLabel: ylabel}
 	cp, err := cc.Plot()
 	if err != nil {
 		return nil, err
