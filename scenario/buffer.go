@@ -39,15 +39,18 @@ type Buffer struct {
 	// Opening is the stock at the start of the first period.
 	Opening float64
 	// Build is the quantity made in each period and Stock the stock at
-	// its end. The plan builds as late as capacity allows: with s the
-	// stock at the start of period t,
+	// its end. Production follows demand and rises above it only when the
+	// stock would otherwise be short of what the following periods need,
+	// and then as late as capacity allows: with s the stock at the start
+	// of period t,
 	//
-	//	build_t = min(capacity_t, max(0, demand_t + Required_{t+1} − s)),
+	//	build_t = min(capacity_t, max(demand_t, demand_t + Required_{t+1} − s)),
 	//	stock_t = s + build_t − demand_t,
 	//
-	// (Required_{T+1} = 0), so the stock never falls below what the
-	// following periods need, unless the opening stock is already short
-	// (see Gap); a negative stock is then demand left unmet.
+	// (Required_{T+1} = 0). The stock is drawn down only where demand
+	// exceeds capacity, and never below what the following periods need,
+	// unless the opening stock is already short (see Gap); a negative
+	// stock is then demand left unmet.
 	Build, Stock []float64
 	// PrebuildAt is the first period whose demand exceeds its capacity,
 	// -1 when there is none; Prebuild is the stock to hold at its start,
@@ -55,7 +58,8 @@ type Buffer struct {
 	PrebuildAt int
 	Prebuild   float64
 	// BuildStart is the first period in which the plan makes more than
-	// that period's demand, to put stock aside; -1 when it never needs to.
+	// that period's demand, to put stock aside: the latest start of
+	// building ahead; -1 when the opening stock makes it unnecessary.
 	BuildStart int
 	// Gap is max(0, Required[0] − Opening): the stock missing at the start,
 	// which building ahead within the plan can no longer make up. When it
@@ -89,7 +93,7 @@ func PlanBuffer(demand, capacity []float64, opening float64) Buffer {
 		if t+1 < T {
 			next = req[t+1]
 		}
-		build := math.Min(capacity[t], math.Max(0, demand[t]+next-s))
+		build := math.Min(capacity[t], math.Max(demand[t], demand[t]+next-s))
 		b.Build[t] = build
 		s += build - demand[t]
 		b.Stock[t] = s

@@ -17,20 +17,23 @@ import (
 //	S_1 = max(0,  60 − 100 + 60) = 20
 //
 // The first period over capacity is period 4 (150 > 100): hold 90 at its
-// start. From an opening stock of 100, building as late as capacity
-// allows, build_t = min(c_t, max(0, d_t + S_{t+1} − s)):
+// start. From an opening stock of 60, making each period's demand and
+// more only when the stock would fall short of the next S,
+// build_t = min(c_t, max(d_t, d_t + S_{t+1} − s)):
 //
-//	t=1: min(100, 60 + 60 − 100 =  20) =  20, stock 100 +  20 −  60 = 60
-//	t=2: min(100, 80 + 80 −  60 = 100) = 100, stock  60 + 100 −  80 = 80
-//	t=3: min(100, 90 + 90 −  80 = 100) = 100, stock  80 + 100 −  90 = 90
-//	t=4: min(100, 150 + 40 − 90 = 100) = 100, stock  90 + 100 − 150 = 40
-//	t=5: min(120, 160 +  0 − 40 = 120) = 120, stock  40 + 120 − 160 =  0
-//	t=6: min(100,  70 +  0 −  0 =  70) =  70, stock 0
+//	t=1: min(100, max( 60,  60 + 60 − 60 =  60)) =  60, stock 60 +  60 −  60 = 60
+//	t=2: min(100, max( 80,  80 + 80 − 60 = 100)) = 100, stock 60 + 100 −  80 = 80
+//	t=3: min(100, max( 90,  90 + 90 − 80 = 100)) = 100, stock 80 + 100 −  90 = 90
+//	t=4: min(100, max(150, 150 + 40 − 90 = 100)) = 100, stock 90 + 100 − 150 = 40
+//	t=5: min(120, max(160, 160 +  0 − 40 = 120)) = 120, stock 40 + 120 − 160 =  0
+//	t=6: min(100, max( 70,  70 +  0 −  0 =  70)) =  70, stock 0
 //
 // Period 2 is the first to make more than its demand (100 > 80): building
 // ahead starts there. From an opening stock of 0 the plan is 20 short at
-// the start (S_1 = 20): it builds at capacity from period 1 and still ends
-// period 5 at −20 (20 units of demand unmet), as the gap says.
+// the start (S_1 = 20): it builds at capacity from period 1
+// (min(100, 60 + 60) = 100, stock 40; then 100, 100, 100 to stock 60, 70,
+// 20) and still ends period 5 at 20 + 120 − 160 = −20 (20 units of demand
+// unmet, as the gap says) before period 6 makes 70 + 20 = 90.
 var (
 	handDemand   = []float64{60, 80, 90, 150, 160, 70}
 	handCapacity = []float64{100, 100, 100, 100, 120, 100}
@@ -49,14 +52,14 @@ func TestPlanBuffer(t *testing.T) {
 		wantStart, wantPreAt  int
 		wantPrebuild, wantGap float64
 	}{
-		{"opening 100", 100, []float64{20, 100, 100, 100, 120, 70}, []float64{60, 80, 90, 40, 0, 0}, 1, 3, 90, 0},
-		// Opening 0 (see above): 100 100 100 100 120 90, stock 40 60 70 20 -20 0.
+		{"opening 60", 60, []float64{60, 100, 100, 100, 120, 70}, []float64{60, 80, 90, 40, 0, 0}, 1, 3, 90, 0},
 		{"opening 0", 0, []float64{100, 100, 100, 100, 120, 90}, []float64{40, 60, 70, 20, -20, 0}, 0, 3, 90, 20},
-		// Opening 500, by hand: build_t = max(0, d_t + S_{t+1} − s) is 0
-		// while the stock lasts: stock 440, 360, 270, 120; then
-		// t=5: 160 + 0 − 120 = 40, stock 0; t=6: 70, stock 0. Nothing is
-		// made beyond a period's demand, so there is no build start.
-		{"opening 500", 500, []float64{0, 0, 0, 0, 40, 70}, []float64{440, 360, 270, 120, 0, 0}, -1, 3, 90, 0},
+		// Opening 500, by hand: build_t = max(d_t, d_t + S_{t+1} − s) is
+		// d_t while the stock covers the next S, capped at capacity in
+		// periods 4 and 5, which draw the stock down by 50 and 40: stock
+		// 500, 500, 500, 450, 410, 410. Nothing is made beyond a period's
+		// demand, so there is no build start.
+		{"opening 500", 500, []float64{60, 80, 90, 100, 120, 70}, []float64{500, 500, 500, 450, 410, 410}, -1, 3, 90, 0},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			b := PlanBuffer(handDemand, handCapacity, tc.opening)
