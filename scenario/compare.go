@@ -40,7 +40,10 @@ type Comparison struct {
 
 // A Contribution is one event's share of a scenario's total.
 type Contribution struct {
-	ID    string
+	// ID is the event's id.
+	ID string
+	// Total is the sum of the event's contribution (at its full effect,
+	// as in the adjusted plan) over the plan's periods.
 	Total float64
 }
 

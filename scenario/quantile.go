@@ -57,7 +57,9 @@ var Levels = [5]float64{0.05, 0.10, 0.50, 0.90, 0.95}
 // paths and its P5, P10, P50, P90 and P95 quantiles (Quantile, definition
 // 7).
 type Spread struct {
-	Mean                   float64
+	// Mean is the arithmetic mean over the paths.
+	Mean float64
+	// P5, P10, P50, P90 and P95 are the quantiles at Levels.
 	P5, P10, P50, P90, P95 float64
 }
 
