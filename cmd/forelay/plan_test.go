@@ -13,11 +13,6 @@ import (
 	"gonum.org/v1/gonum/floats/scalar"
 )
 
-func testFactory() (*Factory, *bytes.Buffer, *bytes.Buffer) {
-	var out, errOut bytes.Buffer
-	return &Factory{IO: &IOStreams{In: strings.NewReader(""), Out: &out, ErrOut: &errOut}, Now: fixedNow}, &out, &errOut
-}
-
 func TestNewCmdPlan(t *testing.T) {
 	tests := []struct {
 		args    []string
@@ -109,7 +104,7 @@ func TestPlanRunDemo(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	compareCSV(t, got, want, 0.01)
+	checkCSVClose(t, got, want, 0.01)
 
 	fh, err := os.Open(filepath.Join(dir, "plan.png"))
 	if err != nil {
@@ -138,9 +133,9 @@ func TestPlanRunDemo(t *testing.T) {
 	}
 }
 
-// compareCSV compares two CSV files cell by cell: text cells exactly,
+// checkCSVClose compares two CSV files cell by cell: text cells exactly,
 // numeric cells within tol.
-func compareCSV(t *testing.T, got, want []byte, tol float64) {
+func checkCSVClose(t *testing.T, got, want []byte, tol float64) {
 	t.Helper()
 	g, err := csv.NewReader(bytes.NewReader(got)).ReadAll()
 	if err != nil {

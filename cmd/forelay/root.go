@@ -60,6 +60,9 @@ scenario file for the known events ("forelay init" writes a starter), and run
 		newCmdPlan(f, nil),
 		newCmdCheck(f, nil),
 		newCmdInit(f, nil),
+		newCmdStress(f, nil),
+		newCmdBuffer(f, nil),
+		newCmdCompare(f, nil),
 		newCmdTrack(f, nil),
 	)
 	return root

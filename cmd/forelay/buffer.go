@@ -1,0 +1,197 @@
+package main
+
+import (
+	"bytes"
+	"fmt"
+	"math"
+
+	"github.com/spf13/cobra"
+
+	"forelay/scenario"
+)
+
+// BufferOptions are the settings of "forelay buffer".
+type BufferOptions struct {
+	IO           *IOStreams
+	File         string
+	Out          string
+	JSON         bool
+	NoChart      bool
+	Sim          simFlags
+	Service      float64
+	LeadTime     float64
+	OpeningStock float64
+	Demand       string
+	Scenario     string
+}
+
+// The demand sources of --demand.
+const (
+	demandMC    = "mc"
+	demandBands = "bands"
+)
+
+func newCmdBuffer(f *Factory, runF func(*BufferOptions) error) *cobra.Command {
+	opts := &BufferOptions{IO: f.IO}
+	cmd := &cobra.Command{
+		Use:   "buffer FILE --service 0.95 [--lead-time L] [--opening-stock S]",
+		Short: "Size the stock to build ahead of a disruption, and the safety stock",
+		Long: `Work out how much stock to build ahead of the periods whose demand exceeds
+capacity (a planned shutdown, a peak, a supply cut), for one scenario.
+
+Demand in each period is taken at the service quantile: the --service quantile
+of the Monte Carlo paths (the default, --demand mc; see "forelay stress"), or
+the adjusted plan plus z times its standard error (--demand bands), z being the
+standard normal quantile of --service. Capacity comes from the scenario file,
+which must have a capacity block.
+
+A backward pass finds the least stock needed at the start of each period so
+that no later period falls short:
+
+    S(T+1) = 0,   S(t) = max(0, demand(t) - capacity(t) + S(t+1)).
+
+The report gives the stock to hold before the first period whose demand
+exceeds capacity (the pre-build), the first period in which building ahead
+must start, and the period-by-period build and stock plan from
+--opening-stock, building as late as capacity allows.
+
+It also gives the safety stock for a replenishment lead time of --lead-time
+periods, z x sigma x sqrt(lead time) with sigma the square root of the
+baseline's in-sample mean squared error (Silver, Pyke & Thomas), and the
+service it gives. The service level is a cycle service level (the chance that
+demand in a period, or over a lead time, is met from stock), not a fill rate
+(the share of demand met).
+
+With --out DIR it writes buffer.csv, buffer.json and buffer.png / buffer.svg.`,
+		Example: `  forelay buffer examples/dairy/plan.yaml --service 0.95 --scenario with-contract
+  forelay buffer plan.yaml --service 0.98 --lead-time 2 --opening-stock 40000 --out out
+  forelay buffer plan.yaml --service 0.9 --demand bands --json`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opts.File = args[0]
+			if err := opts.check(); err != nil {
+				return err
+			}
+			if runF != nil {
+				return runF(opts)
+			}
+			return bufferRun(opts)
+		},
+	}
+	fl := cmd.Flags()
+	fl.StringVar(&opts.Out, "out", "", "directory to write buffer.csv, buffer.json and the chart into")
+	fl.BoolVar(&opts.JSON, "json", false, "print buffer.json to standard output instead of the tables")
+	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip buffer.png and buffer.svg")
+	opts.Sim.register(fl)
+	fl.Float64Var(&opts.Service, "service", 0.95, "cycle service level, between 0 and 1 (not a fill rate)")
+	fl.Float64Var(&opts.LeadTime, "lead-time", 1, "replenishment lead time in periods, at least 1, for the safety stock")
+	fl.Float64Var(&opts.OpeningStock, "opening-stock", 0, "stock at the start of the first period")
+	fl.StringVar(&opts.Demand, "demand", demandMC, "demand at the service quantile from: mc (Monte Carlo) or bands (normal bands)")
+	fl.StringVar(&opts.Scenario, "scenario", "", "scenario to plan for (default: the last one in the file)")
+	return cmd
+}
+
+// check validates the flags.
+func (o *BufferOptions) check() error {
+	if err := checkUnit("service", o.Service); err != nil {
+		return err
+	}
+	if math.IsNaN(o.LeadTime) || math.IsInf(o.LeadTime, 0) || o.LeadTime < 1 {
+		return flagErrorf("--lead-time %v: must be at least 1 period", o.LeadTime)
+	}
+	if err := checkStock("opening-stock", o.OpeningStock); err != nil {
+		return err
+	}
+	if o.Demand != demandMC && o.Demand != demandBands {
+		return flagErrorf("--demand %q: want mc or bands", o.Demand)
+	}
+	if o.Demand == demandMC {
+		return o.Sim.check()
+	}
+	return nil
+}
+
+// bufferResult is everything "forelay buffer" computes.
+type bufferResult struct {
+	Plan     *scenario.Plan
+	Opts     *BufferOptions
+	Sim      *scenario.Simulation // nil with --demand bands
+	Scenario int
+	Buffer   scenario.Buffer
+	Sigma    float64
+	Z        float64
+	Safety   float64
+	CSL      float64
+	Notes    []string
+}
+
+func computeBuffer(opts *BufferOptions) (*bufferResult, error) {
+	p, err := buildPlan(opts.File)
+	if err != nil {
+		return nil, err
+	}
+	sc, err := pickScenario(p, opts.Scenario)
+	if err != nil {
+		return nil, err
+	}
+	capacity := p.CapacityPerPeriod()
+	if capacity == nil {
+		return nil, &inputError{err: fmt.Errorf("%s: capacity: buffer sizing needs a capacity block (capacity: {units: ...})", p.File.Path)}
+	}
+	r := &bufferResult{Plan: p, Opts: opts, Scenario: sc, Notes: append([]string{}, p.Notes...)}
+	var demand []float64
+	if opts.Demand == demandBands {
+		demand = p.BandDemand(sc, opts.Service)
+	} else {
+		if r.Sim, err = simulate(p, &opts.Sim); err != nil {
+			return nil, err
+		}
+		r.Notes = simNotes(p)
+		demand = r.Sim.Scenarios[sc].QuantileDemand(opts.Service)
+	}
+	r.Buffer = scenario.PlanBuffer(demand, capacity, opts.OpeningStock)
+	r.Sigma = math.Sqrt(p.Fit.Accuracy.MSE)
+	r.Z = scenario.ServiceZ(opts.Service)
+	r.Safety = scenario.SafetyStock(opts.Service, r.Sigma, opts.LeadTime)
+	r.CSL = scenario.CycleServiceLevel(r.Safety, r.Sigma, opts.LeadTime)
+	return r, nil
+}
+
+func bufferRun(opts *BufferOptions) error {
+	r, err := computeBuffer(opts)
+	if err != nil {
+		return err
+	}
+	js, err := marshalIndent(bufferJSON(r))
+	if err != nil {
+		return err
+	}
+	if opts.Out != "" {
+		set := newOutputSet(opts.Out)
+		set.add("buffer.csv", bufferCSV(r))
+		set.add("buffer.json", js)
+		if !opts.NoChart {
+			png, svg, err := renderBoth(bufferChart(r))
+			if err != nil {
+				return err
+			}
+			set.add("buffer.png", png)
+			set.add("buffer.svg", svg)
+		}
+		paths, err := set.commit()
+		if err != nil {
+			return err
+		}
+		for _, path := range paths {
+			fmt.Fprintf(opts.IO.ErrOut, "wrote %s\n", path)
+		}
+	}
+	if opts.JSON {
+		_, err := opts.IO.Out.Write(js)
+		return err
+	}
+	var b bytes.Buffer
+	writeBufferText(&b, r)
+	_, err = opts.IO.Out.Write(b.Bytes())
+	return err
+}

@@ -1,0 +1,132 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"math"
+	"os"
+	"path/filepath"
+	"reflect"
+	"strings"
+	"testing"
+)
+
+func TestNewCmdBuffer(t *testing.T) {
+	def := BufferOptions{File: "plan.yaml", Sim: simFlags{Paths: 10000, Seed: 1, Errors: "bootstrap"}, Service: 0.95,
+		LeadTime: 1, Demand: "mc"}
+	with := func(f func(*BufferOptions)) BufferOptions { o := def; f(&o); return o }
+	for _, tc := range []struct {
+		name    string
+		args    []string
+		want    BufferOptions
+		wantErr string
+	}{
+		{"defaults", []string{"plan.yaml"}, def, ""},
+		{"all flags", []string{"plan.yaml", "--service", "0.98", "--lead-time", "2.5", "--opening-stock", "400", "--demand", "bands",
+			"--scenario", "upside", "--out", "o", "--json", "--no-chart", "--paths", "200", "--seed", "3"},
+			with(func(o *BufferOptions) {
+				o.Service, o.LeadTime, o.OpeningStock, o.Demand, o.Scenario = 0.98, 2.5, 400, "bands", "upside"
+				o.Out, o.JSON, o.NoChart, o.Sim.Paths, o.Sim.Seed = "o", true, true, 200, 3
+			}), ""},
+		// With --demand bands no paths are drawn, so --paths is not checked.
+		{"bands ignores paths", []string{"plan.yaml", "--demand", "bands", "--paths", "5"},
+			with(func(o *BufferOptions) { o.Demand, o.Sim.Paths = "bands", 5 }), ""},
+		{"service 1", []string{"plan.yaml", "--service", "1"}, def, "--service 1: must be between 0 and 1"},
+		{"service 0", []string{"plan.yaml", "--service", "0"}, def, "--service 0: must be between 0 and 1"},
+		{"service above 1", []string{"plan.yaml", "--service", "95"}, def, "--service 95: must be between 0 and 1"},
+		{"lead time below 1", []string{"plan.yaml", "--lead-time", "0.9"}, def, "--lead-time 0.9: must be at least 1 period"},
+		{"paths", []string{"plan.yaml", "--paths", "99"}, def, "--paths 99: at least 100"},
+		{"demand", []string{"plan.yaml", "--demand", "x"}, def, `--demand "x": want mc or bands`},
+		{"stock", []string{"plan.yaml", "--opening-stock", "-1"}, def, "--opening-stock -1"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			f, _, _ := testFactory()
+			var got *BufferOptions
+			cmd := newCmdBuffer(f, func(o *BufferOptions) error { got = o; return nil })
+			cmd.SetArgs(tc.args)
+			cmd.SetOut(&bytes.Buffer{})
+			cmd.SetErr(&bytes.Buffer{})
+			err := cmd.Execute()
+			if tc.wantErr != "" {
+				if err == nil || !strings.Contains(err.Error(), tc.wantErr) {
+					t.Fatalf("error %v, want %q", err, tc.wantErr)
+				}
+				return
+			}
+			if err != nil {
+				t.Fatal(err)
+			}
+			got.IO = nil
+			if !reflect.DeepEqual(*got, tc.want) {
+				t.Errorf("options\n got %+v\nwant %+v", *got, tc.want)
+			}
+		})
+	}
+}
+
+func TestBufferRun(t *testing.T) {
+	path := stressFixture(t, "buffer_run.txtar", "plan.yaml")
+	f, out, _ := testFactory()
+	dir := filepath.Join(filepath.Dir(path), "out")
+	opts := &BufferOptions{IO: f.IO, File: path, Out: dir, JSON: true, Sim: simFlags{Paths: 300, Seed: 1, Errors: "bootstrap"},
+		Service: 0.95, LeadTime: 4, Demand: "mc", Scenario: "committed"}
+	if err := bufferRun(opts); err != nil {
+		t.Fatal(err)
+	}
+	for _, name := range []string{"buffer.csv", "buffer.json", "buffer.png", "buffer.svg"} {
+		if _, err := os.Stat(filepath.Join(dir, name)); err != nil {
+			t.Error(err)
+		}
+	}
+	var doc struct {
+		Service           float64 `json:"service"`
+		ServiceDefinition string  `json:"service_definition"`
+		Prebuild          float64 `json:"prebuild"`
+		PrebuildBefore    *string `json:"prebuild_before"`
+		BuildStart        *string `json:"build_start"`
+		SafetyStock       float64 `json:"safety_stock"`
+		Sigma             float64 `json:"sigma"`
+		Periods           []struct {
+			Period                         string
+			Demand, Capacity, Build, Stock float64
+		} `json:"periods"`
+	}
+	if err := json.Unmarshal(out.Bytes(), &doc); err != nil {
+		t.Fatal(err)
+	}
+	if doc.Service != 0.95 || doc.ServiceDefinition != "cycle service level, not fill rate" {
+		t.Errorf("service %v %q", doc.Service, doc.ServiceDefinition)
+	}
+	// safety stock = z(0.95) sigma sqrt(4) = 1.644854 * 2 * sigma (z from
+	// the standard normal table).
+	if want := 1.644854 * 2 * doc.Sigma; math.Abs(doc.SafetyStock-want) > 1e-5*want {
+		t.Errorf("safety stock %v, want %v", doc.SafetyStock, want)
+	}
+	if doc.PrebuildBefore == nil || *doc.PrebuildBefore != "2026-07" || doc.BuildStart == nil || doc.Prebuild <= 0 {
+		t.Errorf("prebuild %v before %v, build start %v", doc.Prebuild, doc.PrebuildBefore, doc.BuildStart)
+	}
+	if len(doc.Periods) != 12 {
+		t.Fatalf("%d periods", len(doc.Periods))
+	}
+	// The plan meets demand: stock never negative, build within capacity,
+	// stock_t = stock_{t-1} + build_t - demand_t.
+	stock := 0.0
+	for _, p := range doc.Periods {
+		stock += p.Build - p.Demand
+		if p.Build > p.Capacity+1e-6 || p.Stock < -1e-6 || math.Abs(stock-p.Stock) > 1e-4 {
+			t.Errorf("%s: build %v capacity %v stock %v (running %v)", p.Period, p.Build, p.Capacity, p.Stock, stock)
+		}
+	}
+
+	// Text says which service definition it uses.
+	f2, out2, _ := testFactory()
+	opts.IO, opts.Out, opts.JSON = f2.IO, "", false
+	if err := bufferRun(opts); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"cycle service level, not fill rate", "Pre-build: hold", "Safety stock for a lead time of 4 months"} {
+		if !strings.Contains(out2.String(), want) {
+			t.Errorf("text lacks %q:\n%s", want, out2)
+		}
+	}
+}

@@ -1,0 +1,144 @@
+package main
+
+import (
+	"bytes"
+	"fmt"
+
+	"github.com/spf13/cobra"
+
+	"forelay/scenario"
+)
+
+// CompareOptions are the settings of "forelay compare".
+type CompareOptions struct {
+	IO      *IOStreams
+	File    string
+	Out     string
+	JSON    bool
+	NoChart bool
+	Sim     simFlags
+	Service float64
+}
+
+func newCmdCompare(f *Factory, runF func(*CompareOptions) error) *cobra.Command {
+	opts := &CompareOptions{IO: f.IO}
+	cmd := &cobra.Command{
+		Use:   "compare FILE [--out DIR] [--json]",
+		Short: "Set the scenarios of a scenario file side by side",
+		Long: `Show the scenarios of a scenario file side by side: the adjusted plan's total
+and change against the baseline, its peak, the highest P90 of the simulated
+demand, the probability that demand exceeds capacity in at least one period,
+and the stock to build ahead of the first period whose demand at the --service
+quantile exceeds capacity (see "forelay buffer"), followed by each event's
+contribution to each scenario's total.
+
+The Monte Carlo flags are those of "forelay stress"; every scenario is
+simulated with the same random draws, so differences between scenarios come
+from their events alone.
+
+With --out DIR it writes compare.csv, compare.json, compare.png / compare.svg
+(every scenario's adjusted plan with its band) and, for each scenario with
+events, waterfall-NAME.png / waterfall-NAME.svg (the walk from the baseline
+total through each event's contribution to the scenario's total).`,
+		Example: `  forelay compare examples/dairy/plan.yaml
+  forelay compare plan.yaml --out out --service 0.9
+  forelay compare plan.yaml --json | jq '.scenarios[] | {name, breach_probability}'`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opts.File = args[0]
+			if err := opts.check(); err != nil {
+				return err
+			}
+			if runF != nil {
+				return runF(opts)
+			}
+			return compareRun(opts)
+		},
+	}
+	fl := cmd.Flags()
+	fl.StringVar(&opts.Out, "out", "", "directory to write compare.csv, compare.json and the charts into")
+	fl.BoolVar(&opts.JSON, "json", false, "print compare.json to standard output instead of the tables")
+	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip the charts")
+	opts.Sim.register(fl)
+	fl.Float64Var(&opts.Service, "service", 0.95, "cycle service level of the pre-build need, between 0 and 1")
+	return cmd
+}
+
+// check validates the flags.
+func (o *CompareOptions) check() error {
+	if err := o.Sim.check(); err != nil {
+		return err
+	}
+	return checkUnit("service", o.Service)
+}
+
+// compareResult is everything "forelay compare" computes.
+type compareResult struct {
+	Plan  *scenario.Plan
+	Sim   *scenario.Simulation
+	Opts  *CompareOptions
+	Rows  []scenario.Comparison
+	Notes []string
+}
+
+func computeCompare(opts *CompareOptions) (*compareResult, error) {
+	p, err := buildPlan(opts.File)
+	if err != nil {
+		return nil, err
+	}
+	sim, err := simulate(p, &opts.Sim)
+	if err != nil {
+		return nil, err
+	}
+	return &compareResult{Plan: p, Sim: sim, Opts: opts, Rows: scenario.Compare(sim, opts.Service), Notes: simNotes(p)}, nil
+}
+
+func compareRun(opts *CompareOptions) error {
+	r, err := computeCompare(opts)
+	if err != nil {
+		return err
+	}
+	js, err := marshalIndent(compareJSON(r))
+	if err != nil {
+		return err
+	}
+	if opts.Out != "" {
+		set := newOutputSet(opts.Out)
+		set.add("compare.csv", compareCSV(r))
+		set.add("compare.json", js)
+		if !opts.NoChart {
+			png, svg, err := planChart(r.Plan)
+			if err != nil {
+				return err
+			}
+			set.add("compare.png", png)
+			set.add("compare.svg", svg)
+			for _, c := range r.Rows {
+				if len(c.Contributions) == 0 {
+					continue
+				}
+				png, svg, err := renderBoth(waterfallChart(r, c))
+				if err != nil {
+					return err
+				}
+				set.add("waterfall-"+c.Name+".png", png)
+				set.add("waterfall-"+c.Name+".svg", svg)
+			}
+		}
+		paths, err := set.commit()
+		if err != nil {
+			return err
+		}
+		for _, path := range paths {
+			fmt.Fprintf(opts.IO.ErrOut, "wrote %s\n", path)
+		}
+	}
+	if opts.JSON {
+		_, err := opts.IO.Out.Write(js)
+		return err
+	}
+	var b bytes.Buffer
+	writeCompareText(&b, r)
+	_, err = opts.IO.Out.Write(b.Bytes())
+	return err
+}

@@ -1,0 +1,197 @@
+package main
+
+import (
+	"bytes"
+	"encoding/csv"
+	"fmt"
+	"io"
+	"math"
+	"strings"
+
+	"forelay/plots"
+	"forelay/scenario"
+)
+
+// The JSON shape of compare.json (and "forelay compare --json"). Field
+// names are documented in the README; keep them stable.
+
+type contributionJSON struct {
+	Event string `json:"event"`
+	Total num    `json:"total"`
+}
+
+type compareScenarioJSON struct {
+	Name              string             `json:"name"`
+	Events            []string           `json:"events"`
+	Total             num                `json:"total"`
+	BaselineTotal     num                `json:"baseline_total"`
+	Change            num                `json:"change"`
+	Peak              peakJSON           `json:"peak"`
+	P90Peak           peakJSON           `json:"p90_peak"`
+	BreachProbability num                `json:"breach_probability"`
+	Prebuild          num                `json:"prebuild"`
+	PrebuildBefore    *string            `json:"prebuild_before"`
+	Contributions     []contributionJSON `json:"contributions"`
+}
+
+type compareOutJSON struct {
+	Plan          string                `json:"plan"`
+	Units         string                `json:"units,omitempty"`
+	Paths         int                   `json:"paths"`
+	Seed          uint64                `json:"seed"`
+	Errors        string                `json:"errors"`
+	Service       num                   `json:"service"`
+	BaselineTotal num                   `json:"baseline_total"`
+	Scenarios     []compareScenarioJSON `json:"scenarios"`
+	Inputs        map[string]string     `json:"inputs"`
+	Notes         []string              `json:"notes"`
+	Caution       string                `json:"caution"`
+}
+
+func compareJSON(r *compareResult) compareOutJSON {
+	p, sim := r.Plan, r.Sim
+	o := compareOutJSON{Plan: p.File.Plan, Units: p.File.Units, Paths: sim.Paths, Seed: sim.Seed, Errors: sim.Errors.String(),
+		Service: num(r.Opts.Service), BaselineTotal: num(scenario.Total(p.Baseline)), Inputs: p.Digests,
+		Notes: r.Notes, Caution: cautionText}
+	for _, c := range r.Rows {
+		cj := compareScenarioJSON{Name: c.Name, Events: eventIDs(c.Events), Total: num(c.Total), BaselineTotal: num(c.BaselineTotal),
+			Change:            num(c.Total - c.BaselineTotal),
+			Peak:              peakJSON{Period: p.Periods[c.Peak].String(), Value: num(c.PeakValue)},
+			P90Peak:           peakJSON{Period: p.Periods[c.P90Peak].String(), Value: num(c.P90PeakValue)},
+			BreachProbability: num(c.PAnyBreach), Prebuild: num(c.Prebuild), PrebuildBefore: periodOrNull(p, c.PrebuildAt),
+			Contributions: []contributionJSON{}}
+		for _, k := range c.Contributions {
+			cj.Contributions = append(cj.Contributions, contributionJSON{Event: k.ID, Total: num(k.Total)})
+		}
+		o.Scenarios = append(o.Scenarios, cj)
+	}
+	return o
+}
+
+// compareCSV renders compare.csv: one row per scenario, then one column
+// per future event holding its contribution to the total (empty when the
+// event is not in the scenario).
+func compareCSV(r *compareResult) []byte {
+	p := r.Plan
+	var b bytes.Buffer
+	w := csv.NewWriter(&b)
+	head := []string{"scenario", "total", "change", "peak_period", "peak", "p90_peak_period", "p90_peak",
+		"breach_probability", "prebuild", "prebuild_before"}
+	for _, e := range p.Future {
+		head = append(head, e.ID)
+	}
+	w.Write(head)
+	for _, c := range r.Rows {
+		before := ""
+		if c.PrebuildAt >= 0 {
+			before = p.Periods[c.PrebuildAt].String()
+		}
+		row := []string{c.Name, csvNum(c.Total, 2), csvNum(c.Total-c.BaselineTotal, 2), p.Periods[c.Peak].String(),
+			csvNum(c.PeakValue, 2), p.Periods[c.P90Peak].String(), csvNum(c.P90PeakValue, 2), csvNum(c.PAnyBreach, 4),
+			csvNum(c.Prebuild, 2), before}
+		for _, e := range p.Future {
+			row = append(row, contributionOf(c, e.ID, csvNum, ""))
+		}
+		w.Write(row)
+	}
+	w.Flush()
+	return b.Bytes()
+}
+
+// contributionOf formats event id's contribution to c with format, or
+// returns missing when the event is not in the scenario.
+func contributionOf(c scenario.Comparison, id string, format func(float64, int) string, missing string) string {
+	for _, k := range c.Contributions {
+		if k.ID == id {
+			return format(k.Total, 2)
+		}
+	}
+	return missing
+}
+
+// writeCompareText writes the human comparison.
+func writeCompareText(w io.Writer, r *compareResult) {
+	p := r.Plan
+	f := p.File
+	fmt.Fprintf(w, "Scenarios of plan %s: series %s, %d %s periods %s to %s%s\n", f.Plan, p.History.Name, len(p.Periods),
+		p.History.Freq(), p.Periods[0], p.Periods[len(p.Periods)-1], inUnits(f.Units))
+	fmt.Fprintf(w, "Monte Carlo: %s\n", simText(r.Sim))
+	hasCap := f.Capacity != nil
+	if hasCap {
+		fmt.Fprintf(w, "Capacity: %s; pre-build sized at the %s quantile of demand (%s)\n", capacityText(p), pctText(r.Opts.Service), serviceDefinition)
+	} else {
+		fmt.Fprintln(w, "Capacity: none given (no breach probability or pre-build)")
+	}
+	fmt.Fprintln(w)
+	base := scenario.Total(p.Baseline)
+	head := []string{"scenario", "total", "vs baseline", "peak", "in", "P90 peak", "in"}
+	if hasCap {
+		head = append(head, "P(breach)", "pre-build", "before")
+	}
+	t := newTable(head...).left(4, 6, 9)
+	t.add(append([]string{"(baseline)", fmtNum(base, 0), "", "", "", "", ""}, make([]string, len(head)-7)...)...)
+	for _, c := range r.Rows {
+		row := []string{c.Name, fmtNum(c.Total, 0), pct(c.Total-c.BaselineTotal, base), fmtNum(c.PeakValue, 0),
+			p.Periods[c.Peak].String(), fmtNum(c.P90PeakValue, 0), p.Periods[c.P90Peak].String()}
+		if hasCap {
+			before := "-"
+			if c.PrebuildAt >= 0 {
+				before = p.Periods[c.PrebuildAt].String()
+			}
+			row = append(row, pctText(c.PAnyBreach), fmtNum(c.Prebuild, 0), before)
+		}
+		t.add(row...)
+	}
+	t.write(w)
+	if hasCap {
+		fmt.Fprintln(w, "(P(breach): chance that demand exceeds capacity in at least one period)")
+	}
+	if len(p.Future) > 0 {
+		fmt.Fprintln(w)
+		fmt.Fprintln(w, "Contributions to each scenario's total:")
+		ch := []string{"event"}
+		for _, c := range r.Rows {
+			ch = append(ch, c.Name)
+		}
+		ct := newTable(ch...)
+		for _, e := range p.Future {
+			row := []string{e.ID}
+			for _, c := range r.Rows {
+				row = append(row, contributionOf(c, e.ID, func(v float64, _ int) string { return signed(v, 0) }, "-"))
+			}
+			ct.add(row...)
+		}
+		ct.write(w)
+	}
+	if len(r.Notes) > 0 {
+		fmt.Fprintln(w)
+		for _, n := range r.Notes {
+			fmt.Fprintf(w, "Note: %s.\n", strings.TrimSuffix(n, "."))
+		}
+	}
+	fmt.Fprintln(w)
+	fmt.Fprintln(w, cautionText)
+}
+
+// waterfallChart walks from the baseline total through each event's
+// contribution to scenario c's total.
+func waterfallChart(r *compareResult, c scenario.Comparison) plots.Waterfall {
+	p := r.Plan
+	wf := plots.Waterfall{
+		Title:      "Plan " + p.File.Plan + ": " + c.Name,
+		StartLabel: "Baseline",
+		Start:      c.BaselineTotal,
+		EndLabel:   c.Name,
+	}
+	wf.Units = "units over the plan"
+	if p.File.Units != "" {
+		wf.Units = p.File.Units + " over the plan"
+	}
+	for _, k := range c.Contributions {
+		if math.IsNaN(k.Total) {
+			continue
+		}
+		wf.Steps = append(wf.Steps, plots.Step{Label: k.ID, Value: k.Total})
+	}
+	return wf
+}

@@ -1,0 +1,183 @@
+package main
+
+import (
+	"bytes"
+	"fmt"
+
+	"github.com/spf13/cobra"
+
+	"forelay/scenario"
+)
+
+// StressOptions are the settings of "forelay stress".
+type StressOptions struct {
+	IO           *IOStreams
+	File         string
+	Out          string
+	JSON         bool
+	NoChart      bool
+	Sim          simFlags
+	Breach       float64
+	OpeningStock float64
+	Scenario     string
+}
+
+func newCmdStress(f *Factory, runF func(*StressOptions) error) *cobra.Command {
+	opts := &StressOptions{IO: f.IO}
+	cmd := &cobra.Command{
+		Use:   "stress FILE [--paths N] [--seed S] [--out DIR] [--json]",
+		Short: "Monte Carlo risk of each scenario against capacity",
+		Long: `Simulate many possible futures of each scenario of a scenario file: the
+baseline forecast plus a forecast-error path (resampled from the baseline's own
+in-sample errors, or normal with --errors normal), plus each event, which
+happens or not with its probability and, when it has a range, takes a size
+between the range's low and high (a triangular distribution peaked at the
+effect).
+
+For every scenario and period it reports the mean and the P5, P10, P50, P90 and
+P95 of demand; with a capacity in the file also the probability that demand
+exceeds capacity, the expected shortfall (the mean excess over capacity,
+counting paths without excess as zero), the P50 and P90 utilisation, the first
+period whose breach probability is above --breach and the total expected
+shortfall.
+
+With production: {mode: frozen} in the file, production is held at the
+previous plan (production.plan, or the baseline) and the stock is projected
+from --opening-stock under each scenario, showing where it runs short and
+where it builds up, and the capacity left idle.
+
+With --out DIR it writes stress.csv, stress.json and the fan chart fan.png /
+fan.svg (and stock.png / stock.svg when production is frozen) for the scenario
+named by --scenario (default: the last one in the file). Files are written
+only when the whole run succeeds. The same inputs and seed give the same
+files, byte for byte.`,
+		Example: `  forelay stress examples/dairy/plan.yaml --out out/dairy
+  forelay stress plan.yaml --paths 50000 --seed 7 --breach 0.05
+  forelay stress plan.yaml --json | jq '.scenarios[] | {name, first_breach}'`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opts.File = args[0]
+			if err := opts.check(); err != nil {
+				return err
+			}
+			if runF != nil {
+				return runF(opts)
+			}
+			return stressRun(opts)
+		},
+	}
+	fl := cmd.Flags()
+	fl.StringVar(&opts.Out, "out", "", "directory to write stress.csv, stress.json and the charts into")
+	fl.BoolVar(&opts.JSON, "json", false, "print stress.json to standard output instead of the tables")
+	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip the charts")
+	opts.Sim.register(fl)
+	fl.Float64Var(&opts.Breach, "breach", 0.1, "report the first period whose probability of demand above capacity exceeds this")
+	fl.Float64Var(&opts.OpeningStock, "opening-stock", 0, "stock before the first period, for frozen production")
+	fl.StringVar(&opts.Scenario, "scenario", "", "scenario to chart (default: the last one in the file)")
+	return cmd
+}
+
+// check validates the flags.
+func (o *StressOptions) check() error {
+	if err := o.Sim.check(); err != nil {
+		return err
+	}
+	if err := checkUnit("breach", o.Breach); err != nil {
+		return err
+	}
+	return checkStock("opening-stock", o.OpeningStock)
+}
+
+// stressResult is everything "forelay stress" computes.
+type stressResult struct {
+	Plan   *scenario.Plan
+	Sim    *scenario.Simulation
+	Opts   *StressOptions
+	Risks  []scenario.Risk
+	Frozen []scenario.StockProjection // nil unless production is frozen
+	Source string                     // where frozen production comes from
+	Chart  int                        // the scenario charted
+	Notes  []string
+}
+
+// computeStress loads the plan and runs the simulation and the capacity
+// and production checks.
+func computeStress(opts *StressOptions) (*stressResult, error) {
+	p, err := buildPlan(opts.File)
+	if err != nil {
+		return nil, err
+	}
+	chart, err := pickScenario(p, opts.Scenario)
+	if err != nil {
+		return nil, err
+	}
+	sim, err := simulate(p, &opts.Sim)
+	if err != nil {
+		return nil, err
+	}
+	r := &stressResult{Plan: p, Sim: sim, Opts: opts, Chart: chart, Notes: simNotes(p)}
+	capacity := p.CapacityPerPeriod()
+	for _, ps := range sim.Scenarios {
+		r.Risks = append(r.Risks, scenario.CapacityRisk(ps, capacity, opts.Breach))
+	}
+	if pr := p.File.Production; pr != nil && pr.Mode == "frozen" {
+		prod, src, err := p.FrozenProduction()
+		if err != nil {
+			return nil, &inputError{err: err}
+		}
+		r.Source = src
+		for s, sp := range p.Scenarios {
+			r.Frozen = append(r.Frozen, scenario.ProjectStock(prod, sp.Adjusted, capacity, opts.OpeningStock, sim.Scenarios[s]))
+		}
+	} else if pr != nil && pr.Plan != "" {
+		r.Notes = append(r.Notes, "production.plan is read only with production mode frozen")
+	}
+	return r, nil
+}
+
+func stressRun(opts *StressOptions) error {
+	r, err := computeStress(opts)
+	if err != nil {
+		return err
+	}
+	js, err := marshalIndent(stressJSON(r))
+	if err != nil {
+		return err
+	}
+	if opts.Out != "" {
+		set := newOutputSet(opts.Out)
+		set.add("stress.csv", stressCSV(r))
+		set.add("stress.json", js)
+		if !opts.NoChart {
+			png, svg, err := renderBoth(fanChart(r))
+			if err != nil {
+				return err
+			}
+			set.add("fan.png", png)
+			set.add("fan.svg", svg)
+			if r.Frozen != nil {
+				png, svg, err := renderBoth(stockChart(r))
+				if err != nil {
+					return err
+				}
+				set.add("stock.png", png)
+				set.add("stock.svg", svg)
+			}
+		}
+		paths, err := set.commit()
+		if err != nil {
+			return err
+		}
+		for _, path := range paths {
+			fmt.Fprintf(opts.IO.ErrOut, "wrote %s\n", path)
+		}
+	}
+	if opts.JSON {
+		_, err := opts.IO.Out.Write(js)
+		return err
+	}
+	var b bytes.Buffer
+	writeStressText(&b, r)
+	_, err = opts.IO.Out.Write(b.Bytes())
+	return err
+}

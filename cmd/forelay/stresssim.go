@@ -1,0 +1,175 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+
+	"github.com/spf13/pflag"
+	"gonum.org/v1/plot"
+
+	"forelay/plots"
+	"forelay/scenario"
+)
+
+// simFlags are the Monte Carlo flags shared by stress, buffer and compare.
+type simFlags struct {
+	Paths  int
+	Seed   uint64
+	Errors string
+}
+
+// defaultSeed is the seed used when --seed is not given, so that runs are
+// reproducible by default.
+const defaultSeed = 1
+
+func (s *simFlags) register(fl *pflag.FlagSet) {
+	fl.IntVar(&s.Paths, "paths", scenario.DefaultPaths, fmt.Sprintf("number of Monte Carlo sample paths (at least %d)", scenario.MinPaths))
+	fl.Uint64Var(&s.Seed, "seed", defaultSeed, "seed of the random streams; the same seed gives the same results")
+	fl.StringVar(&s.Errors, "errors", "bootstrap", "forecast errors: bootstrap (resample the in-sample one-step errors) or normal")
+}
+
+// check validates the flags; every problem is a flag error (exit code 2).
+func (s *simFlags) check() error {
+	if s.Paths < scenario.MinPaths {
+		return flagErrorf("--paths %d: at least %d paths are needed (with fewer, P5 and P95 rest on a handful of paths)", s.Paths, scenario.MinPaths)
+	}
+	if _, err := scenario.ParseErrorModel(s.Errors); err != nil {
+		return &flagError{err: fmt.Errorf("--errors: %w", err)}
+	}
+	return nil
+}
+
+// options returns the settings for scenario.Simulate; check must have
+// passed.
+func (s *simFlags) options() scenario.SimOptions {
+	em, _ := scenario.ParseErrorModel(s.Errors)
+	return scenario.SimOptions{Paths: s.Paths, Seed: s.Seed, Errors: em}
+}
+
+// simulate runs the Monte Carlo; a plan whose errors cannot be drawn is
+// an input error.
+func simulate(p *scenario.Plan, s *simFlags) (*scenario.Simulation, error) {
+	sim, err := scenario.Simulate(p, s.options())
+	if err != nil {
+		if errors.Is(err, scenario.ErrTooFewPaths) {
+			return nil, &flagError{err: err}
+		}
+		return nil, &inputError{err: fmt.Errorf("%s: %w", p.File.Path, err)}
+	}
+	return sim, nil
+}
+
+// simText describes a simulation in one line: "10,000 paths, seed 1,
+// errors resampled from 94 in-sample one-step errors".
+func simText(sim *scenario.Simulation) string {
+	how := fmt.Sprintf("errors resampled from %d in-sample one-step errors", sim.Pool)
+	if sim.Errors == scenario.Normal {
+		how = "normal errors with the band variance"
+	}
+	return fmt.Sprintf("%s paths, seed %d, %s", fmtNum(float64(sim.Paths), 0), sim.Seed, how)
+}
+
+// checkUnit reports a flag value outside the open interval (0, 1).
+func checkUnit(flag string, v float64) error {
+	if !(v > 0 && v < 1) {
+		return flagErrorf("--%s %s: must be between 0 and 1, both excluded (0.95 means 95%%)", flag, strconv.FormatFloat(v, 'g', -1, 64))
+	}
+	return nil
+}
+
+// checkStock reports a negative or non-finite stock flag.
+func checkStock(flag string, v float64) error {
+	if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
+		return flagErrorf("--%s %v: must be a number of at least 0", flag, v)
+	}
+	return nil
+}
+
+// pickScenario returns the index of the scenario called name, or of the
+// last scenario when name is empty. An unknown name is a flag error that
+// lists the scenarios.
+func pickScenario(p *scenario.Plan, name string) (int, error) {
+	if name == "" {
+		return len(p.Scenarios) - 1, nil
+	}
+	names := make([]string, len(p.Scenarios))
+	for i, sp := range p.Scenarios {
+		if sp.Name == name {
+			return i, nil
+		}
+		names[i] = sp.Name
+	}
+	return 0, flagErrorf("--scenario %q: %s has no such scenario (it has %s)", name, p.File.Path, strings.Join(names, ", "))
+}
+
+// capacityText describes the capacity schedule: "640,000 per month;
+// 680,000 from 2027-09".
+func capacityText(p *scenario.Plan) string {
+	c := p.File.Capacity
+	if c == nil {
+		return "none given"
+	}
+	s := fmt.Sprintf("%s per %s", fmtNum(c.Units, 0), p.History.Freq())
+	for _, ch := range c.Changes {
+		s += fmt.Sprintf("; %s from %s", fmtNum(ch.Units, 0), ch.From.Label)
+	}
+	return s
+}
+
+// simNotes are the remarks every Monte Carlo output carries besides the
+// plan's own notes.
+func simNotes(p *scenario.Plan) []string {
+	notes := append([]string{}, p.Notes...)
+	for _, e := range p.Future {
+		if e.Range != nil {
+			notes = append(notes, "the simulation draws each event's size from a triangular distribution between its range's low and high, peaked at the effect; the plan's bands read the same range as a 90% normal interval")
+			break
+		}
+	}
+	return notes
+}
+
+// renderBoth renders a chart as PNG and SVG at the default size.
+func renderBoth(pl interface{ Plot() (*plot.Plot, error) }) (png, svg []byte, err error) {
+	p, err := pl.Plot()
+	if err != nil {
+		return nil, nil, err
+	}
+	if png, err = plots.Render(p, "png", plots.DefaultWidth, plots.DefaultHeight); err != nil {
+		return nil, nil, err
+	}
+	if svg, err = plots.Render(p, "svg", plots.DefaultWidth, plots.DefaultHeight); err != nil {
+		return nil, nil, err
+	}
+	return png, svg, nil
+}
+
+// periodOrNull returns the label of period index i of the plan, or nil
+// when i < 0 (JSON null).
+func periodOrNull(p *scenario.Plan, i int) *string {
+	if i < 0 {
+		return nil
+	}
+	s := p.Periods[i].String()
+	return &s
+}
+
+// csvNum formats v for CSV with the given decimals; NaN is an empty cell.
+func csvNum(v float64, decimals int) string {
+	if math.IsNaN(v) {
+		return ""
+	}
+	return strconv.FormatFloat(v, 'f', decimals, 64)
+}
+
+// pctText formats a probability as a percentage with one decimal, "-" for
+// NaN.
+func pctText(v float64) string {
+	if math.IsNaN(v) {
+		return "-"
+	}
+	return strconv.FormatFloat(100*v, 'f', 1, 64) + "%"
+}

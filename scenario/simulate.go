@@ -1,0 +1,443 @@
+package scenario
+
+import (
+	"errors"
+	"fmt"
+	"hash/fnv"
+	"math"
+	"math/rand/v2"
+	"slices"
+	"strings"
+
+	"gonum.org/v1/gonum/stat/distuv"
+
+	"forelay/forecast"
+)
+
+// Monte Carlo settings.
+const (
+	// DefaultPaths is the number of sample paths Simulate draws when
+	// SimOptions.Paths is zero.
+	DefaultPaths = 10000
+	// MinPaths is the fewest paths Simulate accepts: with fewer, the P5 and
+	// P95 quantiles rest on fewer than five paths each.
+	MinPaths = 100
+)
+
+// Errors returned by Simulate.
+var (
+	// ErrTooFewPaths: SimOptions.Paths is below MinPaths.
+	ErrTooFewPaths = errors.New("too few paths")
+	// ErrNoResiduals: the baseline has no in-sample one-step errors to
+	// resample (or, for normal errors, no finite mean squared error).
+	ErrNoResiduals = errors.New("no in-sample errors to draw from")
+)
+
+// ErrorModel says how Simulate draws the one-step shocks of the baseline's
+// forecast errors.
+type ErrorModel int
+
+// The error models. Bootstrap is the zero value and the default.
+const (
+	// Bootstrap draws each shock with replacement from the baseline's
+	// in-sample one-step errors, centred (their mean taken out).
+	Bootstrap ErrorModel = iota
+	// Normal draws each shock from N(0, MSE), MSE being the baseline's
+	// in-sample mean squared one-step error.
+	Normal
+)
+
+var errorModelNames = [...]string{"bootstrap", "normal"}
+
+// String returns bootstrap or normal, the words of the --errors flag.
+func (m ErrorModel) String() string {
+	if m < 0 || int(m) >= len(errorModelNames) {
+		return fmt.Sprintf("ErrorModel(%d)", int(m))
+	}
+	return errorModelNames[m]
+}
+
+// ParseErrorModel reads bootstrap or normal (case ignored); "" gives
+// Bootstrap. Any other word is an error.
+func ParseErrorModel(s string) (ErrorModel, error) {
+	switch strings.ToLower(strings.TrimSpace(s)) {
+	case "", "bootstrap":
+		return Bootstrap, nil
+	case "normal":
+		return Normal, nil
+	}
+	return Bootstrap, fmt.Errorf("unknown error model %q (want bootstrap or normal)", s)
+}
+
+// SimOptions are the settings of a Monte Carlo run. The zero value draws
+// DefaultPaths bootstrapped paths with seed 0.
+type SimOptions struct {
+	// Paths is the number of sample paths; zero means DefaultPaths, and
+	// any other value below MinPaths is an error.
+	Paths int
+	// Seed seeds the random streams (math/rand/v2 PCG); every seed,
+	// zero included, is valid. The same plan, options and seed give the
+	// same paths, bit for bit.
+	Seed uint64
+	// Errors is how the forecast-error shocks are drawn.
+	Errors ErrorModel
+}
+
+// A Simulation holds sample paths of the demand of every scenario of a
+// plan. All scenarios share the same error paths and the same event draws
+// (common random numbers), so differences between scenarios come from
+// their events alone.
+//
+// # Error model
+//
+// Path i's demand in period h (h = 1..H) is the baseline forecast plus a
+// forecast error e_h and the contributions of the events that occur on the
+// path. The errors follow the fitted model's own propagation of a shock:
+// with psi_j the model's impulse response (see ImpulseWeights) and eps_1,
+// eps_2, ... independent one-step shocks,
+//
+//	e_h = k_h (eps_h + sum_{j=1}^{h−1} psi_j eps_{h−j}),
+//
+// the moving-average (psi-weight) form of the forecast error (Box, Jenkins
+// & Reinsel, Time Series Analysis, ch. 5). The shocks come from the
+// baseline's centred in-sample one-step errors, drawn with replacement
+// (Bootstrap), or from N(0, MSE) (Normal); s2 is their variance (the mean
+// of the squared centred errors, or the MSE). Each horizon is then
+// rescaled by
+//
+//	k_h = sqrt(V_h / (s2 (1 + sum_{j=1}^{h−1} psi_j²))),
+//
+// V_h being the plan's BaselineVar, so that the variance of e_h is exactly
+// the variance behind the plan's bands while the paths keep the model's
+// correlation across horizons. With zero s2 or zero V_h the errors of that
+// horizon are zero.
+//
+// # Events
+//
+// Each future event of the plan is drawn once per path: it occurs with its
+// Probability and, when it has a Range, its full size is drawn from the
+// triangular distribution with minimum Range.Low, mode the effect and
+// maximum Range.High (mean (low + effect + high)/3); without a Range the
+// size is the effect. The event then adds size × its contribution per unit
+// of effect (Event.Contribution at an effect of 1 unit or 1 percent), so
+// ramps, paybacks, prorating and percent effects act as in the plan. Note
+// that the plan's bands read a Range as a 90% normal interval, while the
+// simulation takes its ends as the least and the most the event can be.
+//
+// # Random streams
+//
+// The shocks come from PCG(seed, 0) and each event's draws from its own
+// stream PCG(seed, FNV-1a hash of its id), two uniform numbers per path
+// (occurrence, then size) whether or not it occurs, so an event's draws do
+// not change when other events are added, removed or given another
+// probability.
+type Simulation struct {
+	// Plan is the plan simulated.
+	Plan *Plan
+	// Paths, Seed and Errors are the settings used.
+	Paths  int
+	Seed   uint64
+	Errors ErrorModel
+	// Pool is the number of in-sample errors the shocks are resampled
+	// from (Bootstrap) and S2 the shocks' variance.
+	Pool int
+	S2   float64
+	// Psi holds psi_1..psi_{H−1}: Psi[j−1] = psi_j.
+	Psi []float64
+	// Scale holds k_1..k_H: Scale[h−1] = k_h.
+	Scale []float64
+	// Error[t][i] is path i's baseline forecast error in period t
+	// (Plan.Periods[t]).
+	Error [][]float64
+	// Amount[k][i] is the full size drawn for Plan.Future[k] on path i,
+	// in the effect's unit (units or percent), and 0 when the event does
+	// not occur on that path.
+	Amount [][]float64
+	// Scenarios holds the paths of each of Plan.Scenarios, in order.
+	Scenarios []*PathSet
+}
+
+// A PathSet is the simulated demand of one scenario.
+type PathSet struct {
+	// Name is the scenario's name.
+	Name string
+	// Demand[t][i] is path i's demand in period t.
+	Demand [][]float64
+	// Sorted[t] holds Demand[t] sorted in increasing order.
+	Sorted [][]float64
+	// Spread[t] is the mean and the quantiles of Demand[t].
+	Spread []Spread
+}
+
+// summarise fills Sorted and Spread from Demand; Sorted and Spread must
+// be allocated.
+func (ps *PathSet) summarise() {
+	for t := range ps.Demand {
+		copy(ps.Sorted[t], ps.Demand[t])
+		ps.Spread[t] = spreadOf(ps.Sorted[t])
+	}
+}
+
+// Quantile returns the p-quantile (Quantile, definition 7) of the demand
+// in period t. It panics if p is outside [0, 1] or t out of range.
+func (ps *PathSet) Quantile(t int, p float64) float64 { return Quantile(ps.Sorted[t], p) }
+
+// QuantileDemand returns the p-quantile of the demand in every period.
+func (ps *PathSet) QuantileDemand(p float64) []float64 {
+	out := make([]float64, len(ps.Sorted))
+	for t := range out {
+		out[t] = ps.Quantile(t, p)
+	}
+	return out
+}
+
+// ImpulseWeights returns psi_1..psi_{h−1}, the impulse response of model m
+// (fitted to y and positioned at its end): how much a one-unit surprise in
+// the first forecast period moves the forecasts of the periods after it.
+// With yhat the model's first forecast,
+//
+//	m0 = m.Extend(y, yhat),  m1 = m.Extend(y, yhat + 1)
+//	psi_j = m1.Forecast(j) − m0.Forecast(j),   j = 1..h−1,
+//
+// which for the linear forecasting methods is exact: psi_j = 1 for every
+// j for the naive forecast (a random walk), alpha for simple exponential
+// smoothing, 1 at multiples of the season for the seasonal naive
+// forecast. It returns an empty slice for h <= 1. y is not changed.
+func ImpulseWeights(m forecast.Model, y []float64, h int) []float64 {
+	if h <= 1 {
+		return []float64{}
+	}
+	yhat := m.Forecast(1)[0]
+	ext := make([]float64, len(y)+1)
+	copy(ext, y)
+	ext[len(y)] = yhat
+	f0 := m.Extend(ext).Forecast(h - 1)
+	ext[len(y)] = yhat + 1
+	f1 := m.Extend(ext).Forecast(h - 1)
+	psi := make([]float64, h-1)
+	for j := range psi {
+		psi[j] = f1[j] - f0[j]
+	}
+	return psi
+}
+
+// ErrorScales returns k_1..k_H for horizon variances v, shock variance s2
+// and psi weights psi (at least len(v) − 1 of them):
+//
+//	k_h = sqrt(v_h / (s2 (1 + sum_{j=1}^{h−1} psi_j²))),
+//
+// and 0 where v_h or s2 is 0. It returns an error for a negative or
+// non-finite v_h or s2.
+func ErrorScales(v []float64, s2 float64, psi []float64) ([]float64, error) {
+	if math.IsNaN(s2) || math.IsInf(s2, 0) || s2 < 0 {
+		return nil, fmt.Errorf("%w: shock variance %v", ErrNoResiduals, s2)
+	}
+	k := make([]float64, len(v))
+	sum := 1.0
+	for h := range v {
+		if h > 0 {
+			sum += psi[h-1] * psi[h-1]
+		}
+		if math.IsNaN(v[h]) || math.IsInf(v[h], 0) || v[h] < 0 {
+			return nil, fmt.Errorf("the baseline has no usable error variance at horizon %d (%v)", h+1, v[h])
+		}
+		if v[h] == 0 || s2 == 0 {
+			continue
+		}
+		k[h] = math.Sqrt(v[h] / (s2 * sum))
+	}
+	return k, nil
+}
+
+// shockPool returns the centred in-sample one-step errors (NaN dropped)
+// and their variance, the mean of their squares.
+func shockPool(res []float64) (pool []float64, s2 float64) {
+	for _, r := range res {
+		if !math.IsNaN(r) && !math.IsInf(r, 0) {
+			pool = append(pool, r)
+		}
+	}
+	if len(pool) == 0 {
+		return nil, math.NaN()
+	}
+	m := mean(pool)
+	for i := range pool {
+		pool[i] -= m
+		s2 += pool[i] * pool[i]
+	}
+	return pool, s2 / float64(len(pool))
+}
+
+// unitShape returns an event's contribution per unit of its effect (1 unit,
+// or 1 percent) in each period of the baseline.
+func unitShape(e *Event, first forecast.Period, baseline []float64) []float64 {
+	u := *e
+	if u.Effect.IsPercent {
+		u.Effect = Effect{Percent: 1, IsPercent: true}
+	} else {
+		u.Effect = Effect{Units: 1}
+	}
+	return u.Contribution(first, baseline)
+}
+
+// eventStream returns the seed stream of an event: the FNV-1a hash of its
+// id, never 0 (the shocks' stream).
+func eventStream(id string) uint64 {
+	h := fnv.New64a()
+	h.Write([]byte(id))
+	if s := h.Sum64(); s != 0 {
+		return s
+	}
+	return 1
+}
+
+// matrix returns rows slices of n values each, backed by one array.
+func matrix(rows, n int) [][]float64 {
+	back := make([]float64, rows*n)
+	m := make([][]float64, rows)
+	for t := range m {
+		m[t] = back[t*n : (t+1)*n : (t+1)*n]
+	}
+	return m
+}
+
+// Simulate draws sample paths of every scenario of p (see Simulation for
+// the model). It returns an error wrapping ErrTooFewPaths when opt.Paths
+// is below MinPaths (and not zero), ErrNoResiduals when there are no
+// in-sample errors to draw from, and an error when the plan's baseline
+// variance is not finite. It panics if p has no periods.
+func Simulate(p *Plan, opt SimOptions) (*Simulation, error) {
+	n := opt.Paths
+	if n == 0 {
+		n = DefaultPaths
+	}
+	if n < MinPaths {
+		return nil, fmt.Errorf("%w: %d paths asked for, at least %d are needed", ErrTooFewPaths, n, MinPaths)
+	}
+	H := len(p.Periods)
+	if H == 0 {
+		panic("scenario: Simulate on a plan without periods")
+	}
+	s := &Simulation{Plan: p, Paths: n, Seed: opt.Seed, Errors: opt.Errors}
+
+	var pool []float64
+	switch opt.Errors {
+	case Normal:
+		s.S2 = p.Fit.Accuracy.MSE
+		if math.IsNaN(s.S2) || math.IsInf(s.S2, 0) || s.S2 < 0 {
+			return nil, fmt.Errorf("%w: the baseline's mean squared error is %v", ErrNoResiduals, s.S2)
+		}
+	default:
+		pool, s.S2 = shockPool(p.Fit.Residuals())
+		if len(pool) == 0 {
+			return nil, fmt.Errorf("%w: the baseline made no one-step prediction over the history", ErrNoResiduals)
+		}
+		s.Pool = len(pool)
+	}
+	s.Psi = ImpulseWeights(p.Fit.Model, p.Cleaned, H)
+	var err error
+	if s.Scale, err = ErrorScales(p.BaselineVar, s.S2, s.Psi); err != nil {
+		return nil, err
+	}
+
+	s.Error = matrix(H, n)
+	s.drawErrors(pool)
+	s.Amount = matrix(len(p.Future), n)
+	for k, e := range p.Future {
+		drawEvent(e, opt.Seed, s.Amount[k])
+	}
+
+	first := p.Periods[0]
+	shapes := make([][]float64, len(p.Future))
+	for k, e := range p.Future {
+		shapes[k] = unitShape(e, first, p.Baseline)
+	}
+	for _, sp := range p.Scenarios {
+		ps := &PathSet{Name: sp.Name, Demand: matrix(H, n), Sorted: matrix(H, n), Spread: make([]Spread, H)}
+		for t, row := range ps.Demand {
+			b, e := p.Baseline[t], s.Error[t]
+			for i := range row {
+				row[i] = b + e[i]
+			}
+		}
+		for k, e := range p.Future {
+			if !slices.Contains(sp.Events, e) {
+				continue
+			}
+			amt := s.Amount[k]
+			for t, u := range shapes[k] {
+				if u == 0 {
+					continue
+				}
+				row := ps.Demand[t]
+				for i, a := range amt {
+					row[i] += a * u
+				}
+			}
+		}
+		ps.summarise()
+		s.Scenarios = append(s.Scenarios, ps)
+	}
+	return s, nil
+}
+
+// drawErrors fills s.Error: path by path, H shocks, then the psi-weighted
+// sums, rescaled.
+func (s *Simulation) drawErrors(pool []float64) {
+	H, n := len(s.Error), s.Paths
+	r := rand.New(rand.NewPCG(s.Seed, 0))
+	sd := math.Sqrt(s.S2)
+	// Only the non-zero weights cost time.
+	var lags []int
+	for j, w := range s.Psi {
+		if w != 0 {
+			lags = append(lags, j+1)
+		}
+	}
+	eps := make([]float64, H)
+	for i := 0; i < n; i++ {
+		if s.Errors == Normal {
+			for t := range eps {
+				eps[t] = sd * r.NormFloat64()
+			}
+		} else {
+			for t := range eps {
+				eps[t] = pool[r.IntN(len(pool))]
+			}
+		}
+		for t := 0; t < H; t++ {
+			v := eps[t]
+			for _, j := range lags {
+				if j > t {
+					break
+				}
+				v += s.Psi[j-1] * eps[t-j]
+			}
+			s.Error[t][i] = s.Scale[t] * v
+		}
+	}
+}
+
+// drawEvent fills amt with event e's size on each path (0 where it does
+// not occur), from the event's own stream.
+func drawEvent(e *Event, seed uint64, amt []float64) {
+	r := rand.New(rand.NewPCG(seed, eventStream(e.ID)))
+	effect := e.Effect.Value()
+	var tri *distuv.Triangle
+	if rg := e.Range; rg != nil && rg.Low < rg.High {
+		t := distuv.NewTriangle(rg.Low, rg.High, math.Min(math.Max(effect, rg.Low), rg.High), nil)
+		tri = &t
+	}
+	for i := range amt {
+		occ, u := r.Float64(), r.Float64()
+		if occ >= e.Probability {
+			amt[i] = 0
+			continue
+		}
+		if tri != nil {
+			amt[i] = tri.Quantile(u)
+		} else {
+			amt[i] = effect
+		}
+	}
+}

@@ -1,0 +1,193 @@
+package scenario
+
+import (
+	"errors"
+	"math"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/gonum/floats/scalar"
+
+	"forelay/forecast"
+)
+
+// handPaths makes a PathSet from demand[t][i].
+func handPaths(name string, demand [][]float64) *PathSet {
+	n := len(demand[0])
+	ps := &PathSet{Name: name, Demand: demand, Sorted: matrix(len(demand), n), Spread: make([]Spread, len(demand))}
+	ps.summarise()
+	return ps
+}
+
+func same(t *testing.T, what string, got, want, tol float64) {
+	t.Helper()
+	if math.IsNaN(want) {
+		if !math.IsNaN(got) {
+			t.Errorf("%s = %v, want NaN", what, got)
+		}
+		return
+	}
+	if !scalar.EqualWithinAbsOrRel(got, want, tol, tol) {
+		t.Errorf("%s = %.12g, want %.12g", what, got, want)
+	}
+}
+
+func TestCapacityRisk(t *testing.T) {
+	nan := math.NaN()
+	ps := handPaths("s", [][]float64{
+		{5, 1, 9, 3, 7, 10, 2, 8, 4, 6},
+		{10, 9, 8, 7, 6, 5, 4, 3, 2, 1},
+		{3, 0, 3, 0, 0, 0, 0, 0, 0, 0},
+		{1, 1, 1, 1, 1, 1, 1, 1, 1, 50},
+	})
+	capacity := []float64{7.5, 10, 2, nan}
+	for _, tc := range []struct {
+		name      string
+		threshold float64
+		// All by hand. Period 0: the values 8, 9 and 10 are above 7.5, so
+		// P(breach) = 3/10, ES = (0.5 + 1.5 + 2.5)/10 = 0.45 and the mean
+		// excess of the breaching paths 4.5/3 = 1.5; P50 = 5.5 (h = 4.5),
+		// P90 = 9.1 (h = 8.1), so utilisation 5.5/7.5 and 9.1/7.5.
+		// Period 1: 10 equals the capacity, which is no breach. Period 2:
+		// two paths at 3 > 2: P = 0.2, ES = 2/10. Period 3: no limit.
+		// Paths breaching somewhere: 7, 2, 5 (period 0) and 0, 2
+		// (period 2): 4 of 10.
+		wantFirst int
+	}{
+		{"threshold 0.25", 0.25, 0},
+		{"threshold 0.3 is not exceeded by 0.3", 0.3, -1},
+		{"threshold 0.1", 0.1, 0},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			r := CapacityRisk(ps, capacity, tc.threshold)
+			if r.FirstBreach != tc.wantFirst {
+				t.Errorf("first breach %d, want %d", r.FirstBreach, tc.wantFirst)
+			}
+			want := []struct{ pb, es, ifb, u50, u90 float64 }{
+				{0.3, 0.45, 1.5, 5.5 / 7.5, 9.1 / 7.5},
+				{0, 0, nan, 5.5 / 10, 9.1 / 10},
+				// Period 2 sorted: eight 0s, then 3, 3; P50 (h = 4.5) = 0,
+				// P90 (h = 8.1) = 3 + 0.1*(3 - 3) = 3, so 0/2 and 3/2.
+				{0.2, 0.2, 1, 0, 1.5},
+				{nan, nan, nan, nan, nan},
+			}
+			for i, w := range want {
+				pr := r.Periods[i]
+				same(t, "p_breach", pr.PBreach, w.pb, 1e-12)
+				same(t, "expected shortfall", pr.ExpectedShortfall, w.es, 1e-12)
+				same(t, "shortfall if breach", pr.ShortfallIfBreach, w.ifb, 1e-12)
+				same(t, "util P50", pr.UtilP50, w.u50, 1e-12)
+				same(t, "util P90", pr.UtilP90, w.u90, 1e-12)
+			}
+			same(t, "total expected shortfall", r.TotalExpectedShortfall, 0.65, 1e-12)
+			same(t, "P(any breach)", r.PAnyBreach, 0.4, 1e-12)
+		})
+	}
+	r := CapacityRisk(ps, nil, 0.1)
+	if r.FirstBreach != -1 || !math.IsNaN(r.TotalExpectedShortfall) || !math.IsNaN(r.PAnyBreach) || !math.IsNaN(r.Periods[0].PBreach) {
+		t.Errorf("without capacity: %+v", r)
+	}
+	same(t, "mean without capacity", r.Periods[0].Mean, 5.5, 1e-12)
+}
+
+func TestProjectStock(t *testing.T) {
+	// By hand: stock_t = stock_{t-1} + production_t - demand_t from 10:
+	// 10 + 100 - 80 = 30, 30 + 100 - 90 = 40, 40 + 100 - 150 = -10.
+	// Idle = capacity - production = 20, 20, -10.
+	// Paths (4): cumulative demand 90 100 110 120 | 190 200 210 220 |
+	// 290 320 290 360 against made = 110, 210, 310. Median cumulative
+	// demand 105, 205, 305 leaves 5 each time; the P90 (h = 2.7) is
+	// 110 + 0.7*10 = 117, 217, 320 + 0.7*40 = 348, leaving -7, -7, -38.
+	// Paths short: 1, 1 and 2 of 4.
+	ps := handPaths("s", [][]float64{{90, 100, 110, 120}, {100, 100, 100, 100}, {100, 120, 80, 140}})
+	sp := ProjectStock([]float64{100, 100, 100}, []float64{80, 90, 150}, []float64{120, 120, 90}, 10, ps)
+	equalSlices(t, "stock", sp.Stock, []float64{30, 40, -10}, 1e-12)
+	equalSlices(t, "idle", sp.Idle, []float64{20, 20, -10}, 1e-12)
+	equalSlices(t, "stock at P50", sp.StockP50, []float64{5, 5, 5}, 1e-12)
+	equalSlices(t, "stock at P90", sp.StockP90, []float64{-7, -7, -38}, 1e-12)
+	equalSlices(t, "share short", sp.PShort, []float64{0.25, 0.25, 0.5}, 1e-12)
+	if sp.FirstShortfall != 2 || sp.Low != 2 || sp.High != 1 {
+		t.Errorf("first shortfall %d, low %d, high %d; want 2, 2, 1", sp.FirstShortfall, sp.Low, sp.High)
+	}
+	nop := ProjectStock([]float64{5, 5}, []float64{1, 2}, nil, 0, nil)
+	equalSlices(t, "stock (no paths)", nop.Stock, []float64{4, 7}, 0)
+	if !math.IsNaN(nop.Idle[0]) || !math.IsNaN(nop.StockP50[0]) || nop.FirstShortfall != -1 {
+		t.Errorf("no capacity or paths: %+v", nop)
+	}
+}
+
+const frozenBody = `plan: frozen
+horizon: 3
+baseline: {method: naive}
+capacity: {units: 2000}
+production: {mode: frozen, plan: prev.csv}
+`
+
+func TestFrozenProduction(t *testing.T) {
+	hist := testHistory(48) // 2022-01 .. 2025-12; the plan is 2026-01 .. 2026-03
+	for _, tc := range []struct {
+		name    string
+		csv     string
+		want    []float64
+		wantErr []string // substrings of the error
+	}{
+		{"one series", "period,units\n2025-12,1\n2026-01,10\n2026-02,20\n2026-03,30\n2026-04,40\n", []float64{10, 20, 30}, nil},
+		{"named like the history", "period,other,demand\n2026-01,1,11\n2026-02,2,12\n2026-03,3,13\n", []float64{11, 12, 13}, nil},
+		{"too short", "period,units\n2026-01,10\n2026-02,20\n", nil,
+			[]string{"plan.yaml:6:34: production.plan: ", "prev.csv covers 2026-01 to 2026-02, but the plan runs from 2026-01 to 2026-03"}},
+		{"bad number", "period,units\n2026-01,10\n2026-02,x\n2026-03,30\n", nil, []string{"prev.csv:3:9: units: "}},
+		{"no series named so", "period,a,b\n2026-01,1,2\n2026-02,1,2\n2026-03,1,2\n", nil, []string{"plan.yaml:6:34: production.plan: ", `no such series "demand"`}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			p, err := buildWithFiles(t, frozenBody, hist, map[string]string{"prev.csv": tc.csv})
+			if err != nil {
+				t.Fatal(err)
+			}
+			got, src, err := p.FrozenProduction()
+			if tc.wantErr != nil {
+				var pe *forecast.ParseError
+				if !errors.As(err, &pe) {
+					t.Fatalf("error %v, want a ParseError", err)
+				}
+				for _, w := range tc.wantErr {
+					if !strings.Contains(err.Error(), w) {
+						t.Errorf("error %v, want it to contain %q", err, w)
+					}
+				}
+				return
+			}
+			if err != nil {
+				t.Fatal(err)
+			}
+			if !strings.HasSuffix(src, "prev.csv") {
+				t.Errorf("source %q", src)
+			}
+			equalSlices(t, "production", got, tc.want, 0)
+		})
+	}
+	p := buildTestPlan(t, strings.Replace(frozenBody, ", plan: prev.csv", "", 1), hist)
+	got, src, err := p.FrozenProduction()
+	if err != nil || src != "baseline" {
+		t.Fatalf("no plan CSV: %v, %q", err, src)
+	}
+	equalSlices(t, "production = baseline", got, p.Baseline, 0)
+	equalSlices(t, "capacity", p.CapacityPerPeriod(), []float64{2000, 2000, 2000}, 0)
+}
+
+const capacityBody = `plan: cap
+horizon: 4
+baseline: {method: naive}
+capacity:
+  units: 1000
+  changes: [{from: 2026-03, units: 1200}]
+`
+
+func TestCapacityPerPeriod(t *testing.T) {
+	// Capacity.At: 1000 before the change in 2026-03, 1200 from it.
+	p := buildTestPlan(t, capacityBody, testHistory(48))
+	equalSlices(t, "capacity", p.CapacityPerPeriod(), []float64{1000, 1000, 1200, 1200}, 0)
+	p.File.Capacity = nil
+	if p.CapacityPerPeriod() != nil {
+		t.Error("no capacity gave a schedule")
+	}
+}
