@@ -23,6 +23,8 @@ var (
 	ErrTooShort = errors.New("too few points")
 	// ErrNoSeries: the file holds no series, or not the one asked for.
 	ErrNoSeries = errors.New("no such series")
+	// ErrInternal: a fit failed through a bug, not through the data.
+	ErrInternal = errors.New("internal error")
 )
 
 // A ParseError reports a problem at a place in an input file. Line and
@@ -63,7 +65,11 @@ type TooShortError struct {
 }
 
 func (e *TooShortError) Error() string {
-	return fmt.Sprintf("series %q has %d points; %s needs at least %d", e.Series, e.Have, e.Method, e.Need)
+	pts := "points"
+	if e.Have == 1 {
+		pts = "point"
+	}
+	return fmt.Sprintf("series %q has %d %s; %s needs at least %d", e.Series, e.Have, pts, e.Method, e.Need)
 }
 
 // Unwrap returns ErrTooShort.

@@ -47,7 +47,7 @@ func FitAll(series []Series, spec Spec, workers int) []Outcome {
 func fitGuarded(s Series, spec Spec) (oc Outcome) {
 	defer func() {
 		if p := recover(); p != nil {
-			oc = Outcome{Err: fmt.Errorf("series %q: internal error while fitting: %v", s.Name, p)}
+			oc = Outcome{Err: fmt.Errorf("series %q: %w while fitting: %v", s.Name, ErrInternal, p)}
 		}
 	}()
 	r, err := Fit(s, spec)

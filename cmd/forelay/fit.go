@@ -150,7 +150,11 @@ func fitRun(opts *FitOptions) error {
 		return err
 	}
 	if len(failed) > 0 {
-		return &inputError{err: errors.Join(failed...)}
+		joined := errors.Join(failed...)
+		if errors.Is(joined, forecast.ErrInternal) {
+			return joined // exit code 1: a bug, not the user's data
+		}
+		return &inputError{err: joined}
 	}
 	return nil
 }

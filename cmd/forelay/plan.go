@@ -111,6 +111,7 @@ func planRun(opts *PlanOptions) error {
 // writePlanText writes the human summary of a plan.
 func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
 	f := p.File
+	d := decimalsFor(p.Baseline)
 	units := ""
 	if f.Units != "" {
 		units = " " + f.Units
@@ -132,7 +133,7 @@ func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
 	}
 	fmt.Fprintf(w, "; fitted to %d periods %s to %s\n", p.History.Len(), p.History.Start, p.History.Period(p.History.Len()-1))
 	fmt.Fprintf(w, "Baseline accuracy (one step, in-sample): MAD %s, MSE %s (/%s), MAPE %s%%\n",
-		fmtNum(r.Accuracy.MAD, 0), fmtNum(r.Accuracy.MSE, 0), r.Accuracy.Divisor, fmtNum(r.Accuracy.MAPE, 2))
+		fmtNum(r.Accuracy.MAD, d), fmtNum(r.Accuracy.MSE, d), r.Accuracy.Divisor, fmtNum(r.Accuracy.MAPE, 2))
 	fmt.Fprintf(w, "Bands: adjusted +- %.3g x standard error (%s; event ranges count as 90%% intervals)\n", p.Z, bandSourceText(p.VarSource))
 
 	if len(p.Cleaning) > 0 {
@@ -147,7 +148,7 @@ func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
 			if c.Kind == scenario.Step {
 				what = "as a lasting level shift from " + c.When
 			}
-			fmt.Fprintf(w, "  %s %s %s +- %s%s %s\n", c.ID, verb, fmtNum(math.Abs(c.Effect), 0), fmtNum(c.StdErr, 0), units, what)
+			fmt.Fprintf(w, "  %s %s %s +- %s%s %s\n", c.ID, verb, fmtNum(math.Abs(c.Effect), d), fmtNum(c.StdErr, d), units, what)
 		}
 	}
 
@@ -164,7 +165,7 @@ func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
 		fmt.Fprintf(w, "Scenario %s (%s)\n", sp.Name, evs)
 		base := scenario.Total(p.Baseline)
 		t := newTable("", "total"+units, "vs baseline", "share")
-		t.add("baseline", fmtNum(base, 0), "", "")
+		t.add("baseline", fmtNum(base, d), "", "")
 		for i, e := range p.Future {
 			if !contains(sp.Events, e) {
 				continue
@@ -174,20 +175,20 @@ func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
 			if e.Probability < 1 {
 				label += fmt.Sprintf(" (p=%.2g)", e.Probability)
 			}
-			t.add(label, "", signed(c, 0), pct(c, base))
+			t.add(label, "", signed(c, d), pct(c, base))
 		}
 		adj := scenario.Total(sp.Adjusted)
-		t.add("adjusted plan", fmtNum(adj, 0), signed(adj-base, 0), pct(adj-base, base))
+		t.add("adjusted plan", fmtNum(adj, d), signed(adj-base, d), pct(adj-base, base))
 		rw := scenario.Total(sp.RiskWeighted)
-		t.add("risk-weighted", fmtNum(rw, 0), signed(rw-base, 0), pct(rw-base, base))
+		t.add("risk-weighted", fmtNum(rw, d), signed(rw-base, d), pct(rw-base, base))
 		t.write(w)
 		i, v := scenario.Peak(sp.Adjusted)
-		fmt.Fprintf(w, "Peak %s: %s%s (band %s to %s)\n", p.Periods[i], fmtNum(v, 0), units, fmtNum(sp.Lower[i], 0), fmtNum(sp.Upper[i], 0))
+		fmt.Fprintf(w, "Peak %s: %s%s (band %s to %s)\n", p.Periods[i], fmtNum(v, d), units, fmtNum(sp.Lower[i], d), fmtNum(sp.Upper[i], d))
 		if detail {
 			dt := newTable("period", "baseline", "adjusted", "risk-weighted", "lower", "upper")
 			for k, per := range p.Periods {
-				dt.add(per.String(), fmtNum(p.Baseline[k], 0), fmtNum(sp.Adjusted[k], 0), fmtNum(sp.RiskWeighted[k], 0),
-					fmtNum(sp.Lower[k], 0), fmtNum(sp.Upper[k], 0))
+				dt.add(per.String(), fmtNum(p.Baseline[k], d), fmtNum(sp.Adjusted[k], d), fmtNum(sp.RiskWeighted[k], d),
+					fmtNum(sp.Lower[k], d), fmtNum(sp.Upper[k], d))
 			}
 			fmt.Fprintln(w)
 			dt.write(w)
@@ -238,4 +239,20 @@ func pct(v, base float64) string {
 		return "-"
 	}
 	return signed(100*v/base, 1) + "%"
+}
+
+// decimalsFor picks the decimals for a table of values like v: none for
+// thousands and up, one for hundreds, two below.
+func decimalsFor(v []float64) int {
+	m := 0.0
+	for _, x := range v {
+		m = math.Max(m, math.Abs(x))
+	}
+	switch {
+	case m >= 1000:
+		return 0
+	case m >= 100:
+		return 1
+	}
+	return 2
 }
