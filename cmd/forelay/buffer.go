@@ -1,8 +1,8 @@
 package main
 
 import (
-	"bytes"
 	"fmt"
+	"io"
 	"math"
 
 	"github.com/spf13/cobra"
@@ -166,32 +166,16 @@ func bufferRun(opts *BufferOptions) error {
 	if err != nil {
 		return err
 	}
+	var set *outputSet
 	if opts.Out != "" {
-		set := newOutputSet(opts.Out)
+		set = newOutputSet(opts.Out)
 		set.add("buffer.csv", bufferCSV(r))
 		set.add("buffer.json", js)
 		if !opts.NoChart {
-			png, svg, err := renderBoth(bufferChart(r))
-			if err != nil {
+			if err := set.addChart("buffer", bufferChart(r)); err != nil {
 				return err
 			}
-			set.add("buffer.png", png)
-			set.add("buffer.svg", svg)
-		}
-		paths, err := set.commit()
-		if err != nil {
-			return err
-		}
-		for _, path := range paths {
-			fmt.Fprintf(opts.IO.ErrOut, "wrote %s\n", path)
 		}
 	}
-	if opts.JSON {
-		_, err := opts.IO.Out.Write(js)
-		return err
-	}
-	var b bytes.Buffer
-	writeBufferText(&b, r)
-	_, err = opts.IO.Out.Write(b.Bytes())
-	return err
+	return finish(opts.IO, set, js, opts.JSON, func(w io.Writer) { writeBufferText(w, r) })
 }

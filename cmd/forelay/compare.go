@@ -1,8 +1,7 @@
 package main
 
 import (
-	"bytes"
-	"fmt"
+	"io"
 
 	"github.com/spf13/cobra"
 
@@ -102,43 +101,24 @@ func compareRun(opts *CompareOptions) error {
 	if err != nil {
 		return err
 	}
+	var set *outputSet
 	if opts.Out != "" {
-		set := newOutputSet(opts.Out)
+		set = newOutputSet(opts.Out)
 		set.add("compare.csv", compareCSV(r))
 		set.add("compare.json", js)
 		if !opts.NoChart {
-			png, svg, err := planChart(r.Plan)
-			if err != nil {
+			if err := set.addChart("compare", planChart(r.Plan)); err != nil {
 				return err
 			}
-			set.add("compare.png", png)
-			set.add("compare.svg", svg)
 			for _, c := range r.Rows {
 				if len(c.Contributions) == 0 {
 					continue
 				}
-				png, svg, err := renderBoth(waterfallChart(r, c))
-				if err != nil {
+				if err := set.addChart("waterfall-"+c.Name, waterfallChart(r, c)); err != nil {
 					return err
 				}
-				set.add("waterfall-"+c.Name+".png", png)
-				set.add("waterfall-"+c.Name+".svg", svg)
 			}
 		}
-		paths, err := set.commit()
-		if err != nil {
-			return err
-		}
-		for _, path := range paths {
-			fmt.Fprintf(opts.IO.ErrOut, "wrote %s\n", path)
-		}
 	}
-	if opts.JSON {
-		_, err := opts.IO.Out.Write(js)
-		return err
-	}
-	var b bytes.Buffer
-	writeCompareText(&b, r)
-	_, err = opts.IO.Out.Write(b.Bytes())
-	return err
+	return finish(opts.IO, set, js, opts.JSON, func(w io.Writer) { writeCompareText(w, r) })
 }

@@ -1,13 +1,19 @@
 package main
 
 import (
+	"bytes"
 	"encoding/json"
 	"fmt"
+	"io"
 	"math"
 	"os"
 	"path/filepath"
 	"strconv"
 	"strings"
+
+	"gonum.org/v1/plot"
+
+	"forelay/plots"
 )
 
 // writeFileAtomic writes data to path through a temporary file in the same
@@ -142,4 +148,57 @@ func fmtParam(v float64) string {
 		return "-"
 	}
 	return strconv.FormatFloat(v, 'f', 4, 64)
+}
+
+// chart is anything that builds a gonum plot: the chart types of package
+// plots.
+type chart interface{ Plot() (*plot.Plot, error) }
+
+// renderBoth draws c as PNG and SVG at the default size.
+func renderBoth(c chart) (png, svg []byte, err error) {
+	p, err := c.Plot()
+	if err != nil {
+		return nil, nil, err
+	}
+	if png, err = plots.Render(p, "png", plots.DefaultWidth, plots.DefaultHeight); err != nil {
+		return nil, nil, err
+	}
+	if svg, err = plots.Render(p, "svg", plots.DefaultWidth, plots.DefaultHeight); err != nil {
+		return nil, nil, err
+	}
+	return png, svg, nil
+}
+
+// addChart renders c and adds base.png and base.svg to the set.
+func (o *outputSet) addChart(base string, c chart) error {
+	png, svg, err := renderBoth(c)
+	if err != nil {
+		return err
+	}
+	o.add(base+".png", png)
+	o.add(base+".svg", svg)
+	return nil
+}
+
+// finish ends a command run: it writes the output set (nil when no --out
+// was given) and lists the files on ErrOut, then prints the JSON document
+// or the text report on Out.
+func finish(ios *IOStreams, set *outputSet, js []byte, asJSON bool, text func(io.Writer)) error {
+	if set != nil {
+		paths, err := set.commit()
+		if err != nil {
+			return err
+		}
+		for _, p := range paths {
+			fmt.Fprintf(ios.ErrOut, "wrote %s\n", p)
+		}
+	}
+	if asJSON {
+		_, err := ios.Out.Write(js)
+		return err
+	}
+	var b bytes.Buffer
+	text(&b)
+	_, err := ios.Out.Write(b.Bytes())
+	return err
 }

@@ -1,7 +1,6 @@
 package main
 
 import (
-	"bytes"
 	"fmt"
 	"io"
 	"math"
@@ -78,34 +77,18 @@ func planRun(opts *PlanOptions) error {
 	if err != nil {
 		return err
 	}
+	var set *outputSet
 	if opts.Out != "" {
-		set := newOutputSet(opts.Out)
+		set = newOutputSet(opts.Out)
 		set.add("plan.csv", planCSV(p))
 		set.add("plan.json", js)
 		if !opts.NoChart {
-			png, svg, err := planChart(p)
-			if err != nil {
+			if err := set.addChart("plan", planChart(p)); err != nil {
 				return err
 			}
-			set.add("plan.png", png)
-			set.add("plan.svg", svg)
-		}
-		paths, err := set.commit()
-		if err != nil {
-			return err
-		}
-		for _, path := range paths {
-			fmt.Fprintf(opts.IO.ErrOut, "wrote %s\n", path)
 		}
 	}
-	if opts.JSON {
-		_, err := opts.IO.Out.Write(js)
-		return err
-	}
-	var b bytes.Buffer
-	writePlanText(&b, p, opts.Detail)
-	_, err = opts.IO.Out.Write(b.Bytes())
-	return err
+	return finish(opts.IO, set, js, opts.JSON, func(w io.Writer) { writePlanText(w, p, opts.Detail) })
 }
 
 // writePlanText writes the human summary of a plan.

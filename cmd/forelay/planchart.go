@@ -16,8 +16,10 @@ func chartHistory(season int) int {
 	return 3 * season
 }
 
-// planChart draws the plan chart as PNG and SVG.
-func planChart(p *scenario.Plan) (png, svg []byte, err error) {
+// planChart lays out the plan chart: the last years of history, the
+// baseline with its band, each scenario with events and its band, and the
+// event windows.
+func planChart(p *scenario.Plan) plots.PlanChart {
 	n := p.History.Len()
 	show := min(n, chartHistory(p.Fit.Config.Season))
 	off := n - show // first history index shown
@@ -73,17 +75,7 @@ func planChart(p *scenario.Plan) (png, svg []byte, err error) {
 		}
 		c.Windows = append(c.Windows, plots.Window{Label: e.ID, From: from, To: to})
 	}
-	pl, err := c.Plot()
-	if err != nil {
-		return nil, nil, err
-	}
-	if png, err = plots.Render(pl, "png", plots.DefaultWidth, plots.DefaultHeight); err != nil {
-		return nil, nil, err
-	}
-	if svg, err = plots.Render(pl, "svg", plots.DefaultWidth, plots.DefaultHeight); err != nil {
-		return nil, nil, err
-	}
-	return png, svg, nil
+	return c
 }
 
 // unitsLabel is the value-axis label: "litres per month", or "per month".

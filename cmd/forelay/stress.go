@@ -1,8 +1,7 @@
 package main
 
 import (
-	"bytes"
-	"fmt"
+	"io"
 
 	"github.com/spf13/cobra"
 
@@ -144,40 +143,21 @@ func stressRun(opts *StressOptions) error {
 	if err != nil {
 		return err
 	}
+	var set *outputSet
 	if opts.Out != "" {
-		set := newOutputSet(opts.Out)
+		set = newOutputSet(opts.Out)
 		set.add("stress.csv", stressCSV(r))
 		set.add("stress.json", js)
 		if !opts.NoChart {
-			png, svg, err := renderBoth(fanChart(r))
-			if err != nil {
+			if err := set.addChart("fan", fanChart(r)); err != nil {
 				return err
 			}
-			set.add("fan.png", png)
-			set.add("fan.svg", svg)
 			if r.Frozen != nil {
-				png, svg, err := renderBoth(stockChart(r))
-				if err != nil {
+				if err := set.addChart("stock", stockChart(r)); err != nil {
 					return err
 				}
-				set.add("stock.png", png)
-				set.add("stock.svg", svg)
 			}
 		}
-		paths, err := set.commit()
-		if err != nil {
-			return err
-		}
-		for _, path := range paths {
-			fmt.Fprintf(opts.IO.ErrOut, "wrote %s\n", path)
-		}
 	}
-	if opts.JSON {
-		_, err := opts.IO.Out.Write(js)
-		return err
-	}
-	var b bytes.Buffer
-	writeStressText(&b, r)
-	_, err = opts.IO.Out.Write(b.Bytes())
-	return err
+	return finish(opts.IO, set, js, opts.JSON, func(w io.Writer) { writeStressText(w, r) })
 }

@@ -8,9 +8,7 @@ import (
 	"strings"
 
 	"github.com/spf13/pflag"
-	"gonum.org/v1/plot"
 
-	"forelay/plots"
 	"forelay/scenario"
 )
 
@@ -130,21 +128,6 @@ func simNotes(p *scenario.Plan) []string {
 		}
 	}
 	return notes
-}
-
-// renderBoth renders a chart as PNG and SVG at the default size.
-func renderBoth(pl interface{ Plot() (*plot.Plot, error) }) (png, svg []byte, err error) {
-	p, err := pl.Plot()
-	if err != nil {
-		return nil, nil, err
-	}
-	if png, err = plots.Render(p, "png", plots.DefaultWidth, plots.DefaultHeight); err != nil {
-		return nil, nil, err
-	}
-	if svg, err = plots.Render(p, "svg", plots.DefaultWidth, plots.DefaultHeight); err != nil {
-		return nil, nil, err
-	}
-	return png, svg, nil
 }
 
 // periodOrNull returns the label of period index i of the plan, or nil

@@ -177,38 +177,24 @@ func trackRun(opts *TrackOptions) error {
 	}
 	rep := trackReport{tp: tp, tr: tr, source: source, defaultLimit: opts.TSLimit == 0}
 
+	js, err := marshalIndent(trackJSON(rep))
+	if err != nil {
+		return err
+	}
+	var set *outputSet
 	if opts.Out != "" {
-		set := newOutputSet(opts.Out)
+		set = newOutputSet(opts.Out)
 		set.add("track.csv", trackCSV(rep))
-		charts, err := trackCharts(rep)
-		if err != nil {
+		control, signal := trackCharts(rep)
+		if err := set.addChart("control", control); err != nil {
 			return err
 		}
-		for _, c := range charts {
-			set.add(c.name, c.data)
-		}
-		paths, err := set.commit()
-		if err != nil {
+		if err := set.addChart("signal", signal); err != nil {
 			return err
-		}
-		for _, p := range paths {
-			fmt.Fprintf(opts.IO.ErrOut, "wrote %s\n", p)
 		}
 	}
-	if opts.JSON {
-		js, err := marshalIndent(trackJSON(rep))
-		if err != nil {
-			return err
-		}
-		if _, err := opts.IO.Out.Write(js); err != nil {
-			return err
-		}
-	} else {
-		var b bytes.Buffer
-		writeTrackText(&b, rep)
-		if _, err := opts.IO.Out.Write(b.Bytes()); err != nil {
-			return err
-		}
+	if err := finish(opts.IO, set, js, opts.JSON, func(w io.Writer) { writeTrackText(w, rep) }); err != nil {
+		return err
 	}
 	per, last := tr.Latest()
 	for _, v := range failOn {

@@ -6,8 +6,6 @@ import (
 	"strconv"
 	"strings"
 
-	"gonum.org/v1/plot"
-
 	"forelay/forecast"
 	"forelay/plots"
 )
@@ -113,11 +111,6 @@ func trackCSV(r trackReport) []byte {
 
 func fmt4(v float64) string { return strconv.FormatFloat(v, 'f', 4, 64) }
 
-type chartFile struct {
-	name string
-	data []byte
-}
-
 // ruleMark is the short note the control chart writes by a point where a
 // run rule fired: WE1 to WE4. The tracking signal's rule is shown on the
 // signal chart instead.
@@ -126,10 +119,10 @@ var ruleMark = map[forecast.Rule]string{
 	forecast.RuleFourOfFive: "WE3", forecast.RuleEightInARow: "WE4",
 }
 
-// trackCharts draws control.png/.svg (the errors with their limits and the
-// run rules that fired) and signal.png/.svg (the tracking signal with its
-// limits).
-func trackCharts(r trackReport) ([]chartFile, error) {
+// trackCharts lays out the control chart (the errors with their limits and
+// the run rules that fired) and the tracking signal chart (the signal with
+// its limits).
+func trackCharts(r trackReport) (plots.ControlChart, plots.SignalChart) {
 	tp, tr := r.tp, r.tr
 	labels := make([]string, len(tr.Periods))
 	errs := make([]float64, len(tr.Points))
@@ -153,26 +146,5 @@ func trackCharts(r trackReport) ([]chartFile, error) {
 		ylabel = "Smoothed error ÷ smoothed MAD"
 	}
 	sc := plots.SignalChart{Title: title, Labels: labels, Signal: sig, Limit: tr.Config.TSLimit, YLabel: ylabel}
-	cp, err := cc.Plot()
-	if err != nil {
-		return nil, err
-	}
-	sp, err := sc.Plot()
-	if err != nil {
-		return nil, err
-	}
-	var out []chartFile
-	for _, item := range [...]struct {
-		base string
-		pl   *plot.Plot
-	}{{"control", cp}, {"signal", sp}} {
-		for _, format := range [...]string{"png", "svg"} {
-			b, err := plots.Render(item.pl, format, plots.DefaultWidth, plots.DefaultHeight)
-			if err != nil {
-				return nil, err
-			}
-			out = append(out, chartFile{name: item.base + "." + format, data: b})
-		}
-	}
-	return out, nil
+	return cc, sc
 }
