@@ -44,7 +44,12 @@ bands, and then watch actuals against it.
 
 Start with "forelay fit" to see how well the history can be forecast, write a
 scenario file for the known events ("forelay init" writes a starter), and run
-"forelay plan" on it.`,
+"forelay plan" on it. "forelay stress", "buffer" and "compare" test the plan
+against capacity and size the stock to build ahead; "forelay track" follows
+new actuals against it.
+
+The plan is a statistical estimate: where supply is safety-critical, defer to
+the applicable reliability standards, local codes and licensed practice.`,
 		SilenceUsage:  true,
 		SilenceErrors: true,
 	}
