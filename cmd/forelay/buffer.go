@@ -13,6 +13,7 @@ import (
 // BufferOptions are the settings of "forelay buffer".
 type BufferOptions struct {
 	IO           *IOStreams
+	Shared       *sharedFlags
 	File         string
 	Out          string
 	JSON         bool
@@ -32,7 +33,7 @@ const (
 )
 
 func newCmdBuffer(f *Factory, runF func(*BufferOptions) error) *cobra.Command {
-	opts := &BufferOptions{IO: f.IO}
+	opts := &BufferOptions{IO: f.IO, Shared: f.Shared}
 	cmd := &cobra.Command{
 		Use:   "buffer FILE --service 0.95 [--lead-time L] [--opening-stock S]",
 		Short: "Size the stock to build ahead of a disruption, and the safety stock",
@@ -106,7 +107,7 @@ func (o *BufferOptions) check() error {
 		return flagErrorf("--demand %q: want mc or bands", o.Demand)
 	}
 	if o.Demand == demandMC {
-		return o.Sim.check()
+		return o.Sim.check(o.Shared.limits())
 	}
 	return nil
 }

@@ -10,13 +10,14 @@ import (
 
 // CheckOptions are the settings of "forelay check".
 type CheckOptions struct {
-	IO   *IOStreams
-	File string
-	JSON bool
+	IO     *IOStreams
+	Shared *sharedFlags
+	File   string
+	JSON   bool
 }
 
 func newCmdCheck(f *Factory, runF func(*CheckOptions) error) *cobra.Command {
-	opts := &CheckOptions{IO: f.IO}
+	opts := &CheckOptions{IO: f.IO, Shared: f.Shared}
 	cmd := &cobra.Command{
 		Use:   "check FILE",
 		Short: "Validate a scenario file and its history without computing a plan",

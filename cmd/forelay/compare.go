@@ -11,6 +11,7 @@ import (
 // CompareOptions are the settings of "forelay compare".
 type CompareOptions struct {
 	IO      *IOStreams
+	Shared  *sharedFlags
 	File    string
 	Out     string
 	JSON    bool
@@ -20,7 +21,7 @@ type CompareOptions struct {
 }
 
 func newCmdCompare(f *Factory, runF func(*CompareOptions) error) *cobra.Command {
-	opts := &CompareOptions{IO: f.IO}
+	opts := &CompareOptions{IO: f.IO, Shared: f.Shared}
 	cmd := &cobra.Command{
 		Use:   "compare FILE [--out DIR] [--json]",
 		Short: "Set the scenarios of a scenario file side by side",
@@ -65,7 +66,7 @@ total through each event's contribution to the scenario's total).`,
 
 // check validates the flags.
 func (o *CompareOptions) check() error {
-	if err := o.Sim.check(); err != nil {
+	if err := o.Sim.check(o.Shared.limits()); err != nil {
 		return err
 	}
 	return checkUnit("service", o.Service)

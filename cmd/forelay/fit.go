@@ -16,6 +16,7 @@ import (
 // FitOptions are the settings of "forelay fit".
 type FitOptions struct {
 	IO       *IOStreams
+	Shared   *sharedFlags
 	History  string
 	Series   string
 	Period   string
@@ -27,7 +28,7 @@ type FitOptions struct {
 }
 
 func newCmdFit(f *Factory, runF func(*FitOptions) error) *cobra.Command {
-	opts := &FitOptions{IO: f.IO}
+	opts := &FitOptions{IO: f.IO, Shared: f.Shared}
 	cmd := &cobra.Command{
 		Use:   "fit --history FILE [flags]",
 		Short: "Fit a baseline forecast to a history and report its accuracy",

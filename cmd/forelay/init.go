@@ -16,14 +16,15 @@ var starterFiles embed.FS
 
 // InitOptions are the settings of "forelay init".
 type InitOptions struct {
-	IO    *IOStreams
-	Dir   string
-	Force bool
-	JSON  bool
+	IO     *IOStreams
+	Shared *sharedFlags
+	Dir    string
+	Force  bool
+	JSON   bool
 }
 
 func newCmdInit(f *Factory, runF func(*InitOptions) error) *cobra.Command {
-	opts := &InitOptions{IO: f.IO}
+	opts := &InitOptions{IO: f.IO, Shared: f.Shared}
 	cmd := &cobra.Command{
 		Use:   "init DIR",
 		Short: "Write a starter scenario and history to edit",

@@ -3,8 +3,10 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
+	"io/fs"
 	"math"
 	"os"
 	"path/filepath"
@@ -15,36 +17,6 @@ import (
 
 	"forelay/plots"
 )
-
-// writeFileAtomic writes data to path through a temporary file in the same
-// directory and a rename, so a reader never sees a half-written file and a
-// failed run leaves any earlier file in place.
-func writeFileAtomic(path string, data []byte) error {
-	dir := filepath.Dir(path)
-	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp-*")
-	if err != nil {
-		return err
-	}
-	name := tmp.Name()
-	if _, err := tmp.Write(data); err != nil {
-		tmp.Close()
-		os.Remove(name)
-		return err
-	}
-	if err := tmp.Close(); err != nil {
-		os.Remove(name)
-		return err
-	}
-	if err := os.Chmod(name, 0o644); err != nil {
-		os.Remove(name)
-		return err
-	}
-	if err := os.Rename(name, path); err != nil {
-		os.Remove(name)
-		return err
-	}
-	return nil
-}
 
 // outputSet collects a run's output files in memory and writes them all at
 // the end, each atomically, so a run that fails part-way writes nothing.
@@ -65,21 +37,114 @@ func (o *outputSet) add(name string, data []byte) {
 	o.data[name] = data
 }
 
-// commit creates the directory and writes every file; it returns the
-// paths written, in the order they were added.
+// commit writes every file into the directory, all or nothing. The files
+// are first written into a staging directory beside it; only when all are
+// written are they moved into place. When a move fails, the files already
+// moved are put back as they were, so a failed run leaves the directory as
+// it found it. It returns the paths written, in the order they were added.
 func (o *outputSet) commit() ([]string, error) {
-	if err := os.MkdirAll(o.dir, 0o755); err != nil {
+	parent := filepath.Dir(filepath.Clean(o.dir))
+	if err := os.MkdirAll(parent, 0o755); err != nil {
 		return nil, err
 	}
-	var paths []string
+	stage, err := os.MkdirTemp(parent, "."+filepath.Base(filepath.Clean(o.dir))+".stage-*")
+	if err != nil {
+		return nil, err
+	}
+	defer os.RemoveAll(stage)
+	for _, n := range o.names {
+		if err := os.WriteFile(filepath.Join(stage, n), o.data[n], 0o644); err != nil {
+			return nil, fmt.Errorf("writing %s: %w", filepath.Join(o.dir, n), err)
+		}
+	}
+	if err := o.checkTargets(); err != nil {
+		return nil, err
+	}
+	if _, err := os.Stat(o.dir); errors.Is(err, fs.ErrNotExist) {
+		// A new directory: the staged one becomes it in one rename.
+		if err := os.Chmod(stage, 0o755); err != nil {
+			return nil, err
+		}
+		if err := os.Rename(stage, o.dir); err != nil {
+			return nil, fmt.Errorf("writing %s: %w", o.dir, err)
+		}
+		return o.paths(), nil
+	}
+	if err := o.swapIn(stage); err != nil {
+		return nil, err
+	}
+	return o.paths(), nil
+}
+
+// checkTargets refuses, before anything moves, a target that is not a
+// regular file or an output directory that is not a directory.
+func (o *outputSet) checkTargets() error {
+	if fi, err := os.Stat(o.dir); err == nil && !fi.IsDir() {
+		return fmt.Errorf("--out %s: not a directory; name a directory (it is created when missing)", o.dir)
+	}
 	for _, n := range o.names {
 		p := filepath.Join(o.dir, n)
-		if err := writeFileAtomic(p, o.data[n]); err != nil {
-			return paths, fmt.Errorf("writing %s: %w", p, err)
+		if fi, err := os.Lstat(p); err == nil && !fi.Mode().IsRegular() {
+			return fmt.Errorf("writing %s: a %s is in the way; move it aside and run again (nothing was written)", p, kindOf(fi))
 		}
-		paths = append(paths, p)
 	}
-	return paths, nil
+	return nil
+}
+
+func kindOf(fi fs.FileInfo) string {
+	switch {
+	case fi.IsDir():
+		return "directory"
+	case fi.Mode()&fs.ModeSymlink != 0:
+		return "symbolic link"
+	}
+	return "special file"
+}
+
+// swapIn moves the staged files into the existing output directory. Each
+// file it replaces is first moved into the staging directory, so that a
+// failure part-way can put every earlier file back.
+func (o *outputSet) swapIn(stage string) error {
+	type moved struct{ target, backup string }
+	var done []moved
+	undo := func() {
+		for i := len(done) - 1; i >= 0; i-- {
+			m := done[i]
+			os.Remove(m.target)
+			if m.backup != "" {
+				os.Rename(m.backup, m.target)
+			}
+		}
+	}
+	for _, n := range o.names {
+		target := filepath.Join(o.dir, n)
+		m := moved{target: target}
+		if _, err := os.Lstat(target); err == nil {
+			m.backup = filepath.Join(stage, ".old-"+n)
+			if err := os.Rename(target, m.backup); err != nil {
+				undo()
+				return fmt.Errorf("writing %s: %w (nothing was written)", target, err)
+			}
+		}
+		if err := os.Rename(filepath.Join(stage, n), target); err != nil {
+			if m.backup != "" {
+				os.Rename(m.backup, target)
+			}
+			undo()
+			return fmt.Errorf("writing %s: %w (nothing was written)", target, err)
+		}
+		done = append(done, m)
+	}
+	return nil
+}
+
+// paths returns the output paths in the order they were added.
+func (o *outputSet) paths() []string {
+	out := make([]string, len(o.names))
+	for i, n := range o.names {
+		out[i] = filepath.Join(o.dir, n)
+	}
+	return out
 }
 
 // num is a float64 that marshals NaN and infinities as JSON null and
@@ -178,6 +243,32 @@ func (o *outputSet) addChart(base string, c chart) error {
 	o.add(base+".png", png)
 	o.add(base+".svg", svg)
 	return nil
+}
+
+// warnings prints each warning of a run on ErrOut, one "warning:" line
+// each. Under --strict it then returns an input error (exit code 2), so
+// the caller stops before anything is written. Call it before finish.
+func warnings(ios *IOStreams, shared *sharedFlags, list []string) error {
+	for _, w := range list {
+		fmt.Fprintf(ios.ErrOut, "warning: %s\n", w)
+	}
+	if len(list) > 0 && shared.strict() {
+		n := "1 warning"
+		if len(list) > 1 {
+			n = fmt.Sprintf("%d warnings", len(list))
+		}
+		return &inputError{err: fmt.Errorf("%s and --strict is set: nothing was written; fix the input or run without --strict", n)}
+	}
+	return nil
+}
+
+// warningList returns list, or an empty list for nil, so that the
+// "warnings" field of a JSON document is always a list.
+func warningList(list []string) []string {
+	if list == nil {
+		return []string{}
+	}
+	return list
 }
 
 // finish ends a command run: it writes the output set (nil when no --out

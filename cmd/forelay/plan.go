@@ -14,6 +14,7 @@ import (
 // PlanOptions are the settings of "forelay plan".
 type PlanOptions struct {
 	IO      *IOStreams
+	Shared  *sharedFlags
 	File    string
 	Out     string
 	JSON    bool
@@ -22,7 +23,7 @@ type PlanOptions struct {
 }
 
 func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
-	opts := &PlanOptions{IO: f.IO}
+	opts := &PlanOptions{IO: f.IO, Shared: f.Shared}
 	cmd := &cobra.Command{
 		Use:   "plan FILE [--out DIR]",
 		Short: "Build the adjusted plan from a scenario file",

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"runtime/debug"
 	"time"
 
 	"github.com/spf13/cobra"
@@ -20,6 +21,29 @@ type IOStreams struct {
 type Factory struct {
 	IO  *IOStreams
 	Now func() time.Time
+	// Shared holds the flags every command takes (--strict, --limit); they
+	// are set when the command line is parsed.
+	Shared *sharedFlags
+}
+
+// sharedFlags are the settings every command takes.
+type sharedFlags struct {
+	// Strict turns every warning into an input error (exit code 2).
+	Strict bool
+	// Limits bound the size of a run.
+	Limits limits
+}
+
+// strict reports whether --strict is set; a nil s (a command built in a
+// test without a root) is not strict.
+func (s *sharedFlags) strict() bool { return s != nil && s.Strict }
+
+// limits returns the limits in force: the defaults when s is nil.
+func (s *sharedFlags) limits() limits {
+	if s == nil || s.Limits == nil {
+		return defaultLimits()
+	}
+	return s.Limits
 }
 
 // Exit codes.
@@ -48,11 +72,22 @@ scenario file for the known events ("forelay init" writes a starter), and run
 against capacity and size the stock to build ahead; "forelay track" follows
 new actuals against it.
 
+Every run is bounded; a larger run needs --limit NAME=N. The limits:` + limitsHelp() + `
+
 The plan is a statistical estimate: where supply is safety-critical, defer to
 the applicable reliability standards, local codes and licensed practice.`,
+		Version:       version,
 		SilenceUsage:  true,
 		SilenceErrors: true,
 	}
+	root.SetVersionTemplate("forelay {{.Version}}\n")
+	if f.Shared == nil {
+		f.Shared = &sharedFlags{}
+	}
+	f.Shared.Limits = defaultLimits()
+	pf := root.PersistentFlags()
+	pf.BoolVar(&f.Shared.Strict, "strict", false, "treat every warning as an error (exit code 2) and write nothing")
+	pf.Var(&limitsValue{l: f.Shared.Limits}, "limit", "raise or lower a limit, NAME=N (repeatable); see 'forelay --help' for the limits")
 	root.SetOut(f.IO.Out)
 	root.SetErr(f.IO.ErrOut)
 	root.SetIn(f.IO.In)
@@ -75,19 +110,34 @@ the applicable reliability standards, local codes and licensed practice.`,
 
 // run executes the command line args and returns the process exit code.
 func run(args []string, io *IOStreams, now func() time.Time) int {
-	f := &Factory{IO: io, Now: now}
-	root := newRootCmd(f)
-	root.SetArgs(args)
-	err := root.Execute()
-	if err == nil {
-		return exitOK
-	}
-	fmt.Fprintln(io.ErrOut, "forelay: "+err.Error())
-	var fe *flagError
-	if errors.As(err, &fe) {
-		fmt.Fprintln(io.ErrOut, "Run 'forelay --help' (or the command with --help) for usage.")
-	}
-	return exitCode(err)
+	return guard(io.ErrOut, func() int {
+		f := &Factory{IO: io, Now: now}
+		root := newRootCmd(f)
+		root.SetArgs(args)
+		err := root.Execute()
+		if err == nil {
+			return exitOK
+		}
+		fmt.Fprintln(io.ErrOut, "forelay: "+err.Error())
+		var fe *flagError
+		if errors.As(err, &fe) {
+			fmt.Fprintln(io.ErrOut, "Run 'forelay --help' (or the command with --help) for usage.")
+		}
+		return exitCode(err)
+	})
+}
+
+// guard runs body and turns a panic into an internal error: a panic is a
+// bug in forelay, never the user's fault, so it exits with code 1 and
+// never with the input-error code 2.
+func guard(errOut io.Writer, body func() int) (code int) {
+	defer func() {
+		if r := recover(); r != nil {
+			fmt.Fprintf(errOut, "forelay: internal error: %v\n%s\nThis is a bug in forelay; please report it with the command line and the input files.\n", r, debug.Stack())
+			code = exitInternal
+		}
+	}()
+	return body()
 }
 
 func newCmdVersion(f *Factory) *cobra.Command {

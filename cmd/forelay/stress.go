@@ -11,6 +11,7 @@ import (
 // StressOptions are the settings of "forelay stress".
 type StressOptions struct {
 	IO           *IOStreams
+	Shared       *sharedFlags
 	File         string
 	Out          string
 	JSON         bool
@@ -22,7 +23,7 @@ type StressOptions struct {
 }
 
 func newCmdStress(f *Factory, runF func(*StressOptions) error) *cobra.Command {
-	opts := &StressOptions{IO: f.IO}
+	opts := &StressOptions{IO: f.IO, Shared: f.Shared}
 	cmd := &cobra.Command{
 		Use:   "stress FILE [--paths N] [--seed S] [--out DIR] [--json]",
 		Short: "Monte Carlo risk of each scenario against capacity",
@@ -78,7 +79,7 @@ files, byte for byte.`,
 
 // check validates the flags.
 func (o *StressOptions) check() error {
-	if err := o.Sim.check(); err != nil {
+	if err := o.Sim.check(o.Shared.limits()); err != nil {
 		return err
 	}
 	if err := checkUnit("breach", o.Breach); err != nil {

@@ -24,13 +24,17 @@ type simFlags struct {
 const defaultSeed = 1
 
 func (s *simFlags) register(fl *pflag.FlagSet) {
-	fl.IntVar(&s.Paths, "paths", scenario.DefaultPaths, fmt.Sprintf("number of Monte Carlo sample paths (at least %d)", scenario.MinPaths))
+	fl.Var(newCountValue(&s.Paths, scenario.DefaultPaths), "paths", fmt.Sprintf("number of Monte Carlo sample paths, at least %d; 2e5 is read as 200000", scenario.MinPaths))
 	fl.Uint64Var(&s.Seed, "seed", defaultSeed, "seed of the random streams; the same seed gives the same results")
 	fl.StringVar(&s.Errors, "errors", "bootstrap", "forecast errors: bootstrap (resample the in-sample one-step errors) or normal")
 }
 
-// check validates the flags; every problem is a flag error (exit code 2).
-func (s *simFlags) check() error {
+// check validates the flags against the limits; every problem is a flag
+// error (exit code 2), found before anything is allocated.
+func (s *simFlags) check(l limits) error {
+	if int64(s.Paths) > l.get("paths") {
+		return l.exceeded("--paths", "paths", int64(s.Paths))
+	}
 	if s.Paths < scenario.MinPaths {
 		return flagErrorf("--paths %d: at least %d paths are needed (with fewer, P5 and P95 rest on a handful of paths)", s.Paths, scenario.MinPaths)
 	}

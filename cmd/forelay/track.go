@@ -22,7 +22,8 @@ import (
 
 // TrackOptions are the settings of "forelay track".
 type TrackOptions struct {
-	IO *IOStreams
+	IO     *IOStreams
+	Shared *sharedFlags
 	// File is the scenario file; Actuals the CSV of new actuals.
 	File, Actuals string
 	// Scenario names the scenario to track; empty picks the only one, or
@@ -48,7 +49,7 @@ type TrackOptions struct {
 }
 
 func newCmdTrack(f *Factory, runF func(*TrackOptions) error) *cobra.Command {
-	opts := &TrackOptions{IO: f.IO}
+	opts := &TrackOptions{IO: f.IO, Shared: f.Shared}
 	cmd := &cobra.Command{
 		Use:   "track FILE --actuals CSV [--scenario NAME] [--plan DIR]",
 		Short: "Follow new actuals against a plan: tracking signal, control chart, verdict",
