@@ -20,6 +20,8 @@ type PlanOptions struct {
 	JSON    bool
 	Detail  bool
 	NoChart bool
+	// Event, when set, adds the period-by-period account of one event.
+	Event string
 }
 
 func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
@@ -52,6 +54,7 @@ the whole run succeeds.`,
 	fl.BoolVar(&opts.JSON, "json", false, "print plan.json to standard output instead of the tables")
 	fl.BoolVar(&opts.Detail, "detail", false, "also print every period of every scenario")
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip plan.png and plan.svg")
+	fl.StringVar(&opts.Event, "event", "", "also show how this event adds up, period by period")
 	return cmd
 }
 
@@ -74,6 +77,10 @@ func planRun(opts *PlanOptions) error {
 	if err != nil {
 		return err
 	}
+	ev, err := pickEvent(p, opts.Event)
+	if err != nil {
+		return err
+	}
 	js, err := marshalIndent(planJSON(p))
 	if err != nil {
 		return err
@@ -89,7 +96,12 @@ func planRun(opts *PlanOptions) error {
 			}
 		}
 	}
-	return finish(opts.IO, set, js, opts.JSON, func(w io.Writer) { writePlanText(w, p, opts.Detail) })
+	return finish(opts.IO, set, js, opts.JSON, func(w io.Writer) {
+		writePlanText(w, p, opts.Detail)
+		if ev != nil {
+			writeEventText(w, p, ev)
+		}
+	})
 }
 
 // writePlanText writes the human summary of a plan.

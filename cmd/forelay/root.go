@@ -105,6 +105,7 @@ the applicable reliability standards, local codes and licensed practice.`,
 		newCmdCompare(f, nil),
 		newCmdTrack(f, nil),
 	)
+	registerCompletions(root)
 	return root
 }
 
