@@ -80,8 +80,8 @@
 //	    range: {low: 25000, high: 42000}   # a 90% interval for the effect at full size, in the
 //	                              # effect's unit; both required; must contain the effect
 //	    payback: {share: 0.5, periods: 2}  # pulses only: the share in [0, 1] (required) of the
-//	                              # pulse's total lift taken back, spread evenly over the next
-//	                              # periods (at least 1; default 1)
+//	                              # pulse's total lift in units taken back, spread evenly over
+//	                              # the next periods (at least 1; default 1)
 //	    past: [2024-08, 2025-08]  # earlier occurrences of the same kind and length, written in
 //	                              # the form of start and before it: cleaned out of the history
 //	                              # and used to learn the effect (a step needs an end for this)

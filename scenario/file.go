@@ -346,8 +346,10 @@ type Range struct {
 
 // Payback is the part of a pulse's lift taken back after it.
 type Payback struct {
-	// Share is the fraction of the pulse's total lift taken back, in
-	// [0, 1].
+	// Share is the fraction of the pulse's total lift in units taken
+	// back, in [0, 1] (see Event.Contribution): for a percent pulse the
+	// payback is a number of units, not a percentage of the payback
+	// periods' baseline.
 	Share float64
 	// Periods is the number of periods after the pulse over which the
 	// payback is spread evenly, at least 1.
