@@ -123,7 +123,10 @@ type Bands struct {
 	// Widen is "horizon" (the default: bands widen with the lead time) or
 	// "flat" (one width for every period).
 	Widen string
-	// Floor, when not nil, cuts the lower band at this value.
+	// Floor is the least demand can be: Build clips the adjusted and
+	// risk-weighted plans and both bands at it. Parse sets 0 when the
+	// file gives none; nil (the file's "floor: none") means no floor, for
+	// a quantity that can be negative such as sales net of returns.
 	Floor *float64
 	// Pos is where the bands key stands (zero when not given).
 	Pos Pos
