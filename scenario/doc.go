@@ -129,7 +129,8 @@
 //
 // Input that is legal but almost certainly not meant gives warnings, full
 // sentences printed like errors and ending with the fix: an event wholly
-// outside the history and the horizon, an event with an effect that
+// outside the history and the horizon (or a past occurrence wholly before
+// the history: Build leaves it out), an event with an effect that
 // starts inside the history and is therefore treated as past (with the
 // date one year later when that lies in the horizon), and a percent effect
 // below 1 in absolute value (File.Lint). Plan.Warnings holds them, then

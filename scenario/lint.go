@@ -16,6 +16,8 @@ import (
 //   - an event that lies wholly outside the history and the horizon, whose
 //     past occurrences (if any) do not touch the history either: it adds
 //     nothing;
+//   - else, a past occurrence that lies wholly before the history: there
+//     is nothing to clean and nothing to learn from;
 //   - an event that starts inside the history, lies wholly before the
 //     forecast and gives an effect in units or percent: it is treated as a
 //     past event, taken out of the history, and its effect is not used (a
@@ -39,7 +41,11 @@ func (f *File) Lint(hist forecast.Series) []string {
 	l := linter{f: f, first: hist.Start, next: hist.Next()}
 	l.end = l.next.Add(max(f.Horizon, 1) - 1)
 	for _, e := range f.Events {
-		for _, w := range []*lintNote{l.outside(e), l.pastTypo(e), l.smallPercent(e)} {
+		notes := []*lintNote{l.outside(e)}
+		if notes[0] == nil {
+			notes = append(notes, l.oldOccurrences(e)...)
+		}
+		for _, w := range append(notes, l.pastTypo(e), l.smallPercent(e)) {
 			if w != nil {
 				out = append(out, f.warning(w))
 			}
@@ -104,10 +110,25 @@ func (l *linter) outside(e *Event) *lintNote {
 		if e.HasEnd {
 			at, field = l.place(e, "end", e.End)
 		}
-		return &lintNote{at, field, fmt.Sprintf("the event ends in %s, before the history (%s), so it is neither cleaned out of the history nor in the plan. Check the dates, or remove the event.",
-			last, spanText(l.first, l.next.Add(-1)))}
+		return &lintNote{at, field, fmt.Sprintf("the event (%s) lies before the history (%s), so it is neither cleaned out of the history nor in the plan. Check the dates, or remove the event.",
+			spanText(first, last), spanText(l.first, l.next.Add(-1)))}
 	}
 	return nil
+}
+
+// oldOccurrences warns of each past occurrence wholly before the history.
+func (l *linter) oldOccurrences(e *Event) []*lintNote {
+	var out []*lintNote
+	for j, o := range e.Occurrences() {
+		if _, last, open := o.Window(l.next); open || !last.Before(l.first) {
+			continue
+		}
+		at, field := l.place(e, "past", o.Start)
+		field = index(field, j)
+		out = append(out, &lintNote{at, field, fmt.Sprintf("%s lies before the history (%s), so there is nothing to clean out and nothing to learn from it. Remove it, or check the year.",
+			o.Start, spanText(l.first, l.next.Add(-1)))})
+	}
+	return out
 }
 
 // pastTypo warns of an event with an effect that starts inside the history

@@ -28,9 +28,12 @@ func TestLint(t *testing.T) {
 		// past occurrence: no warning.
 		{"after the horizon with a past", "  - {id: a, kind: pulse, start: 2028-08, effect: {from: past}, past: [2025-08]}\n", ""},
 		{"before the history", "  - {id: old, kind: pulse, start: 2023-03, end: §2023-05}\n",
-			`event "old": end: the event ends in 2023-05, before the history (2024-01 to 2026-10), so it is neither cleaned out of the history nor in the plan. Check the dates, or remove the event.`},
+			`event "old": end: the event (2023-03 to 2023-05) lies before the history (2024-01 to 2026-10), so it is neither cleaned out of the history nor in the plan. Check the dates, or remove the event.`},
 		{"before the history, by periods", "  - {id: old, kind: pulse, start: §2023-11, periods: 2}\n",
-			`event "old": start: the event ends in 2023-12, before the history`},
+			`event "old": start: the event (2023-11 to 2023-12) lies before the history`},
+		// A past occurrence before the history, the others inside it.
+		{"old occurrence", "  - {id: fair, kind: pulse, start: 2027-08, effect: {from: past}, past: [§2023-08, 2024-08, 2025-08]}\n",
+			`event "fair": past[0]: 2023-08 lies before the history (2024-01 to 2026-10), so there is nothing to clean out and nothing to learn from it. Remove it, or check the year.`},
 		// A step without end that began before the history is in today's
 		// level: no warning.
 		{"open step before the history", "  - {id: old, kind: step, start: 2023-03, effect: {units: 5}}\n", ""},
@@ -154,5 +157,22 @@ func TestLintTestdataYearTypo(t *testing.T) {
 	// The promotion is cleaned out of the history, not planned.
 	if len(p.Future) != 0 || len(p.Cleaning) != 2 {
 		t.Errorf("future %d events, cleaning %+v", len(p.Future), p.Cleaning)
+	}
+}
+
+func TestBuildLeavesOutEventsBeforeHistory(t *testing.T) {
+	// History from 2022-01. An event and a past occurrence wholly before
+	// it have nothing to clean: Build leaves them out (it used to fail
+	// with a zero intervention) and warns of each.
+	body := "plan: p\nhorizon: 3\nbaseline: {method: naive}\nevents:\n" +
+		"  - {id: ancient, kind: pulse, start: 2020-03, periods: 2}\n" +
+		"  - {id: fair, kind: pulse, start: 2024-03, effect: {units: 10}, past: [2021-03, 2022-05]}\n"
+	p := buildTestPlan(t, body, testHistory(24))
+	if len(p.Cleaning) != 1 || p.Cleaning[0].When != "2022-05" {
+		t.Errorf("cleaning %+v; want the 2022-05 occurrence only", p.Cleaning)
+	}
+	if len(p.Warnings) != 2 || !strings.Contains(p.Warnings[0], `event "ancient": start: the event (2020-03 to 2020-04) lies before the history (2022-01 to 2023-12)`) ||
+		!strings.Contains(p.Warnings[1], `event "fair": past[0]: 2021-03 lies before the history`) {
+		t.Errorf("warnings:\n%s", strings.Join(p.Warnings, "\n"))
 	}
 }

@@ -238,14 +238,18 @@ type cleaning struct {
 }
 
 // interventions sorts the events into past and future (Plan.Future) and
-// turns past events and past occurrences into interventions; future events
-// whose window reaches back into the history have their known effect taken
-// out of it.
+// turns past events and past occurrences into interventions, leaving out
+// those wholly before the history (they have nothing to clean); future
+// events whose window reaches back into the history have their known
+// effect taken out of it.
 func (p *Plan) interventions() cleaning {
 	ser := p.History
 	first, n := ser.Next(), ser.Len()
 	c := cleaning{y: append([]float64(nil), ser.Values...)}
 	add := func(e *Event, when string, shape []float64) {
+		if !nonZero(shape) {
+			return // wholly before the history: File.Lint warns of it
+		}
 		c.ivs = append(c.ivs, forecast.Intervention{Name: e.ID, Shape: shape})
 		c.event, c.when = append(c.event, e), append(c.when, when)
 	}
@@ -276,6 +280,16 @@ func (p *Plan) interventions() cleaning {
 		}
 	}
 	return c
+}
+
+// nonZero reports whether v holds a value other than 0.
+func nonZero(v []float64) bool {
+	for _, x := range v {
+		if x != 0 {
+			return true
+		}
+	}
+	return false
 }
 
 // clean takes the events out of the history, fits the baseline to what is
