@@ -57,10 +57,10 @@ func TestCompare(t *testing.T) {
 		t.Errorf("contributions %v / %v", cs[0].Contributions, cs[1].Contributions)
 	}
 	// The outage (by hand): -20% of May's baseline, and a full payback of
-	// one period in June, where the percent is taken of June's baseline:
-	// -0.2 b_May + 0.2 b_June.
+	// one period in June that gives back the same units: -0.2 b_May +
+	// 0.2 b_May = 0.
 	out := cs[1].Contributions[1]
-	same(t, "outage total", out.Total, -0.2*p.Baseline[4]+0.2*p.Baseline[5], 1e-9)
+	same(t, "outage total", out.Total, 0, 1e-6)
 	p.File.Capacity = nil
 	for _, c := range Compare(sim, 0.95) {
 		if !math.IsNaN(c.PAnyBreach) || !math.IsNaN(c.Prebuild) || c.PrebuildAt != -1 {

@@ -127,7 +127,7 @@ func Parse(r io.Reader, path string) (*File, error) {
 			Select:     "backtest",
 			MSEDivisor: "n-1",
 		},
-		Bands: Bands{Widen: "horizon"},
+		Bands: Bands{Widen: "horizon", Floor: new(float64)},
 	}
 	d.file(root, f)
 	d.validate(f)
@@ -636,10 +636,7 @@ func (d *decoder) file(root *yaml.Node, f *File) {
 		b.num("z", &f.Bands.Z)
 		b.num("coverage", &f.Bands.Coverage)
 		b.enum("widen", "widen", widenValues, &f.Bands.Widen)
-		var floor float64
-		if b.num("floor", &floor) {
-			f.Bands.Floor = &floor
-		}
+		d.floor(b, &f.Bands)
 		f.Bands.Pos = d.position(b.node)
 	}
 	m.str("units", &f.Units)
@@ -665,6 +662,27 @@ func (d *decoder) file(root *yaml.Node, f *File) {
 			pr.Plan = resolvePath(f.Dir, pr.Plan)
 		}
 		f.Production = pr
+	}
+}
+
+// floor decodes bands.floor: a number, or the word none for no floor.
+func (d *decoder) floor(m *mapping, b *Bands) {
+	field := m.field("floor")
+	n := m.scalar("floor", "a number or none")
+	if n == nil {
+		return
+	}
+	if n.Tag == "!!str" {
+		if n.Value != "none" {
+			d.fail(d.position(n), field, ErrType, "want a number or none, got %q%s", n.Value, didYouMean(strings.ToLower(n.Value), []string{"none"}))
+			return
+		}
+		b.Floor = nil
+		d.pos[field] = d.position(n)
+		return
+	}
+	if x, ok := d.num(n, field); ok {
+		b.Floor = &x
 	}
 }
 

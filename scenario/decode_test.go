@@ -89,7 +89,10 @@ func TestParseErrors(t *testing.T) {
 		{"coverage one", head + "bands: {coverage: §1}\n", false, ErrValue, "bands.coverage: must be between 0 and 1"},
 		{"z zero", head + "bands: {z: §0}\n", false, ErrValue, "bands.z: must be above 0"},
 		{"widen", head + "bands: {widen: §linear}\n", false, ErrValue, `bands.widen: unknown widen "linear"; want horizon or flat`},
-		{"floor text", head + "bands: {floor: §none}\n", false, ErrType, `bands.floor: want a number, got "none"`},
+		{"floor text", head + "bands: {floor: §zero}\n", false, ErrType, `bands.floor: want a number or none, got "zero"`},
+		{"floor None", head + "bands: {floor: §None}\n", false, ErrType, `bands.floor: want a number or none, got "None"; did you mean none?`},
+		{"floor quoted", head + "bands: {floor: §\"0\"}\n", false, ErrType, `bands.floor: want a number or none, got "0"`},
+		{"floor empty", head + "bands: {floor: §~}\n", false, ErrType, `bands.floor: want a number or none, got nothing`},
 		// events: structure
 		{"events not a list", head + "events: §{id: a}\n", false, ErrType, "events: want a list, got a mapping"},
 		{"event not a mapping", head + "events:\n  - §a\n", false, ErrType, `events[0]: want a mapping of keys, got "a"`},
@@ -197,7 +200,15 @@ func TestParseErrors(t *testing.T) {
 		{"production mode", head + "production: {mode: §frozn}\n", false, ErrValue, `production.mode: unknown mode "frozn"; want follow or frozen; did you mean frozen?`},
 		// aliases are followed, and positions are those of the anchored value
 		{"alias", head + "events:\n  - {id: a, kind: pulse, start: 2027-08, effect: &e {units: 5}, range: {low: 1, high: 9}}\n  - {id: b, kind: pulse, start: 2027-08, effect: *e, probability: §2}\n", false, ErrValue,
-			`event "b": probability: must be in [0, 1], got 2`},
+			`event "b": probability: must be in [0, 1], got 2; did you mean 0.02?`},
+		// a probability written as a percentage gets a hint; one past 100
+		// or below 0 does not
+		{"probability percent", head + "events:\n  - {id: a, kind: step, start: 2027-02, effect: {units: 1}, probability: §60}\n", false, ErrValue,
+			`event "a": probability: must be in [0, 1], got 60; did you mean 0.6?`},
+		{"probability past 100", head + "events:\n  - {id: a, kind: step, start: 2027-02, effect: {units: 1}, probability: §150}\n", false, ErrValue,
+			`event "a": probability: must be in [0, 1], got 150`},
+		{"probability negative", head + "events:\n  - {id: a, kind: step, start: 2027-02, effect: {units: 1}, probability: §-0.5}\n", false, ErrValue,
+			`event "a": probability: must be in [0, 1], got -0.5`},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			src, line, col := marked(tc.src)
@@ -223,7 +234,8 @@ func TestParseErrors(t *testing.T) {
 			if !strings.HasPrefix(msg, prefix) || !strings.Contains(msg, tc.want) {
 				t.Errorf("error\n  %s\nwant prefix %q and fragment %q", msg, prefix, tc.want)
 			}
-			if tc.name == "unknown key no hint" && strings.Contains(msg, "did you mean") {
+			noHint := tc.name == "unknown key no hint" || tc.name == "probability past 100" || tc.name == "probability negative"
+			if noHint && strings.Contains(msg, "did you mean") {
 				t.Errorf("unexpected hint in %q", msg)
 			}
 			if !errors.Is(err, tc.kind) {
@@ -299,7 +311,7 @@ func TestParseBOMAndDefaults(t *testing.T) {
 	b := f.Baseline
 	if f.History.File != filepath.Join("plans", "data", "h.csv") || f.History.Fill != "none" || f.History.Period != forecast.FreqUnknown ||
 		b.Method != forecast.Auto || b.Metric != "mad" || b.Select != "backtest" || b.MSEDivisor != "n-1" || b.Refit || b.Holdout != 0 ||
-		f.Bands.Widen != "horizon" || f.Bands.Floor != nil || f.Capacity != nil || f.Production != nil || f.Units != "" {
+		f.Bands.Widen != "horizon" || f.Bands.Floor == nil || *f.Bands.Floor != 0 || f.Capacity != nil || f.Production != nil || f.Units != "" {
 		t.Errorf("defaults: %+v", f)
 	}
 	// Z = 2 by default; coverage 2Φ(2) − 1 = 0.9544997361 (standard normal
@@ -326,5 +338,36 @@ func TestParseBOMAndDefaults(t *testing.T) {
 		t.Errorf("ramp %+v", r)
 	}
 }
+
+func TestParseFloor(t *testing.T) {
+	for _, tc := range []struct {
+		bands string
+		want  *float64 // nil: no floor
+	}{
+		{"", new(float64)},                // default 0 (the file gives no bands)
+		{"bands: {z: 2}\n", new(float64)}, // default 0 (bands without floor)
+		{"bands: {floor: none}\n", nil},   // no floor
+		{"bands: {floor: 'none'}\n", nil}, // quoted, still the word
+		{"bands: {floor: -250.5}\n", ptr(-250.5)},
+		{"bands: {floor: 1000}\n", ptr(1000)},
+	} {
+		f, err := Parse(strings.NewReader(head+tc.bands), "p.yaml")
+		if err != nil {
+			t.Fatalf("%q: %v", tc.bands, err)
+		}
+		got := f.Bands.Floor
+		if (got == nil) != (tc.want == nil) || got != nil && *got != *tc.want {
+			show := func(x *float64) string {
+				if x == nil {
+					return "none"
+				}
+				return fmt.Sprint(*x)
+			}
+			t.Errorf("%q: floor %s, want %s", tc.bands, show(got), show(tc.want))
+		}
+	}
+}
+
+func ptr(v float64) *float64 { return &v }
 
 func near(a, b, tol float64) bool { return a-b <= tol && b-a <= tol }

@@ -33,7 +33,8 @@
 //	  z: 2                     #   band half-width in standard deviations, above 0; default 2
 //	  coverage: 0.95           #   or the share of outcomes inside, in (0, 1); not both
 //	  widen: horizon           #   horizon (bands widen with the lead time) or flat; default horizon
-//	  floor: 0                 #   cut the lower band at this value; default: no floor
+//	  floor: 0                 #   the least demand can be: plans and bands are clipped here;
+//	                           #   a number, or none for no floor; default 0
 //	units: litres              # a label for tables and charts; default none
 //	events: [...]              # the events (see below)
 //	scenarios: [...]           # named sets of events (see below)
@@ -76,12 +77,12 @@
 //	    ramp: {periods: 3, shape: linear}  # steps only: shape immediate (default), linear or s-curve;
 //	                              # periods (at least 1) is required for linear and s-curve, and
 //	                              # alone means linear
-//	    probability: 0.7          # in [0, 1]; default 1
+//	    probability: 0.7          # in [0, 1] (0.6, not 60); default 1
 //	    range: {low: 25000, high: 42000}   # a 90% interval for the effect at full size, in the
 //	                              # effect's unit; both required; must contain the effect
 //	    payback: {share: 0.5, periods: 2}  # pulses only: the share in [0, 1] (required) of the
-//	                              # pulse's total lift taken back, spread evenly over the next
-//	                              # periods (at least 1; default 1)
+//	                              # pulse's total lift in units taken back, spread evenly over
+//	                              # the next periods (at least 1; default 1)
 //	    past: [2024-08, 2025-08]  # earlier occurrences of the same kind and length, written in
 //	                              # the form of start and before it: cleaned out of the history
 //	                              # and used to learn the effect (a step needs an end for this)
@@ -95,8 +96,9 @@
 // days. A ramp may not be longer than its step. These checks need the
 // history and are made by File.Resolve; Parse makes all the others.
 //
-// Event.Profile gives the exact arithmetic of steps, ramps, pulses and
-// paybacks.
+// Event.Profile and Event.Contribution give the exact arithmetic of steps,
+// ramps, pulses and paybacks. A payback takes back a share of the pulse's
+// lift in units, also for a percent pulse.
 //
 // # Scenarios
 //
@@ -122,4 +124,18 @@
 // position: one as a *forecast.ParseError, several as an ErrorList. The
 // errors wrap the sentinels of this package (ErrUnknownKey, ErrType, ...)
 // or forecast.ErrBadPeriod.
+//
+// # Warnings
+//
+// Input that is legal but almost certainly not meant gives warnings, full
+// sentences printed like errors and ending with the fix: an event wholly
+// outside the history and the horizon (or a past occurrence wholly before
+// the history: Build leaves it out), an event with an effect that
+// starts inside the history and is therefore treated as past (with the
+// date one year later when that lies in the horizon), and a percent effect
+// below 1 in absolute value (File.Lint). Plan.Warnings holds them, then
+// those of the floor: demand never goes below bands.floor (0 unless the
+// file says otherwise, or none), and an event that pushes a scenario's
+// plan below it is named with the periods, the baseline and its effect in
+// units.
 package scenario

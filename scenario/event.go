@@ -150,26 +150,71 @@ func (e *Event) Profile(first forecast.Period, n int) []float64 {
 // baseline, whose first period is first:
 //
 //	units effect:    c_i = Units * profile_i
-//	percent effect:  c_i = Percent/100 * baseline_i * profile_i
+//	percent effect:  c_i = Percent/100 * baseline_i * profile_i   in the step or pulse
 //
-// (so a ramp scales a percent effect too, and a payback of a percent pulse
-// is a percentage of the payback periods' own baseline). c_i is 0 wherever
-// profile_i is 0, even if baseline_i is NaN. An effect to be learnt from the
-// past contributes only once the caller has set its Units or Percent.
+// (so a ramp scales a percent effect too). A payback takes back units, not
+// a percentage of the payback periods' own baseline: with L the pulse's
+// total lift in units (the sum of its c_i over the whole pulse), a payback
+// of share s over Q periods gives, in each of the Q periods after the
+// pulse,
+//
+//	c_i = −s * L / Q.
+//
+// For a units effect this is Units * profile_i again. For a percent effect
+// L needs the baseline of every pulse period; pulse periods that lie
+// before the first period given count at the first period's baseline, and
+// those after the last period at the last one's. c_i is 0 wherever
+// profile_i is 0, even if baseline_i is NaN. An effect to be learnt from
+// the past contributes only once the caller has set its Units or Percent.
 // Contribution ignores Probability.
 func (e *Event) Contribution(first forecast.Period, baseline []float64) []float64 {
-	prof := e.Profile(first, len(baseline))
-	for i, p := range prof {
-		if p == 0 {
-			continue
+	c := e.perUnit(first, baseline)
+	v := e.Effect.Value()
+	for i := range c {
+		if c[i] != 0 {
+			c[i] *= v
 		}
-		if e.Effect.IsPercent {
-			prof[i] = e.Effect.Percent / 100 * baseline[i] * p
-		} else {
-			prof[i] = e.Effect.Units * p
+	}
+	return c
+}
+
+// perUnit returns the event's contribution per unit of effect (1 unit or 1
+// percent) in each period of the baseline: Contribution at Units = 1 or
+// Percent = 1.
+func (e *Event) perUnit(first forecast.Period, baseline []float64) []float64 {
+	prof := e.Profile(first, len(baseline))
+	if !e.Effect.IsPercent {
+		return prof
+	}
+	x := e.extent(first)
+	off := x.start.Sub(first) // index of the event's first period in baseline
+	back := 0.0               // payback per period per percent of effect
+	if x.back > 0 {
+		lift := 0.0
+		for j := 0; j < x.length; j++ {
+			lift += e.at(x, j) * nearest(baseline, off+j) / 100
+		}
+		back = -e.Payback.Share * lift / float64(x.back)
+	}
+	for i, p := range prof {
+		switch {
+		case p == 0:
+		case x.back > 0 && i-off >= x.length:
+			prof[i] = back
+		default:
+			prof[i] = baseline[i] / 100 * p
 		}
 	}
 	return prof
+}
+
+// nearest returns v[i], or the first or last element when i lies before or
+// after v; 0 for an empty v.
+func nearest(v []float64, i int) float64 {
+	if len(v) == 0 {
+		return 0
+	}
+	return v[min(max(i, 0), len(v)-1)]
 }
 
 // z95 is the standard normal 95% quantile, Φ⁻¹(0.95) ≈ 1.6449: a 90%
@@ -181,29 +226,27 @@ var z95 = distuv.UnitNormal.Quantile(0.95)
 // effect at full size:
 //
 //	sd = (High − Low) / (2 * 1.6449)  ≈ (High − Low)/3.29
-//	units effect:    sigma_i = sd * |profile_i|
-//	percent effect:  sigma_i = sd/100 * |baseline_i| * |profile_i|
+//	sigma_i = sd * |u_i|,
 //
-// It returns zeros when the event has no Range. Like Contribution it is 0
-// wherever the profile is 0, and it ignores Probability.
+// where u_i is the contribution per unit of effect (Contribution with an
+// effect of 1 unit or 1 percent): |profile_i| for a units effect,
+// |baseline_i * profile_i| / 100 for a percent one in the step or pulse,
+// and s * |L_1| / Q in a payback period, L_1 being the pulse's lift at an
+// effect of 1 percent. It returns zeros when the event has no Range. Like
+// Contribution it is 0 wherever the profile is 0, and it ignores
+// Probability.
 func (e *Event) Sigma(first forecast.Period, baseline []float64) []float64 {
-	prof := e.Profile(first, len(baseline))
 	if e.Range == nil {
-		clear(prof)
-		return prof
+		return make([]float64, len(baseline))
 	}
+	u := e.perUnit(first, baseline)
 	sd := (e.Range.High - e.Range.Low) / (2 * z95)
-	for i, p := range prof {
-		if p == 0 {
-			continue
-		}
-		if e.Effect.IsPercent {
-			prof[i] = sd / 100 * math.Abs(baseline[i]) * math.Abs(p)
-		} else {
-			prof[i] = sd * math.Abs(p)
+	for i := range u {
+		if u[i] != 0 {
+			u[i] = sd * math.Abs(u[i])
 		}
 	}
-	return prof
+	return u
 }
 
 // Prorated reports whether a date of the event, or of one of its past

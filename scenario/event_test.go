@@ -211,6 +211,12 @@ func TestContribution(t *testing.T) {
 	fair.Effect = Effect{Percent: 20, IsPercent: true}
 	fairUnits := pulse("2027-02", "", 1, &Payback{Share: 0.5, Periods: 2})
 	fairUnits.Effect = Effect{Units: 4000}
+	janFair := pulse("2027-01", "", 1, &Payback{Share: 0.5, Periods: 2})
+	janFair.Effect = Effect{Percent: 20, IsPercent: true}
+	twoFair := pulse("2027-01", "", 2, &Payback{Share: 1, Periods: 1})
+	twoFair.Effect = Effect{Percent: 10, IsPercent: true}
+	twoFairLate := pulse("2027-01", "", 2, &Payback{Share: 1, Periods: 1})
+	twoFairLate.Effect = twoFair.Effect
 	learnt := pulse("2027-02", "", 1, nil)
 	learnt.Effect = Effect{FromPast: true}
 	first := period("2027-01", forecast.Monthly)
@@ -226,16 +232,32 @@ func TestContribution(t *testing.T) {
 		// Percent: 8/100 * baseline * profile = 0, 0.08*200/2 = 8, 0.08*300 = 24,
 		// 0.08*400 = 32; the NaN in January is ignored (profile 0).
 		{"percent with ramp", pct, []float64{nan, 200, 300, 400}, []float64{0, 8, 24, 32}, 1e-12},
-		// Percent pulse with payback: 0.2*1000*1 = 200 in Feb, then
-		// 0.2*800*(−0.25) = −40 and 0.2*900*(−0.25) = −45.
-		{"percent pulse payback", fair, []float64{500, 1000, 800, 900, 700}, []float64{0, 200, -40, -45, 0}, 1e-12},
+		// Percent pulse with payback (hand calculation): 0.2*1000*1 = 200
+		// in Feb; the payback takes back 0.5*200 = 100 units, 100/2 = 50 in
+		// each of March and April, whatever their baseline.
+		{"percent pulse payback", fair, []float64{500, 1000, 800, 900, 700}, []float64{0, 200, -50, -50, 0}, 1e-12},
+		// Baseline 100, 120, 110 from January: +20% in January is 20
+		// units; half of it back over two periods is −5 and −5 (not 10% of
+		// 120 and of 110, −12 and −11).
+		{"percent payback in units", janFair, []float64{100, 120, 110}, []float64{20, -5, -5}, 1e-12},
+		// A pulse of two periods with one payback period (hand
+		// calculation): 0.1*200 + 0.1*400 = 60 lift, all of it back: −60.
+		{"two-period percent pulse", twoFair, []float64{200, 400, 50, 9}, []float64{20, 40, -60, 0}, 1e-12},
+		// The same pulse seen from its second period: the January period
+		// before the view counts at the first baseline given (400), so
+		// the lift is 0.1*400 + 0.1*400 = 80 and the payback −80.
+		{"pulse begun before the view", twoFairLate, []float64{400, 50, 9}, []float64{40, -80, 0}, 1e-12},
 		// Units pulse with payback: 4000, then 4000*(−0.25) = −1000 twice.
 		{"units pulse payback", fairUnits, []float64{1, 1, 1, 1, 1}, []float64{0, 4000, -1000, -1000, 0}, 1e-12},
 		// An effect still to be learnt adds nothing.
 		{"from past unset", learnt, []float64{1, 1, 1}, []float64{0, 0, 0}, 0},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			equalSlices(t, "Contribution", tc.ev.Contribution(first, tc.baseline), tc.want, tc.tol)
+			at := first
+			if tc.ev == twoFairLate {
+				at = first.Add(1)
+			}
+			equalSlices(t, "Contribution", tc.ev.Contribution(at, tc.baseline), tc.want, tc.tol)
 		})
 	}
 }
@@ -263,9 +285,10 @@ func TestSigma(t *testing.T) {
 		// sd = 17000/3.2897072539 = 5167.633071; times |profile| 0, 1/2, 1.
 		{"units", units, []float64{9, 9, 9}, []float64{0, 2583.8165356, 5167.6330713}, 1e-9},
 		// sd = 6/3.2897072539 = 1.8238705 percent points; times
-		// baseline/100 = 10 in Feb: 18.238705; payback |−0.5| * 8 = 4 →
-		// 1.8238705*0.08*... = 1.8238705/100*800*0.5 = 7.295482.
-		{"percent", pct, []float64{1000, 1000, 800}, []float64{0, 18.238704957, 7.2954819829}, 1e-9},
+		// baseline/100 = 10 in Feb: 18.238705. The payback per percent of
+		// effect is 0.5 * (1000/100) / 1 = 5 units, whatever March's
+		// baseline: 1.8238705 * 5 = 9.1193525.
+		{"percent", pct, []float64{1000, 1000, 800}, []float64{0, 18.238704957, 9.1193524786}, 1e-9},
 		{"no range", none, []float64{1, 1, 1}, []float64{0, 0, 0}, 0},
 	} {
 		t.Run(tc.name, func(t *testing.T) {

@@ -43,7 +43,7 @@ events:
 	// new-account  profile [0.000 0.333 0.667 1.000 1.000 1.000]
 	//              change  [0 1000 2000 3000 3000 3000]
 	// spring-fair  profile [0.000 0.000 1.000 -0.250 -0.250 0.000]
-	//              change  [0 0 120 -25 -20 0]
+	//              change  [0 0 120 -30 -30 0]
 }
 
 func ExampleParse_error() {

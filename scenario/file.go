@@ -123,7 +123,10 @@ type Bands struct {
 	// Widen is "horizon" (the default: bands widen with the lead time) or
 	// "flat" (one width for every period).
 	Widen string
-	// Floor, when not nil, cuts the lower band at this value.
+	// Floor is the least demand can be: Build clips the adjusted and
+	// risk-weighted plans and both bands at it. Parse sets 0 when the
+	// file gives none; nil (the file's "floor: none") means no floor, for
+	// a quantity that can be negative such as sales net of returns.
 	Floor *float64
 	// Pos is where the bands key stands (zero when not given).
 	Pos Pos
@@ -346,8 +349,10 @@ type Range struct {
 
 // Payback is the part of a pulse's lift taken back after it.
 type Payback struct {
-	// Share is the fraction of the pulse's total lift taken back, in
-	// [0, 1].
+	// Share is the fraction of the pulse's total lift in units taken
+	// back, in [0, 1] (see Event.Contribution): for a percent pulse the
+	// payback is a number of units, not a percentage of the payback
+	// periods' baseline.
 	Share float64
 	// Periods is the number of periods after the pulse over which the
 	// payback is spread evenly, at least 1.

@@ -37,7 +37,8 @@ type Plan struct {
 	BaselineVar []float64
 	VarSource   forecast.VarianceSource
 	// Z is the band half-width in standard errors, Mode how the baseline
-	// variance grows, and Floor the lower-band floor (nil: none).
+	// variance grows, and Floor the least demand can be (nil: no floor):
+	// each scenario's plans and bands are clipped at it.
 	Z     float64
 	Mode  forecast.BandMode
 	Floor *float64
@@ -49,6 +50,12 @@ type Plan struct {
 	// Notes are plain-language remarks for the planner (prorated dates,
 	// floored bands, filled history cells, learnt effects).
 	Notes []string
+	// Warnings are about input that is legal but almost certainly not
+	// meant, each a full sentence ending with the fix: first those of
+	// File.Lint (in file order of the events), then those of the floor
+	// (the baseline below it, then each scenario's clips in scenario
+	// order, events in file order within a scenario).
+	Warnings []string
 	// Digests are the SHA-256 digests of the input files, keyed by role:
 	// "scenario" and "history".
 	Digests map[string]string
@@ -76,13 +83,22 @@ type ScenarioPlan struct {
 	// RiskWeighted = baseline + sum of probability * contribution.
 	Adjusted, RiskWeighted []float64
 	// Var is the total variance per period (baseline plus events) and
-	// Lower, Upper = Adjusted -/+ z sqrt(Var), floored when asked.
+	// Lower, Upper = Adjusted -/+ z sqrt(Var). With a floor, Adjusted,
+	// RiskWeighted, Lower and Upper are then clipped at it, keeping
+	// Lower <= Adjusted <= Upper (see Plan.Floor); Var is not changed.
 	Var, Lower, Upper []float64
 	// Contrib[i] is the contribution per period of Plan.Future[i]; all
-	// zeros when that event is not in the scenario.
+	// zeros when that event is not in the scenario. Contributions are
+	// not clipped.
 	Contrib [][]float64
-	// Floored counts the periods whose lower band was raised to the floor.
+	// Floored counts the periods where only the lower band was raised to
+	// the floor (the plan itself above it, the usual case near zero).
 	Floored int
+	// Clipped counts the periods where the adjusted or the risk-weighted
+	// plan was raised to the floor, and Clips names the events that
+	// pushed it there, in file order.
+	Clipped int
+	Clips   []Clip
 }
 
 // Total returns the sum of v.
@@ -164,20 +180,35 @@ func (f *File) errAt(p Pos, field string, err error) error {
 
 // Build fits the baseline and lays the events on it. The history is read
 // from the file the scenario names. It returns input errors (*ParseError,
-// *TooShortError) for bad files and data.
+// *TooShortError) for bad files and data. Input that is legal but almost
+// certainly not meant gives Plan.Warnings (File.Lint's, then the floor's).
 func Build(f *File) (*Plan, error) {
-	h, ser, err := f.LoadHistory()
+	p, spec, err := newPlan(f)
 	if err != nil {
 		return nil, err
 	}
-	if err := f.Resolve(ser.Next()); err != nil {
+	if err := p.clean(spec); err != nil {
 		return nil, err
+	}
+	p.lay()
+	return p, nil
+}
+
+// newPlan reads the history, makes the checks that need it and starts the
+// plan: settings, filled cells, input digests and File.Lint's warnings.
+func newPlan(f *File) (*Plan, forecast.Spec, error) {
+	h, ser, err := f.LoadHistory()
+	if err != nil {
+		return nil, forecast.Spec{}, err
+	}
+	if err := f.Resolve(ser.Next()); err != nil {
+		return nil, forecast.Spec{}, err
 	}
 	spec, err := f.Spec()
 	if err != nil {
-		return nil, f.errAt(f.Baseline.Pos, "baseline", err)
+		return nil, spec, f.errAt(f.Baseline.Pos, "baseline", err)
 	}
-	p := &Plan{File: f, History: ser, Z: f.Bands.Z, Floor: f.Bands.Floor, Digests: map[string]string{}}
+	p := &Plan{File: f, History: ser, Z: f.Bands.Z, Floor: f.Bands.Floor, Digests: map[string]string{}, Warnings: f.Lint(ser)}
 	for _, fl := range h.Filled {
 		if fl.Series == ser.Name {
 			p.Filled = append(p.Filled, fl)
@@ -186,25 +217,43 @@ func Build(f *File) (*Plan, error) {
 		}
 	}
 	if p.Mode, err = forecast.ParseBandMode(f.Bands.Widen); err != nil {
-		return nil, f.errAt(f.Bands.Pos, "bands.widen", err)
+		return nil, spec, f.errAt(f.Bands.Pos, "bands.widen", err)
 	}
 	for role, path := range map[string]string{"scenario": f.Path, "history": f.History.File} {
 		if d, err := digest(path); err == nil {
 			p.Digests[role] = d
 		}
 	}
+	return p, spec, nil
+}
 
-	first := ser.Next()
-	n := ser.Len()
+// cleaning is what clean takes out of the history: the interventions,
+// with the event and the occurrence's label of each, and the history with
+// the planned effect of future events that start inside it taken out.
+type cleaning struct {
+	ivs   []forecast.Intervention
+	event []*Event
+	when  []string
+	y     []float64
+}
 
-	// Past events and past occurrences become interventions; future
-	// events whose window reaches back into the history have their known
-	// effect taken out of it.
-	var ivs []forecast.Intervention
-	var ivEvent []*Event
-	var ivWhen []string
-	y := append([]float64(nil), ser.Values...)
-	for _, e := range f.Events {
+// interventions sorts the events into past and future (Plan.Future) and
+// turns past events and past occurrences into interventions, leaving out
+// those wholly before the history (they have nothing to clean); future
+// events whose window reaches back into the history have their known
+// effect taken out of it.
+func (p *Plan) interventions() cleaning {
+	ser := p.History
+	first, n := ser.Next(), ser.Len()
+	c := cleaning{y: append([]float64(nil), ser.Values...)}
+	add := func(e *Event, when string, shape []float64) {
+		if !nonZero(shape) {
+			return // wholly before the history: File.Lint warns of it
+		}
+		c.ivs = append(c.ivs, forecast.Intervention{Name: e.ID, Shape: shape})
+		c.event, c.when = append(c.event, e), append(c.when, when)
+	}
+	for _, e := range p.File.Events {
 		if e.IsPast(first) {
 			shape := e.Profile(ser.Start, n)
 			if e.Kind == Step && !e.HasEnd {
@@ -215,72 +264,90 @@ func Build(f *File) (*Plan, error) {
 					shape[t] -= last
 				}
 			}
-			ivs = append(ivs, forecast.Intervention{Name: e.ID, Shape: shape})
-			ivEvent, ivWhen = append(ivEvent, e), append(ivWhen, e.Start.Label)
+			add(e, e.Start.Label, shape)
 		} else {
 			p.Future = append(p.Future, e)
 			if e.Start.From.Before(first.Start()) && !e.Effect.FromPast {
-				c := e.Contribution(ser.Start, ser.Values)
-				for t := range y {
-					y[t] -= c[t]
+				contrib := e.Contribution(ser.Start, ser.Values)
+				for t := range c.y {
+					c.y[t] -= contrib[t]
 				}
 				p.Notes = append(p.Notes, fmt.Sprintf("event %q starts inside the history; its planned effect was taken out of the history before fitting", e.ID))
 			}
 		}
 		for i, occ := range e.Occurrences() {
-			ivs = append(ivs, forecast.Intervention{Name: e.ID, Shape: occ.Profile(ser.Start, n)})
-			ivEvent, ivWhen = append(ivEvent, e), append(ivWhen, e.Past[i].Label)
+			add(e, e.Past[i].Label, occ.Profile(ser.Start, n))
 		}
 	}
+	return c
+}
+
+// nonZero reports whether v holds a value other than 0.
+func nonZero(v []float64) bool {
+	for _, x := range v {
+		if x != 0 {
+			return true
+		}
+	}
+	return false
+}
+
+// clean takes the events out of the history, fits the baseline to what is
+// left and learns the effects to be learnt from the past.
+func (p *Plan) clean(spec forecast.Spec) error {
+	f, ser := p.File, p.History
+	c := p.interventions()
 	season := spec.Config.Season
 	if season == 0 {
 		season = ser.Freq().SeasonLength()
 	}
 	if e := seasonalConfounding(f, ser, season); e != nil {
-		return nil, f.errAt(e.Pos, fmt.Sprintf("event %q: past", e.ID), fmt.Errorf(
+		return f.errAt(e.Pos, fmt.Sprintf("event %q: past", e.ID), fmt.Errorf(
 			"every occurrence falls on the same %s of the season, in every cycle of the history, so the seasonal pattern already carries the event and its size cannot be told apart from it; leave out past (the baseline then plans it as part of the season) or list only some occurrences", ser.Freq()))
 	}
 	work := ser
-	work.Values = y
-	ifit, err := forecast.FitInterventions(work, spec, ivs, 0)
+	work.Values = c.y
+	ifit, err := forecast.FitInterventions(work, spec, c.ivs, 0)
 	if err != nil {
 		var ts *forecast.TooShortError
 		if errors.As(err, &ts) {
 			ts.Series = ser.Name
-			return nil, &forecast.ParseError{File: f.History.File, Err: err}
+			return &forecast.ParseError{File: f.History.File, Err: err}
 		}
-		return nil, f.errAt(Pos{}, "events", err)
+		return f.errAt(Pos{}, "events", err)
 	}
 	p.Fit, p.Cleaned = ifit.Fit, ifit.Cleaned
-	for j, e := range ivEvent {
-		p.Cleaning = append(p.Cleaning, Estimate{ID: e.ID, When: ivWhen[j], Kind: e.Kind, Effect: ifit.Effect[j], StdErr: ifit.StdErr[j]})
+	for j, e := range c.event {
+		p.Cleaning = append(p.Cleaning, Estimate{ID: e.ID, When: c.when[j], Kind: e.Kind, Effect: ifit.Effect[j], StdErr: ifit.StdErr[j]})
 	}
 	learnFromPast(p)
+	return nil
+}
 
-	hz := f.Horizon
+// lay forecasts the baseline and lays each scenario's events on it, with
+// the notes and the floor's warnings.
+func (p *Plan) lay() {
+	first, hz := p.History.Next(), p.File.Horizon
 	p.Periods = make([]forecast.Period, hz)
 	for i := range p.Periods {
 		p.Periods[i] = first.Add(i)
 	}
 	p.Baseline = p.Fit.Model.Forecast(hz)
 	p.BaselineVar, p.VarSource = p.Fit.Variance(hz, p.Mode)
-
 	for _, e := range p.Future {
 		if e.Prorated(first) {
-			p.Notes = append(p.Notes, fmt.Sprintf("event %q has dates finer than the %s periods; its effect is prorated by the share of days in each period", e.ID, ser.Freq()))
+			p.Notes = append(p.Notes, fmt.Sprintf("event %q has dates finer than the %s periods; its effect is prorated by the share of days in each period", e.ID, first.Freq))
 		}
 	}
-	for _, c := range f.Cases() {
+	for _, c := range p.File.Cases() {
 		p.Scenarios = append(p.Scenarios, p.layer(c))
 	}
-	if p.Floor != nil {
-		for _, sp := range p.Scenarios {
-			if sp.Floored > 0 {
-				p.Notes = append(p.Notes, fmt.Sprintf("scenario %q: the lower band was cut at the floor %g in %d period(s)", sp.Name, *p.Floor, sp.Floored))
-			}
+	for _, sp := range p.Scenarios {
+		if sp.Floored > 0 {
+			p.Notes = append(p.Notes, fmt.Sprintf("scenario %q: the lower band was cut at the floor %s in %d period(s)", sp.Name, FormatNumber(*p.Floor, -1), sp.Floored))
 		}
 	}
-	return p, nil
+	p.Warnings = append(p.Warnings, p.floorWarnings()...)
 }
 
 // layer adds the future events of case c to the baseline.
@@ -313,11 +380,8 @@ func (p *Plan) layer(c Case) ScenarioPlan {
 	for t := range sp.Var {
 		w := p.Z * math.Sqrt(sp.Var[t])
 		sp.Lower[t], sp.Upper[t] = sp.Adjusted[t]-w, sp.Adjusted[t]+w
-		if p.Floor != nil && sp.Lower[t] < *p.Floor {
-			sp.Lower[t] = *p.Floor
-			sp.Floored++
-		}
 	}
+	p.clip(&sp)
 	return sp
 }
 

@@ -225,7 +225,7 @@ func (d *decoder) checkEvent(e *Event) {
 			d.fail(d.at(f("ramp"), e.Pos), rp, ErrMissing, "required for a %s ramp", e.Ramp.Shape)
 		}
 	}
-	d.between(f("probability"), e.Probability, 0, 1, false)
+	d.checkProbability(e)
 	if e.Payback != nil {
 		d.between(f("payback.share"), e.Payback.Share, 0, 1, false)
 		d.atLeast(f("payback.periods"), e.Payback.Periods, 1)
@@ -250,6 +250,20 @@ func (d *decoder) checkEvent(e *Event) {
 			seen[w.Label] = true
 		}
 	}
+}
+
+// checkProbability checks an event's probability; a value that reads as a
+// percentage (above 1, at most 100) gets a hint.
+func (d *decoder) checkProbability(e *Event) {
+	field := e.field("probability")
+	if !d.given(field) || (e.Probability >= 0 && e.Probability <= 1) {
+		return
+	}
+	hint := ""
+	if e.Probability > 1 && e.Probability <= 100 {
+		hint = fmt.Sprintf("; did you mean %g?", e.Probability/100)
+	}
+	d.fail(d.at(field, e.Pos), field, ErrValue, "must be in [0, 1], got %g%s", e.Probability, hint)
 }
 
 // checkEffect checks an event's effect and range.
