@@ -24,8 +24,11 @@ func newCmdCheck(f *Factory, runF func(*CheckOptions) error) *cobra.Command {
 		Long: `Read a scenario file and the history it names and report every problem with
 its file, line and column: unknown or misspelt keys, wrong types, bad dates,
 duplicate ids, scenarios naming unknown events, impossible ranges and so on.
-Nothing is fitted and nothing is written. The exit code is 0 when the file is
-sound and 2 when it is not.`,
+It also warns of what is legal but almost certainly not meant (an event
+outside the history and the horizon, an event dated inside the history,
+percent: 0.4), as plan does. Nothing is fitted and nothing is written. The
+exit code is 0 when the file is sound (with --strict: and has no warning) and
+2 when it is not.`,
 		Example: `  forelay check examples/dairy/plan.yaml`,
 		Args:    cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
@@ -52,6 +55,10 @@ func checkRun(opts *CheckOptions) error {
 	if err := f.Resolve(ser.Next()); err != nil {
 		return &inputError{err: err}
 	}
+	lint := f.Lint(ser)
+	if err := warnings(opts.IO, opts.Shared, lint); err != nil {
+		return err
+	}
 	past := 0
 	for _, e := range f.Events {
 		if e.IsPast(ser.Next()) {
@@ -61,7 +68,7 @@ func checkRun(opts *CheckOptions) error {
 	if opts.JSON {
 		b, err := marshalLine(map[string]any{"file": opts.File, "ok": true, "plan": f.Plan, "series": ser.Name,
 			"period": ser.Freq().String(), "n": ser.Len(), "events": len(f.Events), "past_events": past,
-			"scenarios": len(f.Cases()), "horizon": f.Horizon})
+			"scenarios": len(f.Cases()), "horizon": f.Horizon, "warnings": warningList(lint)})
 		if err != nil {
 			return err
 		}

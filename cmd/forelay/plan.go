@@ -81,6 +81,9 @@ func planRun(opts *PlanOptions) error {
 	if err != nil {
 		return err
 	}
+	if err := warnings(opts.IO, opts.Shared, p.Warnings); err != nil {
+		return err
+	}
 	js, err := marshalIndent(planJSON(p))
 	if err != nil {
 		return err

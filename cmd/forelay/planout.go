@@ -145,7 +145,7 @@ func planJSON(p *scenario.Plan) planOutJSON {
 			Start: h.Start.String(), End: h.Period(h.Len() - 1).String(), N: h.Len(), Filled: len(p.Filled)},
 		Inputs:  p.Digests,
 		Cleaned: []cleanedJSON{}, Events: []eventJSON{}, Notes: append([]string{}, p.Notes...),
-		Warnings: append([]string{}, p.Warnings...), Caution: cautionText,
+		Warnings: warningList(p.Warnings), Caution: cautionText,
 	}
 	bs := bandSettings{Z: p.Z, Mode: p.Mode}
 	o.Baseline = fitJSON(p.Fit, len(p.Periods), bs)
