@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"os"
 	"path/filepath"
 	"regexp"
 	"sort"
@@ -74,15 +73,10 @@ func (l ErrorList) Unwrap() []error {
 	return errs
 }
 
-// Load reads and validates the scenario file at path (see Parse). An error
-// opening or reading the file is returned as is.
+// Load reads and validates the scenario file at path (see Parse) under the
+// default limits. An error opening or reading the file is returned as is.
 func Load(path string) (*File, error) {
-	fh, err := os.Open(path)
-	if err != nil {
-		return nil, err
-	}
-	defer fh.Close()
-	return Parse(fh, path)
+	return LoadLimited(path, Limits{})
 }
 
 // Parse reads a scenario file from r and validates everything that does
@@ -98,8 +92,13 @@ func Load(path string) (*File, error) {
 //	plan.yaml:7:5: event "fair-week": ramp.periods: must be at least 1
 //
 // (one problem) or an ErrorList (several). An error reading r is returned
-// as is.
+// as is. The default limits apply (see ParseLimited).
 func Parse(r io.Reader, path string) (*File, error) {
+	return ParseLimited(r, path, Limits{})
+}
+
+// parse is Parse under the limits l, which must be complete.
+func parse(r io.Reader, path string, l Limits) (*File, error) {
 	src, err := io.ReadAll(r)
 	if err != nil {
 		return nil, err
@@ -110,14 +109,16 @@ func Parse(r io.Reader, path string) (*File, error) {
 		lines:    bytes.Split(src, []byte("\n")),
 		seenID:   map[string]int{},
 		seenCase: map[string]int{},
+		limits:   l,
 	}
 	root := d.document(src)
 	if root == nil {
 		return nil, d.err()
 	}
 	f := &File{
-		Path: path,
-		Dir:  filepath.Dir(path),
+		Path:   path,
+		Dir:    filepath.Dir(path),
+		Limits: l,
 		History: HistoryRef{
 			Fill: "none",
 		},
@@ -246,6 +247,7 @@ type decoder struct {
 	seenID   map[string]int // event id -> line of first use
 	seenCase map[string]int // scenario name -> line of first use
 	refs     []caseRefs     // scenario event lists, linked after decoding
+	limits   Limits         // complete (see Limits.orDefaults)
 }
 
 // caseRefs are the event ids one scenario lists.

@@ -61,6 +61,10 @@ type File struct {
 	// Production is the optional production setting; nil when not given.
 	Production *Production
 
+	// Limits are the limits the file was read under; they bound the files
+	// it names too.
+	Limits Limits
+
 	// pos maps each decoded key path (as it appears in error messages) to
 	// the position of its value, for checks made after decoding.
 	pos map[string]Pos

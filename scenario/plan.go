@@ -151,8 +151,12 @@ func (f *File) LoadHistory() (*forecast.History, forecast.Series, error) {
 		return nil, forecast.Series{}, f.errAt(f.History.Pos, "history.file", err)
 	}
 	defer fh.Close()
-	h, err := forecast.ReadHistory(fh, f.History.File, forecast.ReadOptions{Freq: f.History.Period, Fill: fill})
+	in := forecast.BoundedReader(fh, f.History.File, f.Limits.orDefaults().Input)
+	h, err := forecast.ReadHistory(in, f.History.File, forecast.ReadOptions{Freq: f.History.Period, Fill: fill})
 	if err != nil {
+		return nil, forecast.Series{}, err
+	}
+	if err := f.checkSeriesNames(h); err != nil {
 		return nil, forecast.Series{}, err
 	}
 	name := f.History.Series

@@ -56,6 +56,7 @@ func (d *decoder) validate(f *File) {
 		d.fail(d.at("history.file", Pos{}), "history.file", ErrValue, "must not be empty")
 	}
 	d.atLeast("horizon", f.Horizon, 1)
+	d.checkLimits(f)
 	d.checkBaseline(&f.Baseline)
 	d.checkBands(&f.Bands)
 	for _, e := range f.Events {

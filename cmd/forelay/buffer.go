@@ -127,7 +127,7 @@ type bufferResult struct {
 }
 
 func computeBuffer(opts *BufferOptions) (*bufferResult, error) {
-	p, err := buildPlan(opts.File)
+	p, err := buildPlan(opts.File, opts.Shared)
 	if err != nil {
 		return nil, err
 	}

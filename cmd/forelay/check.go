@@ -44,7 +44,7 @@ exit code is 0 when the file is sound (with --strict: and has no warning) and
 }
 
 func checkRun(opts *CheckOptions) error {
-	f, err := scenario.Load(opts.File)
+	f, err := scenario.LoadLimited(opts.File, opts.Shared.limits().scenario())
 	if err != nil {
 		return &inputError{err: err}
 	}

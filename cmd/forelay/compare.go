@@ -82,7 +82,7 @@ type compareResult struct {
 }
 
 func computeCompare(opts *CompareOptions) (*compareResult, error) {
-	p, err := buildPlan(opts.File)
+	p, err := buildPlan(opts.File, opts.Shared)
 	if err != nil {
 		return nil, err
 	}

@@ -1,11 +1,15 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"slices"
 	"strconv"
 	"strings"
+
+	"forelay/forecast"
+	"forelay/scenario"
 )
 
 // A limit bounds one dimension of a run, so that a typing slip (a horizon
@@ -21,7 +25,7 @@ type limit struct {
 // The limits and their defaults, in the order the help lists them.
 var limitTable = []limit{
 	{"paths", 1_000_000, "Monte Carlo sample paths"},
-	{"horizon", 100_000, "periods to forecast or plan"},
+	{"horizon", 10_000, "periods to forecast or plan (at most 100,000)"},
 	{"history-bytes", 1 << 30, "bytes in a history, actuals or production file"},
 	{"line-bytes", 1 << 20, "bytes in one line of such a file"},
 	{"name-length", 200, "characters in a series, event or scenario name"},
@@ -66,6 +70,35 @@ func limitWhat(name string) string {
 	return name
 }
 
+// scenario returns the limits of a scenario file and the files it names.
+func (l limits) scenario() scenario.Limits {
+	return scenario.Limits{
+		Horizon:    int(l.get("horizon")),
+		Events:     int(l.get("events")),
+		NameLength: int(l.get("name-length")),
+		Input:      l.input(),
+	}
+}
+
+// input returns the size limits of an input file.
+func (l limits) input() forecast.SizeLimits {
+	return forecast.SizeLimits{Bytes: l.get("history-bytes"), LineBytes: l.get("line-bytes")}
+}
+
+// limitHint names the flag that raises the size limit an input file broke,
+// or returns "" for any other error.
+func limitHint(err error) string {
+	var se *forecast.SizeError
+	if !errors.As(err, &se) {
+		return ""
+	}
+	name := "history-bytes"
+	if se.Limit == "line-bytes" {
+		name = "line-bytes"
+	}
+	return fmt.Sprintf(" If it is, raise the limit with --limit %s=N.", name)
+}
+
 // limitsValue is the pflag.Value of --limit: repeated NAME=N pairs.
 type limitsValue struct{ l limits }
 
@@ -94,6 +127,9 @@ func (v *limitsValue) Set(s string) error {
 		n, err := strconv.ParseInt(num, 10, 64)
 		if err != nil || n < 1 {
 			return fmt.Errorf("%q: the limit must be a whole number of at least 1", pair)
+		}
+		if name == "horizon" && n > scenario.MaxHorizon {
+			return fmt.Errorf("%q: a horizon can be at most %d periods", pair, scenario.MaxHorizon)
 		}
 		v.l[name] = n
 	}

@@ -60,8 +60,8 @@ the whole run succeeds.`,
 
 // buildPlan loads a scenario file and builds its plan; every failure is an
 // input error (exit code 2).
-func buildPlan(path string) (*scenario.Plan, error) {
-	f, err := scenario.Load(path)
+func buildPlan(path string, shared *sharedFlags) (*scenario.Plan, error) {
+	f, err := scenario.LoadLimited(path, shared.limits().scenario())
 	if err != nil {
 		return nil, &inputError{err: err}
 	}
@@ -73,7 +73,7 @@ func buildPlan(path string) (*scenario.Plan, error) {
 }
 
 func planRun(opts *PlanOptions) error {
-	p, err := buildPlan(opts.File)
+	p, err := buildPlan(opts.File, opts.Shared)
 	if err != nil {
 		return err
 	}

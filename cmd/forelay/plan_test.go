@@ -172,7 +172,7 @@ func checkCSVClose(t *testing.T, got, want []byte, tol float64) {
 // is clipped in 12 periods, one warning), or [] when there are none, and
 // that the text summary leaves them to the caller.
 func TestPlanJSONWarnings(t *testing.T) {
-	p, err := buildPlan("../../testdata/scenario/overlarge-loss.yaml")
+	p, err := buildPlan("../../testdata/scenario/overlarge-loss.yaml", nil)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -119,7 +119,7 @@ func run(args []string, io *IOStreams, now func() time.Time) int {
 		if err == nil {
 			return exitOK
 		}
-		fmt.Fprintln(io.ErrOut, "forelay: "+err.Error())
+		fmt.Fprintln(io.ErrOut, "forelay: "+err.Error()+limitHint(err))
 		var fe *flagError
 		if errors.As(err, &fe) {
 			fmt.Fprintln(io.ErrOut, "Run 'forelay --help' (or the command with --help) for usage.")

@@ -103,7 +103,7 @@ type stressResult struct {
 // computeStress loads the plan and runs the simulation and the capacity
 // and production checks.
 func computeStress(opts *StressOptions) (*stressResult, error) {
-	p, err := buildPlan(opts.File)
+	p, err := buildPlan(opts.File, opts.Shared)
 	if err != nil {
 		return nil, err
 	}

@@ -220,7 +220,7 @@ type trackReport struct {
 // plan.json, and says which.
 func loadTrackPlan(opts *TrackOptions) (scenario.TrackPlan, string, error) {
 	if opts.PlanDir == "" {
-		p, err := buildPlan(opts.File)
+		p, err := buildPlan(opts.File, opts.Shared)
 		if err != nil {
 			return scenario.TrackPlan{}, "", err
 		}

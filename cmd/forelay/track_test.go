@@ -353,7 +353,7 @@ func TestReadSavedPlanRoundTrip(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	p, err := buildPlan(filepath.Join(dir, "plan.yaml"))
+	p, err := buildPlan(filepath.Join(dir, "plan.yaml"), nil)
 	if err != nil {
 		t.Fatal(err)
 	}
