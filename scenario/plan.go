@@ -216,8 +216,8 @@ func newPlan(f *File) (*Plan, forecast.Spec, error) {
 	for _, fl := range h.Filled {
 		if fl.Series == ser.Name {
 			p.Filled = append(p.Filled, fl)
-			p.Notes = append(p.Notes, fmt.Sprintf("%s: no value for %s; filled with %.6g (history.fill %s)",
-				f.History.File, fl.Period, fl.Value, f.History.Fill))
+			p.Notes = append(p.Notes, fmt.Sprintf("%s: no value for %s; filled with %s (history.fill %s)",
+				f.History.File, fl.Period, FormatNumber(fl.Value, Decimals([]float64{fl.Value})), f.History.Fill))
 		}
 	}
 	if p.Mode, err = forecast.ParseBandMode(f.Bands.Widen); err != nil {
@@ -419,8 +419,9 @@ func learnFromPast(p *Plan) {
 		}
 		e.Effect = Effect{Units: mean, FromPast: true}
 		e.Range = &Range{Low: mean - 1.645*s, High: mean + 1.645*s}
-		p.Notes = append(p.Notes, fmt.Sprintf("event %q: effect learnt from %d past occurrence(s): %.0f per period, 90%% range %.0f to %.0f",
-			e.ID, len(est), mean, e.Range.Low, e.Range.High))
+		d := Decimals([]float64{mean, e.Range.Low, e.Range.High})
+		p.Notes = append(p.Notes, fmt.Sprintf("event %q: effect learnt from %d past occurrence(s): %s per period, 90%% range %s to %s",
+			e.ID, len(est), FormatNumber(mean, d), FormatNumber(e.Range.Low, d), FormatNumber(e.Range.High, d)))
 	}
 }
 

@@ -11,11 +11,11 @@ import (
 	"os"
 	"path/filepath"
 	"strconv"
-	"strings"
 
 	"gonum.org/v1/plot"
 
 	"forelay/plots"
+	"forelay/scenario"
 )
 
 // outputSet collects a run's output files in memory and writes them all at
@@ -178,34 +178,8 @@ func marshalLine(v any) ([]byte, error) {
 }
 
 // fmtNum formats a value for tables: thousands separators, the given
-// decimals, "-" for NaN.
-func fmtNum(v float64, decimals int) string {
-	if math.IsNaN(v) {
-		return "-"
-	}
-	if math.IsInf(v, 0) {
-		if v > 0 {
-			return "inf"
-		}
-		return "-inf"
-	}
-	s := strconv.FormatFloat(math.Abs(v), 'f', decimals, 64)
-	intPart, frac := s, ""
-	if i := strings.IndexByte(s, '.'); i >= 0 {
-		intPart, frac = s[:i], s[i:]
-	}
-	var b strings.Builder
-	if v < 0 && strings.Trim(s, "0.") != "" {
-		b.WriteByte('-')
-	}
-	for i, c := range intPart {
-		if i > 0 && (len(intPart)-i)%3 == 0 {
-			b.WriteByte(',')
-		}
-		b.WriteRune(c)
-	}
-	return b.String() + frac
-}
+// decimals, "-" for NaN (see scenario.FormatNumber).
+func fmtNum(v float64, decimals int) string { return scenario.FormatNumber(v, decimals) }
 
 // fmtParam formats a smoothing parameter, "-" when it does not apply.
 func fmtParam(v float64) string {

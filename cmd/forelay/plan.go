@@ -240,18 +240,6 @@ func pct(v, base float64) string {
 	return signed(100*v/base, 1) + "%"
 }
 
-// decimalsFor picks the decimals for a table of values like v: none for
-// thousands and up, one for hundreds, two below.
-func decimalsFor(v []float64) int {
-	m := 0.0
-	for _, x := range v {
-		m = math.Max(m, math.Abs(x))
-	}
-	switch {
-	case m >= 1000:
-		return 0
-	case m >= 100:
-		return 1
-	}
-	return 2
-}
+// decimalsFor picks the decimals for a table of values like v (see
+// scenario.Decimals).
+func decimalsFor(v []float64) int { return scenario.Decimals(v) }
