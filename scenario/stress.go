@@ -93,22 +93,20 @@ func CapacityRisk(ps *PathSet, capacity []float64, threshold float64) Risk {
 			continue
 		}
 		limited = true
-		col := ps.Sorted[t]
-		n := len(col)
-		// The first path above c in sorted order.
-		k, _ := slices.BinarySearch(col, c)
-		for k < n && col[k] <= c {
-			k++
+		// In path order, so that the sums do not depend on sorting.
+		row := ps.Demand[t]
+		n, above, ex := len(row), 0, 0.0
+		for _, d := range row {
+			if d > c {
+				above++
+				ex += d - c
+			}
 		}
-		ex := 0.0
-		for _, d := range col[k:] {
-			ex += d - c
-		}
-		pr.PBreach = float64(n-k) / float64(n)
+		pr.PBreach = float64(above) / float64(n)
 		pr.ExpectedShortfall = ex / float64(n)
 		pr.ShortfallIfBreach = math.NaN()
-		if n > k {
-			pr.ShortfallIfBreach = ex / float64(n-k)
+		if above > 0 {
+			pr.ShortfallIfBreach = ex / float64(above)
 		}
 		pr.UtilP50, pr.UtilP90 = pr.P50/c, pr.P90/c
 		if r.FirstBreach < 0 && pr.PBreach > threshold {
@@ -284,9 +282,9 @@ func ProjectStock(prod, demand, capacity []float64, opening float64, ps *PathSet
 			}
 		}
 		copy(col, cum)
-		slices.Sort(col)
-		sp.StockP50[t] = made - Quantile(col, 0.5)
-		sp.StockP90[t] = made - Quantile(col, 0.9)
+		o := orderStats{x: col}
+		sp.StockP50[t] = made - o.quantile(0.5)
+		sp.StockP90[t] = made - o.quantile(0.9)
 		sp.PShort[t] = float64(short) / float64(n)
 	}
 	return sp

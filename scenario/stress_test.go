@@ -13,8 +13,7 @@ import (
 
 // handPaths makes a PathSet from demand[t][i].
 func handPaths(name string, demand [][]float64) *PathSet {
-	n := len(demand[0])
-	ps := &PathSet{Name: name, Demand: demand, Sorted: matrix(len(demand), n), Spread: make([]Spread, len(demand))}
+	ps := &PathSet{Name: name, Demand: demand, Spread: make([]Spread, len(demand))}
 	ps.summarise()
 	return ps
 }
