@@ -199,10 +199,12 @@ type StockProjection struct {
 	// Production, Demand and Capacity are per period; Capacity is NaN
 	// where there is no limit.
 	Production, Demand, Capacity []float64
-	// Idle is the capacity left unused, Capacity − Production (NaN
-	// without capacity; negative when the frozen plan asks for more than
-	// the capacity).
-	Idle []float64
+	// Idle is the capacity left unused, max(0, Capacity − Production),
+	// and Overload what the frozen plan asks beyond capacity,
+	// max(0, Production − Capacity); both NaN without capacity. A period
+	// over capacity has zero idle capacity: its overload never offsets
+	// the idle capacity of other periods (see OverloadWarnings).
+	Idle, Overload []float64
 	// Stock is the stock at the end of each period when demand follows
 	// Demand:
 	//
@@ -230,15 +232,17 @@ type StockProjection struct {
 // demand follows demand (a scenario's adjusted plan), from the opening
 // stock. capacity may be nil (no limit). With ps (the scenario's simulated
 // paths; may be nil) it also gives the stock at the P50 and P90 of the
-// cumulative demand and the share of paths short. It panics if the slices
-// differ in length from prod.
+// cumulative demand and the share of paths short. The stock counts the
+// production as planned, also where the plan asks for more than the
+// capacity (Overload; OverloadWarnings says so to the planner). It panics
+// if the slices differ in length from prod.
 func ProjectStock(prod, demand, capacity []float64, opening float64, ps *PathSet) StockProjection {
 	H := len(prod)
 	if len(demand) != H || (capacity != nil && len(capacity) != H) || (ps != nil && len(ps.Demand) != H) {
 		panic("scenario: ProjectStock with slices of different lengths")
 	}
 	sp := StockProjection{Opening: opening, Production: slices.Clone(prod), Demand: slices.Clone(demand),
-		Capacity: make([]float64, H), Idle: make([]float64, H), Stock: make([]float64, H),
+		Capacity: make([]float64, H), Idle: make([]float64, H), Overload: make([]float64, H), Stock: make([]float64, H),
 		StockP50: make([]float64, H), StockP90: make([]float64, H), PShort: make([]float64, H), FirstShortfall: -1}
 	stock := opening
 	for t := range prod {
@@ -246,7 +250,7 @@ func ProjectStock(prod, demand, capacity []float64, opening float64, ps *PathSet
 		if capacity != nil {
 			sp.Capacity[t] = capacity[t]
 		}
-		sp.Idle[t] = sp.Capacity[t] - prod[t]
+		sp.Idle[t], sp.Overload[t] = splitCapacity(sp.Capacity[t], prod[t])
 		stock += prod[t] - demand[t]
 		sp.Stock[t] = stock
 		if stock < 0 && sp.FirstShortfall < 0 {
