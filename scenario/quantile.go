@@ -2,6 +2,7 @@ package scenario
 
 import (
 	"math"
+	"math/bits"
 	"slices"
 )
 
@@ -50,6 +51,17 @@ func Quantiles(x []float64, ps ...float64) []float64 {
 	return out
 }
 
+// QuantileOf returns the p-quantile of x (Quantile, definition 7) without
+// sorting x: it rearranges x in place, moving the two order statistics it
+// needs into position by selection (see orderStats), in O(len(x))
+// operations on average. The result equals Quantile on a sorted copy
+// (the same order statistics and the same arithmetic). It returns NaN for an empty x or a NaN p, and panics if
+// p is outside [0, 1].
+func QuantileOf(x []float64, p float64) float64 {
+	o := orderStats{x: x}
+	return o.quantile(p)
+}
+
 // Levels are the quantile levels reported for every simulated period.
 var Levels = [5]float64{0.05, 0.10, 0.50, 0.90, 0.95}
 
@@ -63,17 +75,151 @@ type Spread struct {
 	P5, P10, P50, P90, P95 float64
 }
 
-// spreadOf sorts col in place and returns its Spread. The mean is summed
-// before sorting, in path order, so it does not depend on the sort.
+// spreadOf returns the Spread of the values in col, rearranging col. The
+// mean is summed first, in the given order, so it does not depend on the
+// selection.
 func spreadOf(col []float64) Spread {
 	s := Spread{Mean: mean(col)}
-	slices.Sort(col)
-	s.P5 = Quantile(col, Levels[0])
-	s.P10 = Quantile(col, Levels[1])
-	s.P50 = Quantile(col, Levels[2])
-	s.P90 = Quantile(col, Levels[3])
-	s.P95 = Quantile(col, Levels[4])
+	o := orderStats{x: col}
+	s.P5 = o.quantile(Levels[0])
+	s.P10 = o.quantile(Levels[1])
+	s.P50 = o.quantile(Levels[2])
+	s.P90 = o.quantile(Levels[3])
+	s.P95 = o.quantile(Levels[4])
 	return s
+}
+
+// orderStats finds order statistics of x one after another, in increasing
+// position, rearranging x as it goes: x[:from] holds the from smallest
+// values, and every position asked for so far holds its order statistic.
+type orderStats struct {
+	x    []float64
+	from int
+}
+
+// at returns the q-th smallest value of x (0-based). q must not be below
+// a position asked for before, except positions already asked for.
+func (o *orderStats) at(q int) float64 {
+	if q >= o.from {
+		selectK(o.x[o.from:], q-o.from)
+		o.from = q + 1
+	}
+	return o.x[q]
+}
+
+// quantile returns the p-quantile of x by definition 7 (see Quantile);
+// successive calls must come with increasing p. It panics if p is outside
+// [0, 1].
+func (o *orderStats) quantile(p float64) float64 {
+	if p < 0 || p > 1 {
+		panic("scenario: Quantile with p outside [0, 1]")
+	}
+	n := len(o.x)
+	if n == 0 || math.IsNaN(p) {
+		return math.NaN()
+	}
+	h := float64(n-1) * p // 0-based position
+	lo := int(math.Floor(h))
+	if lo >= n-1 {
+		return o.at(n - 1)
+	}
+	frac := h - float64(lo)
+	xl := o.at(lo)
+	if frac == 0 {
+		return xl
+	}
+	return xl + frac*(o.at(lo+1)-xl)
+}
+
+// selectK rearranges x so that x[k] is its k-th smallest value (0-based),
+// with x[:k] <= x[k] <= x[k+1:]: Hoare's selection (C. A. R. Hoare, 1961,
+// "Algorithm 65: Find", Communications of the ACM 4(7)), with the median
+// of three as pivot, in O(len(x)) operations on average. A range that
+// shrinks too slowly is sorted instead, which bounds the worst case at
+// O(n log n). k = 0 and k = len(x) − 1 are a single scan. It panics if k is
+// out of range.
+func selectK(x []float64, k int) {
+	lo, hi := 0, len(x)-1
+	if k < 0 || k > hi {
+		panic("scenario: selectK with k out of range")
+	}
+	for rounds := 0; hi > lo; rounds++ {
+		switch {
+		case k == lo:
+			moveMin(x[lo : hi+1])
+			return
+		case k == hi:
+			moveMax(x[lo : hi+1])
+			return
+		case hi-lo < 16 || rounds > 2*bits.Len(uint(len(x)))+8:
+			slices.Sort(x[lo : hi+1])
+			return
+		}
+		i, j := hoarePartition(x, lo, hi)
+		switch {
+		case k <= j:
+			hi = j
+		case k >= i:
+			lo = i
+		default:
+			return // x[j+1:i] all equal the pivot
+		}
+	}
+}
+
+// moveMin swaps the smallest value of x (the first of equals) into x[0].
+func moveMin(x []float64) {
+	best := 0
+	for i := 1; i < len(x); i++ {
+		if x[i] < x[best] {
+			best = i
+		}
+	}
+	x[0], x[best] = x[best], x[0]
+}
+
+// moveMax swaps the largest value of x (the first of equals) into the
+// last place.
+func moveMax(x []float64) {
+	best := 0
+	for i := 1; i < len(x); i++ {
+		if x[i] > x[best] {
+			best = i
+		}
+	}
+	x[len(x)-1], x[best] = x[best], x[len(x)-1]
+}
+
+// hoarePartition splits x[lo:hi+1] around the median of x[lo], its
+// middle and x[hi], and returns j < i with x[lo:j+1] <= pivot,
+// x[i:hi+1] >= pivot and x[j+1:i] equal to the pivot.
+func hoarePartition(x []float64, lo, hi int) (i, j int) {
+	mid := lo + (hi-lo)/2
+	if x[mid] < x[lo] {
+		x[mid], x[lo] = x[lo], x[mid]
+	}
+	if x[hi] < x[lo] {
+		x[hi], x[lo] = x[lo], x[hi]
+	}
+	if x[hi] < x[mid] {
+		x[hi], x[mid] = x[mid], x[hi]
+	}
+	pivot := x[mid]
+	i, j = lo, hi
+	for i <= j {
+		for i <= hi && x[i] < pivot {
+			i++
+		}
+		for j >= lo && x[j] > pivot {
+			j--
+		}
+		if i <= j {
+			x[i], x[j] = x[j], x[i]
+			i++
+			j--
+		}
+	}
+	return i, j
 }
 
 // mean returns the arithmetic mean of x, NaN when x is empty.

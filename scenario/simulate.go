@@ -112,6 +112,13 @@ type SimOptions struct {
 // correlation across horizons. With zero s2 or zero V_h the errors of that
 // horizon are zero.
 //
+// The sums are not formed as written, which would cost O(H²) per path:
+// every method of package forecast has an impulse response of the form
+// psi_j = a_{j mod m} + b_{j mod m} φ_j (forecast.ShockForm), and each path
+// runs forward through the matching recursion, O(m) operations per period
+// (see errorFilter), the shocks drawn in the same order. A model whose
+// response has no known form falls back to the sums.
+//
 // # Events
 //
 // Each future event of the plan is drawn once per path: it occurs with its
@@ -142,7 +149,9 @@ type Simulation struct {
 	// from (Bootstrap) and S2 the shocks' variance.
 	Pool int
 	S2   float64
-	// Psi holds psi_1..psi_{H−1}: Psi[j−1] = psi_j.
+	// Psi holds psi_1..psi_{H−1}: Psi[j−1] = psi_j, the weights the paths
+	// follow (those of the recursion, equal to ImpulseWeights up to
+	// rounding).
 	Psi []float64
 	// Scale holds k_1..k_H: Scale[h−1] = k_h.
 	Scale []float64
@@ -163,30 +172,38 @@ type PathSet struct {
 	Name string
 	// Demand[t][i] is path i's demand in period t.
 	Demand [][]float64
-	// Sorted[t] holds Demand[t] sorted in increasing order.
-	Sorted [][]float64
 	// Spread[t] is the mean and the quantiles of Demand[t].
 	Spread []Spread
 }
 
-// summarise fills Sorted and Spread from Demand; Sorted and Spread must
-// be allocated.
+// summarise fills Spread from Demand; Spread must be allocated.
 func (ps *PathSet) summarise() {
-	for t := range ps.Demand {
-		copy(ps.Sorted[t], ps.Demand[t])
-		ps.Spread[t] = spreadOf(ps.Sorted[t])
+	if len(ps.Demand) == 0 {
+		return
+	}
+	scratch := make([]float64, len(ps.Demand[0]))
+	for t, row := range ps.Demand {
+		copy(scratch, row)
+		ps.Spread[t] = spreadOf(scratch)
 	}
 }
 
 // Quantile returns the p-quantile (Quantile, definition 7) of the demand
 // in period t. It panics if p is outside [0, 1] or t out of range.
-func (ps *PathSet) Quantile(t int, p float64) float64 { return Quantile(ps.Sorted[t], p) }
+func (ps *PathSet) Quantile(t int, p float64) float64 {
+	return QuantileOf(slices.Clone(ps.Demand[t]), p)
+}
 
 // QuantileDemand returns the p-quantile of the demand in every period.
 func (ps *PathSet) QuantileDemand(p float64) []float64 {
-	out := make([]float64, len(ps.Sorted))
-	for t := range out {
-		out[t] = ps.Quantile(t, p)
+	out := make([]float64, len(ps.Demand))
+	if len(out) == 0 {
+		return out
+	}
+	scratch := make([]float64, len(ps.Demand[0]))
+	for t, row := range ps.Demand {
+		copy(scratch, row)
+		out[t] = QuantileOf(scratch, p)
 	}
 	return out
 }
@@ -204,8 +221,15 @@ func (ps *PathSet) QuantileDemand(p float64) []float64 {
 // smoothing, 1 at multiples of the season for the seasonal naive
 // forecast. It returns an empty slice for h <= 1. y is not changed.
 func ImpulseWeights(m forecast.Model, y []float64, h int) []float64 {
+	psi, _ := impulse(m, y, h)
+	return psi
+}
+
+// impulse returns ImpulseWeights and the largest absolute forecast of the
+// two runs, the size that bounds the rounding of the differences.
+func impulse(m forecast.Model, y []float64, h int) (psi []float64, size float64) {
 	if h <= 1 {
-		return []float64{}
+		return []float64{}, 0
 	}
 	yhat := m.Forecast(1)[0]
 	ext := make([]float64, len(y)+1)
@@ -214,11 +238,13 @@ func ImpulseWeights(m forecast.Model, y []float64, h int) []float64 {
 	f0 := m.Extend(ext).Forecast(h - 1)
 	ext[len(y)] = yhat + 1
 	f1 := m.Extend(ext).Forecast(h - 1)
-	psi := make([]float64, h-1)
+	psi = make([]float64, h-1)
+	size = math.Abs(yhat) + 1
 	for j := range psi {
 		psi[j] = f1[j] - f0[j]
+		size = math.Max(size, math.Max(math.Abs(f0[j]), math.Abs(f1[j])))
 	}
-	return psi
+	return psi, size
 }
 
 // ErrorScales returns k_1..k_H for horizon variances v, shock variance s2
@@ -306,6 +332,10 @@ func matrix(rows, n int) [][]float64 {
 // is below MinPaths (and not zero), ErrNoResiduals when there are no
 // in-sample errors to draw from, and an error when the plan's baseline
 // variance is not finite. It panics if p has no periods.
+//
+// The cost grows linearly with the number of paths and with the horizon,
+// and so does the memory: 8 × Paths × (H × (1 + scenarios) + events)
+// bytes for the error, demand and event draws of every path.
 func Simulate(p *Plan, opt SimOptions) (*Simulation, error) {
 	n := opt.Paths
 	if n == 0 {
@@ -319,74 +349,125 @@ func Simulate(p *Plan, opt SimOptions) (*Simulation, error) {
 		panic("scenario: Simulate on a plan without periods")
 	}
 	s := &Simulation{Plan: p, Paths: n, Seed: opt.Seed, Errors: opt.Errors}
-
-	var pool []float64
-	switch opt.Errors {
-	case Normal:
-		s.S2 = p.Fit.Accuracy.MSE
-		if math.IsNaN(s.S2) || math.IsInf(s.S2, 0) || s.S2 < 0 {
-			return nil, fmt.Errorf("%w: the baseline's mean squared error is %v", ErrNoResiduals, s.S2)
-		}
-	default:
-		pool, s.S2 = shockPool(p.Fit.Residuals())
-		if len(pool) == 0 {
-			return nil, fmt.Errorf("%w: the baseline made no one-step prediction over the history", ErrNoResiduals)
-		}
-		s.Pool = len(pool)
+	pool, err := s.shocks()
+	if err != nil {
+		return nil, err
 	}
-	s.Psi = ImpulseWeights(p.Fit.Model, p.Cleaned, H)
-	var err error
+	var resp *shockResponse
+	resp, s.Psi = modelResponse(p.Fit.Model, p.Cleaned, H)
 	if s.Scale, err = ErrorScales(p.BaselineVar, s.S2, s.Psi); err != nil {
 		return nil, err
 	}
 
 	s.Error = matrix(H, n)
-	s.drawErrors(pool)
+	s.drawErrors(pool, resp)
 	s.Amount = matrix(len(p.Future), n)
 	for k, e := range p.Future {
 		drawEvent(e, opt.Seed, s.Amount[k])
 	}
-
 	first := p.Periods[0]
 	shapes := make([][]float64, len(p.Future))
 	for k, e := range p.Future {
 		shapes[k] = unitShape(e, first, p.Baseline)
 	}
-	for _, sp := range p.Scenarios {
-		ps := &PathSet{Name: sp.Name, Demand: matrix(H, n), Sorted: matrix(H, n), Spread: make([]Spread, H)}
-		for t, row := range ps.Demand {
-			b, e := p.Baseline[t], s.Error[t]
-			for i := range row {
-				row[i] = b + e[i]
-			}
-		}
-		for k, e := range p.Future {
-			if !slices.Contains(sp.Events, e) {
-				continue
-			}
-			amt := s.Amount[k]
-			for t, u := range shapes[k] {
-				if u == 0 {
-					continue
-				}
-				row := ps.Demand[t]
-				for i, a := range amt {
-					row[i] += a * u
-				}
-			}
-		}
-		ps.summarise()
-		s.Scenarios = append(s.Scenarios, ps)
+	for i := range p.Scenarios {
+		s.Scenarios = append(s.Scenarios, s.scenarioPaths(&p.Scenarios[i], shapes))
 	}
 	return s, nil
 }
 
-// drawErrors fills s.Error: path by path, H shocks, then the psi-weighted
-// sums, rescaled.
-func (s *Simulation) drawErrors(pool []float64) {
+// shocks sets S2 (and Pool) for the error model and returns the pool of
+// centred in-sample errors to resample (nil for normal shocks).
+func (s *Simulation) shocks() ([]float64, error) {
+	p := s.Plan
+	if s.Errors == Normal {
+		s.S2 = p.Fit.Accuracy.MSE
+		if math.IsNaN(s.S2) || math.IsInf(s.S2, 0) || s.S2 < 0 {
+			return nil, fmt.Errorf("%w: the baseline's mean squared error is %v", ErrNoResiduals, s.S2)
+		}
+		return nil, nil
+	}
+	pool, s2 := shockPool(p.Fit.Residuals())
+	if len(pool) == 0 {
+		return nil, fmt.Errorf("%w: the baseline made no one-step prediction over the history", ErrNoResiduals)
+	}
+	s.S2, s.Pool = s2, len(pool)
+	return pool, nil
+}
+
+// scenarioPaths returns the demand paths of scenario sp: the baseline,
+// the error paths and the draws of the scenario's events times their
+// contributions per unit (shapes, by event of p.Future), summarised.
+func (s *Simulation) scenarioPaths(sp *ScenarioPlan, shapes [][]float64) *PathSet {
+	p := s.Plan
+	H := len(p.Periods)
+	ps := &PathSet{Name: sp.Name, Demand: matrix(H, s.Paths), Spread: make([]Spread, H)}
+	for t, row := range ps.Demand {
+		b, e := p.Baseline[t], s.Error[t]
+		for i := range row {
+			row[i] = b + e[i]
+		}
+	}
+	for k, e := range p.Future {
+		if !slices.Contains(sp.Events, e) {
+			continue
+		}
+		amt := s.Amount[k]
+		for t, u := range shapes[k] {
+			if u == 0 {
+				continue
+			}
+			row := ps.Demand[t]
+			for i, a := range amt {
+				row[i] += a * u
+			}
+		}
+	}
+	ps.summarise()
+	return ps
+}
+
+// drawErrors fills s.Error path by path: each period's shock is drawn and
+// run through the model's error recursion (resp), then rescaled. Without
+// a recursion (a model whose response has no known form) the psi-weighted
+// sums are formed directly, which costs O(H²) per path.
+func (s *Simulation) drawErrors(pool []float64, resp *shockResponse) {
 	H, n := len(s.Error), s.Paths
 	r := rand.New(rand.NewPCG(s.Seed, 0))
 	sd := math.Sqrt(s.S2)
+	draw := func() float64 { return pool[r.IntN(len(pool))] }
+	if s.Errors == Normal {
+		draw = func() float64 { return sd * r.NormFloat64() }
+	}
+	if resp == nil {
+		s.convolveErrors(draw)
+		return
+	}
+	// Paths go by blocks of pathBlock, through a buffer with one row of the
+	// block's paths per period, so that s.Error is written row by row.
+	f := newErrorFilter(resp)
+	buf := make([]float64, H*pathBlock)
+	for i0 := 0; i0 < n; i0 += pathBlock {
+		B := min(pathBlock, n-i0)
+		for b := range B {
+			f.reset()
+			for t := 0; t < H; t++ {
+				buf[t*pathBlock+b] = s.Scale[t] * f.next(draw())
+			}
+		}
+		for t, row := range s.Error {
+			copy(row[i0:i0+B], buf[t*pathBlock:t*pathBlock+B])
+		}
+	}
+}
+
+// pathBlock is the number of paths drawErrors runs before writing them.
+const pathBlock = 32
+
+// convolveErrors fills s.Error with the psi-weighted sums of the shocks
+// that draw gives, H per path in period order.
+func (s *Simulation) convolveErrors(draw func() float64) {
+	H, n := len(s.Error), s.Paths
 	// Only the non-zero weights cost time.
 	var lags []int
 	for j, w := range s.Psi {
@@ -396,14 +477,8 @@ func (s *Simulation) drawErrors(pool []float64) {
 	}
 	eps := make([]float64, H)
 	for i := 0; i < n; i++ {
-		if s.Errors == Normal {
-			for t := range eps {
-				eps[t] = sd * r.NormFloat64()
-			}
-		} else {
-			for t := range eps {
-				eps[t] = pool[r.IntN(len(pool))]
-			}
+		for t := range eps {
+			eps[t] = draw()
 		}
 		for t := 0; t < H; t++ {
 			v := eps[t]

@@ -93,22 +93,20 @@ func CapacityRisk(ps *PathSet, capacity []float64, threshold float64) Risk {
 			continue
 		}
 		limited = true
-		col := ps.Sorted[t]
-		n := len(col)
-		// The first path above c in sorted order.
-		k, _ := slices.BinarySearch(col, c)
-		for k < n && col[k] <= c {
-			k++
+		// In path order, so that the sums do not depend on sorting.
+		row := ps.Demand[t]
+		n, above, ex := len(row), 0, 0.0
+		for _, d := range row {
+			if d > c {
+				above++
+				ex += d - c
+			}
 		}
-		ex := 0.0
-		for _, d := range col[k:] {
-			ex += d - c
-		}
-		pr.PBreach = float64(n-k) / float64(n)
+		pr.PBreach = float64(above) / float64(n)
 		pr.ExpectedShortfall = ex / float64(n)
 		pr.ShortfallIfBreach = math.NaN()
-		if n > k {
-			pr.ShortfallIfBreach = ex / float64(n-k)
+		if above > 0 {
+			pr.ShortfallIfBreach = ex / float64(above)
 		}
 		pr.UtilP50, pr.UtilP90 = pr.P50/c, pr.P90/c
 		if r.FirstBreach < 0 && pr.PBreach > threshold {
@@ -201,10 +199,12 @@ type StockProjection struct {
 	// Production, Demand and Capacity are per period; Capacity is NaN
 	// where there is no limit.
 	Production, Demand, Capacity []float64
-	// Idle is the capacity left unused, Capacity − Production (NaN
-	// without capacity; negative when the frozen plan asks for more than
-	// the capacity).
-	Idle []float64
+	// Idle is the capacity left unused, max(0, Capacity − Production),
+	// and Overload what the frozen plan asks beyond capacity,
+	// max(0, Production − Capacity); both NaN without capacity. A period
+	// over capacity has zero idle capacity: its overload never offsets
+	// the idle capacity of other periods (see OverloadWarnings).
+	Idle, Overload []float64
 	// Stock is the stock at the end of each period when demand follows
 	// Demand:
 	//
@@ -232,15 +232,17 @@ type StockProjection struct {
 // demand follows demand (a scenario's adjusted plan), from the opening
 // stock. capacity may be nil (no limit). With ps (the scenario's simulated
 // paths; may be nil) it also gives the stock at the P50 and P90 of the
-// cumulative demand and the share of paths short. It panics if the slices
-// differ in length from prod.
+// cumulative demand and the share of paths short. The stock counts the
+// production as planned, also where the plan asks for more than the
+// capacity (Overload; OverloadWarnings says so to the planner). It panics
+// if the slices differ in length from prod.
 func ProjectStock(prod, demand, capacity []float64, opening float64, ps *PathSet) StockProjection {
 	H := len(prod)
 	if len(demand) != H || (capacity != nil && len(capacity) != H) || (ps != nil && len(ps.Demand) != H) {
 		panic("scenario: ProjectStock with slices of different lengths")
 	}
 	sp := StockProjection{Opening: opening, Production: slices.Clone(prod), Demand: slices.Clone(demand),
-		Capacity: make([]float64, H), Idle: make([]float64, H), Stock: make([]float64, H),
+		Capacity: make([]float64, H), Idle: make([]float64, H), Overload: make([]float64, H), Stock: make([]float64, H),
 		StockP50: make([]float64, H), StockP90: make([]float64, H), PShort: make([]float64, H), FirstShortfall: -1}
 	stock := opening
 	for t := range prod {
@@ -248,7 +250,7 @@ func ProjectStock(prod, demand, capacity []float64, opening float64, ps *PathSet
 		if capacity != nil {
 			sp.Capacity[t] = capacity[t]
 		}
-		sp.Idle[t] = sp.Capacity[t] - prod[t]
+		sp.Idle[t], sp.Overload[t] = splitCapacity(sp.Capacity[t], prod[t])
 		stock += prod[t] - demand[t]
 		sp.Stock[t] = stock
 		if stock < 0 && sp.FirstShortfall < 0 {
@@ -284,9 +286,9 @@ func ProjectStock(prod, demand, capacity []float64, opening float64, ps *PathSet
 			}
 		}
 		copy(col, cum)
-		slices.Sort(col)
-		sp.StockP50[t] = made - Quantile(col, 0.5)
-		sp.StockP90[t] = made - Quantile(col, 0.9)
+		o := orderStats{x: col}
+		sp.StockP50[t] = made - o.quantile(0.5)
+		sp.StockP90[t] = made - o.quantile(0.9)
 		sp.PShort[t] = float64(short) / float64(n)
 	}
 	return sp

@@ -13,8 +13,7 @@ import (
 
 // handPaths makes a PathSet from demand[t][i].
 func handPaths(name string, demand [][]float64) *PathSet {
-	n := len(demand[0])
-	ps := &PathSet{Name: name, Demand: demand, Sorted: matrix(len(demand), n), Spread: make([]Spread, len(demand))}
+	ps := &PathSet{Name: name, Demand: demand, Spread: make([]Spread, len(demand))}
 	ps.summarise()
 	return ps
 }
@@ -93,7 +92,9 @@ func TestCapacityRisk(t *testing.T) {
 func TestProjectStock(t *testing.T) {
 	// By hand: stock_t = stock_{t-1} + production_t - demand_t from 10:
 	// 10 + 100 - 80 = 30, 30 + 100 - 90 = 40, 40 + 100 - 150 = -10.
-	// Idle = capacity - production = 20, 20, -10.
+	// Idle = max(0, capacity - production) = 20, 20, 0 and overload =
+	// max(0, production - capacity) = 0, 0, 10: period 3 plans 100
+	// against a capacity of 90.
 	// Paths (4): cumulative demand 90 100 110 120 | 190 200 210 220 |
 	// 290 320 290 360 against made = 110, 210, 310. Median cumulative
 	// demand 105, 205, 305 leaves 5 each time; the P90 (h = 2.7) is
@@ -102,7 +103,8 @@ func TestProjectStock(t *testing.T) {
 	ps := handPaths("s", [][]float64{{90, 100, 110, 120}, {100, 100, 100, 100}, {100, 120, 80, 140}})
 	sp := ProjectStock([]float64{100, 100, 100}, []float64{80, 90, 150}, []float64{120, 120, 90}, 10, ps)
 	equalSlices(t, "stock", sp.Stock, []float64{30, 40, -10}, 1e-12)
-	equalSlices(t, "idle", sp.Idle, []float64{20, 20, -10}, 1e-12)
+	equalSlices(t, "idle", sp.Idle, []float64{20, 20, 0}, 1e-12)
+	equalSlices(t, "overload", sp.Overload, []float64{0, 0, 10}, 1e-12)
 	equalSlices(t, "stock at P50", sp.StockP50, []float64{5, 5, 5}, 1e-12)
 	equalSlices(t, "stock at P90", sp.StockP90, []float64{-7, -7, -38}, 1e-12)
 	equalSlices(t, "share short", sp.PShort, []float64{0.25, 0.25, 0.5}, 1e-12)
@@ -111,7 +113,7 @@ func TestProjectStock(t *testing.T) {
 	}
 	nop := ProjectStock([]float64{5, 5}, []float64{1, 2}, nil, 0, nil)
 	equalSlices(t, "stock (no paths)", nop.Stock, []float64{4, 7}, 0)
-	if !math.IsNaN(nop.Idle[0]) || !math.IsNaN(nop.StockP50[0]) || nop.FirstShortfall != -1 {
+	if !math.IsNaN(nop.Idle[0]) || !math.IsNaN(nop.Overload[0]) || !math.IsNaN(nop.StockP50[0]) || nop.FirstShortfall != -1 {
 		t.Errorf("no capacity or paths: %+v", nop)
 	}
 }
@@ -189,5 +191,78 @@ func TestCapacityPerPeriod(t *testing.T) {
 	p.File.Capacity = nil
 	if p.CapacityPerPeriod() != nil {
 		t.Error("no capacity gave a schedule")
+	}
+}
+
+const overloadBody = `plan: overload
+horizon: 4
+units: litres
+baseline: {method: naive}
+capacity:
+  units: 680000
+  changes: [{from: 2026-03, units: 700000}]
+production: {mode: frozen, plan: prev.csv}
+`
+
+// TestOverload: a frozen plan above capacity in some periods is overload
+// in those periods alone, never negative idle capacity netted against the
+// others, and each such period gets a warning.
+func TestOverload(t *testing.T) {
+	// Capacity 680,000, 680,000, 700,000, 700,000 (the change from
+	// 2026-03). Frozen plan 650,000, 700,000, 690,000, 720,000. By hand:
+	// idle = 30,000, 0, 10,000, 0 (total 40,000, not 40,000 - 20,000 -
+	// 20,000 = 0 as a signed difference would give); overload = 0,
+	// 20,000, 0, 20,000.
+	csv := "period,litres\n2026-01,650000\n2026-02,700000\n2026-03,690000\n2026-04,720000\n"
+	p, err := buildWithFiles(t, overloadBody, testHistory(48), map[string]string{"prev.csv": csv})
+	if err != nil {
+		t.Fatal(err)
+	}
+	prod, src, err := p.FrozenProduction()
+	if err != nil {
+		t.Fatal(err)
+	}
+	sp := ProjectStock(prod, p.Scenarios[0].Adjusted, p.CapacityPerPeriod(), 0, nil)
+	equalSlices(t, "idle", sp.Idle, []float64{30000, 0, 10000, 0}, 0)
+	equalSlices(t, "overload", sp.Overload, []float64{0, 20000, 0, 20000}, 0)
+	same(t, "total idle", Total(sp.Idle), 40000, 0)
+
+	got := p.OverloadWarnings(prod, src)
+	want := []string{
+		src + ": 2026-02 plans 700,000 against capacity 680,000 (overload 20,000 litres); lower the frozen plan or raise capacity",
+		src + ": 2026-04 plans 720,000 against capacity 700,000 (overload 20,000 litres); lower the frozen plan or raise capacity",
+	}
+	if len(got) != len(want) {
+		t.Fatalf("warnings %q, want %q", got, want)
+	}
+	for i := range want {
+		if got[i] != "production plan "+want[i] {
+			t.Errorf("warning %d:\n got %s\nwant production plan %s", i, got[i], want[i])
+		}
+	}
+	// Held at the baseline instead (the naive forecast, below capacity
+	// here: the history is about 1,200 a month), nothing is over.
+	if w := p.OverloadWarnings(p.Baseline, "baseline"); w != nil {
+		t.Errorf("baseline production: warnings %q", w)
+	}
+	// Without capacity there is no overload to report.
+	p.File.Capacity = nil
+	if w := p.OverloadWarnings(prod, src); w != nil {
+		t.Errorf("no capacity: warnings %q", w)
+	}
+}
+
+func TestGroupDigits(t *testing.T) {
+	// By hand: commas every three digits, at most two decimals.
+	for _, tc := range []struct {
+		v    float64
+		want string
+	}{
+		{700000, "700,000"}, {1250.5, "1,250.5"}, {999, "999"}, {1000, "1,000"},
+		{1234567.891, "1,234,567.89"}, {-20000, "-20,000"}, {0.001234, "0.00123"}, {0, "0"},
+	} {
+		if got := groupDigits(tc.v); got != tc.want {
+			t.Errorf("groupDigits(%v) = %q, want %q", tc.v, got, tc.want)
+		}
 	}
 }

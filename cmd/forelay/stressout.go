@@ -40,6 +40,7 @@ type frozenPeriodJSON struct {
 	PShort           num    `json:"p_short"`
 	Capacity         num    `json:"capacity"`
 	Idle             num    `json:"idle"`
+	Overload         num    `json:"overload"`
 }
 
 type frozenJSON struct {
@@ -50,6 +51,7 @@ type frozenJSON struct {
 	Highest        peakJSON           `json:"highest_stock"`
 	EndStock       num                `json:"end_stock"`
 	IdleTotal      num                `json:"idle_total"`
+	OverloadTotal  num                `json:"overload_total"`
 	Periods        []frozenPeriodJSON `json:"periods"`
 }
 
@@ -111,11 +113,13 @@ func stressJSON(r *stressResult) stressOutJSON {
 			fj := &frozenJSON{Source: r.Source, OpeningStock: num(fz.Opening), FirstShortfall: periodOrNull(p, fz.FirstShortfall),
 				Lowest:   peakJSON{Period: p.Periods[fz.Low].String(), Value: num(fz.Stock[fz.Low])},
 				Highest:  peakJSON{Period: p.Periods[fz.High].String(), Value: num(fz.Stock[fz.High])},
-				EndStock: num(fz.Stock[len(fz.Stock)-1]), IdleTotal: num(scenario.Total(fz.Idle))}
+				EndStock: num(fz.Stock[len(fz.Stock)-1]), IdleTotal: num(scenario.Total(fz.Idle)),
+				OverloadTotal: num(scenario.Total(fz.Overload))}
 			for t := range fz.Stock {
 				fj.Periods = append(fj.Periods, frozenPeriodJSON{Period: p.Periods[t].String(), Production: num(fz.Production[t]),
 					Demand: num(fz.Demand[t]), Stock: num(fz.Stock[t]), StockAtP50Demand: num(fz.StockP50[t]),
-					StockAtP90Demand: num(fz.StockP90[t]), PShort: num(fz.PShort[t]), Capacity: num(fz.Capacity[t]), Idle: num(fz.Idle[t])})
+					StockAtP90Demand: num(fz.StockP90[t]), PShort: num(fz.PShort[t]), Capacity: num(fz.Capacity[t]), Idle: num(fz.Idle[t]),
+					Overload: num(fz.Overload[t])})
 			}
 			sj.Frozen = fj
 		}
@@ -134,7 +138,7 @@ func stressCSV(r *stressResult) []byte {
 	head := []string{"scenario", "period", "mean", "p5", "p10", "p50", "p90", "p95", "capacity", "p_breach",
 		"expected_shortfall", "shortfall_if_breach", "util_p50", "util_p90"}
 	if r.Frozen != nil {
-		head = append(head, "production", "stock", "stock_at_p50_demand", "stock_at_p90_demand", "p_short", "idle")
+		head = append(head, "production", "stock", "stock_at_p50_demand", "stock_at_p90_demand", "p_short", "idle", "overload")
 	}
 	w.Write(head)
 	for s, rk := range r.Risks {
@@ -145,7 +149,7 @@ func stressCSV(r *stressResult) []byte {
 			if r.Frozen != nil {
 				fz := r.Frozen[s]
 				row = append(row, csvNum(fz.Production[t], 2), csvNum(fz.Stock[t], 2), csvNum(fz.StockP50[t], 2),
-					csvNum(fz.StockP90[t], 2), csvNum(fz.PShort[t], 4), csvNum(fz.Idle[t], 2))
+					csvNum(fz.StockP90[t], 2), csvNum(fz.PShort[t], 4), csvNum(fz.Idle[t], 2), csvNum(fz.Overload[t], 2))
 			}
 			w.Write(row)
 		}
@@ -224,10 +228,11 @@ func writeFrozenText(w io.Writer, p *scenario.Plan, fz scenario.StockProjection,
 		from = source
 	}
 	fmt.Fprintf(w, "\nFrozen production held at %s, opening stock %s%s:\n", from, fmtNum(fz.Opening, 0), units)
-	t := newTable("period", "production", "demand", "stock", "stock @P50", "stock @P90", "P(short)", "idle capacity")
+	t := newTable("period", "production", "demand", "stock", "stock @P50", "stock @P90", "P(short)", "idle capacity", "overload")
 	for i := range fz.Stock {
 		t.add(p.Periods[i].String(), fmtNum(fz.Production[i], 0), fmtNum(fz.Demand[i], 0), fmtNum(fz.Stock[i], 0),
-			fmtNum(fz.StockP50[i], 0), fmtNum(fz.StockP90[i], 0), pctText(fz.PShort[i]), fmtNum(fz.Idle[i], 0))
+			fmtNum(fz.StockP50[i], 0), fmtNum(fz.StockP90[i], 0), pctText(fz.PShort[i]), fmtNum(fz.Idle[i], 0),
+			fmtNum(fz.Overload[i], 0))
 	}
 	t.write(w)
 	fmt.Fprintln(w, "(stock at the end of each period under the adjusted plan; @P50 and @P90: when cumulative demand runs at its P50 or P90)")
@@ -246,4 +251,27 @@ func writeFrozenText(w io.Writer, p *scenario.Plan, fz scenario.StockProjection,
 	} else if idle := scenario.Total(fz.Idle); !math.IsNaN(idle) {
 		fmt.Fprintf(w, "Idle capacity over the plan: %s%s\n", fmtNum(idle, 0), units)
 	}
+	writeOverloadText(w, p, fz, units)
+}
+
+// writeOverloadText says in which periods the frozen plan asks for more
+// than the capacity, if any. The overload is counted period by period,
+// never netted against idle capacity elsewhere.
+func writeOverloadText(w io.Writer, p *scenario.Plan, fz scenario.StockProjection, units string) {
+	var over []string
+	for i, v := range fz.Overload {
+		if v > 0 {
+			over = append(over, fmt.Sprintf("%s (%s)", p.Periods[i], fmtNum(v, 0)))
+		}
+	}
+	if len(over) == 0 {
+		return
+	}
+	periods := "periods"
+	if len(over) == 1 {
+		periods = "period"
+	}
+	fmt.Fprintf(w, "Overload: the frozen plan asks for more than capacity in %d %s (%s%s in all): %s\n",
+		len(over), periods, fmtNum(scenario.Total(fz.Overload), 0), units, strings.Join(over, ", "))
+	fmt.Fprintln(w, "Lower the frozen plan or raise capacity; the stock above counts the plan as made")
 }
