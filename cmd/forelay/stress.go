@@ -2,6 +2,7 @@ package main
 
 import (
 	"io"
+	"slices"
 
 	"github.com/spf13/cobra"
 
@@ -98,6 +99,9 @@ type stressResult struct {
 	Source string                     // where frozen production comes from
 	Chart  int                        // the scenario charted
 	Notes  []string
+	// Warnings are the plan's warnings and, under frozen production, one
+	// per period where the plan asks for more than capacity.
+	Warnings []string
 }
 
 // computeStress loads the plan and runs the simulation and the capacity
@@ -115,7 +119,7 @@ func computeStress(opts *StressOptions) (*stressResult, error) {
 	if err != nil {
 		return nil, err
 	}
-	r := &stressResult{Plan: p, Sim: sim, Opts: opts, Chart: chart, Notes: simNotes(p)}
+	r := &stressResult{Plan: p, Sim: sim, Opts: opts, Chart: chart, Notes: simNotes(p), Warnings: p.Warnings}
 	capacity := p.CapacityPerPeriod()
 	for _, ps := range sim.Scenarios {
 		r.Risks = append(r.Risks, scenario.CapacityRisk(ps, capacity, opts.Breach))
@@ -126,6 +130,7 @@ func computeStress(opts *StressOptions) (*stressResult, error) {
 			return nil, &inputError{err: err}
 		}
 		r.Source = src
+		r.Warnings = append(slices.Clip(r.Warnings), p.OverloadWarnings(prod, src)...)
 		for s, sp := range p.Scenarios {
 			r.Frozen = append(r.Frozen, scenario.ProjectStock(prod, sp.Adjusted, capacity, opts.OpeningStock, sim.Scenarios[s]))
 		}
@@ -138,6 +143,9 @@ func computeStress(opts *StressOptions) (*stressResult, error) {
 func stressRun(opts *StressOptions) error {
 	r, err := computeStress(opts)
 	if err != nil {
+		return err
+	}
+	if err := warnings(opts.IO, opts.Shared, r.Warnings); err != nil {
 		return err
 	}
 	js, err := marshalIndent(stressJSON(r))

@@ -79,6 +79,7 @@ type stressOutJSON struct {
 	Inputs          map[string]string    `json:"inputs"`
 	Scenarios       []stressScenarioJSON `json:"scenarios"`
 	Notes           []string             `json:"notes"`
+	Warnings        []string             `json:"warnings"`
 	Caution         string               `json:"caution"`
 }
 
@@ -97,7 +98,7 @@ func stressJSON(r *stressResult) stressOutJSON {
 	p, sim := r.Plan, r.Sim
 	o := stressOutJSON{Plan: p.File.Plan, Units: p.File.Units, Series: p.History.Name, Paths: sim.Paths, Seed: sim.Seed,
 		Errors: sim.Errors.String(), ErrorPool: sim.Pool, Psi: nums(sim.Psi), Quantiles: quantileDefinition,
-		BreachThreshold: num(r.Opts.Breach), Inputs: p.Digests, Notes: r.Notes, Caution: cautionText}
+		BreachThreshold: num(r.Opts.Breach), Inputs: p.Digests, Notes: r.Notes, Warnings: warningList(r.Warnings), Caution: cautionText}
 	for s, rk := range r.Risks {
 		sj := stressScenarioJSON{Name: rk.Name, Events: eventIDs(p.Scenarios[s].Events),
 			FirstBreach: periodOrNull(p, rk.FirstBreach), TotalExpectedShortfall: num(rk.TotalExpectedShortfall),
