@@ -42,10 +42,16 @@
 //
 // # Errors
 //
+// Every chart draws any finite data: negative values, all zeros, flat
+// series, bands of no width, a single period, and values up to the ends of
+// the float64 range (beyond about ±1e307 they are drawn at the chart's
+// edge). In the series of the period charts NaN marks a missing value and
+// leaves a gap; a band whose lower edge lies above its upper edge (a lower
+// edge raised to a floor above the whole band) is drawn with no width.
+//
 // Bad data comes back as an error from Plot, never a panic: empty labels or
-// series (ErrNoData), NaN or infinite values where a number is needed
+// series (ErrNoData), infinite values, or NaN where a number is needed
 // (ErrNotFinite), slices of the wrong length (ErrLength), positions outside
-// the labels (ErrRange), and bands, windows, quantiles or limits the wrong
-// way round (ErrOrder). NaN is allowed only where a field's documentation
-// says so (a capacity with no limit, an undefined tracking signal).
+// the labels (ErrRange), and windows or control limits the wrong way round
+// (ErrOrder).
 package plots

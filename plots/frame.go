@@ -115,11 +115,23 @@ func (f *frame) Ticks(min, max float64) []plot.Tick {
 	return f.x.Ticks(min, max)
 }
 
-// include widens the value extent to cover vs (NaN and ±Inf are skipped).
+// maxAxis bounds the value axis: values beyond ±maxAxis are drawn at the
+// edge of the data area. It keeps the axis range, with its padding and
+// headroom, well inside the float64 range.
+const maxAxis = math.MaxFloat64 / 16
+
+// onAxis returns v limited to ±maxAxis, so that no drawn coordinate
+// overflows when gonum/plot maps it to the canvas. NaN stays NaN.
+func onAxis(v float64) float64 {
+	return math.Max(-maxAxis, math.Min(v, maxAxis))
+}
+
+// include widens the value extent to cover vs (NaN and ±Inf are skipped),
+// up to ±maxAxis.
 func (f *frame) include(vs ...[]float64) {
 	if lo, hi, ok := extent(vs...); ok {
-		f.lo = math.Min(f.lo, lo)
-		f.hi = math.Max(f.hi, hi)
+		f.lo = math.Min(f.lo, math.Max(lo, -maxAxis))
+		f.hi = math.Max(f.hi, math.Min(hi, maxAxis))
 	}
 }
 

@@ -57,9 +57,9 @@ type PlanChart struct {
 
 // Plot checks c and builds the chart. It returns an error wrapping ErrNoData
 // when Labels is empty or no curve has values, ErrRange for a curve or
-// ForecastStart outside the labels, ErrNotFinite for NaN or ±Inf in a curve
-// or window, ErrLength for a band whose length differs from its curve's,
-// and ErrOrder for a band edge or window the wrong way round.
+// ForecastStart outside the labels, ErrNotFinite for ±Inf in a curve or NaN
+// or ±Inf in a window, ErrLength for a band whose length differs from its
+// curve's, and ErrOrder for a window the wrong way round.
 func (c PlanChart) Plot() (*plot.Plot, error) {
 	if err := c.check(); err != nil {
 		return nil, chartError("plan chart", err)
@@ -118,7 +118,9 @@ func (c PlanChart) Plot() (*plot.Plot, error) {
 		f.key.add(base.Name, baseThumbs...)
 	}
 	for k, s := range scen {
-		f.key.add(s.Name, scenThumbs[k]...)
+		if scenThumbs[k] != nil {
+			f.key.add(s.Name, scenThumbs[k]...)
+		}
 	}
 	return f.done(), nil
 }

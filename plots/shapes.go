@@ -14,52 +14,82 @@ import (
 // plotter for. They leave the axis ranges to the frame, so none of them
 // reports a data range.
 
-// band fills the area between lo and hi over the x positions xs, and draws
-// the two edges with edge when edge.Width > 0.
+// band fills the area between lo and hi over the x positions x0, x0+1, ...
+// and draws the two edges with edge when edge.Width > 0.
+//
+// The band is drawn in runs of periods where both edges are numbers; NaN in
+// either edge leaves a gap. Where lo lies above hi (a lower edge raised to a
+// floor above the whole band) the band has no width: both edges are drawn
+// at hi. A run of one period becomes a narrow block so it stays visible.
 type band struct {
-	xs, lo, hi []float64
-	fill       color.Color
-	edge       draw.LineStyle
+	x0     int
+	lo, hi []float64
+	fill   color.Color
+	edge   draw.LineStyle
 }
 
-// newBand returns the band of a curve-like run of values starting at x0. A
-// single point becomes a narrow block so it stays visible.
+// newBand returns the band between lo and hi from x position x0.
 func newBand(x0 int, lo, hi []float64, fill color.Color, edge draw.LineStyle) *band {
-	b := &band{fill: fill, edge: edge}
-	if len(lo) == 1 {
-		x := float64(x0)
-		b.xs = []float64{x - 0.3, x + 0.3}
-		b.lo = []float64{lo[0], lo[0]}
-		b.hi = []float64{hi[0], hi[0]}
-		return b
+	return &band{x0: x0, lo: lo, hi: hi, fill: fill, edge: edge}
+}
+
+// bandRun is a stretch of a band without gaps, in data units.
+type bandRun struct{ xs, lo, hi []float64 }
+
+// runs splits the band into its stretches without gaps, with each lower
+// edge at most its upper edge and both limited to ±maxAxis.
+func (b *band) runs() []bandRun {
+	var out []bandRun
+	var cur bandRun
+	flush := func() {
+		if len(cur.xs) == 1 { // a lone period: a narrow block
+			x := cur.xs[0]
+			cur = bandRun{xs: []float64{x - 0.3, x + 0.3}, lo: []float64{cur.lo[0], cur.lo[0]}, hi: []float64{cur.hi[0], cur.hi[0]}}
+		}
+		if len(cur.xs) > 0 {
+			out = append(out, cur)
+		}
+		cur = bandRun{}
 	}
-	b.xs = make([]float64, len(lo))
-	for i := range b.xs {
-		b.xs[i] = float64(x0 + i)
+	for j := range b.lo {
+		lo, hi := b.lo[j], b.hi[j]
+		if math.IsNaN(lo) || math.IsNaN(hi) {
+			flush()
+			continue
+		}
+		hi = onAxis(hi)
+		lo = math.Min(onAxis(lo), hi)
+		cur.xs = append(cur.xs, float64(b.x0+j))
+		cur.lo = append(cur.lo, lo)
+		cur.hi = append(cur.hi, hi)
 	}
-	b.lo, b.hi = lo, hi
-	return b
+	flush()
+	return out
 }
 
 // Plot draws the band. It implements plot.Plotter.
 func (b *band) Plot(c draw.Canvas, p *plot.Plot) {
 	trX, trY := p.Transforms(&c)
-	n := len(b.xs)
-	poly := make([]vg.Point, 0, 2*n)
-	top := make([]vg.Point, n)
-	bot := make([]vg.Point, n)
-	for i := range n {
-		top[i] = vg.Point{X: trX(b.xs[i]), Y: trY(b.hi[i])}
-		bot[i] = vg.Point{X: trX(b.xs[i]), Y: trY(b.lo[i])}
-	}
-	poly = append(poly, top...)
-	for i := n - 1; i >= 0; i-- {
-		poly = append(poly, bot[i])
-	}
-	c.FillPolygon(b.fill, c.ClipPolygonXY(poly))
-	if b.edge.Width > 0 {
-		c.StrokeLines(b.edge, c.ClipLinesXY(top)...)
-		c.StrokeLines(b.edge, c.ClipLinesXY(bot)...)
+	for _, r := range b.runs() {
+		n := len(r.xs)
+		poly := make([]vg.Point, 0, 2*n)
+		top := make([]vg.Point, n)
+		bot := make([]vg.Point, n)
+		for i := range n {
+			top[i] = vg.Point{X: trX(r.xs[i]), Y: trY(r.hi[i])}
+			bot[i] = vg.Point{X: trX(r.xs[i]), Y: trY(r.lo[i])}
+		}
+		poly = append(poly, top...)
+		for i := n - 1; i >= 0; i-- {
+			poly = append(poly, bot[i])
+		}
+		if pts := c.ClipPolygonXY(poly); len(pts) > 2 {
+			c.FillPolygon(b.fill, pts)
+		}
+		if b.edge.Width > 0 {
+			c.StrokeLines(b.edge, c.ClipLinesXY(top)...)
+			c.StrokeLines(b.edge, c.ClipLinesXY(bot)...)
+		}
 	}
 }
 
@@ -200,7 +230,7 @@ type hrule struct {
 // Plot draws the rule. It implements plot.Plotter.
 func (r *hrule) Plot(c draw.Canvas, p *plot.Plot) {
 	_, trY := p.Transforms(&c)
-	if y := trY(r.y); c.ContainsY(y) {
+	if y := trY(onAxis(r.y)); c.ContainsY(y) {
 		c.StrokeLine2(r.line, c.Min.X, y, c.Max.X, y)
 	}
 }
@@ -284,9 +314,13 @@ type bars []bar
 func (bs bars) Plot(c draw.Canvas, p *plot.Plot) {
 	trX, trY := p.Transforms(&c)
 	for _, b := range bs {
+		if math.IsNaN(b.y0) || math.IsNaN(b.y1) {
+			continue
+		}
+		y0, y1 := onAxis(b.y0), onAxis(b.y1)
 		r := vg.Rectangle{
-			Min: vg.Point{X: trX(b.x - b.w/2), Y: trY(math.Min(b.y0, b.y1))},
-			Max: vg.Point{X: trX(b.x + b.w/2), Y: trY(math.Max(b.y0, b.y1))},
+			Min: vg.Point{X: trX(b.x - b.w/2), Y: trY(math.Min(y0, y1))},
+			Max: vg.Point{X: trX(b.x + b.w/2), Y: trY(math.Max(y0, y1))},
 		}
 		b.look.paint(&c, r)
 		if b.cut {

@@ -15,9 +15,8 @@ import (
 // buffer and frozen-production views of a plan.
 //
 // Each slice has one value per label (x = i) or is nil to leave that part
-// out; at least one must be given. All values are in the same unit, on one
-// value axis that includes zero. A zero line is drawn when the stock goes
-// negative (a backlog).
+// out; at least one must be given. NaN marks a missing value (a gap in a
+// line, no bar); ±Inf is an error.
 type StockChart struct {
 	// Title is the heading above the chart; empty for none.
 	Title string
@@ -29,24 +28,23 @@ type StockChart struct {
 	// Labels holds the label of each period; it must not be empty.
 	Labels []string
 
-	// Demand is the demand per period; finite.
+	// Demand is the demand per period.
 	Demand []float64
 
 	// Capacity is the most that can be made per period. NaN marks a
 	// period without a limit.
 	Capacity []float64
 
-	// Build is the quantity made per period, drawn as bars; finite.
+	// Build is the quantity made per period, drawn as bars.
 	Build []float64
 
-	// Stock is the stock at the end of each period; finite, and may be
-	// negative.
+	// Stock is the stock at the end of each period; it may be negative.
 	Stock []float64
 }
 
 // Plot checks c and builds the chart. It returns an error wrapping ErrNoData
 // for no labels or no series, ErrLength for a series whose length differs
-// from Labels' and ErrNotFinite for NaN or ±Inf where not allowed.
+// from Labels' and ErrNotFinite for ±Inf.
 func (c StockChart) Plot() (*plot.Plot, error) {
 	if err := c.check(); err != nil {
 		return nil, chartError("stock chart", err)
@@ -112,19 +110,14 @@ func (c StockChart) check() error {
 	for _, s := range []struct {
 		name string
 		vs   []float64
-		nan  bool
-	}{{"demand", c.Demand, false}, {"capacity", c.Capacity, true}, {"build", c.Build, false}, {"stock", c.Stock, false}} {
+	}{{"demand", c.Demand}, {"capacity", c.Capacity}, {"build", c.Build}, {"stock", c.Stock}} {
 		if s.vs == nil {
 			continue
 		}
 		if err := sameLength(s.name, s.vs, n, "label"); err != nil {
 			return err
 		}
-		check := finite
-		if s.nan {
-			check = finiteOrNaN
-		}
-		if err := check(s.name, s.vs); err != nil {
+		if err := finiteOrNaN(s.name, s.vs); err != nil {
 			return err
 		}
 	}
