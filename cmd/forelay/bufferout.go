@@ -1,8 +1,6 @@
 package main
 
 import (
-	"bytes"
-	"encoding/csv"
 	"fmt"
 	"io"
 	"strconv"
@@ -79,17 +77,14 @@ func bufferJSON(r *bufferResult) bufferOutJSON {
 }
 
 // bufferCSV renders buffer.csv: one row per period.
-func bufferCSV(r *bufferResult) []byte {
-	var buf bytes.Buffer
-	w := csv.NewWriter(&buf)
-	w.Write([]string{"period", "demand", "capacity", "build", "stock", "required_start"})
+func bufferCSV(r *bufferResult) ([]byte, error) {
+	rows := [][]string{{"period", "demand", "capacity", "build", "stock", "required_start"}}
 	b := r.Buffer
 	for t, per := range r.Plan.Periods {
-		w.Write([]string{per.String(), csvNum(b.Demand[t], 2), csvNum(b.Capacity[t], 2), csvNum(b.Build[t], 2),
+		rows = append(rows, []string{per.String(), csvNum(b.Demand[t], 2), csvNum(b.Capacity[t], 2), csvNum(b.Build[t], 2),
 			csvNum(b.Stock[t], 2), csvNum(b.Required[t], 2)})
 	}
-	w.Flush()
-	return buf.Bytes()
+	return encodeCSV(rows)
 }
 
 // writeBufferText writes the human report of a buffer run.

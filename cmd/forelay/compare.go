@@ -104,7 +104,11 @@ func compareRun(opts *CompareOptions) error {
 	var set *outputSet
 	if opts.Out != "" {
 		set = newOutputSet(opts.Out)
-		set.add("compare.csv", compareCSV(r))
+		csv, err := compareCSV(r)
+		if err != nil {
+			return err
+		}
+		set.add("compare.csv", csv)
 		set.add("compare.json", js)
 		if !opts.NoChart {
 			if err := set.addChart("compare", planChart(r.Plan)); err != nil {
