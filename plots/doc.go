@@ -13,10 +13,13 @@
 //   - SignalChart: a tracking signal with its plus and minus limits.
 //   - Waterfall: from a starting total through each event's contribution to
 //     the end total.
-//   - StockChart: demand, capacity, build and stock per period.
+//   - StockChart: demand, capacity and build per period, with the stock in
+//     a panel of its own below.
 //
 // Render turns a plot into PNG or SVG bytes of a given size; the caller
-// writes the file. The same input gives the same bytes.
+// writes the file. The same input gives the same bytes. A chart of stacked
+// panels (the stock under the build) shares one period axis, written under
+// the lowest panel; its panels are drawn whole only by Render.
 //
 // # Positions and labels
 //

@@ -33,7 +33,7 @@ func TestLabelsDoNotOverlap(t *testing.T) {
 				t.Fatal(err)
 			}
 			h := 4 * vg.Inch
-			p.X.Tick.Marker.(fitter).fit(w, h)
+			p.X.Tick.Marker.(layout).fitStack(w, h)
 			dc := p.DataCanvas(draw.New(vgimg.New(w, h)))
 			sty := p.X.Tick.Label
 			var prev vg.Rectangle

@@ -147,7 +147,7 @@ func writeBufferText(w io.Writer, r *bufferResult) {
 }
 
 // bufferChart is the build plan: demand at the service quantile,
-// capacity, the build as bars and the stock.
+// capacity and the build as bars, with the stock in a panel below.
 func bufferChart(r *bufferResult) plots.StockChart {
 	p, b := r.Plan, r.Buffer
 	labels := make([]string, len(p.Periods))
@@ -155,12 +155,13 @@ func bufferChart(r *bufferResult) plots.StockChart {
 		labels[t] = per.String()
 	}
 	return plots.StockChart{
-		Title:    fmt.Sprintf("Build ahead, %s: %s at %s service", p.File.Plan, p.Scenarios[r.Scenario].Name, pctText(r.Opts.Service)),
-		Units:    unitsLabel(p.File.Units, p.History.Freq().String()),
-		Labels:   labels,
-		Demand:   b.Demand,
-		Capacity: b.Capacity,
-		Build:    b.Build,
-		Stock:    b.Stock,
+		Title:      fmt.Sprintf("Build ahead, %s: %s at %s service", p.File.Plan, p.Scenarios[r.Scenario].Name, pctText(r.Opts.Service)),
+		Units:      unitsLabel(p.File.Units, p.History.Freq().String()),
+		StockUnits: stockLabel(p.File.Units),
+		Labels:     labels,
+		Demand:     b.Demand,
+		Capacity:   b.Capacity,
+		Build:      b.Build,
+		Stock:      b.Stock,
 	}
 }

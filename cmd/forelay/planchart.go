@@ -85,3 +85,11 @@ func unitsLabel(units, period string) string {
 	}
 	return units + " per " + period
 }
+
+// stockLabel is the value-axis label of a stock panel: "litres in stock".
+func stockLabel(units string) string {
+	if units == "" {
+		return "units in stock"
+	}
+	return units + " in stock"
+}

@@ -56,12 +56,13 @@ func stockChart(r *stressResult) plots.StockChart {
 		labels[t] = per.String()
 	}
 	c := plots.StockChart{
-		Title:  "Frozen production, " + p.File.Plan + ": " + r.Risks[r.Chart].Name,
-		Units:  unitsLabel(p.File.Units, p.History.Freq().String()),
-		Labels: labels,
-		Demand: fz.Demand,
-		Build:  fz.Production,
-		Stock:  fz.Stock,
+		Title:      "Frozen production, " + p.File.Plan + ": " + r.Risks[r.Chart].Name,
+		Units:      unitsLabel(p.File.Units, p.History.Freq().String()),
+		StockUnits: stockLabel(p.File.Units),
+		Labels:     labels,
+		Demand:     fz.Demand,
+		Build:      fz.Production,
+		Stock:      fz.Stock,
 	}
 	if p.File.Capacity != nil {
 		c.Capacity = fz.Capacity
