@@ -74,6 +74,12 @@ func TestDrawsAnyPlan(t *testing.T) {
 		{"fan huge", plots.FanChart{Labels: demoLabels(2), P5: []float64{-big, -big}, P10: []float64{0, 0}, P50: []float64{0, 0},
 			P90: []float64{big, big}, P95: []float64{big, big}}.Plot},
 
+		{"comparison negative", plots.ComparisonChart{Labels: demoLabels(3), Baseline: []float64{125, 126, 127},
+			Scenarios: []plots.Curve{{Values: []float64{125, -774, -874}}, {Values: []float64{0, 0, 0}}}, Capacity: []float64{0, 0, 0}}.Plot},
+		{"comparison gaps and one period", plots.ComparisonChart{Labels: demoLabels(1), Baseline: []float64{nan},
+			Scenarios: []plots.Curve{{Values: []float64{5}}}}.Plot},
+		{"comparison huge", plots.ComparisonChart{Labels: demoLabels(2), Baseline: []float64{-big, big},
+			Scenarios: []plots.Curve{{Values: []float64{big, -big}}}}.Plot},
 		{"waterfall huge", plots.Waterfall{Start: big / 2, Steps: []plots.Step{{Label: "a", Value: big / 4}, {Label: "b", Value: -big}}}.Plot},
 		{"waterfall tiny", plots.Waterfall{Start: 1e-300, Steps: []plots.Step{{Label: "a", Value: 5e-324}}}.Plot},
 		{"control huge", plots.ControlChart{Labels: demoLabels(2), Errors: []float64{big, -big}, UCL: big, LCL: -big, Sigma: big}.Plot},

@@ -53,6 +53,12 @@ func TestInvalidInput(t *testing.T) {
 		return c.Plot
 	}
 
+	comparison := func(edit func(*plots.ComparisonChart)) func() (*plot.Plot, error) {
+		c := plots.ComparisonChart{Labels: labels, Baseline: vals, Scenarios: []plots.Curve{{Name: "up", Start: 3, Values: []float64{5, 6, 7}}}}
+		edit(&c)
+		return c.Plot
+	}
+
 	for _, tc := range []struct {
 		name  string
 		build func() (*plot.Plot, error)
@@ -126,6 +132,15 @@ func TestInvalidInput(t *testing.T) {
 			c.Start = math.MaxFloat64
 			c.Steps[0].Value = math.MaxFloat64
 		}), plots.ErrNotFinite},
+
+		{"comparison ok", comparison(func(*plots.ComparisonChart) {}), nil},
+		{"comparison no scenarios", comparison(func(c *plots.ComparisonChart) { c.Scenarios = nil }), nil},
+		{"comparison no labels", comparison(func(c *plots.ComparisonChart) { c.Labels = nil }), plots.ErrNoData},
+		{"comparison no baseline", comparison(func(c *plots.ComparisonChart) { c.Baseline = nil }), plots.ErrNoData},
+		{"comparison short baseline", comparison(func(c *plots.ComparisonChart) { c.Baseline = vals[:5] }), plots.ErrLength},
+		{"comparison scenario past the labels", comparison(func(c *plots.ComparisonChart) { c.Scenarios[0].Start = 4 }), plots.ErrRange},
+		{"comparison infinite capacity", comparison(func(c *plots.ComparisonChart) { c.Capacity = []float64{1, 2, 3, 4, 5, math.Inf(1)} }), plots.ErrNotFinite},
+		{"comparison short capacity", comparison(func(c *plots.ComparisonChart) { c.Capacity = []float64{1} }), plots.ErrLength},
 
 		{"stock ok", stock(func(*plots.StockChart) {}), nil},
 		{"stock open capacity", stock(func(c *plots.StockChart) { c.Capacity = []float64{9, 9, nan, nan, 9, 9} }), nil},

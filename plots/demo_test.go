@@ -272,3 +272,34 @@ func demoStock() plots.StockChart {
 		Stock:    stock,
 	}
 }
+
+// demoComparison sets the two scenarios of demoPlan side by side over the
+// horizon, with a capacity that rises in 2026-10 and is not agreed from
+// 2027-04.
+func demoComparison() plots.ComparisonChart {
+	pc := demoPlan()
+	capacity := make([]float64, demoHorizon)
+	for j := range capacity {
+		switch {
+		case j >= 15:
+			capacity[j] = math.NaN()
+		case j >= 9:
+			capacity[j] = 720000
+		default:
+			capacity[j] = 700000
+		}
+	}
+	c := plots.ComparisonChart{
+		Title:       "Scenarios of the milk intake plan, demo dairy cooperative",
+		Units:       "Litres per month",
+		ChangeUnits: "Litres vs baseline",
+		Labels:      pc.Labels[demoHist:],
+		Baseline:    pc.Baseline.Values,
+		Capacity:    capacity,
+	}
+	for _, s := range pc.Scenarios {
+		s.Start -= demoHist
+		c.Scenarios = append(c.Scenarios, s)
+	}
+	return c
+}

@@ -15,11 +15,15 @@
 //     the end total.
 //   - StockChart: demand, capacity and build per period, with the stock in
 //     a panel of its own below.
+//   - ComparisonChart: the baseline, each scenario's adjusted plan and the
+//     capacity over the plan periods, with each scenario's change from the
+//     baseline in a panel of its own below.
 //
 // Render turns a plot into PNG or SVG bytes of a given size; the caller
 // writes the file. The same input gives the same bytes. A chart of stacked
-// panels (the stock under the build) shares one period axis, written under
-// the lowest panel; its panels are drawn whole only by Render.
+// panels (the stock under the build, the changes under the plans) shares
+// one period axis, written under the lowest panel; its panels are drawn
+// whole only by Render.
 //
 // # Positions and labels
 //

@@ -201,3 +201,31 @@ func waterfallChart(r *compareResult, c scenario.Comparison) plots.Waterfall {
 	}
 	return wf
 }
+
+// compareChart sets the scenarios side by side over the plan periods:
+// the baseline, each scenario with events and the capacity above, each
+// scenario's change from the baseline below. Scenarios without events are
+// the baseline and are left out, as on the plan chart, so each scenario
+// keeps its look across plan.png and compare.png.
+func compareChart(r *compareResult) plots.ComparisonChart {
+	p := r.Plan
+	labels := make([]string, len(p.Periods))
+	for t, per := range p.Periods {
+		labels[t] = per.String()
+	}
+	c := plots.ComparisonChart{
+		Title:       "Scenarios of plan " + p.File.Plan + ": " + p.History.Name,
+		Units:       unitsLabel(p.File.Units, p.History.Freq().String()),
+		ChangeUnits: "change from baseline",
+		Labels:      labels,
+		Baseline:    p.Baseline,
+		Capacity:    p.CapacityPerPeriod(),
+	}
+	for _, sp := range p.Scenarios {
+		if len(sp.Events) == 0 {
+			continue
+		}
+		c.Scenarios = append(c.Scenarios, plots.Curve{Name: sp.Name, Values: sp.Adjusted})
+	}
+	return c
+}
