@@ -58,7 +58,8 @@ func demoBaseline() (mid, lo, hi []float64) {
 	return mid, lo, hi
 }
 
-// demoPlan is a plan chart with two scenarios and two event windows.
+// demoPlan is a plan chart with two scenarios, two event windows and a
+// past event.
 func demoPlan() plots.PlanChart {
 	mid, lo, hi := demoBaseline()
 	up := make([]float64, demoHorizon)
@@ -88,6 +89,9 @@ func demoPlan() plots.PlanChart {
 		Windows: []plots.Window{
 			{Label: "cheese contract", From: demoHist + 2.5, To: demoHist + demoHorizon - 0.5},
 			{Label: "shutdown", From: demoHist + 5.5, To: demoHist + 8.5},
+		},
+		Past: []plots.Window{
+			{Label: "heat wave", From: 17.5, To: 19.5}, // 2024-07 and 2024-08
 		},
 		ForecastStart: demoHist,
 	}

@@ -103,18 +103,63 @@ func (b *band) Thumbnail(c *draw.Canvas) {
 	}
 }
 
-// spans shades the windows of a plan chart over the full height of the data
-// area, edges them with thin lines and writes their labels in rows in the
-// headroom, below the key.
-type spans struct {
-	ws    []Window
+// A spanLook is how a kind of window is shaded: a translucent fill,
+// optional hatching and the edge lines.
+type spanLook struct {
 	fill  color.Color
+	hatch color.Color // nil: none
 	edge  draw.LineStyle
+}
+
+// shade paints the window r in look l, clipped to c, and draws the edges
+// that fall inside c at x0 and x1.
+func (l spanLook) shade(c *draw.Canvas, r vg.Rectangle, x0, x1 vg.Length) {
+	c.FillPolygon(l.fill, rectPoints(r))
+	if l.hatch != nil {
+		hatch(c, r, draw.LineStyle{Color: l.hatch, Width: vg.Points(0.5)}, vg.Points(6))
+	}
+	for _, x := range []vg.Length{x0, x1} {
+		if c.ContainsX(x) {
+			c.StrokeLine2(l.edge, x, r.Min.Y, x, r.Max.Y)
+		}
+	}
+}
+
+// Thumbnail draws the look's key swatch. It implements plot.Thumbnailer.
+func (l spanLook) Thumbnail(c *draw.Canvas) {
+	r := inset(c.Rectangle, 6, 0)
+	l.shade(c, r, r.Min.X, r.Max.X)
+}
+
+// A spanItem is one window of a spans and its look.
+type spanItem struct {
+	w    Window
+	look spanLook
+}
+
+// spans shades windows over the full height of the data area, edges them
+// with thin lines and writes their labels in rows in the headroom, below
+// the key. Each label starts just inside its window's left edge (moved left
+// only where it would run off the data area), in the first row where it
+// keeps clear of every label already placed, so no two labels overlap.
+//
+// The rows are counted when the chart is laid out, from an estimate of the
+// data area's width, with a wide gap between labels; the labels are placed
+// again when drawn, at their true positions, with a narrower gap, so they
+// fit in the rows kept free.
+type spans struct {
+	items []spanItem
 	style text.Style
 
-	rows   []int     // label row of each window, set by reserve
-	offset vg.Length // distance of the first label row below the top
+	offset vg.Length      // distance of the first label row below the top
+	placed []vg.Rectangle // label boxes as last drawn, for tests
 }
+
+// Gaps between two labels in one row: when counting rows and when drawing.
+const (
+	spanGapReserve = 12 // points
+	spanGapDraw    = 5  // points
+)
 
 func (s *spans) rowHeight() vg.Length {
 	e := s.style.FontExtents()
@@ -131,45 +176,60 @@ func (s *spans) labelX(w Window, tr func(float64) vg.Length, left, right vg.Leng
 	return x
 }
 
-// reserve assigns each label the first row where it does not run into an
-// earlier one, and returns the height of the rows.
-func (s *spans) reserve(dw, off vg.Length, xmin, xmax float64) vg.Length {
-	s.offset = off
-	s.rows = make([]int, len(s.ws))
-	tr := func(x float64) vg.Length { return vg.Length((x - xmin) / (xmax - xmin) * float64(dw)) }
-	var ends []vg.Length // right end of the last label in each row
-	used := false
-	for i, w := range s.ws {
-		if w.Label == "" || w.To < xmin || w.From > xmax {
-			s.rows[i] = -1
+// assign returns the label row of each window (-1: no label shown) and the
+// number of rows, for a data area from left to right whose x axis maps x
+// positions with tr, keeping gap between labels in a row.
+func (s *spans) assign(tr func(float64) vg.Length, left, right, gap vg.Length) (rows []int, n int) {
+	rows = make([]int, len(s.items))
+	var used [][][2]vg.Length // label extents in each row
+	for i, it := range s.items {
+		w := it.w
+		if w.Label == "" || tr(w.To) < left || tr(w.From) > right {
+			rows[i] = -1
 			continue
 		}
-		used = true
-		x := s.labelX(w, tr, 0, dw)
+		x0 := s.labelX(w, tr, left, right)
+		x1 := x0 + s.style.Width(w.Label)
 		r := 0
-		for r < len(ends) && ends[r]+vg.Points(6) > x {
-			r++
+		for ; r < len(used); r++ {
+			clear := true
+			for _, e := range used[r] {
+				if x0 < e[1]+gap && e[0] < x1+gap {
+					clear = false
+					break
+				}
+			}
+			if clear {
+				break
+			}
 		}
-		if r == len(ends) {
-			ends = append(ends, 0)
+		if r == len(used) {
+			used = append(used, nil)
 		}
-		ends[r] = x + s.style.Width(w.Label)
-		s.rows[i] = r
+		used[r] = append(used[r], [2]vg.Length{x0, x1})
+		rows[i] = r
 	}
-	if !used {
-		return 0
-	}
-	return vg.Length(len(ends))*s.rowHeight() + vg.Points(3)
+	return rows, len(used)
 }
 
-// Plot draws the windows. It implements plot.Plotter.
+// reserve counts the label rows for a data area dw wide spanning [xmin,
+// xmax] and returns their height.
+func (s *spans) reserve(dw, off vg.Length, xmin, xmax float64) vg.Length {
+	s.offset = off
+	tr := func(x float64) vg.Length { return vg.Length((x - xmin) / (xmax - xmin) * float64(dw)) }
+	_, n := s.assign(tr, 0, dw, vg.Points(spanGapReserve))
+	if n == 0 {
+		return 0
+	}
+	return vg.Length(n)*s.rowHeight() + vg.Points(3)
+}
+
+// Plot draws the windows, then their labels on top. It implements
+// plot.Plotter.
 func (s *spans) Plot(c draw.Canvas, p *plot.Plot) {
 	trX, _ := p.Transforms(&c)
-	sty := s.style
-	sty.XAlign = draw.XLeft
-	sty.YAlign = draw.YTop
-	for i, w := range s.ws {
-		x0, x1 := trX(w.From), trX(w.To)
+	for _, it := range s.items {
+		x0, x1 := trX(it.w.From), trX(it.w.To)
 		if x1 < c.Min.X || x0 > c.Max.X {
 			continue
 		}
@@ -177,16 +237,24 @@ func (s *spans) Plot(c draw.Canvas, p *plot.Plot) {
 			Min: vg.Point{X: vg.Length(math.Max(float64(x0), float64(c.Min.X))), Y: c.Min.Y},
 			Max: vg.Point{X: vg.Length(math.Min(float64(x1), float64(c.Max.X))), Y: c.Max.Y},
 		}
-		c.FillPolygon(s.fill, rectPoints(r))
-		for _, x := range []vg.Length{x0, x1} {
-			if c.ContainsX(x) {
-				c.StrokeLine2(s.edge, x, c.Min.Y, x, c.Max.Y)
-			}
+		it.look.shade(&c, r, x0, x1)
+	}
+	sty := s.style
+	sty.XAlign = draw.XLeft
+	sty.YAlign = draw.YTop
+	rows, _ := s.assign(trX, c.Min.X, c.Max.X, vg.Points(spanGapDraw))
+	s.placed = s.placed[:0]
+	e := sty.FontExtents()
+	for i, it := range s.items {
+		if rows[i] < 0 {
+			continue
 		}
-		if s.rows != nil && s.rows[i] >= 0 {
-			y := c.Max.Y - s.offset - vg.Length(s.rows[i])*s.rowHeight()
-			c.FillText(sty, vg.Point{X: s.labelX(w, trX, c.Min.X, c.Max.X), Y: y}, w.Label)
-		}
+		pt := vg.Point{X: s.labelX(it.w, trX, c.Min.X, c.Max.X), Y: c.Max.Y - s.offset - vg.Length(rows[i])*s.rowHeight()}
+		c.FillText(sty, pt, it.w.Label)
+		s.placed = append(s.placed, vg.Rectangle{
+			Min: vg.Point{X: pt.X, Y: pt.Y - e.Ascent - e.Descent},
+			Max: vg.Point{X: pt.X + sty.Width(it.w.Label), Y: pt.Y},
+		})
 	}
 }
 
