@@ -10,7 +10,7 @@ import (
 // shown.
 func fanLabels(p *scenario.Plan) (labels []string, show int) {
 	n := p.History.Len()
-	show = min(n, chartHistory(p.Fit.Config.Season))
+	show = min(n, chartHistory(p.History.Freq()))
 	labels = make([]string, 0, show+len(p.Periods))
 	for i := n - show; i < n; i++ {
 		labels = append(labels, p.History.Period(i).String())
