@@ -76,17 +76,7 @@ func (c PlanChart) Plot() (*plot.Plot, error) {
 	}
 	f := newFrame(c.Title, c.Labels, orDefault(c.Units, "Quantity"), false)
 
-	if len(c.Windows)+len(c.Past) > 0 {
-		s := &spans{style: textStyle(fontIt, sizeNote, rgb(0x4a4030))}
-		for _, w := range c.Windows {
-			s.items = append(s.items, spanItem{w: w, look: lookWindow})
-		}
-		for _, w := range c.Past {
-			s.items = append(s.items, spanItem{w: w, look: lookPast})
-		}
-		f.add(s)
-		f.tops = append(f.tops, s)
-	}
+	c.addWindows(f)
 
 	hist := named(c.History, "History")
 	base := named(c.Baseline, "Baseline")
@@ -140,6 +130,24 @@ func (c PlanChart) Plot() (*plot.Plot, error) {
 		f.key.add("Past event (cleaned out)", lookPast)
 	}
 	return f.done(), nil
+}
+
+// addWindows shades the event windows and the past events, first so that
+// everything else is drawn over them, and keeps room above the data for
+// their labels.
+func (c PlanChart) addWindows(f *frame) {
+	if len(c.Windows)+len(c.Past) == 0 {
+		return
+	}
+	s := &spans{style: textStyle(fontIt, sizeNote, rgb(0x4a4030))}
+	for _, w := range c.Windows {
+		s.items = append(s.items, spanItem{w: w, look: lookWindow})
+	}
+	for _, w := range c.Past {
+		s.items = append(s.items, spanItem{w: w, look: lookPast})
+	}
+	f.add(s)
+	f.tops = append(f.tops, s)
 }
 
 // check validates c.
