@@ -53,6 +53,12 @@ func TestInvalidInput(t *testing.T) {
 		return c.Plot
 	}
 
+	comparison := func(edit func(*plots.ComparisonChart)) func() (*plot.Plot, error) {
+		c := plots.ComparisonChart{Labels: labels, Baseline: vals, Scenarios: []plots.Curve{{Name: "up", Start: 3, Values: []float64{5, 6, 7}}}}
+		edit(&c)
+		return c.Plot
+	}
+
 	for _, tc := range []struct {
 		name  string
 		build func() (*plot.Plot, error)
@@ -61,7 +67,8 @@ func TestInvalidInput(t *testing.T) {
 		{"plan ok", plan(func(*plots.PlanChart) {}), nil},
 		{"plan no labels", plan(func(c *plots.PlanChart) { c.Labels = nil }), plots.ErrNoData},
 		{"plan no curves", plan(func(c *plots.PlanChart) { c.History = plots.Curve{} }), plots.ErrNoData},
-		{"plan NaN in history", plan(func(c *plots.PlanChart) { c.History.Values = []float64{1, nan} }), plots.ErrNotFinite},
+		{"plan NaN in history is a gap", plan(func(c *plots.PlanChart) { c.History.Values = []float64{1, nan} }), nil},
+		{"plan Inf in history", plan(func(c *plots.PlanChart) { c.History.Values = []float64{1, math.Inf(1)} }), plots.ErrNotFinite},
 		{"plan Inf in baseline", plan(func(c *plots.PlanChart) {
 			c.Baseline = plots.Curve{Start: 5, Values: []float64{math.Inf(-1)}}
 		}), plots.ErrNotFinite},
@@ -71,11 +78,14 @@ func TestInvalidInput(t *testing.T) {
 		{"plan band without upper", plan(func(c *plots.PlanChart) {
 			c.Baseline = plots.Curve{Start: 4, Values: []float64{5, 6}, Lower: []float64{4, 5}}
 		}), plots.ErrLength},
-		{"plan band upside down", plan(func(c *plots.PlanChart) {
+		{"plan band floored above its top", plan(func(c *plots.PlanChart) {
 			c.Baseline = plots.Curve{Start: 4, Values: []float64{5, 6}, Lower: []float64{4, 8}, Upper: []float64{6, 7}}
-		}), plots.ErrOrder},
-		{"plan NaN in band", plan(func(c *plots.PlanChart) {
+		}), nil},
+		{"plan NaN in band is a gap", plan(func(c *plots.PlanChart) {
 			c.Baseline = plots.Curve{Start: 4, Values: []float64{5, 6}, Lower: []float64{4, 5}, Upper: []float64{6, nan}}
+		}), nil},
+		{"plan Inf in band", plan(func(c *plots.PlanChart) {
+			c.Baseline = plots.Curve{Start: 4, Values: []float64{5, 6}, Lower: []float64{4, math.Inf(-1)}, Upper: []float64{6, 7}}
 		}), plots.ErrNotFinite},
 		{"plan curve past the labels", plan(func(c *plots.PlanChart) { c.History.Start = 1 }), plots.ErrRange},
 		{"plan negative start", plan(func(c *plots.PlanChart) { c.History.Start = -1; c.History.Values = vals[:2] }), plots.ErrRange},
@@ -90,11 +100,12 @@ func TestInvalidInput(t *testing.T) {
 		{"fan no labels", fan(func(c *plots.FanChart) { c.Labels = nil }), plots.ErrNoData},
 		{"fan no quantiles", fan(func(c *plots.FanChart) { c.P50 = nil }), plots.ErrNoData},
 		{"fan short p90", fan(func(c *plots.FanChart) { c.P90 = c.P90[:2] }), plots.ErrLength},
-		{"fan NaN median", fan(func(c *plots.FanChart) { c.P50 = []float64{3, nan, 3} }), plots.ErrNotFinite},
-		{"fan crossed quantiles", fan(func(c *plots.FanChart) { c.P10 = []float64{2, 3.5, 2} }), plots.ErrOrder},
+		{"fan NaN median is a gap", fan(func(c *plots.FanChart) { c.P50 = []float64{3, nan, 3} }), nil},
+		{"fan infinite median", fan(func(c *plots.FanChart) { c.P50 = []float64{3, math.Inf(1), 3} }), plots.ErrNotFinite},
+		{"fan crossed quantiles drawn", fan(func(c *plots.FanChart) { c.P10 = []float64{2, 3.5, 2} }), nil},
 		{"fan past the labels", fan(func(c *plots.FanChart) { c.Start = 4 }), plots.ErrRange},
 		{"fan mean too long", fan(func(c *plots.FanChart) { c.Mean = []float64{3, 3, 3, 3} }), plots.ErrLength},
-		{"fan NaN mean", fan(func(c *plots.FanChart) { c.Mean = []float64{3, nan, 3} }), plots.ErrNotFinite},
+		{"fan NaN mean is a gap", fan(func(c *plots.FanChart) { c.Mean = []float64{3, nan, 3} }), nil},
 		{"fan infinite capacity", fan(func(c *plots.FanChart) { c.Capacity = []float64{6, math.Inf(1), 7} }), plots.ErrNotFinite},
 
 		{"control ok", control(func(*plots.ControlChart) {}), nil},
@@ -122,12 +133,22 @@ func TestInvalidInput(t *testing.T) {
 			c.Steps[0].Value = math.MaxFloat64
 		}), plots.ErrNotFinite},
 
+		{"comparison ok", comparison(func(*plots.ComparisonChart) {}), nil},
+		{"comparison no scenarios", comparison(func(c *plots.ComparisonChart) { c.Scenarios = nil }), nil},
+		{"comparison no labels", comparison(func(c *plots.ComparisonChart) { c.Labels = nil }), plots.ErrNoData},
+		{"comparison no baseline", comparison(func(c *plots.ComparisonChart) { c.Baseline = nil }), plots.ErrNoData},
+		{"comparison short baseline", comparison(func(c *plots.ComparisonChart) { c.Baseline = vals[:5] }), plots.ErrLength},
+		{"comparison scenario past the labels", comparison(func(c *plots.ComparisonChart) { c.Scenarios[0].Start = 4 }), plots.ErrRange},
+		{"comparison infinite capacity", comparison(func(c *plots.ComparisonChart) { c.Capacity = []float64{1, 2, 3, 4, 5, math.Inf(1)} }), plots.ErrNotFinite},
+		{"comparison short capacity", comparison(func(c *plots.ComparisonChart) { c.Capacity = []float64{1} }), plots.ErrLength},
+
 		{"stock ok", stock(func(*plots.StockChart) {}), nil},
 		{"stock open capacity", stock(func(c *plots.StockChart) { c.Capacity = []float64{9, 9, nan, nan, 9, 9} }), nil},
 		{"stock nothing", stock(func(c *plots.StockChart) { c.Demand, c.Build = nil, nil }), plots.ErrNoData},
 		{"stock no labels", stock(func(c *plots.StockChart) { c.Labels = nil }), plots.ErrNoData},
 		{"stock short stock", stock(func(c *plots.StockChart) { c.Stock = vals[:5] }), plots.ErrLength},
-		{"stock NaN demand", stock(func(c *plots.StockChart) { c.Demand = []float64{1, 2, nan, 4, 5, 6} }), plots.ErrNotFinite},
+		{"stock NaN demand is a gap", stock(func(c *plots.StockChart) { c.Demand = []float64{1, 2, nan, 4, 5, 6} }), nil},
+		{"stock infinite build", stock(func(c *plots.StockChart) { c.Build = []float64{1, 2, math.Inf(1), 4, 5, 6} }), plots.ErrNotFinite},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			p, err := tc.build()

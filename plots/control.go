@@ -106,7 +106,7 @@ func (c ControlChart) Plot() (*plot.Plot, error) {
 		idx, notes := c.hitNotes()
 		hx := make(plotter.XYs, len(idx))
 		for k, i := range idx {
-			hx[k] = plotter.XY{X: float64(i), Y: c.Errors[i]}
+			hx[k] = plotter.XY{X: float64(i), Y: onAxis(c.Errors[i])}
 		}
 		hitMark = &plotter.Scatter{XYs: hx, GlyphStyle: draw.GlyphStyle{
 			Color: colRust, Radius: vg.Points(5), Shape: thickRing{width: vg.Points(1.6)},

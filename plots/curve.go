@@ -21,12 +21,16 @@ type Curve struct {
 	// Start+len(Values) must not exceed the number of labels of the chart.
 	Start int
 
-	// Values are the curve's points, one per period. They must be finite.
+	// Values are the curve's points, one per period. NaN marks a missing
+	// value and leaves a gap in the line; ±Inf is an error. Values beyond
+	// about ±1e307 are drawn at the edge of the chart.
 	Values []float64
 
 	// Lower and Upper are the optional band: either both nil (no band) or
-	// both as long as Values, finite, with Lower[j] <= Upper[j]. The band
-	// need not contain Values[j].
+	// both as long as Values, and not ±Inf. NaN in either edge leaves a gap
+	// in the band. The band need not contain Values[j], and where Lower[j]
+	// lies above Upper[j] (a lower edge raised to a floor above the whole
+	// band) the band has no width: it is drawn pinched at Upper[j].
 	Lower, Upper []float64
 }
 
@@ -47,7 +51,7 @@ func (c Curve) check(what string, n int) error {
 		return fmt.Errorf("%s: positions %d to %d, but the chart has %d labels: %w",
 			what, c.Start, c.Start+len(c.Values)-1, n, ErrRange)
 	}
-	if err := finite(what+": values", c.Values); err != nil {
+	if err := finiteOrNaN(what+": values", c.Values); err != nil {
 		return err
 	}
 	if !c.hasBand() {
@@ -59,19 +63,10 @@ func (c Curve) check(what string, n int) error {
 	if err := sameLength(what+": upper", c.Upper, len(c.Values), "value"); err != nil {
 		return err
 	}
-	if err := finite(what+": lower", c.Lower); err != nil {
+	if err := finiteOrNaN(what+": lower", c.Lower); err != nil {
 		return err
 	}
-	if err := finite(what+": upper", c.Upper); err != nil {
-		return err
-	}
-	for j := range c.Lower {
-		if c.Lower[j] > c.Upper[j] {
-			return fmt.Errorf("%s: lower[%d] = %v is above upper[%d] = %v: %w",
-				what, j, c.Lower[j], j, c.Upper[j], ErrOrder)
-		}
-	}
-	return nil
+	return finiteOrNaN(what+": upper", c.Upper)
 }
 
 // A Window is a stretch of the x axis to shade and label, such as the periods

@@ -58,7 +58,8 @@ func demoBaseline() (mid, lo, hi []float64) {
 	return mid, lo, hi
 }
 
-// demoPlan is a plan chart with two scenarios and two event windows.
+// demoPlan is a plan chart with two scenarios, two event windows and a
+// past event.
 func demoPlan() plots.PlanChart {
 	mid, lo, hi := demoBaseline()
 	up := make([]float64, demoHorizon)
@@ -88,6 +89,9 @@ func demoPlan() plots.PlanChart {
 		Windows: []plots.Window{
 			{Label: "cheese contract", From: demoHist + 2.5, To: demoHist + demoHorizon - 0.5},
 			{Label: "shutdown", From: demoHist + 5.5, To: demoHist + 8.5},
+		},
+		Past: []plots.Window{
+			{Label: "heat wave", From: 17.5, To: 19.5}, // 2024-07 and 2024-08
 		},
 		ForecastStart: demoHist,
 	}
@@ -271,4 +275,35 @@ func demoStock() plots.StockChart {
 		Build:    build,
 		Stock:    stock,
 	}
+}
+
+// demoComparison sets the two scenarios of demoPlan side by side over the
+// horizon, with a capacity that rises in 2026-10 and is not agreed from
+// 2027-04.
+func demoComparison() plots.ComparisonChart {
+	pc := demoPlan()
+	capacity := make([]float64, demoHorizon)
+	for j := range capacity {
+		switch {
+		case j >= 15:
+			capacity[j] = math.NaN()
+		case j >= 9:
+			capacity[j] = 720000
+		default:
+			capacity[j] = 700000
+		}
+	}
+	c := plots.ComparisonChart{
+		Title:       "Scenarios of the milk intake plan, demo dairy cooperative",
+		Units:       "Litres per month",
+		ChangeUnits: "Litres vs baseline",
+		Labels:      pc.Labels[demoHist:],
+		Baseline:    pc.Baseline.Values,
+		Capacity:    capacity,
+	}
+	for _, s := range pc.Scenarios {
+		s.Start -= demoHist
+		c.Scenarios = append(c.Scenarios, s)
+	}
+	return c
 }

@@ -13,10 +13,17 @@
 //   - SignalChart: a tracking signal with its plus and minus limits.
 //   - Waterfall: from a starting total through each event's contribution to
 //     the end total.
-//   - StockChart: demand, capacity, build and stock per period.
+//   - StockChart: demand, capacity and build per period, with the stock in
+//     a panel of its own below.
+//   - ComparisonChart: the baseline, each scenario's adjusted plan and the
+//     capacity over the plan periods, with each scenario's change from the
+//     baseline in a panel of its own below.
 //
 // Render turns a plot into PNG or SVG bytes of a given size; the caller
-// writes the file. The same input gives the same bytes.
+// writes the file. The same input gives the same bytes. A chart of stacked
+// panels (the stock under the build, the changes under the plans) shares
+// one period axis, written under the lowest panel; its panels are drawn
+// whole only by Render.
 //
 // # Positions and labels
 //
@@ -42,10 +49,16 @@
 //
 // # Errors
 //
+// Every chart draws any finite data: negative values, all zeros, flat
+// series, bands of no width, a single period, and values up to the ends of
+// the float64 range (beyond about ±1e307 they are drawn at the chart's
+// edge). In the series of the period charts NaN marks a missing value and
+// leaves a gap; a band whose lower edge lies above its upper edge (a lower
+// edge raised to a floor above the whole band) is drawn with no width.
+//
 // Bad data comes back as an error from Plot, never a panic: empty labels or
-// series (ErrNoData), NaN or infinite values where a number is needed
+// series (ErrNoData), infinite values, or NaN where a number is needed
 // (ErrNotFinite), slices of the wrong length (ErrLength), positions outside
-// the labels (ErrRange), and bands, windows, quantiles or limits the wrong
-// way round (ErrOrder). NaN is allowed only where a field's documentation
-// says so (a capacity with no limit, an undefined tracking signal).
+// the labels (ErrRange), and windows or control limits the wrong way round
+// (ErrOrder).
 package plots

@@ -21,9 +21,8 @@ var (
 	// ErrRange: an x position or index lies outside the labelled periods, or
 	// a limit that must be positive is not.
 	ErrRange = errors.New("out of range")
-	// ErrOrder: values that must be ordered are not (a band's lower edge
-	// above its upper edge, a window ending before it starts, quantiles out
-	// of order, a lower control limit above the upper one).
+	// ErrOrder: values that must be ordered are not (a window ending
+	// before it starts, a lower control limit above the upper one).
 	ErrOrder = errors.New("out of order")
 	// ErrFormat: Render was asked for a format other than png or svg.
 	ErrFormat = errors.New("unsupported format")

@@ -35,12 +35,13 @@ type FanChart struct {
 
 	// P5, P10, P50, P90 and P95 are the 5th, 10th, 50th, 90th and 95th
 	// percentiles of the outcomes in each period. They must have the same,
-	// non-zero length, be finite and be ordered
-	// P5 <= P10 <= P50 <= P90 <= P95 in every period.
+	// non-zero length and not be ±Inf; NaN leaves a gap. They are drawn as
+	// given: where a lower quantile lies above an upper one (rounding can
+	// cross two nearly equal quantiles) their band has no width.
 	P5, P10, P50, P90, P95 []float64
 
 	// Mean is the mean outcome per period, drawn dashed. Nil leaves it out;
-	// otherwise it is as long as P50 and finite.
+	// otherwise it is as long as P50, with NaN for a gap.
 	Mean []float64
 
 	// Capacity is the most that can be supplied per period, drawn as a
@@ -51,8 +52,7 @@ type FanChart struct {
 
 // Plot checks c and builds the chart. It returns an error wrapping ErrNoData
 // for empty Labels or quantiles, ErrLength when the slices differ in length,
-// ErrRange when they run past the labels, ErrNotFinite for NaN or ±Inf where
-// not allowed and ErrOrder for quantiles out of order.
+// ErrRange when they run past the labels and ErrNotFinite for ±Inf.
 func (c FanChart) Plot() (*plot.Plot, error) {
 	if err := c.check(); err != nil {
 		return nil, chartError("fan chart", err)
@@ -127,23 +127,15 @@ func (c FanChart) check() error {
 		if err := sameLength(q.name, q.vs, m, "value of p50"); err != nil {
 			return err
 		}
-		if err := finite(q.name, q.vs); err != nil {
+		if err := finiteOrNaN(q.name, q.vs); err != nil {
 			return err
-		}
-	}
-	for j := range m {
-		for k := 1; k < len(qs); k++ {
-			if qs[k-1].vs[j] > qs[k].vs[j] {
-				return fmt.Errorf("%s[%d] = %v is above %s[%d] = %v: %w",
-					qs[k-1].name, j, qs[k-1].vs[j], qs[k].name, j, qs[k].vs[j], ErrOrder)
-			}
 		}
 	}
 	if c.Mean != nil {
 		if err := sameLength("mean", c.Mean, m, "value of p50"); err != nil {
 			return err
 		}
-		if err := finite("mean", c.Mean); err != nil {
+		if err := finiteOrNaN("mean", c.Mean); err != nil {
 			return err
 		}
 	}

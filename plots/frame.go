@@ -39,6 +39,12 @@ type frame struct {
 	// yMin and yMax, when set (not NaN), fix the value axis range before
 	// headroom.
 	yMin, yMax float64
+
+	// panels are drawn below this frame, sharing its x axis (stack.go).
+	panels []panel
+	// minYAxis is the least width the value axis is assumed to take when
+	// laying out, so the panels of a stack fit their aligned data areas.
+	minYAxis vg.Length
 }
 
 // A topBand is something drawn in the headroom above the data (the key,
@@ -48,13 +54,15 @@ type topBand interface {
 	reserve(dw, off vg.Length, xmin, xmax float64) vg.Length
 }
 
-// fitter is implemented by the frame; Render calls fit before drawing.
-type fitter interface {
-	fit(w, h vg.Length)
+// layout is implemented by the frame: Render lays the chart out for the
+// size asked for and then draws it, with any panels stacked below.
+type layout interface {
+	fitStack(w, h vg.Length)
+	drawStack(c draw.Canvas)
 }
 
 var (
-	_ fitter      = (*frame)(nil)
+	_ layout      = (*frame)(nil)
 	_ plot.Ticker = (*frame)(nil)
 )
 
@@ -115,11 +123,23 @@ func (f *frame) Ticks(min, max float64) []plot.Tick {
 	return f.x.Ticks(min, max)
 }
 
-// include widens the value extent to cover vs (NaN and ±Inf are skipped).
+// maxAxis bounds the value axis: values beyond ±maxAxis are drawn at the
+// edge of the data area. It keeps the axis range, with its padding and
+// headroom, well inside the float64 range.
+const maxAxis = math.MaxFloat64 / 16
+
+// onAxis returns v limited to ±maxAxis, so that no drawn coordinate
+// overflows when gonum/plot maps it to the canvas. NaN stays NaN.
+func onAxis(v float64) float64 {
+	return math.Max(-maxAxis, math.Min(v, maxAxis))
+}
+
+// include widens the value extent to cover vs (NaN and ±Inf are skipped),
+// up to ±maxAxis.
 func (f *frame) include(vs ...[]float64) {
 	if lo, hi, ok := extent(vs...); ok {
-		f.lo = math.Min(f.lo, lo)
-		f.hi = math.Max(f.hi, hi)
+		f.lo = math.Min(f.lo, math.Max(lo, -maxAxis))
+		f.hi = math.Max(f.hi, math.Min(hi, maxAxis))
 	}
 }
 
@@ -131,7 +151,10 @@ func (f *frame) add(ps ...plot.Plotter) { f.p.Add(ps...) }
 // default size.
 func (f *frame) done() *plot.Plot {
 	f.p.Add(f.key)
-	f.fit(DefaultWidth, DefaultHeight)
+	for _, q := range f.panels {
+		q.f.p.Add(q.f.key)
+	}
+	f.fitStack(DefaultWidth, DefaultHeight)
 	return f.p
 }
 
@@ -211,7 +234,8 @@ func (f *frame) yAxisWidth() vg.Length {
 	for _, t := range a.Tick.Marker.Ticks(a.Min, a.Max) {
 		lw = vg.Length(math.Max(float64(lw), float64(a.Tick.Label.Width(t.Label))))
 	}
-	return w + lw + a.Tick.Label.Width(" ") + a.Tick.Length + a.Width/2 + a.Padding
+	w += lw + a.Tick.Label.Width(" ") + a.Tick.Length + a.Width/2 + a.Padding
+	return vg.Length(math.Max(float64(w), float64(f.minYAxis)))
 }
 
 // rightOverhang estimates how far the last x label reaches past the data.

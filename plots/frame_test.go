@@ -33,7 +33,7 @@ func TestLabelsDoNotOverlap(t *testing.T) {
 				t.Fatal(err)
 			}
 			h := 4 * vg.Inch
-			p.X.Tick.Marker.(fitter).fit(w, h)
+			p.X.Tick.Marker.(layout).fitStack(w, h)
 			dc := p.DataCanvas(draw.New(vgimg.New(w, h)))
 			sty := p.X.Tick.Label
 			var prev vg.Rectangle
@@ -93,8 +93,70 @@ func TestHeadroomKeepsDataClear(t *testing.T) {
 	}
 	// The first label runs past the start of the second, so they take two
 	// rows.
-	s := f.tops[1].(*spans)
-	if s.rows[0] == s.rows[1] {
-		t.Errorf("overlapping window labels share row %d", s.rows[0])
+	if _, n := f.tops[1].(*spans).assign(func(x float64) vg.Length { return vg.Length(x) * vg.Inch / 2 }, 0, 6*vg.Inch, 0); n != 2 {
+		t.Errorf("overlapping window labels take %d rows, want 2", n)
+	}
+}
+
+// TestWindowLabelsApart draws plan charts whose event windows sit in
+// neighbouring periods, share a period, or run to the right edge, with past
+// events too, at several sizes, and measures the labels where they are
+// drawn: no two may overlap, each starts at its window (or, pushed in from
+// the right edge, still overlaps it), and all sit above the data.
+func TestWindowLabelsApart(t *testing.T) {
+	n := 36
+	vals := make([]float64, n)
+	for i := range vals {
+		vals[i] = 100 + 10*math.Sin(float64(i))
+	}
+	c := PlanChart{
+		Title: "t", Labels: monthLabels(2024, n),
+		History:       Curve{Values: vals[:24]},
+		Baseline:      Curve{Start: 24, Values: vals[24:]},
+		ForecastStart: 24,
+		Windows: []Window{
+			{Label: "grocer-exit", From: 27.5, To: 28.5},
+			{Label: "harvest-fair", From: 28.5, To: 29.5}, // the next period
+			{Label: "school-milk-contract", From: 28.5, To: 35.5},
+			{Label: "price-rise", From: 34.5, To: 35.5}, // at the right edge
+		},
+		Past: []Window{
+			{Label: "storm-outage", From: 9.5, To: 11.5},
+			{Label: "harvest-fair", From: 10.5, To: 11.5}, // inside the storm
+		},
+	}
+	for _, w := range []vg.Length{4 * vg.Inch, 6 * vg.Inch, 8 * vg.Inch, 12 * vg.Inch} {
+		p, err := c.Plot()
+		if err != nil {
+			t.Fatal(err)
+		}
+		h := 4.5 * vg.Inch
+		f := p.X.Tick.Marker.(*frame)
+		f.fitStack(w, h)
+		dc := draw.New(vgimg.New(w, h))
+		f.drawStack(dc)
+		s := f.tops[1].(*spans)
+		if len(s.placed) != len(c.Windows)+len(c.Past) {
+			t.Fatalf("width %v: %d labels drawn, want %d", w, len(s.placed), len(c.Windows)+len(c.Past))
+		}
+		data := p.DataCanvas(dc)
+		tr := func(x float64) vg.Length { return data.X(p.X.Norm(x)) }
+		all := append(append([]Window(nil), c.Windows...), c.Past...)
+		for i, a := range s.placed {
+			for j := i + 1; j < len(s.placed); j++ {
+				b := s.placed[j]
+				if a.Min.X < b.Max.X && b.Min.X < a.Max.X && a.Min.Y < b.Max.Y && b.Min.Y < a.Max.Y {
+					t.Errorf("width %v: labels %q and %q overlap", w, all[i].Label, all[j].Label)
+				}
+			}
+			x0, x1 := tr(all[i].From), tr(all[i].To)
+			atEdge := math.Abs(float64(a.Min.X-(x0+vg.Points(3)))) < 0.01
+			if !atEdge && !(a.Max.X > data.Max.X-vg.Points(3) && a.Min.X < x1) {
+				t.Errorf("width %v: label %q starts at %v, away from its window %v to %v", w, all[i].Label, a.Min.X, x0, x1)
+			}
+			if top := data.Y(p.Y.Norm(f.hi)); a.Min.Y < top {
+				t.Errorf("width %v: label %q reaches down to %v, into the data (top %v)", w, all[i].Label, a.Min.Y, top)
+			}
+		}
 	}
 }

@@ -43,5 +43,6 @@ func demoCharts() map[string]func() (*plot.Plot, error) {
 		"signal":    demoSignal().Plot,
 		"waterfall": demoWaterfall().Plot,
 		"stock":     demoStock().Plot,
+		"compare":   demoComparison().Plot,
 	}
 }

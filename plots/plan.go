@@ -10,8 +10,13 @@ import (
 
 // A PlanChart shows a plan over time: the history, the statistical baseline,
 // the baseline adjusted by each scenario, each with its band if it has one,
-// the windows of the scenario's events shaded and labelled, and a vertical
-// line where the forecast starts.
+// the windows of the scenario's events shaded and labelled, the past events
+// that were cleaned out of the history shaded in a look of their own, and a
+// vertical line where the forecast starts.
+//
+// Each window's label is written above the data at the window's left edge,
+// in the first row where it keeps clear of every other label, so labels of
+// events in neighbouring periods never overlap.
 //
 // Every curve is placed by x position, the index into Labels (see Curve).
 // Windows are drawn first, then all bands, then the scenario lines, the
@@ -47,6 +52,11 @@ type PlanChart struct {
 	// Windows are shaded behind the curves and labelled at the top.
 	Windows []Window
 
+	// Past are the windows of past events, the ones cleaned out of the
+	// history before the baseline was fitted: shaded grey and hatched, and
+	// labelled as Windows are.
+	Past []Window
+
 	// ForecastStart is the x position of the first forecast period. A
 	// dashed line is drawn half a period before it, between the last
 	// actual and the first forecast, with the notes "actuals" and
@@ -57,25 +67,16 @@ type PlanChart struct {
 
 // Plot checks c and builds the chart. It returns an error wrapping ErrNoData
 // when Labels is empty or no curve has values, ErrRange for a curve or
-// ForecastStart outside the labels, ErrNotFinite for NaN or ±Inf in a curve
-// or window, ErrLength for a band whose length differs from its curve's,
-// and ErrOrder for a band edge or window the wrong way round.
+// ForecastStart outside the labels, ErrNotFinite for ±Inf in a curve or NaN
+// or ±Inf in a window, ErrLength for a band whose length differs from its
+// curve's, and ErrOrder for a window the wrong way round.
 func (c PlanChart) Plot() (*plot.Plot, error) {
 	if err := c.check(); err != nil {
 		return nil, chartError("plan chart", err)
 	}
 	f := newFrame(c.Title, c.Labels, orDefault(c.Units, "Quantity"), false)
 
-	if len(c.Windows) > 0 {
-		s := &spans{
-			ws:    c.Windows,
-			fill:  tint(colWindow, 0x66),
-			edge:  draw.LineStyle{Color: rgb(0xa89a80), Width: vg.Points(0.6), Dashes: dashShort},
-			style: textStyle(fontIt, sizeNote, rgb(0x4a4030)),
-		}
-		f.add(s)
-		f.tops = append(f.tops, s)
-	}
+	c.addWindows(f)
 
 	hist := named(c.History, "History")
 	base := named(c.Baseline, "Baseline")
@@ -118,9 +119,35 @@ func (c PlanChart) Plot() (*plot.Plot, error) {
 		f.key.add(base.Name, baseThumbs...)
 	}
 	for k, s := range scen {
-		f.key.add(s.Name, scenThumbs[k]...)
+		if scenThumbs[k] != nil {
+			f.key.add(s.Name, scenThumbs[k]...)
+		}
+	}
+	if len(c.Windows) > 0 {
+		f.key.add("Event window", lookWindow)
+	}
+	if len(c.Past) > 0 {
+		f.key.add("Past event (cleaned out)", lookPast)
 	}
 	return f.done(), nil
+}
+
+// addWindows shades the event windows and the past events, first so that
+// everything else is drawn over them, and keeps room above the data for
+// their labels.
+func (c PlanChart) addWindows(f *frame) {
+	if len(c.Windows)+len(c.Past) == 0 {
+		return
+	}
+	s := &spans{style: textStyle(fontIt, sizeNote, rgb(0x4a4030))}
+	for _, w := range c.Windows {
+		s.items = append(s.items, spanItem{w: w, look: lookWindow})
+	}
+	for _, w := range c.Past {
+		s.items = append(s.items, spanItem{w: w, look: lookPast})
+	}
+	f.add(s)
+	f.tops = append(f.tops, s)
 }
 
 // check validates c.
@@ -154,6 +181,11 @@ func (c PlanChart) check() error {
 	}
 	for k, w := range c.Windows {
 		if err := w.check(fmt.Sprintf("window %d (%q)", k+1, w.Label)); err != nil {
+			return err
+		}
+	}
+	for k, w := range c.Past {
+		if err := w.check(fmt.Sprintf("past window %d (%q)", k+1, w.Label)); err != nil {
 			return err
 		}
 	}

@@ -28,7 +28,8 @@ const MaxSide = 40 * vg.Inch
 // For charts made by this package Render first lays the chart out for the
 // size: it thins the period labels to the width and keeps room above the data
 // for the key. This changes p, so one plot must not be rendered from two
-// goroutines at once.
+// goroutines at once. A chart of stacked panels (StockChart,
+// ComparisonChart) is drawn whole only by Render: p itself is the top panel.
 //
 // Render returns an error wrapping ErrFormat for another format, ErrSize
 // when width or height is not finite and positive or exceeds MaxSide, and
@@ -43,20 +44,28 @@ func Render(p *plot.Plot, format string, width, height vg.Length) ([]byte, error
 			return nil, fmt.Errorf("plots: render: size %v by %v: %w", width, height, ErrSize)
 		}
 	}
-	if f, ok := p.X.Tick.Marker.(fitter); ok {
-		f.fit(width, height)
+	lay, ok := p.X.Tick.Marker.(layout)
+	if ok {
+		lay.fitStack(width, height)
+	}
+	paint := func(c draw.Canvas) {
+		if ok {
+			lay.drawStack(c)
+		} else {
+			p.Draw(c)
+		}
 	}
 	var buf bytes.Buffer
 	switch strings.ToLower(strings.TrimPrefix(format, ".")) {
 	case "png":
 		c := vgimg.NewWith(vgimg.UseWH(width, height), vgimg.UseDPI(DPI))
-		p.Draw(draw.New(c))
+		paint(draw.New(c))
 		if _, err := (vgimg.PngCanvas{Canvas: c}).WriteTo(&buf); err != nil {
 			return nil, fmt.Errorf("plots: render png: %w", err)
 		}
 	case "svg":
 		c := vgsvg.New(width, height)
-		p.Draw(draw.New(c))
+		paint(draw.New(c))
 		if _, err := c.WriteTo(&buf); err != nil {
 			return nil, fmt.Errorf("plots: render svg: %w", err)
 		}

@@ -26,7 +26,7 @@ func runs(start int, vs []float64) []plotter.XYs {
 			}
 			continue
 		}
-		cur = append(cur, plotter.XY{X: float64(start + j), Y: v})
+		cur = append(cur, plotter.XY{X: float64(start + j), Y: onAxis(v)})
 	}
 	if len(cur) > 0 {
 		out = append(out, cur)

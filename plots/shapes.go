@@ -14,52 +14,82 @@ import (
 // plotter for. They leave the axis ranges to the frame, so none of them
 // reports a data range.
 
-// band fills the area between lo and hi over the x positions xs, and draws
-// the two edges with edge when edge.Width > 0.
+// band fills the area between lo and hi over the x positions x0, x0+1, ...
+// and draws the two edges with edge when edge.Width > 0.
+//
+// The band is drawn in runs of periods where both edges are numbers; NaN in
+// either edge leaves a gap. Where lo lies above hi (a lower edge raised to a
+// floor above the whole band) the band has no width: both edges are drawn
+// at hi. A run of one period becomes a narrow block so it stays visible.
 type band struct {
-	xs, lo, hi []float64
-	fill       color.Color
-	edge       draw.LineStyle
+	x0     int
+	lo, hi []float64
+	fill   color.Color
+	edge   draw.LineStyle
 }
 
-// newBand returns the band of a curve-like run of values starting at x0. A
-// single point becomes a narrow block so it stays visible.
+// newBand returns the band between lo and hi from x position x0.
 func newBand(x0 int, lo, hi []float64, fill color.Color, edge draw.LineStyle) *band {
-	b := &band{fill: fill, edge: edge}
-	if len(lo) == 1 {
-		x := float64(x0)
-		b.xs = []float64{x - 0.3, x + 0.3}
-		b.lo = []float64{lo[0], lo[0]}
-		b.hi = []float64{hi[0], hi[0]}
-		return b
+	return &band{x0: x0, lo: lo, hi: hi, fill: fill, edge: edge}
+}
+
+// bandRun is a stretch of a band without gaps, in data units.
+type bandRun struct{ xs, lo, hi []float64 }
+
+// runs splits the band into its stretches without gaps, with each lower
+// edge at most its upper edge and both limited to ±maxAxis.
+func (b *band) runs() []bandRun {
+	var out []bandRun
+	var cur bandRun
+	flush := func() {
+		if len(cur.xs) == 1 { // a lone period: a narrow block
+			x := cur.xs[0]
+			cur = bandRun{xs: []float64{x - 0.3, x + 0.3}, lo: []float64{cur.lo[0], cur.lo[0]}, hi: []float64{cur.hi[0], cur.hi[0]}}
+		}
+		if len(cur.xs) > 0 {
+			out = append(out, cur)
+		}
+		cur = bandRun{}
 	}
-	b.xs = make([]float64, len(lo))
-	for i := range b.xs {
-		b.xs[i] = float64(x0 + i)
+	for j := range b.lo {
+		lo, hi := b.lo[j], b.hi[j]
+		if math.IsNaN(lo) || math.IsNaN(hi) {
+			flush()
+			continue
+		}
+		hi = onAxis(hi)
+		lo = math.Min(onAxis(lo), hi)
+		cur.xs = append(cur.xs, float64(b.x0+j))
+		cur.lo = append(cur.lo, lo)
+		cur.hi = append(cur.hi, hi)
 	}
-	b.lo, b.hi = lo, hi
-	return b
+	flush()
+	return out
 }
 
 // Plot draws the band. It implements plot.Plotter.
 func (b *band) Plot(c draw.Canvas, p *plot.Plot) {
 	trX, trY := p.Transforms(&c)
-	n := len(b.xs)
-	poly := make([]vg.Point, 0, 2*n)
-	top := make([]vg.Point, n)
-	bot := make([]vg.Point, n)
-	for i := range n {
-		top[i] = vg.Point{X: trX(b.xs[i]), Y: trY(b.hi[i])}
-		bot[i] = vg.Point{X: trX(b.xs[i]), Y: trY(b.lo[i])}
-	}
-	poly = append(poly, top...)
-	for i := n - 1; i >= 0; i-- {
-		poly = append(poly, bot[i])
-	}
-	c.FillPolygon(b.fill, c.ClipPolygonXY(poly))
-	if b.edge.Width > 0 {
-		c.StrokeLines(b.edge, c.ClipLinesXY(top)...)
-		c.StrokeLines(b.edge, c.ClipLinesXY(bot)...)
+	for _, r := range b.runs() {
+		n := len(r.xs)
+		poly := make([]vg.Point, 0, 2*n)
+		top := make([]vg.Point, n)
+		bot := make([]vg.Point, n)
+		for i := range n {
+			top[i] = vg.Point{X: trX(r.xs[i]), Y: trY(r.hi[i])}
+			bot[i] = vg.Point{X: trX(r.xs[i]), Y: trY(r.lo[i])}
+		}
+		poly = append(poly, top...)
+		for i := n - 1; i >= 0; i-- {
+			poly = append(poly, bot[i])
+		}
+		if pts := c.ClipPolygonXY(poly); len(pts) > 2 {
+			c.FillPolygon(b.fill, pts)
+		}
+		if b.edge.Width > 0 {
+			c.StrokeLines(b.edge, c.ClipLinesXY(top)...)
+			c.StrokeLines(b.edge, c.ClipLinesXY(bot)...)
+		}
 	}
 }
 
@@ -73,18 +103,63 @@ func (b *band) Thumbnail(c *draw.Canvas) {
 	}
 }
 
-// spans shades the windows of a plan chart over the full height of the data
-// area, edges them with thin lines and writes their labels in rows in the
-// headroom, below the key.
-type spans struct {
-	ws    []Window
+// A spanLook is how a kind of window is shaded: a translucent fill,
+// optional hatching and the edge lines.
+type spanLook struct {
 	fill  color.Color
+	hatch color.Color // nil: none
 	edge  draw.LineStyle
+}
+
+// shade paints the window r in look l, clipped to c, and draws the edges
+// that fall inside c at x0 and x1.
+func (l spanLook) shade(c *draw.Canvas, r vg.Rectangle, x0, x1 vg.Length) {
+	c.FillPolygon(l.fill, rectPoints(r))
+	if l.hatch != nil {
+		hatch(c, r, draw.LineStyle{Color: l.hatch, Width: vg.Points(0.5)}, vg.Points(6))
+	}
+	for _, x := range []vg.Length{x0, x1} {
+		if c.ContainsX(x) {
+			c.StrokeLine2(l.edge, x, r.Min.Y, x, r.Max.Y)
+		}
+	}
+}
+
+// Thumbnail draws the look's key swatch. It implements plot.Thumbnailer.
+func (l spanLook) Thumbnail(c *draw.Canvas) {
+	r := inset(c.Rectangle, 6, 0)
+	l.shade(c, r, r.Min.X, r.Max.X)
+}
+
+// A spanItem is one window of a spans and its look.
+type spanItem struct {
+	w    Window
+	look spanLook
+}
+
+// spans shades windows over the full height of the data area, edges them
+// with thin lines and writes their labels in rows in the headroom, below
+// the key. Each label starts just inside its window's left edge (moved left
+// only where it would run off the data area), in the first row where it
+// keeps clear of every label already placed, so no two labels overlap.
+//
+// The rows are counted when the chart is laid out, from an estimate of the
+// data area's width, with a wide gap between labels; the labels are placed
+// again when drawn, at their true positions, with a narrower gap, so they
+// fit in the rows kept free.
+type spans struct {
+	items []spanItem
 	style text.Style
 
-	rows   []int     // label row of each window, set by reserve
-	offset vg.Length // distance of the first label row below the top
+	offset vg.Length      // distance of the first label row below the top
+	placed []vg.Rectangle // label boxes as last drawn, for tests
 }
+
+// Gaps between two labels in one row: when counting rows and when drawing.
+const (
+	spanGapReserve = 12 // points
+	spanGapDraw    = 5  // points
+)
 
 func (s *spans) rowHeight() vg.Length {
 	e := s.style.FontExtents()
@@ -101,45 +176,60 @@ func (s *spans) labelX(w Window, tr func(float64) vg.Length, left, right vg.Leng
 	return x
 }
 
-// reserve assigns each label the first row where it does not run into an
-// earlier one, and returns the height of the rows.
-func (s *spans) reserve(dw, off vg.Length, xmin, xmax float64) vg.Length {
-	s.offset = off
-	s.rows = make([]int, len(s.ws))
-	tr := func(x float64) vg.Length { return vg.Length((x - xmin) / (xmax - xmin) * float64(dw)) }
-	var ends []vg.Length // right end of the last label in each row
-	used := false
-	for i, w := range s.ws {
-		if w.Label == "" || w.To < xmin || w.From > xmax {
-			s.rows[i] = -1
+// assign returns the label row of each window (-1: no label shown) and the
+// number of rows, for a data area from left to right whose x axis maps x
+// positions with tr, keeping gap between labels in a row.
+func (s *spans) assign(tr func(float64) vg.Length, left, right, gap vg.Length) (rows []int, n int) {
+	rows = make([]int, len(s.items))
+	var used [][][2]vg.Length // label extents in each row
+	for i, it := range s.items {
+		w := it.w
+		if w.Label == "" || tr(w.To) < left || tr(w.From) > right {
+			rows[i] = -1
 			continue
 		}
-		used = true
-		x := s.labelX(w, tr, 0, dw)
+		x0 := s.labelX(w, tr, left, right)
+		x1 := x0 + s.style.Width(w.Label)
 		r := 0
-		for r < len(ends) && ends[r]+vg.Points(6) > x {
-			r++
+		for ; r < len(used); r++ {
+			clear := true
+			for _, e := range used[r] {
+				if x0 < e[1]+gap && e[0] < x1+gap {
+					clear = false
+					break
+				}
+			}
+			if clear {
+				break
+			}
 		}
-		if r == len(ends) {
-			ends = append(ends, 0)
+		if r == len(used) {
+			used = append(used, nil)
 		}
-		ends[r] = x + s.style.Width(w.Label)
-		s.rows[i] = r
+		used[r] = append(used[r], [2]vg.Length{x0, x1})
+		rows[i] = r
 	}
-	if !used {
-		return 0
-	}
-	return vg.Length(len(ends))*s.rowHeight() + vg.Points(3)
+	return rows, len(used)
 }
 
-// Plot draws the windows. It implements plot.Plotter.
+// reserve counts the label rows for a data area dw wide spanning [xmin,
+// xmax] and returns their height.
+func (s *spans) reserve(dw, off vg.Length, xmin, xmax float64) vg.Length {
+	s.offset = off
+	tr := func(x float64) vg.Length { return vg.Length((x - xmin) / (xmax - xmin) * float64(dw)) }
+	_, n := s.assign(tr, 0, dw, vg.Points(spanGapReserve))
+	if n == 0 {
+		return 0
+	}
+	return vg.Length(n)*s.rowHeight() + vg.Points(3)
+}
+
+// Plot draws the windows, then their labels on top. It implements
+// plot.Plotter.
 func (s *spans) Plot(c draw.Canvas, p *plot.Plot) {
 	trX, _ := p.Transforms(&c)
-	sty := s.style
-	sty.XAlign = draw.XLeft
-	sty.YAlign = draw.YTop
-	for i, w := range s.ws {
-		x0, x1 := trX(w.From), trX(w.To)
+	for _, it := range s.items {
+		x0, x1 := trX(it.w.From), trX(it.w.To)
 		if x1 < c.Min.X || x0 > c.Max.X {
 			continue
 		}
@@ -147,16 +237,24 @@ func (s *spans) Plot(c draw.Canvas, p *plot.Plot) {
 			Min: vg.Point{X: vg.Length(math.Max(float64(x0), float64(c.Min.X))), Y: c.Min.Y},
 			Max: vg.Point{X: vg.Length(math.Min(float64(x1), float64(c.Max.X))), Y: c.Max.Y},
 		}
-		c.FillPolygon(s.fill, rectPoints(r))
-		for _, x := range []vg.Length{x0, x1} {
-			if c.ContainsX(x) {
-				c.StrokeLine2(s.edge, x, c.Min.Y, x, c.Max.Y)
-			}
+		it.look.shade(&c, r, x0, x1)
+	}
+	sty := s.style
+	sty.XAlign = draw.XLeft
+	sty.YAlign = draw.YTop
+	rows, _ := s.assign(trX, c.Min.X, c.Max.X, vg.Points(spanGapDraw))
+	s.placed = s.placed[:0]
+	e := sty.FontExtents()
+	for i, it := range s.items {
+		if rows[i] < 0 {
+			continue
 		}
-		if s.rows != nil && s.rows[i] >= 0 {
-			y := c.Max.Y - s.offset - vg.Length(s.rows[i])*s.rowHeight()
-			c.FillText(sty, vg.Point{X: s.labelX(w, trX, c.Min.X, c.Max.X), Y: y}, w.Label)
-		}
+		pt := vg.Point{X: s.labelX(it.w, trX, c.Min.X, c.Max.X), Y: c.Max.Y - s.offset - vg.Length(rows[i])*s.rowHeight()}
+		c.FillText(sty, pt, it.w.Label)
+		s.placed = append(s.placed, vg.Rectangle{
+			Min: vg.Point{X: pt.X, Y: pt.Y - e.Ascent - e.Descent},
+			Max: vg.Point{X: pt.X + sty.Width(it.w.Label), Y: pt.Y},
+		})
 	}
 }
 
@@ -200,7 +298,7 @@ type hrule struct {
 // Plot draws the rule. It implements plot.Plotter.
 func (r *hrule) Plot(c draw.Canvas, p *plot.Plot) {
 	_, trY := p.Transforms(&c)
-	if y := trY(r.y); c.ContainsY(y) {
+	if y := trY(onAxis(r.y)); c.ContainsY(y) {
 		c.StrokeLine2(r.line, c.Min.X, y, c.Max.X, y)
 	}
 }
@@ -284,9 +382,13 @@ type bars []bar
 func (bs bars) Plot(c draw.Canvas, p *plot.Plot) {
 	trX, trY := p.Transforms(&c)
 	for _, b := range bs {
+		if math.IsNaN(b.y0) || math.IsNaN(b.y1) {
+			continue
+		}
+		y0, y1 := onAxis(b.y0), onAxis(b.y1)
 		r := vg.Rectangle{
-			Min: vg.Point{X: trX(b.x - b.w/2), Y: trY(math.Min(b.y0, b.y1))},
-			Max: vg.Point{X: trX(b.x + b.w/2), Y: trY(math.Max(b.y0, b.y1))},
+			Min: vg.Point{X: trX(b.x - b.w/2), Y: trY(math.Min(y0, y1))},
+			Max: vg.Point{X: trX(b.x + b.w/2), Y: trY(math.Max(y0, y1))},
 		}
 		b.look.paint(&c, r)
 		if b.cut {

@@ -9,52 +9,68 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 )
 
-// A StockChart shows, period by period, what is asked for and what is made:
-// demand as a line, capacity as a step line, the planned build as bars and
-// the stock at the end of each period as a second line. It serves the
-// buffer and frozen-production views of a plan.
+// A StockChart shows, period by period, what is asked for and what is made,
+// and the stock that results. It serves the buffer and frozen-production
+// views of a plan.
+//
+// The upper panel holds demand as a line, capacity as a step line and the
+// planned build as bars, on a value axis from zero. The stock at the end of
+// each period has a panel of its own below, on its own value axis, so a
+// pre-build that is small beside the demand still shows: bars rising from
+// zero, hatched where the stock is below zero (a backlog). Without demand,
+// capacity and build the stock is the only panel.
 //
 // Each slice has one value per label (x = i) or is nil to leave that part
-// out; at least one must be given. All values are in the same unit, on one
-// value axis that includes zero. A zero line is drawn when the stock goes
-// negative (a backlog).
+// out; at least one must be given. NaN marks a missing value (a gap in a
+// line, no bar); ±Inf is an error.
 type StockChart struct {
 	// Title is the heading above the chart; empty for none.
 	Title string
 
-	// Units names the quantity and unit, as the value axis label. Empty
-	// gives "Quantity".
+	// Units names the quantity and unit of demand, capacity and build, as
+	// the value axis label of the upper panel. Empty gives "Quantity".
 	Units string
+
+	// StockUnits is the value axis label of the stock panel. Empty gives
+	// "Stock".
+	StockUnits string
 
 	// Labels holds the label of each period; it must not be empty.
 	Labels []string
 
-	// Demand is the demand per period; finite.
+	// Demand is the demand per period.
 	Demand []float64
 
 	// Capacity is the most that can be made per period. NaN marks a
 	// period without a limit.
 	Capacity []float64
 
-	// Build is the quantity made per period, drawn as bars; finite.
+	// Build is the quantity made per period, drawn as bars.
 	Build []float64
 
-	// Stock is the stock at the end of each period; finite, and may be
-	// negative.
+	// Stock is the stock at the end of each period; it may be negative.
 	Stock []float64
 }
 
+// stockShare is the share of the chart's height the stock panel takes.
+const stockShare = 0.36
+
 // Plot checks c and builds the chart. It returns an error wrapping ErrNoData
 // for no labels or no series, ErrLength for a series whose length differs
-// from Labels' and ErrNotFinite for NaN or ±Inf where not allowed.
+// from Labels' and ErrNotFinite for ±Inf.
 func (c StockChart) Plot() (*plot.Plot, error) {
 	if err := c.check(); err != nil {
 		return nil, chartError("stock chart", err)
 	}
+	stockUnits := orDefault(c.StockUnits, "Stock")
+	if c.Demand == nil && c.Capacity == nil && c.Build == nil {
+		f := newFrame(c.Title, c.Labels, stockUnits, false)
+		addStock(f, f.key, c.Stock)
+		return f.done(), nil
+	}
 	f := newFrame(c.Title, c.Labels, orDefault(c.Units, "Quantity"), false)
 	f.zero = true
 	f.include([]float64{0})
-
 	var buildSw swatch
 	if c.Build != nil {
 		buildSw = swatch{fill: colBuild, rim: draw.LineStyle{Color: colBuildRim, Width: vg.Points(0.8)}}
@@ -65,7 +81,7 @@ func (c StockChart) Plot() (*plot.Plot, error) {
 		f.add(bs)
 		f.include(c.Build)
 	}
-	if lo, _, ok := extent(c.Stock); ok && lo < 0 {
+	if lo, _, ok := extent(c.Demand, c.Capacity, c.Build); ok && lo < 0 {
 		f.add(&hrule{y: 0, line: draw.LineStyle{Color: colRule, Width: vg.Points(1)}})
 	}
 	var capThumb *plotter.Line
@@ -80,8 +96,6 @@ func (c StockChart) Plot() (*plot.Plot, error) {
 		}
 		f.include(c.Capacity)
 	}
-	stockLook := look{Color: colRust, Width: vg.Points(1.8), Dashes: dashDashDot, Shape: draw.BoxGlyph{}, Radius: vg.Points(2.2)}
-	stockThumbs := f.series(0, c.Stock, stockLook, 0.5)
 	demandLook := look{Color: colInk, Width: vg.Points(1.6), Shape: draw.CircleGlyph{}, Radius: vg.Points(2.2)}
 	demandThumbs := f.series(0, c.Demand, demandLook, 0)
 
@@ -94,10 +108,37 @@ func (c StockChart) Plot() (*plot.Plot, error) {
 	if c.Build != nil {
 		f.key.add("Build", buildSw)
 	}
-	if stockThumbs != nil {
-		f.key.add("Stock (end of period)", stockThumbs...)
+	if c.Stock != nil {
+		g := newFrame("", c.Labels, stockUnits, false)
+		addStock(g, f.key, c.Stock)
+		f.stack(g, stockShare)
 	}
 	return f.done(), nil
+}
+
+// addStock draws the stock at the end of each period as bars from zero on
+// f, light where there is stock and hatched where it is below zero, and
+// names them in key (the chart's one key, above the top panel).
+func addStock(f *frame, key *legend, stock []float64) {
+	f.zero = true
+	f.include([]float64{0}, stock)
+	held := swatch{fill: tint(colRust, 0x59), rim: draw.LineStyle{Color: colRust, Width: vg.Points(0.8)}}
+	short := swatch{fill: tint(colDown, 0x80), rim: draw.LineStyle{Color: rgb(0x5a2410), Width: vg.Points(0.8)}, hatch: rgb(0x5a2410)}
+	bs := make(bars, 0, len(stock))
+	hasShort := false
+	for i, v := range stock {
+		b := bar{x: float64(i), w: 0.6, y0: 0, y1: v, look: held}
+		if v < 0 {
+			b.look, hasShort = short, true
+		}
+		bs = append(bs, b)
+	}
+	f.add(bs)
+	f.add(&hrule{y: 0, line: draw.LineStyle{Color: colRule, Width: vg.Points(1)}})
+	key.add("Stock at end of period", held)
+	if hasShort {
+		key.add("Backlog (stock below zero)", short)
+	}
 }
 
 // check validates c.
@@ -112,19 +153,14 @@ func (c StockChart) check() error {
 	for _, s := range []struct {
 		name string
 		vs   []float64
-		nan  bool
-	}{{"demand", c.Demand, false}, {"capacity", c.Capacity, true}, {"build", c.Build, false}, {"stock", c.Stock, false}} {
+	}{{"demand", c.Demand}, {"capacity", c.Capacity}, {"build", c.Build}, {"stock", c.Stock}} {
 		if s.vs == nil {
 			continue
 		}
 		if err := sameLength(s.name, s.vs, n, "label"); err != nil {
 			return err
 		}
-		check := finite
-		if s.nan {
-			check = finiteOrNaN
-		}
-		if err := check(s.name, s.vs); err != nil {
+		if err := finiteOrNaN(s.name, s.vs); err != nil {
 			return err
 		}
 	}

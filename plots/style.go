@@ -89,6 +89,21 @@ var (
 	lookBaseline = look{Color: colIndigo, Width: vg.Points(1.6), Dashes: dashDash}
 )
 
+// Looks of the windows of a plan chart: the events of the plan, and the
+// past events cleaned out of the history (grey and hatched, so the two
+// differ in print and in grey).
+var (
+	lookWindow = spanLook{
+		fill: tint(colWindow, 0x66),
+		edge: draw.LineStyle{Color: rgb(0xa89a80), Width: vg.Points(0.6), Dashes: dashShort},
+	}
+	lookPast = spanLook{
+		fill:  tint(colSlate, 0x2e),
+		hatch: tint(colSlate, 0x8c),
+		edge:  draw.LineStyle{Color: colSlate, Width: vg.Points(0.6), Dashes: dashFine},
+	}
+)
+
 // scenarioLooks are cycled through by the scenarios of a plan chart. Dash
 // pattern and marker shape are unique within the list.
 var scenarioLooks = []look{

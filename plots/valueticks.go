@@ -48,34 +48,58 @@ func (vt ValueTicks) Ticks(min, max float64) []plot.Tick {
 		minor = d / 2
 	}
 	var ticks []plot.Tick
-	first, last := math.Ceil(min/d-1e-9), math.Floor(max/d+1e-9)
-	for k := first; k <= last; k++ {
-		v := k * d
+	for _, v := range multiples(min, max, d) {
 		ticks = append(ticks, plot.Tick{Value: v, Label: groupDigits(v, decimals)})
 	}
 	per := math.Round(d / minor)
-	for k := math.Ceil(min/minor - 1e-9); k <= math.Floor(max/minor+1e-9); k++ {
-		if math.Mod(math.Abs(k), per) == 0 {
+	for _, v := range multiples(min, max, minor) {
+		if k := math.Round(v / minor); math.Mod(math.Abs(k), per) == 0 {
 			continue // a labelled tick is there
 		}
-		ticks = append(ticks, plot.Tick{Value: k * minor})
+		ticks = append(ticks, plot.Tick{Value: v})
 	}
 	return ticks
 }
 
+// maxMultiples bounds the ticks multiples returns.
+const maxMultiples = 1000
+
+// multiples returns the multiples of step in [min, max], at most
+// maxMultiples of them. Far from zero, where consecutive multiples are no
+// longer distinct float64 values (|min|/step beyond 2^53), it returns none.
+func multiples(min, max, step float64) []float64 {
+	if !(step > 0) || math.IsInf(step, 0) {
+		return nil
+	}
+	first, last := math.Ceil(min/step-1e-9), math.Floor(max/step+1e-9)
+	if !(last >= first) || last-first >= maxMultiples || first+1 == first || last-1 == last {
+		return nil
+	}
+	vs := make([]float64, 0, int(last-first)+1)
+	for k := first; k <= last; k++ {
+		vs = append(vs, k*step)
+	}
+	return vs
+}
+
 // niceStep returns the smallest step f*10^e (f = 1, 2 or 5) that puts at
-// most n of its multiples in [min, max], with f and e.
-func niceStep(min, max float64, n int) (step, f float64, e int) {
-	e = int(math.Floor(math.Log10((max-min)/float64(n)))) - 1
-	for {
+// most n of its multiples in [lo, hi], with f and e. The range may be as
+// wide as float64 allows: its width is measured in halves so it does not
+// overflow, and e stays within the exponents float64 can hold.
+func niceStep(lo, hi float64, n int) (step, f float64, e int) {
+	w := math.Log10(hi/2-lo/2) + math.Log10(2) - math.Log10(float64(n))
+	e = -330
+	if w > -330 { // false for NaN too
+		e = int(math.Floor(math.Min(w, 308))) - 1
+	}
+	for ; ; e++ {
 		for _, f = range []float64{1, 2, 5} {
 			step = f * math.Pow(10, float64(e))
-			count := math.Floor(max/step+1e-9) - math.Ceil(min/step-1e-9) + 1
-			if count <= float64(n) {
+			count := math.Floor(hi/step+1e-9) - math.Ceil(lo/step-1e-9) + 1
+			if count <= float64(n) || e >= 308 {
 				return step, f, e
 			}
 		}
-		e++
 	}
 }
 

@@ -1,6 +1,7 @@
 package plots
 
 import (
+	"math"
 	"testing"
 
 	"golang.org/x/text/language"
@@ -82,6 +83,49 @@ func TestValueTicks(t *testing.T) {
 	}
 	if got := (ValueTicks{}).Ticks(1, 1); got != nil {
 		t.Errorf("empty range: got %v, want none", got)
+	}
+}
+
+// TestValueTicksExtremes checks ranges at the ends of float64: the step is
+// found without overflow, and where consecutive multiples of the step are
+// no longer distinct numbers no ticks are made rather than looping.
+func TestValueTicksExtremes(t *testing.T) {
+	m := math.MaxFloat64 / 8 // 2.247e307
+	for _, tc := range []struct {
+		name     string
+		min, max float64
+		want     []float64 // labelled ticks
+	}{
+		// Range 4.49e307 over at most 7 ticks: 5e306 would give
+		// floor(2.247e307/5e306) - ceil(-2.247e307/5e306) + 1 = 4+4+1 = 9,
+		// 1e307 gives 2+2+1 = 5, so the step is 1e307 (hand calculation).
+		{"widest", -m, m, []float64{-2e307, -1e307, 0, 1e307, 2e307}},
+		// Width 32 around 1e17: the step of 5 has multiples near 2e16,
+		// beyond 2^53, so k+1 == k: no ticks (hand calculation).
+		{"far from zero", 1e17, 1e17 + 32, nil},
+		// Range 4e-300: step 1e-300 gives 0..4, five ticks (hand
+		// calculation).
+		{"tiny", 0, 4e-300, []float64{0, 1e-300, 2e-300, 3e-300, 4e-300}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			var got []float64
+			for _, tk := range (ValueTicks{}).Ticks(tc.min, tc.max) {
+				if !tk.IsMinor() {
+					got = append(got, tk.Value)
+				}
+			}
+			if len(got) != len(tc.want) {
+				t.Fatalf("ticks %v, want %v", got, tc.want)
+			}
+			for i := range got {
+				// Relative to the tick itself: gonum's EqualWithinRel
+				// treats differences below the smallest normal number
+				// as absolute, which would fail the tiny range.
+				if math.Abs(got[i]-tc.want[i]) > 1e-12*math.Abs(tc.want[i]) {
+					t.Errorf("tick %d = %v, want %v", i, got[i], tc.want[i])
+				}
+			}
+		})
 	}
 }
 

@@ -114,7 +114,7 @@ func (c Waterfall) Plot() (*plot.Plot, error) {
 
 	link := draw.LineStyle{Color: rgb(0x666666), Width: vg.Points(0.8), Dashes: dashFine}
 	for k := 0; k <= n; k++ {
-		l := newLine(plotter.XYs{{X: float64(k) + barWidth/2, Y: totals[k]}, {X: float64(k+1) - barWidth/2, Y: totals[k]}}, look{})
+		l := newLine(plotter.XYs{{X: float64(k) + barWidth/2, Y: onAxis(totals[k])}, {X: float64(k+1) - barWidth/2, Y: onAxis(totals[k])}}, look{})
 		l.LineStyle = link
 		f.add(l)
 	}
@@ -124,10 +124,10 @@ func (c Waterfall) Plot() (*plot.Plot, error) {
 	var above, below plotter.XYLabels
 	put := func(x, y float64, s string, under bool) {
 		if under {
-			below.XYs = append(below.XYs, plotter.XY{X: x, Y: y})
+			below.XYs = append(below.XYs, plotter.XY{X: x, Y: onAxis(y)})
 			below.Labels = append(below.Labels, s)
 		} else {
-			above.XYs = append(above.XYs, plotter.XY{X: x, Y: y})
+			above.XYs = append(above.XYs, plotter.XY{X: x, Y: onAxis(y)})
 			above.Labels = append(above.Labels, s)
 		}
 	}

@@ -33,6 +33,10 @@ type periodTicks struct {
 	nominal bool
 	wrapped []string // nominal labels after wrapping (nil: as given)
 
+	// bare keeps the tick marks but writes no labels, for a panel with
+	// another below it that writes them.
+	bare bool
+
 	// width is the width of the data area the labels must fit in.
 	width vg.Length
 	// style is the tick label style the widths are measured in.
@@ -74,7 +78,11 @@ func (t *periodTicks) Ticks(min, max float64) []plot.Tick {
 	major := make(map[int]bool, len(shown))
 	for _, i := range shown {
 		major[i] = true
-		ticks = append(ticks, plot.Tick{Value: float64(i), Label: t.labels[i]})
+		tk := plot.Tick{Value: float64(i), Label: t.labels[i]}
+		if t.bare {
+			tk.Label = " " // a long mark, no text
+		}
+		ticks = append(ticks, tk)
 	}
 	for _, i := range t.minor(lo, hi, slot) {
 		if !major[i] {

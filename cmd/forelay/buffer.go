@@ -170,7 +170,11 @@ func bufferRun(opts *BufferOptions) error {
 	var set *outputSet
 	if opts.Out != "" {
 		set = newOutputSet(opts.Out)
-		set.add("buffer.csv", bufferCSV(r))
+		csv, err := bufferCSV(r)
+		if err != nil {
+			return err
+		}
+		set.add("buffer.csv", csv)
 		set.add("buffer.json", js)
 		if !opts.NoChart {
 			if err := set.addChart("buffer", bufferChart(r)); err != nil {

@@ -1,8 +1,6 @@
 package main
 
 import (
-	"bytes"
-	"encoding/csv"
 	"fmt"
 	"io"
 	"strconv"
@@ -79,17 +77,14 @@ func bufferJSON(r *bufferResult) bufferOutJSON {
 }
 
 // bufferCSV renders buffer.csv: one row per period.
-func bufferCSV(r *bufferResult) []byte {
-	var buf bytes.Buffer
-	w := csv.NewWriter(&buf)
-	w.Write([]string{"period", "demand", "capacity", "build", "stock", "required_start"})
+func bufferCSV(r *bufferResult) ([]byte, error) {
+	rows := [][]string{{"period", "demand", "capacity", "build", "stock", "required_start"}}
 	b := r.Buffer
 	for t, per := range r.Plan.Periods {
-		w.Write([]string{per.String(), csvNum(b.Demand[t], 2), csvNum(b.Capacity[t], 2), csvNum(b.Build[t], 2),
+		rows = append(rows, []string{per.String(), csvNum(b.Demand[t], 2), csvNum(b.Capacity[t], 2), csvNum(b.Build[t], 2),
 			csvNum(b.Stock[t], 2), csvNum(b.Required[t], 2)})
 	}
-	w.Flush()
-	return buf.Bytes()
+	return encodeCSV(rows)
 }
 
 // writeBufferText writes the human report of a buffer run.
@@ -152,7 +147,7 @@ func writeBufferText(w io.Writer, r *bufferResult) {
 }
 
 // bufferChart is the build plan: demand at the service quantile,
-// capacity, the build as bars and the stock.
+// capacity and the build as bars, with the stock in a panel below.
 func bufferChart(r *bufferResult) plots.StockChart {
 	p, b := r.Plan, r.Buffer
 	labels := make([]string, len(p.Periods))
@@ -160,12 +155,13 @@ func bufferChart(r *bufferResult) plots.StockChart {
 		labels[t] = per.String()
 	}
 	return plots.StockChart{
-		Title:    fmt.Sprintf("Build ahead, %s: %s at %s service", p.File.Plan, p.Scenarios[r.Scenario].Name, pctText(r.Opts.Service)),
-		Units:    unitsLabel(p.File.Units, p.History.Freq().String()),
-		Labels:   labels,
-		Demand:   b.Demand,
-		Capacity: b.Capacity,
-		Build:    b.Build,
-		Stock:    b.Stock,
+		Title:      fmt.Sprintf("Build ahead, %s: %s at %s service", p.File.Plan, p.Scenarios[r.Scenario].Name, pctText(r.Opts.Service)),
+		Units:      unitsLabel(p.File.Units, p.History.Freq().String()),
+		StockUnits: stockLabel(p.File.Units),
+		Labels:     labels,
+		Demand:     b.Demand,
+		Capacity:   b.Capacity,
+		Build:      b.Build,
+		Stock:      b.Stock,
 	}
 }

@@ -37,8 +37,9 @@ simulated with the same random draws, so differences between scenarios come
 from their events alone.
 
 With --out DIR it writes compare.csv, compare.json, compare.png / compare.svg
-(every scenario's adjusted plan with its band) and, for each scenario with
-events, waterfall-NAME.png / waterfall-NAME.svg (the walk from the baseline
+(over the plan periods, the baseline and every scenario's adjusted plan with
+the capacity, and below them each scenario's change from the baseline) and,
+for each scenario with events, waterfall-NAME.png / waterfall-NAME.svg (the walk from the baseline
 total through each event's contribution to the scenario's total).`,
 		Example: `  forelay compare examples/dairy/plan.yaml
   forelay compare plan.yaml --out out --service 0.9
@@ -105,10 +106,14 @@ func compareRun(opts *CompareOptions) error {
 	var set *outputSet
 	if opts.Out != "" {
 		set = newOutputSet(opts.Out)
-		set.add("compare.csv", compareCSV(r))
+		csv, err := compareCSV(r)
+		if err != nil {
+			return err
+		}
+		set.add("compare.csv", csv)
 		set.add("compare.json", js)
 		if !opts.NoChart {
-			if err := set.addChart("compare", planChart(r.Plan)); err != nil {
+			if err := set.addChart("compare", compareChart(r)); err != nil {
 				return err
 			}
 			for _, c := range r.Rows {

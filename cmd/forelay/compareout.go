@@ -1,8 +1,6 @@
 package main
 
 import (
-	"bytes"
-	"encoding/csv"
 	"fmt"
 	"io"
 	"math"
@@ -69,33 +67,41 @@ func compareJSON(r *compareResult) compareOutJSON {
 }
 
 // compareCSV renders compare.csv: one row per scenario, then one column
-// per future event holding its contribution to the total (empty when the
-// event is not in the scenario).
-func compareCSV(r *compareResult) []byte {
+// per future event holding its contribution to the total. Every number
+// cell holds a number, as in plan.csv: an event not in the scenario
+// contributes 0, and without a capacity nothing can be breached or needs
+// building ahead, so breach_probability and prebuild are 0. Only
+// prebuild_before, a period, is empty when there is none.
+func compareCSV(r *compareResult) ([]byte, error) {
 	p := r.Plan
-	var b bytes.Buffer
-	w := csv.NewWriter(&b)
 	head := []string{"scenario", "total", "change", "peak_period", "peak", "p90_peak_period", "p90_peak",
 		"breach_probability", "prebuild", "prebuild_before"}
 	for _, e := range p.Future {
 		head = append(head, e.ID)
 	}
-	w.Write(head)
+	rows := [][]string{head}
 	for _, c := range r.Rows {
 		before := ""
 		if c.PrebuildAt >= 0 {
 			before = p.Periods[c.PrebuildAt].String()
 		}
 		row := []string{c.Name, csvNum(c.Total, 2), csvNum(c.Total-c.BaselineTotal, 2), p.Periods[c.Peak].String(),
-			csvNum(c.PeakValue, 2), p.Periods[c.P90Peak].String(), csvNum(c.P90PeakValue, 2), csvNum(c.PAnyBreach, 4),
-			csvNum(c.Prebuild, 2), before}
+			csvNum(c.PeakValue, 2), p.Periods[c.P90Peak].String(), csvNum(c.P90PeakValue, 2), csvNum(zeroIfNaN(c.PAnyBreach), 4),
+			csvNum(zeroIfNaN(c.Prebuild), 2), before}
 		for _, e := range p.Future {
-			row = append(row, contributionOf(c, e.ID, csvNum, ""))
+			row = append(row, contributionOf(c, e.ID, csvNum, csvNum(0, 2)))
 		}
-		w.Write(row)
+		rows = append(rows, row)
 	}
-	w.Flush()
-	return b.Bytes()
+	return encodeCSV(rows)
+}
+
+// zeroIfNaN returns v, or 0 when v is NaN.
+func zeroIfNaN(v float64) float64 {
+	if math.IsNaN(v) {
+		return 0
+	}
+	return v
 }
 
 // contributionOf formats event id's contribution to c with format, or
@@ -194,4 +200,32 @@ func waterfallChart(r *compareResult, c scenario.Comparison) plots.Waterfall {
 		wf.Steps = append(wf.Steps, plots.Step{Label: k.ID, Value: k.Total})
 	}
 	return wf
+}
+
+// compareChart sets the scenarios side by side over the plan periods:
+// the baseline, each scenario with events and the capacity above, each
+// scenario's change from the baseline below. Scenarios without events are
+// the baseline and are left out, as on the plan chart, so each scenario
+// keeps its look across plan.png and compare.png.
+func compareChart(r *compareResult) plots.ComparisonChart {
+	p := r.Plan
+	labels := make([]string, len(p.Periods))
+	for t, per := range p.Periods {
+		labels[t] = per.String()
+	}
+	c := plots.ComparisonChart{
+		Title:       "Scenarios of plan " + p.File.Plan + ": " + p.History.Name,
+		Units:       unitsLabel(p.File.Units, p.History.Freq().String()),
+		ChangeUnits: "change from baseline",
+		Labels:      labels,
+		Baseline:    p.Baseline,
+		Capacity:    p.CapacityPerPeriod(),
+	}
+	for _, sp := range p.Scenarios {
+		if len(sp.Events) == 0 {
+			continue
+		}
+		c.Scenarios = append(c.Scenarios, plots.Curve{Name: sp.Name, Values: sp.Adjusted})
+	}
+	return c
 }

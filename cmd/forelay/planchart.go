@@ -3,25 +3,35 @@ package main
 import (
 	"math"
 
+	"forelay/forecast"
 	"forelay/plots"
 	"forelay/scenario"
 )
 
-// chartHistory is how many periods of history the plan chart shows before
-// the forecast: three years of months, or the equivalent.
-func chartHistory(season int) int {
-	if season < 4 {
-		return 24
+// chartHistory is how many periods of history the plan and fan charts show
+// before the forecast: enough seasons to read the pattern, few enough that
+// the plan is not squeezed into a sliver at the right. Three years of
+// months or quarters, two years of weeks, twelve weeks of days, 24 years.
+func chartHistory(f forecast.Frequency) int {
+	switch f {
+	case forecast.Daily:
+		return 84
+	case forecast.Weekly:
+		return 104
+	case forecast.Monthly:
+		return 36
+	case forecast.Quarterly:
+		return 12
 	}
-	return 3 * season
+	return 24
 }
 
-// planChart lays out the plan chart: the last years of history, the
-// baseline with its band, each scenario with events and its band, and the
-// event windows.
+// planChart lays out the plan chart: the last years of history with the
+// past events cleaned out of it, the baseline with its band, each scenario
+// with events and its band, and the windows of the events ahead.
 func planChart(p *scenario.Plan) plots.PlanChart {
 	n := p.History.Len()
-	show := min(n, chartHistory(p.Fit.Config.Season))
+	show := min(n, chartHistory(p.History.Freq()))
 	off := n - show // first history index shown
 	hz := len(p.Periods)
 	labels := make([]string, show+hz)
@@ -43,6 +53,8 @@ func planChart(p *scenario.Plan) plots.PlanChart {
 		Labels:        labels,
 		History:       plots.Curve{Name: "History", Values: p.History.Values[off:]},
 		Baseline:      base,
+		Windows:       futureWindows(p, show),
+		Past:          pastWindows(p, off),
 		ForecastStart: show,
 	}
 	for _, sp := range p.Scenarios {
@@ -51,31 +63,81 @@ func planChart(p *scenario.Plan) plots.PlanChart {
 		}
 		c.Scenarios = append(c.Scenarios, plots.Curve{Name: sp.Name, Start: show, Values: sp.Adjusted, Lower: sp.Lower, Upper: sp.Upper})
 	}
+	return c
+}
+
+// futureWindows returns the windows of the events acting on the plan, in
+// whole periods, on a chart whose first plan period is at x = show. A
+// step lasts; only its start and ramp are shaded, so the windows of later
+// events stay readable.
+func futureWindows(p *scenario.Plan, show int) []plots.Window {
+	hz := len(p.Periods)
 	first := p.Periods[0]
+	var ws []plots.Window
 	for _, e := range p.Future {
 		lo, hi, open := e.Window(first)
-		from := float64(show + lo.Sub(first))
-		to := float64(show + hz - 1)
+		from := lo.Sub(first)
+		to := hz - 1
 		if !open {
-			to = float64(show + hi.Sub(first))
+			to = hi.Sub(first)
 		}
 		if e.Kind == scenario.Step {
-			// A step lasts; shade only its start and ramp so the windows
-			// of later events stay readable.
-			to = min(to, from+float64(max(e.Ramp.Periods, 1)-1))
+			to = min(to, from+max(e.Ramp.Periods, 1)-1)
 		}
-		if to > float64(show+hz-1) {
-			to = float64(show + hz - 1)
-		}
-		if from < float64(show) {
-			from = float64(show)
-		}
-		if to < from || from > float64(show+hz-1) {
+		from, to = max(from, 0), min(to, hz-1)
+		if to < from {
 			continue
 		}
-		c.Windows = append(c.Windows, plots.Window{Label: e.ID, From: from, To: to})
+		ws = append(ws, plots.Window{Label: e.ID, From: float64(show+from) - 0.5, To: float64(show+to) + 0.5})
 	}
-	return c
+	return ws
+}
+
+// pastWindows returns the windows of the past events and past occurrences
+// cleaned out of the history (one per estimate of p.Cleaning), in whole
+// periods, on a chart whose first label is history period off. Those
+// before the history shown are left out.
+func pastWindows(p *scenario.Plan, off int) []plots.Window {
+	shown := p.History.Period(off)
+	n := p.History.Len() - off
+	var ws []plots.Window
+	for _, est := range p.Cleaning {
+		e := cleanedOccurrence(p.File, est)
+		if e == nil {
+			continue
+		}
+		lo, hi, open := e.Window(p.History.Start)
+		from, to := lo.Sub(shown), n-1
+		if !open {
+			to = min(hi.Sub(shown), n-1)
+		}
+		from = max(from, 0)
+		if to < from {
+			continue
+		}
+		ws = append(ws, plots.Window{Label: est.ID, From: float64(from) - 0.5, To: float64(to) + 0.5})
+	}
+	return ws
+}
+
+// cleanedOccurrence returns the event, or the past occurrence of one,
+// that estimate est was made for: the event with est's ID whose start is
+// est.When. It returns nil when there is none.
+func cleanedOccurrence(f *scenario.File, est scenario.Estimate) *scenario.Event {
+	for _, e := range f.Events {
+		if e.ID != est.ID {
+			continue
+		}
+		if e.Start.Label == est.When {
+			return e
+		}
+		for _, o := range e.Occurrences() {
+			if o.Start.Label == est.When {
+				return o
+			}
+		}
+	}
+	return nil
 }
 
 // unitsLabel is the value-axis label: "litres per month", or "per month".
@@ -84,4 +146,12 @@ func unitsLabel(units, period string) string {
 		return "units per " + period
 	}
 	return units + " per " + period
+}
+
+// stockLabel is the value-axis label of a stock panel: "litres in stock".
+func stockLabel(units string) string {
+	if units == "" {
+		return "units in stock"
+	}
+	return units + " in stock"
 }

@@ -10,7 +10,7 @@ import (
 // shown.
 func fanLabels(p *scenario.Plan) (labels []string, show int) {
 	n := p.History.Len()
-	show = min(n, chartHistory(p.Fit.Config.Season))
+	show = min(n, chartHistory(p.History.Freq()))
 	labels = make([]string, 0, show+len(p.Periods))
 	for i := n - show; i < n; i++ {
 		labels = append(labels, p.History.Period(i).String())
@@ -56,12 +56,13 @@ func stockChart(r *stressResult) plots.StockChart {
 		labels[t] = per.String()
 	}
 	c := plots.StockChart{
-		Title:  "Frozen production, " + p.File.Plan + ": " + r.Risks[r.Chart].Name,
-		Units:  unitsLabel(p.File.Units, p.History.Freq().String()),
-		Labels: labels,
-		Demand: fz.Demand,
-		Build:  fz.Production,
-		Stock:  fz.Stock,
+		Title:      "Frozen production, " + p.File.Plan + ": " + r.Risks[r.Chart].Name,
+		Units:      unitsLabel(p.File.Units, p.History.Freq().String()),
+		StockUnits: stockLabel(p.File.Units),
+		Labels:     labels,
+		Demand:     fz.Demand,
+		Build:      fz.Production,
+		Stock:      fz.Stock,
 	}
 	if p.File.Capacity != nil {
 		c.Capacity = fz.Capacity
