@@ -18,7 +18,7 @@ import (
 // event shaded over whole periods, and the past events cleaned out of the
 // history marked on the history shown.
 func TestPlanChartWindows(t *testing.T) {
-	p, err := buildPlan(filepath.Join(examplesDir(), "dairy", "plan.yaml"))
+	p, err := buildPlan(filepath.Join(examplesDir(), "dairy", "plan.yaml"), nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -94,7 +94,7 @@ func TestChartHistoryWindow(t *testing.T) {
 			write(t, filepath.Join(dir, "history.csv"), b.String())
 			write(t, filepath.Join(dir, "plan.yaml"), fmt.Sprintf(
 				"plan: w\nhistory: {file: history.csv, period: %s}\nhorizon: 26\nbaseline: {method: seasonal-naive}\n", tc.period))
-			p, err := buildPlan(filepath.Join(dir, "plan.yaml"))
+			p, err := buildPlan(filepath.Join(dir, "plan.yaml"), nil)
 			if err != nil {
 				t.Fatal(err)
 			}
