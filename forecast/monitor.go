@@ -64,8 +64,9 @@ const (
 	// It is the zero value.
 	InControl Verdict = iota
 	// Bias: the errors have drifted to one side. The tracking signal is
-	// beyond its limit, or a run rule of drift (Western Electric rules 2,
-	// 3 or 4) fired. The plan needs revising.
+	// beyond its limit also with the errors beyond the control limits left
+	// out, or a run rule of drift (Western Electric rules 2, 3 or 4)
+	// fired. The plan needs revising.
 	Bias
 	// Outlier: an error lies beyond the control limits (rule 1), or the
 	// tracking signal is beyond its limit only because of such errors (it
