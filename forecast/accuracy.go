@@ -63,7 +63,10 @@ type Accuracy struct {
 	MASE float64
 	// Bias is the mean error (1/n) sum e_t.
 	Bias float64
-	// TrackingSignal is the sum of errors over MAD.
+	// TrackingSignal is the sum of errors over MAD. It describes, it does
+	// not test: with unbiased independent errors it still grows like the
+	// square root of N, and with overlapping errors faster. BiasTest is
+	// the test; backtests leave this NaN.
 	TrackingSignal float64
 	// MAPESkipped counts the pairs with actual == 0 left out of MAPE.
 	MAPESkipped int

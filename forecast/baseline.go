@@ -63,6 +63,12 @@ type Result struct {
 	SSE float64
 	// Accuracy of the one-step in-sample predictions.
 	Accuracy Accuracy
+	// Bias tests whether the one-step in-sample errors average zero
+	// (BiasOf). One-step errors do not overlap, so Accuracy's tracking
+	// signal is kept beside it, but that signal is a description, not a
+	// test: with unbiased errors it still grows like the square root of
+	// the number of errors.
+	Bias BiasTest
 	// Backtest of the fitted method; nil when the series is too short.
 	Backtest   *Backtest
 	Metric     Metric
@@ -127,6 +133,7 @@ func Fit(ser Series, spec Spec) (*Result, error) {
 		}
 	}
 	res.Accuracy = Measure(y, fitted, MASEScale(y, spec.Config.Season), spec.Divisor)
+	res.Bias = BiasOf(res.Residuals())
 	if bt, err := RunBacktest(y, res.Method, res.Config, spec.Holdout, spec.Horizon, spec.Refit, spec.Divisor); err == nil {
 		res.Backtest = bt
 	}

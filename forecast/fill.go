@@ -7,8 +7,8 @@ import (
 )
 
 // FillMode says what ReadHistory does with a gap inside a series: a period
-// that has no row, or whose cell is empty or NaN. The zero value, FillNone,
-// makes every gap an error.
+// that has no row, or whose cell is empty (a NaN in the file is an error,
+// never a gap). The zero value, FillNone, makes every gap an error.
 type FillMode int
 
 // The fill modes.

@@ -57,19 +57,24 @@
 //
 // # Values
 //
-// A value cell is read with strconv.ParseFloat after trimming spaces.
-// Negative values are allowed. An empty cell, NaN or an infinity is a
-// missing value (ErrEmptyCell when it is an error); other text that is not a
-// number is an error wrapping ErrBadNumber.
+// A value cell holds a plain decimal number (see ParseDecimal): an
+// optional sign, digits with an optional decimal point, and an optional
+// exponent, with spaces around it allowed. Negative values are allowed. An
+// empty cell is a missing value (ErrEmptyCell when it is an error; a fill
+// mode fills it when it lies inside a series). Anything else is an error
+// wrapping ErrBadNumber, and ErrNotDecimal or ErrNotFinite: digit
+// separators (1_000, 1,000), hexadecimal (0x1p4), NaN and infinities are
+// refused, never read as missing, so a fill mode never hides them.
 //
 // # Errors
 //
 // Every error about the content of the file is a *ParseError whose File is
 // the name given to ReadHistory, with the 1-based line and column (in bytes,
 // after a byte order mark) of the offending cell, Field set to the header of
-// its column (empty for errors in the header), and Err wrapping one of the sentinels ErrMissingColumn,
-// ErrDuplicateColumn, ErrBadPeriod, ErrBadNumber, ErrEmptyCell,
-// ErrDuplicatePeriod, ErrUnsorted, ErrGap or ErrNoSeries, or, for a row
+// its column (empty for errors in the header), and Err wrapping one of the
+// sentinels ErrMissingColumn, ErrDuplicateColumn, ErrBadPeriod, ErrBadNumber
+// (with ErrNotDecimal or ErrNotFinite), ErrEmptyCell, ErrDuplicatePeriod,
+// ErrUnsorted, ErrGap or ErrNoSeries, or, for a row
 // that is not valid CSV or has the wrong number of cells, the error of
 // encoding/csv (such as csv.ErrQuote or csv.ErrFieldCount). When a file
 // has several problems, the first one met is reported; the order and gap
@@ -436,23 +441,13 @@ func (hr *historyReader) parseLabel(rw *row) error {
 	return nil
 }
 
-// parseValue reads one value cell; a missing value gives NaN.
+// parseValue reads one value cell with ParseDecimal; an empty cell is a
+// missing value and gives NaN.
 func parseValue(s string) (float64, error) {
 	if s == "" {
 		return math.NaN(), nil
 	}
-	v, err := strconv.ParseFloat(s, 64)
-	if err != nil {
-		var ne *strconv.NumError
-		if errors.As(err, &ne) && ne.Err == strconv.ErrRange {
-			return 0, fmt.Errorf("%w: %q is out of range", ErrBadNumber, s)
-		}
-		return 0, fmt.Errorf("%w: %q", ErrBadNumber, s)
-	}
-	if math.IsInf(v, 0) {
-		return math.NaN(), nil
-	}
-	return v, nil
+	return ParseDecimal(s)
 }
 
 // labelKind names a label form for messages: "a month" or "months".

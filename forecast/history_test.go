@@ -183,12 +183,11 @@ func TestReadHistory(t *testing.T) {
 			want: []wantSeries{{"north, east", "2026-01", []float64{1.5}}, {"say \"hi\"", "2026-01", []float64{2}}},
 		},
 		{
-			// NaN and Inf count as empty; at the ends of a column they
-			// are dropped.
-			name:   "NaN and Inf at the ends of a wide column",
-			input:  "period,a,b\n2026-01,NaN,1\n2026-02,2,2\n2026-03,inf,-Inf\n",
+			// Every form of ParseDecimal's grammar, spaces around it.
+			name:   "plain decimal forms",
+			input:  "period,a\n2026-01, +.5 \n2026-02,7.\n2026-03,-1.25E+2\n2026-04,3e-1\n2026-05,007\n",
 			layout: "wide", freq: Monthly,
-			want: []wantSeries{{"a", "2026-02", []float64{2}}, {"b", "2026-01", []float64{1, 2}}},
+			want: []wantSeries{{"a", "2026-01", []float64{0.5, 7, -125, 0.3, 7}}},
 		},
 		{
 			// Interior empty cell (line 3) and missing row (2026-03) in
@@ -253,7 +252,7 @@ func TestReadHistoryFiles(t *testing.T) {
 			},
 		},
 		{
-			// clips: NaN on line 3 (2025-02), no row for 2025-03; pins:
+			// clips: empty cell on line 3 (2025-02), no row for 2025-03; pins:
 			// no rows for 2025-03 and 2025-04. All become 0.
 			file: "long_gaps.csv", opt: ReadOptions{Fill: FillZero}, layout: "long", freq: Monthly,
 			want: []wantSeries{
@@ -380,14 +379,63 @@ func TestReadHistoryErrors(t *testing.T) {
 			input: "period,qty\n2026-01,5\n2026-02,§1O\n",
 			want:  []error{ErrBadNumber},
 			field: "qty",
-			msg:   `not a number: "1O"`,
+			msg:   `not a plain decimal number: "1O"; write digits`,
 		},
 		{
 			name:  "number out of range",
 			input: "series,period,value\na,2026-01,§1e999\n",
-			want:  []error{ErrBadNumber},
+			want:  []error{ErrBadNumber, ErrNotFinite},
 			field: "value",
 			msg:   "out of range",
+		},
+		{
+			// The message form of the issue: file:line:column: series:
+			// what was found.
+			name:  "digit separator",
+			input: "period,bottled-l\n2026-01,980\n2026-02,§1_000\n",
+			want:  []error{ErrBadNumber, ErrNotDecimal},
+			field: "bottled-l",
+			msg:   `h.csv:3:9: bottled-l: not a plain decimal number: "1_000"; write the digits without separators, such as 1000`,
+		},
+		{
+			name:  "thousands separator in a quoted cell",
+			input: "series,period,value\na,2026-01,§\"1,000\"\n",
+			want:  []error{ErrNotDecimal},
+			msg:   `"1,000"; use a point for decimals and no thousands separators`,
+		},
+		{
+			name:  "hexadecimal float",
+			input: "period,a\n2026-01,§0x1p4\n",
+			want:  []error{ErrBadNumber, ErrNotDecimal},
+			msg:   `not a plain decimal number: "0x1p4"; write the value in decimal digits`,
+		},
+		{
+			name:  "NaN is not a missing value",
+			input: "period,a\n2026-01,1\n2026-02,§NaN\n2026-03,3\n",
+			want:  []error{ErrBadNumber, ErrNotFinite},
+			field: "a",
+			msg:   `h.csv:3:9: a: not a finite number: "NaN"; leave the cell empty where the value is missing`,
+		},
+		{
+			// --fill fills empty cells only: it never hides a NaN.
+			name:  "NaN with a fill mode",
+			input: "series,period,value\na,2026-01,1\na,2026-02,§nan\na,2026-03,3\n",
+			opt:   ReadOptions{Fill: FillInterpolate},
+			want:  []error{ErrNotFinite},
+			field: "value",
+		},
+		{
+			name:  "NaN at the end of a column",
+			input: "period,a,b\n2026-01,1,1\n2026-02,2,§-Inf\n",
+			opt:   ReadOptions{Fill: FillZero},
+			want:  []error{ErrNotFinite},
+			msg:   `not a finite number: "-Inf"`,
+		},
+		{
+			name:  "infinity spelled out",
+			input: "period,a\n2026-01, §+Infinity \n", // columns skip leading spaces
+			want:  []error{ErrNotFinite},
+			msg:   `"+Infinity"`,
 		},
 		{
 			name:  "first error of a row is the leftmost",
@@ -523,8 +571,8 @@ func TestReadHistoryErrors(t *testing.T) {
 			msg:   `empty value for 2026-02 inside series "a"`,
 		},
 		{
-			name:  "NaN inside a long series",
-			input: "series,period,value\na,2026-01,1\na,2026-02,§nan\na,2026-03,3\n",
+			name:  "empty cell inside a long series",
+			input: "series,period,value\na,2026-01,1\na,2026-02,§\na,2026-03,3\n",
 			want:  []error{ErrEmptyCell, ErrGap},
 			field: "value",
 		},
@@ -536,7 +584,7 @@ func TestReadHistoryErrors(t *testing.T) {
 		},
 		{
 			name:  "long series without values",
-			input: "series,period,value\na,2026-01,1\nb,2026-01,§\nb,2026-02,NaN\n",
+			input: "series,period,value\na,2026-01,1\nb,2026-01,§\nb,2026-02, \n",
 			want:  []error{ErrEmptyCell},
 			msg:   `series "b" has no values`,
 		},
@@ -780,6 +828,7 @@ func FuzzReadHistory(f *testing.F) {
 	f.Add("series,period,value\na,2026-03-04,1\na,2026-03-18,x\nb,2026-03-11,2\n", uint8(2), uint8(1))
 	f.Add("\ufeffSeries,Period,Value,Note\r\nh,2026-W52,1,\"a,b\"\r\n\r\nh,2027-W01,2,\r\n", uint8(0), uint8(0))
 	f.Add("period,a\n2026-Q1,1\n2026-Q3,NaN\n2026-Q4,-2\n", uint8(4), uint8(1))
+	f.Add("period,a\n2026-Q1,1_0\n2026-Q2,\n2026-Q3,.5e+1\n", uint8(4), uint8(2))
 	f.Fuzz(func(t *testing.T, data string, freq, fill uint8) {
 		opt := ReadOptions{Freq: Frequency(freq % 6), Fill: FillMode(fill % 3)}
 		h, err := ReadHistory(strings.NewReader(data), "f.csv", opt)

@@ -64,11 +64,14 @@ const (
 	// It is the zero value.
 	InControl Verdict = iota
 	// Bias: the errors have drifted to one side. The tracking signal is
-	// beyond its limit, or a run rule of drift (Western Electric rules 2,
-	// 3 or 4) fired. The plan needs revising.
+	// beyond its limit also with the errors beyond the control limits left
+	// out, or a run rule of drift (Western Electric rules 2, 3 or 4)
+	// fired. The plan needs revising.
 	Bias
-	// Outlier: a single error lies beyond the control limits (rule 1) and
-	// nothing points to drift. Check for an unplanned event.
+	// Outlier: an error lies beyond the control limits (rule 1), or the
+	// tracking signal is beyond its limit only because of such errors (it
+	// is within its limit with them left out), and no run rule of drift
+	// fired. Check for an unplanned event.
 	Outlier
 )
 
@@ -188,6 +191,11 @@ type TrackPoint struct {
 	// TrackingSignal is CumError/MAD for the cumulative signal and
 	// SmoothedError/MAD for the smoothed one.
 	TrackingSignal float64
+	// SignalWithoutOutliers is the tracking signal computed as if the
+	// periods up to this one whose error lies beyond the control limits
+	// had not been tracked (see Track). It equals TrackingSignal when no
+	// period so far is beyond the limits, and is 0 when every one is.
+	SignalWithoutOutliers float64
 	// Sigmas is the point's position on the control chart, Error/sigma
 	// with sigma = sqrt(MSE).
 	Sigmas float64
@@ -210,17 +218,31 @@ type TrackPoint struct {
 //
 // The MAD is updated with the period's own error before the signal is
 // formed. The run rules (see RunRules) are applied to z_1..z_t with the
-// chart limit Z; RuleTrackingSignal is added when |TS_t| > TSLimit. The
-// verdict is:
+// chart limit Z; RuleTrackingSignal is added when |TS_t| > TSLimit.
 //
-//	bias       if |TS_t| > TSLimit or rule 2, 3 or 4 fired
-//	outlier    else if rule 1 fired
+// A single error far beyond the control limits can push the signal past
+// its limit by itself: with e_t large, C_t is close to e_t and MAD_t to
+// a |e_t|, so TS_t nears 1/a (10 at a = 0.1), and C_t keeps the error for
+// every later period. So Track also computes the signal without the
+// outliers, TS'_t (SignalWithoutOutliers): the same recursions run over
+// the periods 1..t with every period s <= t with |z_s| > Z (the periods
+// where rule 1 fired) left out, all of them at once, as if they had not
+// been tracked (C', E' and MAD' keep their values across a left-out
+// period; MAD'_0 = InitialMAD, and TS'_t = 0 while no period is left
+// in). The verdict is:
+//
+//	bias       if rule 2, 3 or 4 fired, or |TS_t| > TSLimit and |TS'_t| > TSLimit
+//	outlier    else if rule 1 fired, or |TS_t| > TSLimit (then |TS'_t| <= TSLimit:
+//	           the errors beyond the limits alone carry the signal past its limit)
 //	in-control otherwise
 //
-// Bias takes precedence over outlier: when a point is beyond the limits
-// and drift is also signalled, the verdict is bias and Rules lists both
-// (rule 1 and the drift rules), so the planner can see that a single
-// large error may be behind the drift.
+// A steady drift stays bias: its errors move the signal whether or not a
+// point beyond the limits is left out. A spike is an outlier at its own
+// period and at the later periods where the signal stays beyond its limit
+// only because of it. When a point is beyond the limits and drift is
+// signalled too, the verdict is bias and Rules lists every rule that fired
+// (rule 1 and the drift rules), so the planner can see both. Rules always
+// lists RuleTrackingSignal when |TS_t| > TSLimit, whatever the verdict.
 //
 // Track returns an error wrapping ErrLengthMismatch if actual and plan
 // differ in length, one wrapping ErrEmptyCell if an actual or plan value
@@ -244,24 +266,21 @@ func Track(actual, plan []float64, cfg TrackConfig) ([]TrackPoint, error) {
 		}
 	}
 	lim := ControlLimits(c.MSE, c.Z)
-	a := c.MADSmoothing
 	pts := make([]TrackPoint, len(actual))
 	z := make([]float64, len(actual))
-	var cum, sm float64
-	mad := c.InitialMAD
+	all := newSignalState(c)   // every period
+	clean := newSignalState(c) // periods within the limits only
 	for i := range actual {
 		e := actual[i] - plan[i]
-		cum += e
-		sm = a*e + (1-a)*sm
-		mad = a*math.Abs(e) + (1-a)*mad
-		ts := cum / mad
-		if c.Signal == SignalSmoothed {
-			ts = sm / mad
-		}
 		z[i] = e / lim.Sigma
+		all.add(e)
+		if math.Abs(z[i]) <= c.Z {
+			clean.add(e)
+		}
 		pts[i] = TrackPoint{
-			Actual: actual[i], Plan: plan[i], Error: e, CumError: cum,
-			SmoothedError: sm, MAD: mad, TrackingSignal: ts, Sigmas: z[i],
+			Actual: actual[i], Plan: plan[i], Error: e, CumError: all.cum,
+			SmoothedError: all.sm, MAD: all.mad, TrackingSignal: all.signal(),
+			SignalWithoutOutliers: clean.signal(), Sigmas: z[i],
 		}
 	}
 	for i, rules := range RunRules(z, c.Z) {
@@ -270,20 +289,54 @@ func Track(actual, plan []float64, cfg TrackConfig) ([]TrackPoint, error) {
 			rules = append(rules, RuleTrackingSignal)
 		}
 		p.Rules = rules
-		p.Verdict = verdict(rules)
+		p.Verdict = verdict(rules, math.Abs(p.SignalWithoutOutliers) > c.TSLimit)
 	}
 	return pts, nil
 }
 
-// verdict sums up the rules fired at one period: any drift rule gives
-// Bias, else rule 1 gives Outlier, else InControl.
-func verdict(rules []Rule) Verdict {
+// signalState holds the recursions of Track over the periods added.
+type signalState struct {
+	a, cum, sm, mad float64
+	n               int
+	smoothed        bool
+}
+
+func newSignalState(c TrackConfig) *signalState {
+	return &signalState{a: c.MADSmoothing, mad: c.InitialMAD, smoothed: c.Signal == SignalSmoothed}
+}
+
+// add takes in the error of one more period.
+func (s *signalState) add(e float64) {
+	s.cum += e
+	s.sm = s.a*e + (1-s.a)*s.sm
+	s.mad = s.a*math.Abs(e) + (1-s.a)*s.mad
+	s.n++
+}
+
+// signal returns the tracking signal over the periods added, 0 for none.
+func (s *signalState) signal() float64 {
+	if s.n == 0 {
+		return 0
+	}
+	if s.smoothed {
+		return s.sm / s.mad
+	}
+	return s.cum / s.mad
+}
+
+// verdict sums up the rules fired at one period: a run rule of drift, or
+// the tracking signal's rule when the signal without the outliers is also
+// beyond its limit (cleanBeyond), gives Bias; else rule 1 or the tracking
+// signal's rule gives Outlier; else InControl.
+func verdict(rules []Rule, cleanBeyond bool) Verdict {
 	v := InControl
 	for _, r := range rules {
-		if r.Drift() {
+		switch {
+		case r == RuleTrackingSignal && !cleanBeyond:
+			v = Outlier
+		case r.Drift():
 			return Bias
-		}
-		if r == RuleBeyondLimit {
+		case r == RuleBeyondLimit:
 			v = Outlier
 		}
 	}

@@ -150,7 +150,7 @@ func TestTrackVerdicts(t *testing.T) {
 			tol: 1e-12,
 		},
 		{
-			name:   "bias wins over outlier: tracking signal",
+			name:   "signal carried past its limit by the outlier",
 			actual: []float64{20, 15, 35},
 			cfg:    TrackConfig{InitialMAD: 10, MSE: 100},
 			// t=1: e=20  MAD = 2 + 9 = 11           C=20  TS = 1.818182
@@ -158,12 +158,13 @@ func TestTrackVerdicts(t *testing.T) {
 			// t=2: e=15  MAD = 1.5 + 9.9 = 11.4     C=35  TS = 3.070175
 			// t=3: e=35  MAD = 3.5 + 10.26 = 13.76  C=70  TS = 5.087209 > 4
 			//      z = 3.5 > 3: rule 1; window 2.0, 1.5, 3.5 has one point
-			//      beyond 2 and three beyond 1: no run rule. Both rule 1
-			//      and the tracking signal: bias, listing both.
+			//      beyond 2 and three beyond 1: no run rule. Without
+			//      period 3 the signal is that of t=2, 3.070175 < 4: the
+			//      outlier alone carries it past 4, so outlier.
 			want: []trackWant{
 				{20, 11, 20.0 / 11, 2, nil, InControl},
 				{35, 11.4, 35 / 11.4, 1.5, nil, InControl},
-				{70, 13.76, 70 / 13.76, 3.5, []Rule{RuleBeyondLimit, RuleTrackingSignal}, Bias},
+				{70, 13.76, 70 / 13.76, 3.5, []Rule{RuleBeyondLimit, RuleTrackingSignal}, Outlier},
 			},
 			tol: 1e-12,
 		},
@@ -205,6 +206,140 @@ func TestTrackVerdicts(t *testing.T) {
 			t.Fatalf("%s: %v", tc.name, err)
 		}
 		checkTrack(t, tc.name, got, tc.want, tc.tol)
+	}
+}
+
+// TestTrackOutlierIsNotBias checks the rule that a tracking signal pushed
+// past its limit by errors beyond the control limits is an outlier, not a
+// bias, while a steady drift stays a bias. Every sequence is tracked
+// against a plan of 0 with MAD_0 = 8, MSE = 100 (sigma 10, limits +-30)
+// and a = 0.1; TS' is the signal without the periods beyond the limits.
+// By hand, MAD_t = 0.1|e_t| + 0.9 MAD_{t-1} and the same for MAD' over
+// the periods left in.
+func TestTrackOutlierIsNotBias(t *testing.T) {
+	ts := []Rule{RuleTrackingSignal}
+	both := []Rule{RuleBeyondLimit, RuleTrackingSignal}
+	type point struct {
+		ts, clean float64
+		rules     []Rule
+		verdict   Verdict
+	}
+	for _, tc := range []struct {
+		name   string
+		errors []float64
+		cfg    TrackConfig
+		want   []point
+	}{
+		{
+			name:   "one spike",
+			errors: []float64{2, -3, 60, 1, -2},
+			cfg:    TrackConfig{InitialMAD: 8, MSE: 100},
+			// t=1: MAD = 0.2 + 7.2 = 7.4           C=2   TS = 2/7.4
+			// t=2: MAD = 0.3 + 6.66 = 6.96         C=-1  TS = -1/6.96
+			// t=3: MAD = 6 + 6.264 = 12.264        C=59  TS = 4.810828 > 4
+			//      z = 6 > 3: left out; MAD' = 6.96, C' = -1, TS' = -0.143678
+			// t=4: MAD = 0.1 + 11.0376 = 11.1376   C=60  TS = 5.387158 > 4
+			//      MAD' = 0.1 + 6.264 = 6.364, C' = 0, TS' = 0
+			// t=5: MAD = 0.2 + 10.02384 = 10.22384 C=58  TS = 5.673015 > 4
+			//      MAD' = 0.2 + 5.7276 = 5.9276, C' = -2, TS' = -0.337404
+			// No run rule: z = 0.2, -0.3, 6, 0.1, -0.2 has one point beyond 1.
+			// Before this rule periods 3 to 5 were judged bias.
+			want: []point{
+				{2 / 7.4, 2 / 7.4, nil, InControl},
+				{-1 / 6.96, -1 / 6.96, nil, InControl},
+				{59 / 12.264, -1 / 6.96, both, Outlier},
+				{60 / 11.1376, 0, ts, Outlier},
+				{58 / 10.22384, -2 / 5.9276, ts, Outlier},
+			},
+		},
+		{
+			name:   "steady drift, then a point beyond the limits",
+			errors: []float64{6, 7, 8, 9, 10, 35},
+			cfg:    TrackConfig{InitialMAD: 8, MSE: 100},
+			// t=1: MAD = 0.6 + 7.2 = 7.8           C=6   TS = 0.769231
+			// t=2: MAD = 0.7 + 7.02 = 7.72         C=13  TS = 1.683938
+			// t=3: MAD = 0.8 + 6.948 = 7.748       C=21  TS = 2.710377
+			// t=4: MAD = 0.9 + 6.9732 = 7.8732     C=30  TS = 3.810395
+			// t=5: MAD = 1.0 + 7.08588 = 8.08588   C=40  TS = 4.946890 > 4
+			//      no point beyond the limits: TS' = TS, bias.
+			// t=6: MAD = 3.5 + 7.277292 = 10.777292 C=75 TS = 6.959093 > 4
+			//      z = 3.5 > 3: left out; TS' = 40/8.08588 = 4.946890 > 4:
+			//      the drift carries the signal, so bias. Rules 2 and 3 do
+			//      not fire (z = 0.7 .. 1.0 and 3.5: one point beyond 2 and
+			//      one beyond 1 in their windows).
+			want: []point{
+				{6 / 7.8, 6 / 7.8, nil, InControl},
+				{13 / 7.72, 13 / 7.72, nil, InControl},
+				{21 / 7.748, 21 / 7.748, nil, InControl},
+				{30 / 7.8732, 30 / 7.8732, nil, InControl},
+				{40 / 8.08588, 40 / 8.08588, ts, Bias},
+				{75 / 10.777292, 40 / 8.08588, both, Bias},
+			},
+		},
+		{
+			name:   "two spikes, both left out",
+			errors: []float64{50, 1, -1, 2, 45, -1},
+			cfg:    TrackConfig{InitialMAD: 8, MSE: 100},
+			// t=1: MAD = 5 + 7.2 = 12.2            C=50  TS = 4.098361 > 4
+			//      z = 5: left out, nothing left in: TS' = 0
+			// t=2: MAD = 0.1 + 10.98 = 11.08       C=51  TS = 4.602888
+			//      MAD' = 0.1 + 7.2 = 7.3, C' = 1, TS' = 0.136986
+			// t=3: MAD = 0.1 + 9.972 = 10.072      C=50  TS = 4.964257
+			//      MAD' = 0.1 + 6.57 = 6.67, C' = 0, TS' = 0
+			// t=4: MAD = 0.2 + 9.0648 = 9.2648     C=52  TS = 5.612641
+			//      MAD' = 0.2 + 6.003 = 6.203, C' = 2, TS' = 0.322425
+			// t=5: MAD = 4.5 + 8.33832 = 12.83832  C=97  TS = 7.555508
+			//      z = 4.5: left out; TS' stays 2/6.203. Rule 2: the window
+			//      -0.1, 0.2, 4.5 has one point beyond 2, no.
+			// t=6: MAD = 0.1 + 11.554488 = 11.654488 C=96 TS = 8.237170
+			//      MAD' = 0.1 + 5.5827 = 5.6827, C' = 1, TS' = 0.175973
+			want: []point{
+				{50 / 12.2, 0, both, Outlier},
+				{51 / 11.08, 1 / 7.3, ts, Outlier},
+				{50 / 10.072, 0, ts, Outlier},
+				{52 / 9.2648, 2 / 6.203, ts, Outlier},
+				{97 / 12.83832, 2 / 6.203, both, Outlier},
+				{96 / 11.654488, 1 / 5.6827, ts, Outlier},
+			},
+		},
+		{
+			name:   "one spike, smoothed signal",
+			errors: []float64{2, -3, 100, 1},
+			// The limit 0.538 is TriggLimit(0.1, 0.95), given here so that
+			// the case does not depend on the table.
+			cfg: TrackConfig{InitialMAD: 8, MSE: 100, Signal: SignalSmoothed, TSLimit: 0.538},
+			// E_t = 0.1 e_t + 0.9 E_{t-1}, T = E/MAD:
+			// t=1: E = 0.2, MAD = 7.4                        T = 0.027027
+			// t=2: E = -0.3 + 0.18 = -0.12, MAD = 6.96       T = -0.017241
+			// t=3: E = 10 - 0.108 = 9.892, MAD = 10 + 6.264 = 16.264
+			//      T = 0.608214 > 0.538; z = 10: left out, T' = -0.12/6.96
+			// t=4: E = 0.1 + 8.9028 = 9.0028, MAD = 0.1 + 14.6376 = 14.7376
+			//      T = 0.610873 > 0.538; E' = 0.1 - 0.108 = -0.008,
+			//      MAD' = 0.1 + 6.264 = 6.364, T' = -0.001257
+			want: []point{
+				{0.2 / 7.4, 0.2 / 7.4, nil, InControl},
+				{-0.12 / 6.96, -0.12 / 6.96, nil, InControl},
+				{9.892 / 16.264, -0.12 / 6.96, both, Outlier},
+				{9.0028 / 14.7376, -0.008 / 6.364, ts, Outlier},
+			},
+		},
+	} {
+		plan := make([]float64, len(tc.errors))
+		got, err := Track(tc.errors, plan, tc.cfg)
+		if err != nil {
+			t.Fatalf("%s: %v", tc.name, err)
+		}
+		for i, w := range tc.want {
+			g := got[i]
+			const tol = 1e-12
+			if !scalar.EqualWithinAbsOrRel(g.TrackingSignal, w.ts, tol, tol) ||
+				!scalar.EqualWithinAbsOrRel(g.SignalWithoutOutliers, w.clean, tol, tol) {
+				t.Errorf("%s: period %d: TS %v, TS' %v; want %v, %v", tc.name, i+1, g.TrackingSignal, g.SignalWithoutOutliers, w.ts, w.clean)
+			}
+			if !slices.Equal(g.Rules, w.rules) || g.Verdict != w.verdict {
+				t.Errorf("%s: period %d: rules %v verdict %v; want %v %v", tc.name, i+1, g.Rules, g.Verdict, w.rules, w.verdict)
+			}
+		}
 	}
 }
 

@@ -170,7 +170,9 @@ func (tp TrackPlan) Choose(name string) (PlanLine, error) {
 //	actuals.csv:3:1: period: not a plan period: 2026-09 is inside the history (which ends 2026-10); track only periods after it
 //
 // Its Err wraps one of forecast.ReadHistory's sentinels for a malformed
-// file, forecast.ErrNoSeries when the planned series is missing (the
+// file (a value cell is a plain decimal number, see forecast.ParseDecimal:
+// 1_000 wraps forecast.ErrNotDecimal, NaN or an infinity
+// forecast.ErrNotFinite, never a gap), forecast.ErrNoSeries when the planned series is missing (the
 // message lists the series found), forecast.ErrBadPeriod when the labels
 // have another frequency than the plan, ErrOffPlan for a period inside
 // the history or beyond the horizon, and forecast.ErrGap when the actuals

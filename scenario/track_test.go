@@ -146,6 +146,13 @@ func TestReadActualsErrors(t *testing.T) {
 		{"long layout gap", "series,period,value\ngadgets,2027-01,5\nwidgets,2027-01,90\ngadgets,2027-02,6\ngadgets,2027-03,7\nwidgets,§2027-03,92\n",
 			forecast.ErrGap, "no actual for 2027-02"},
 		{"not a number", "period,widgets\n2027-01,§9O\n", forecast.ErrBadNumber, `"9O"`},
+		// Actuals go through forecast.ParseDecimal like the history.
+		{"digit separator", "period,widgets\n2027-01,§1_000\n", forecast.ErrNotDecimal,
+			`actuals.csv:2:9: widgets: not a plain decimal number: "1_000"`},
+		// Gaps are read with a zero fill, which must not hide a NaN.
+		{"NaN is not a gap", "period,widgets\n2027-01,90\n2027-02,§NaN\n2027-03,99\n", forecast.ErrNotFinite,
+			`actuals.csv:3:9: widgets: not a finite number: "NaN"; leave the cell empty`},
+		{"infinity", "series,period,value\nwidgets,2027-01,§-inf\n", forecast.ErrNotFinite, `"-inf"`},
 	} {
 		t.Run(c.name, func(t *testing.T) {
 			src, line, col := pos(c.csv)

@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"math"
 	"os"
 	"strings"
 
@@ -182,22 +183,13 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 	}
 	fmt.Fprintln(w)
 	if p := paramText(r.Model.Params()); p != "" {
-		fmt.Fprintf(w, "Parameters %s\n", p)
+		fmt.Fprintf(w, "Parameters %s (final fit on all %d periods)\n", p, s.Len())
 	}
 	fmt.Fprintln(w)
 
-	acc := newTable("accuracy"+unit, "points", "MAD", "MSE (/"+r.Accuracy.Divisor.String()+")", "RMSE", "MAPE %", "MASE", "bias", "tracking signal")
-	accRow(acc, "in-sample, one step ahead", r.Accuracy)
-	if bt := r.Backtest; bt != nil {
-		accRow(acc, fmt.Sprintf("backtest, %d origins", bt.Origins), bt.Accuracy)
-	}
-	if err := acc.write(w); err != nil {
+	if err := writeAccuracy(w, r, unit); err != nil {
 		return err
 	}
-	if r.Accuracy.MAPESkipped > 0 {
-		fmt.Fprintf(w, "MAPE leaves out %d period(s) with zero actuals.\n", r.Accuracy.MAPESkipped)
-	}
-
 	if len(r.Candidates) > 0 {
 		fmt.Fprintln(w)
 		ct := newTable("candidate", "settings", "MAD", "MSE", "MAPE %", "MASE", "AICc").left(1)
@@ -224,9 +216,10 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 			return err
 		}
 		if r.Select == forecast.SelectAICc {
-			fmt.Fprintln(w, "* = chosen: lowest AICc of the in-sample fit.")
+			fmt.Fprintln(w, "* = chosen: lowest AICc of the in-sample fit; settings and parameters are those of the fit on all the data.")
 		} else {
 			fmt.Fprintf(w, "* = chosen: lowest backtest %s (errors pooled over every origin and lead time).\n", strings.ToUpper(r.Metric.String()))
+			fmt.Fprintln(w, candidateNote(r))
 		}
 	}
 
@@ -242,9 +235,61 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 	return ft.write(w)
 }
 
-func accRow(t *table, label string, a forecast.Accuracy) {
+// writeAccuracy writes the accuracy table with its bias tests, its notes
+// and the warnings about the fit ("Warning: ..." lines).
+func writeAccuracy(w io.Writer, r *forecast.Result, unit string) error {
+	acc := newTable("accuracy"+unit, "points", "MAD", "MSE (/"+r.Accuracy.Divisor.String()+")", "RMSE", "MAPE %", "MASE", "bias", "one-step bias", "t", "p")
+	accRow(acc, "in-sample, one step ahead", r.Accuracy, r.Bias)
+	if bt := r.Backtest; bt != nil {
+		accRow(acc, fmt.Sprintf("backtest, %d origins", bt.Origins), bt.Accuracy, bt.Bias)
+	}
+	if err := acc.write(w); err != nil {
+		return err
+	}
+	fmt.Fprintln(w, "bias: mean error (actual - forecast), over every lead time in the backtest. Bias test: t = one-step bias / its")
+	fmt.Fprintln(w, "Newey-West (1987) standard error, p two-sided from Student's t; the backtest's one-step errors, one per origin, do not overlap.")
+	if r.Accuracy.MAPESkipped > 0 {
+		fmt.Fprintf(w, "MAPE leaves out %d period(s) with zero actuals.\n", r.Accuracy.MAPESkipped)
+	}
+	for _, s := range r.Warnings() {
+		fmt.Fprintf(w, "Warning: %s\n", s)
+	}
+	return nil
+}
+
+func accRow(t *table, label string, a forecast.Accuracy, b forecast.BiasTest) {
+	p := "-"
+	switch {
+	case math.IsNaN(b.P):
+	case b.P < 0.001:
+		p = "<0.001"
+	default:
+		p = fmt.Sprintf("%.3f", b.P)
+	}
 	t.add(label, fmt.Sprint(a.N), fmtNum(a.MAD, 1), fmtNum(a.MSE, 0),
-		fmtNum(a.RMSE, 1), fmtNum(a.MAPE, 2), fmtNum(a.MASE, 3), fmtNum(a.Bias, 1), fmtNum(a.TrackingSignal, 2))
+		fmtNum(a.RMSE, 1), fmtNum(a.MAPE, 2), fmtNum(a.MASE, 3), fmtNum(a.Bias, 1), fmtNum(b.Mean, 1), signedT(b.T), p)
+}
+
+// signedT formats a t statistic with a sign and two decimals, "-" for NaN.
+func signedT(t float64) string {
+	if math.IsNaN(t) {
+		return "-"
+	}
+	return signed(t, 2)
+}
+
+// candidateNote says where the candidates' figures come from, so that
+// they do not seem to contradict the final fit shown above the table.
+func candidateNote(r *forecast.Result) string {
+	n := r.Series.Len()
+	if bt := r.Backtest; bt != nil {
+		s := r.Series
+		return fmt.Sprintf("Candidate settings and parameters are fitted on the backtest's first training window (%s to %s, %d periods) "+
+			"and its errors scored over %d origins; the parameters at the top are the final fit on all %d periods.",
+			s.Start, s.Period(bt.Train-1), bt.Train, bt.Origins, n)
+	}
+	return fmt.Sprintf("Candidate settings and parameters are fitted on the backtest's first training window; "+
+		"the parameters at the top are the final fit on all %d periods.", n)
 }
 
 func bandSourceText(src forecast.VarianceSource) string {

@@ -10,20 +10,38 @@ import (
 // documented interface (README, "JSON output"); keep them stable.
 
 type accuracyJSON struct {
-	N              int `json:"n"`
-	MAD            num `json:"mad"`
-	MSE            num `json:"mse"`
-	RMSE           num `json:"rmse"`
-	MAPE           num `json:"mape"`
-	MAPESkipped    int `json:"mape_skipped"`
-	MASE           num `json:"mase"`
-	Bias           num `json:"bias"`
-	TrackingSignal num `json:"tracking_signal"`
+	N           int `json:"n"`
+	MAD         num `json:"mad"`
+	MSE         num `json:"mse"`
+	RMSE        num `json:"rmse"`
+	MAPE        num `json:"mape"`
+	MAPESkipped int `json:"mape_skipped"`
+	MASE        num `json:"mase"`
+	Bias        num `json:"bias"`
+	// BiasTest is the test of the one-step errors (in-sample, or one per
+	// backtest origin); nil for the candidates. It replaces the tracking
+	// signal, which grows with the number of errors and tests nothing.
+	BiasTest *biasTestJSON `json:"bias_test,omitempty"`
+}
+
+// biasTestJSON is a forecast.BiasTest of the one-step errors.
+type biasTestJSON struct {
+	N           int  `json:"n"`
+	Mean        num  `json:"mean"`
+	SE          num  `json:"se"`
+	Lag         int  `json:"lag"`
+	T           num  `json:"t"`
+	P           num  `json:"p"`
+	Significant bool `json:"significant"`
 }
 
 func toAccuracyJSON(a forecast.Accuracy) accuracyJSON {
 	return accuracyJSON{N: a.N, MAD: num(a.MAD), MSE: num(a.MSE), RMSE: num(a.RMSE), MAPE: num(a.MAPE),
-		MAPESkipped: a.MAPESkipped, MASE: num(a.MASE), Bias: num(a.Bias), TrackingSignal: num(a.TrackingSignal)}
+		MAPESkipped: a.MAPESkipped, MASE: num(a.MASE), Bias: num(a.Bias)}
+}
+
+func toBiasTestJSON(b forecast.BiasTest) *biasTestJSON {
+	return &biasTestJSON{N: b.N, Mean: num(b.Mean), SE: num(b.SE), Lag: b.Lag, T: num(b.T), P: num(b.P), Significant: b.Significant()}
 }
 
 // paramsJSON lists only the parameters that apply to the model.
@@ -90,6 +108,7 @@ type fitOutJSON struct {
 	Candidates []candidateJSON `json:"candidates,omitempty"`
 	Bands      bandsJSON       `json:"bands"`
 	Forecast   []pointJSON     `json:"forecast"`
+	Warnings   []string        `json:"warnings"`
 }
 
 func fitJSON(r *forecast.Result, horizon int, b bandSettings) fitOutJSON {
@@ -98,7 +117,9 @@ func fitJSON(r *forecast.Result, horizon int, b bandSettings) fitOutJSON {
 		Method: r.Method.String(), Auto: r.Auto, Settings: r.Model.Describe(), Season: r.Config.Season,
 		Params: paramsJSON(r.Model.Params()), N: r.Series.Len(), SSE: num(r.SSE),
 		Accuracy: toAccuracyJSON(r.Accuracy), MSEDivisor: r.Accuracy.Divisor.String(),
+		Warnings: append([]string{}, r.Warnings()...),
 	}
+	o.Accuracy.BiasTest = toBiasTestJSON(r.Bias)
 	if r.Auto {
 		o.Selection, o.Metric = r.Select.String(), r.Metric.String()
 	}
@@ -108,6 +129,7 @@ func fitJSON(r *forecast.Result, horizon int, b bandSettings) fitOutJSON {
 			rm[i] = num(math.Sqrt(v))
 		}
 		o.Backtest = &backtestJSON{Train: bt.Train, Origins: bt.Origins, Accuracy: toAccuracyJSON(bt.Accuracy), HorizonRMSE: rm}
+		o.Backtest.Accuracy.BiasTest = toBiasTestJSON(bt.Bias)
 	}
 	for _, c := range r.Candidates {
 		cj := candidateJSON{Method: c.Method.String(), Params: paramsJSON(c.Params), Settings: c.Describe,

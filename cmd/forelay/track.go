@@ -11,6 +11,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -58,10 +59,12 @@ the error (actual minus plan), the cumulative error, a running MAD, the tracking
 signal, the error's position on a control chart, and a verdict:
 
   in-control  the errors look like the plan's usual noise
-  bias        the tracking signal is beyond its limit, or a Western Electric
+  bias        the tracking signal is beyond its limit (also with the errors
+              beyond the control limits left out), or a Western Electric
               run rule of drift fired: re-forecast
-  outlier     one error beyond the control limits and no drift: check for an
-              unplanned event
+  outlier     an error beyond the control limits, and no drift: the signal
+              is within its limit once such errors are left out; check for
+              an unplanned event
 
 The plan is built again from FILE, or read from DIR/plan.json with --plan
 (written earlier by "forelay plan --out DIR"). The actuals use the history
@@ -380,7 +383,11 @@ func latestText(r trackReport) string {
 	for _, rule := range p.Rules {
 		switch rule {
 		case forecast.RuleTrackingSignal:
-			why = append(why, fmt.Sprintf("tracking signal %s beyond +-%s", signed(p.TrackingSignal, sdec), fmtG(c.TSLimit)))
+			w := fmt.Sprintf("tracking signal %s beyond +-%s", signed(p.TrackingSignal, sdec), fmtG(c.TSLimit))
+			if p.Verdict == forecast.Outlier {
+				w += fmt.Sprintf(", but %s without the %s", signed(p.SignalWithoutOutliers, sdec), outlierPeriods(r))
+			}
+			why = append(why, w)
 			side = p.TrackingSignal
 		case forecast.RuleBeyondLimit:
 			why = append(why, fmt.Sprintf("error %s sigma, beyond the %s-sigma limit", signed(p.Sigmas, 2), fmtG(c.Z)))
@@ -404,6 +411,22 @@ func latestText(r trackReport) string {
 	}
 	return fmt.Sprintf("%s: in-control: tracking signal %s within +-%s, error %s sigma; no action needed.",
 		per, signed(p.TrackingSignal, sdec), fmtG(c.TSLimit), signed(p.Sigmas, 2))
+}
+
+// outlierPeriods names the tracked periods whose error lies beyond the
+// control limits: "error beyond the limits in 2027-01" or "errors beyond
+// the limits in 2027-01, 2027-03".
+func outlierPeriods(r trackReport) string {
+	var per []string
+	for i, p := range r.tr.Points {
+		if slices.Contains(p.Rules, forecast.RuleBeyondLimit) {
+			per = append(per, r.tr.Periods[i].String())
+		}
+	}
+	if len(per) == 1 {
+		return "error beyond the limits in " + per[0]
+	}
+	return "errors beyond the limits in " + strings.Join(per, ", ")
 }
 
 // rulesText lists rule names, "-" for none.

@@ -259,6 +259,28 @@ func TestTrackRun(t *testing.T) {
 		}
 	})
 
+	// One spike against "flat" (MAD_0 5, sigma 6, a 0.1), errors 1, 40, 0:
+	//   2027-01: MAD = 0.1 + 4.5 = 4.6     C = 1   TS = 0.22
+	//   2027-02: MAD = 4 + 4.14 = 8.14     C = 41  TS = 5.04 > 4, z = 6.67 > 3
+	//   2027-03: MAD = 0 + 7.326 = 7.326   C = 41  TS = 5.60 > 4
+	// Without 2027-02: C' = 1 and MAD' = 0.9 * 4.6 = 4.14 at 2027-03,
+	// TS' = 0.24: the spike alone carries the signal, so outlier.
+	spike := trackFiles(t, "period,widgets\n2027-01,101\n2027-02,140\n2027-03,100\n")
+	t.Run("spike is an outlier", func(t *testing.T) {
+		o, out, _ := opts(func(o *TrackOptions) {
+			o.File, o.Actuals, o.PlanDir = filepath.Join(spike, "plan.yaml"), filepath.Join(spike, "actuals.csv"), spike
+			o.Scenario, o.FailOn = "flat", "bias"
+		})
+		if err := trackRun(o); err != nil {
+			t.Fatalf("%v, want no bias alert\n%s", err, out)
+		}
+		want := "2027-03: outlier: tracking signal +5.60 beyond +-4, but +0.24 without the error beyond the limits in 2027-02 " +
+			"(actuals above the plan) with no sign of drift; check for an unplanned event.\n"
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("output lacks %q\n%s", want, out)
+		}
+	})
+
 	t.Run("changed history warns", func(t *testing.T) {
 		changed := trackFiles(t, "period,widgets\n2027-01,104\n")
 		if err := os.WriteFile(filepath.Join(changed, "history.csv"), []byte("period,widgets\n2026-11,103\n2026-12,99\n"), 0o644); err != nil {

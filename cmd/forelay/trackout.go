@@ -22,6 +22,7 @@ type trackPeriodJSON struct {
 	CumError       num      `json:"cum_error"`
 	MAD            num      `json:"mad"`
 	TrackingSignal num      `json:"tracking_signal"`
+	SignalClean    num      `json:"signal_without_outliers"`
 	Sigmas         num      `json:"sigmas"`
 	Verdict        string   `json:"verdict"`
 	Rules          []string `json:"rules"`
@@ -78,7 +79,7 @@ func trackJSON(r trackReport) trackOutJSON {
 		}
 		o.Periods = append(o.Periods, trackPeriodJSON{Period: tr.Periods[i].String(), Actual: num(p.Actual), Plan: num(p.Plan),
 			Baseline: num(tr.Baseline[i]), Error: num(p.Error), CumError: num(p.CumError), MAD: num(p.MAD),
-			TrackingSignal: num(p.TrackingSignal), Sigmas: num(p.Sigmas), Verdict: p.Verdict.String(), Rules: rules})
+			TrackingSignal: num(p.TrackingSignal), SignalClean: num(p.SignalWithoutOutliers), Sigmas: num(p.Sigmas), Verdict: p.Verdict.String(), Rules: rules})
 	}
 	va := tr.ValueAdded
 	o.FVA = fvaJSON{N: va.N, PlanMAD: num(va.PlanMAD), BaselineMAD: num(va.BaselineMAD), PlanBias: num(va.PlanBias),
