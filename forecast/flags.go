@@ -8,7 +8,7 @@ import (
 )
 
 // boundTol is how close to a bound an estimated parameter must be for
-// Warnings to call it at the bound.
+// Flags to call it at the bound.
 const boundTol = 1e-3
 
 // A paramBound is one end of the range of a smoothing parameter, with what
@@ -22,8 +22,12 @@ type paramBound struct {
 	fix     string
 }
 
-// Warnings returns plain sentences about what makes the fitted baseline
-// weak, each with what to do; nil when there is nothing to say:
+// Flags returns plain sentences about what may make the fitted baseline
+// weak, each with what to do; nil when there is nothing to say. They are
+// shown with the baseline; they are not warnings about the input (a model
+// that fits the data well can stop at a bound, and about one backtest in
+// ten or more of a sound model shows a significant bias), so a strict run
+// does not stop on them. Two things are flagged:
 //
 //   - a smoothing parameter that the fit estimated (not one held by
 //     Config.Fixed) within 1e-3 of a bound of its range, with what that
@@ -43,7 +47,7 @@ type paramBound struct {
 // The parameters are those of the final fit on the whole history; the
 // bias is that of the backtest (see Backtest.Bias for how often a model
 // that fits the data is called biased).
-func (r *Result) Warnings() []string {
+func (r *Result) Flags() []string {
 	var w []string
 	for _, b := range r.bounds() {
 		if b.upper && b.value < b.bound-boundTol || !b.upper && b.value > b.bound+boundTol {

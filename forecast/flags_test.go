@@ -17,7 +17,7 @@ func (s paramStub) Params() Params { return s.p }
 // The bounds are those of ets_fit.go (alpha, beta, gamma in [0.0001,
 // 0.9999], gamma at most 1 - alpha, phi in [0.8, 0.98]) and croston.go
 // (alpha in [0.05, 0.3]); "at a bound" means within 1e-3 of it.
-func TestWarnings(t *testing.T) {
+func TestFlags(t *testing.T) {
 	nan := math.NaN()
 	held := 0.0001
 	sig := &Backtest{Bias: BiasTest{N: 19, Mean: 1234.4, SE: 398, T: 3.1, P: 0.002}}
@@ -97,7 +97,7 @@ func TestWarnings(t *testing.T) {
 		},
 	} {
 		r := &Result{Method: tc.method, Model: paramStub{p: tc.p}, Config: Config{Fixed: tc.fixed}, Backtest: tc.bt}
-		if got := r.Warnings(); !slices.Equal(got, tc.want) {
+		if got := r.Flags(); !slices.Equal(got, tc.want) {
 			t.Errorf("%s:\n got %q\nwant %q", tc.name, got, tc.want)
 		}
 	}

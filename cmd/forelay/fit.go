@@ -236,7 +236,7 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 }
 
 // writeAccuracy writes the accuracy table with its bias tests, its notes
-// and the warnings about the fit ("Warning: ..." lines).
+// and the flags on the fit ("Check: ..." lines).
 func writeAccuracy(w io.Writer, r *forecast.Result, unit string) error {
 	acc := newTable("accuracy"+unit, "points", "MAD", "MSE (/"+r.Accuracy.Divisor.String()+")", "RMSE", "MAPE %", "MASE", "bias", "one-step bias", "t", "p")
 	accRow(acc, "in-sample, one step ahead", r.Accuracy, r.Bias)
@@ -251,9 +251,7 @@ func writeAccuracy(w io.Writer, r *forecast.Result, unit string) error {
 	if r.Accuracy.MAPESkipped > 0 {
 		fmt.Fprintf(w, "MAPE leaves out %d period(s) with zero actuals.\n", r.Accuracy.MAPESkipped)
 	}
-	for _, s := range r.Warnings() {
-		fmt.Fprintf(w, "Warning: %s\n", s)
-	}
+	writeFlags(w, r)
 	return nil
 }
 
@@ -323,4 +321,12 @@ func fileLine(file string, line int) string {
 		return fmt.Sprintf("%s:%d", file, line)
 	}
 	return file
+}
+
+// writeFlags writes what may make the baseline weak, one "Check:" line
+// each (see forecast.Result.Flags).
+func writeFlags(w io.Writer, r *forecast.Result) {
+	for _, s := range r.Flags() {
+		fmt.Fprintf(w, "Check: %s\n", s)
+	}
 }

@@ -108,6 +108,7 @@ type fitOutJSON struct {
 	Candidates []candidateJSON `json:"candidates,omitempty"`
 	Bands      bandsJSON       `json:"bands"`
 	Forecast   []pointJSON     `json:"forecast"`
+	Flags      []string        `json:"flags"`
 	Warnings   []string        `json:"warnings"`
 }
 
@@ -117,7 +118,7 @@ func fitJSON(r *forecast.Result, horizon int, b bandSettings) fitOutJSON {
 		Method: r.Method.String(), Auto: r.Auto, Settings: r.Model.Describe(), Season: r.Config.Season,
 		Params: paramsJSON(r.Model.Params()), N: r.Series.Len(), SSE: num(r.SSE),
 		Accuracy: toAccuracyJSON(r.Accuracy), MSEDivisor: r.Accuracy.Divisor.String(),
-		Warnings: append([]string{}, r.Warnings()...),
+		Flags: warningList(r.Flags()), Warnings: []string{},
 	}
 	o.Accuracy.BiasTest = toBiasTestJSON(r.Bias)
 	if r.Auto {

@@ -155,7 +155,7 @@ func trackRun(opts *TrackOptions) error {
 	if err != nil {
 		return err
 	}
-	tp, source, err := loadTrackPlan(opts)
+	tp, source, warns, err := loadTrackPlan(opts)
 	if err != nil {
 		return err
 	}
@@ -170,7 +170,7 @@ func trackRun(opts *TrackOptions) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	actual, err := tp.ReadActuals(fh, opts.Actuals)
+	actual, err := tp.ReadActuals(forecast.BoundedReader(fh, opts.Actuals, opts.Shared.limits().input()), opts.Actuals)
 	fh.Close()
 	if err != nil {
 		return &inputError{err: err}
@@ -179,7 +179,10 @@ func trackRun(opts *TrackOptions) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	rep := trackReport{tp: tp, tr: tr, source: source, defaultLimit: opts.TSLimit == 0}
+	if err := warnings(opts.IO, opts.Shared, warns); err != nil {
+		return err
+	}
+	rep := trackReport{tp: tp, tr: tr, source: source, defaultLimit: opts.TSLimit == 0, warnings: warns}
 
 	js, err := marshalIndent(trackJSON(rep))
 	if err != nil {
@@ -217,54 +220,58 @@ type trackReport struct {
 	// defaultLimit is true when the tracking signal limit is the signal's
 	// default rather than --ts-limit.
 	defaultLimit bool
+	// warnings are the plan's warnings, or those about plan.json's inputs.
+	warnings []string
 }
 
 // loadTrackPlan builds the plan from the scenario file or reads it from
-// plan.json, and says which.
-func loadTrackPlan(opts *TrackOptions) (scenario.TrackPlan, string, error) {
+// plan.json, and says which; warns are the plan's warnings, or those about
+// the inputs plan.json was made from.
+func loadTrackPlan(opts *TrackOptions) (tp scenario.TrackPlan, source string, warns []string, err error) {
 	if opts.PlanDir == "" {
 		p, err := buildPlan(opts.File, opts.Shared)
 		if err != nil {
-			return scenario.TrackPlan{}, "", err
+			return scenario.TrackPlan{}, "", nil, err
 		}
-		return p.TrackPlan(), "recomputed from " + opts.File, nil
+		return p.TrackPlan(), "recomputed from " + opts.File, p.Warnings, nil
 	}
 	path := filepath.Join(opts.PlanDir, "plan.json")
 	tp, inputs, err := readSavedPlan(path)
 	if err != nil {
-		return scenario.TrackPlan{}, "", &inputError{err: err}
+		return scenario.TrackPlan{}, "", nil, &inputError{err: err}
 	}
-	if err := checkInputs(opts.File, path, inputs, opts.IO.ErrOut); err != nil {
-		return scenario.TrackPlan{}, "", err
+	if warns, err = checkInputs(opts.File, path, inputs); err != nil {
+		return scenario.TrackPlan{}, "", nil, err
 	}
-	return tp, "read from " + path, nil
+	return tp, "read from " + path, warns, nil
 }
 
 // checkInputs compares the digests plan.json records of the scenario and
-// history files with the files as they are now, and warns on w about any
-// that differ or cannot be checked. A scenario file that does not load is
-// an input error.
-func checkInputs(file, planPath string, inputs map[string]string, w io.Writer) error {
+// history files with the files as they are now, and returns a warning
+// for each that differs or cannot be checked. A scenario file that does
+// not load is an input error.
+func checkInputs(file, planPath string, inputs map[string]string) ([]string, error) {
 	f, err := scenario.Load(file)
 	if err != nil {
-		return &inputError{err: err}
+		return nil, &inputError{err: err}
 	}
+	var warns []string
 	for _, in := range []struct{ role, path string }{{"scenario", file}, {"history", f.History.File}} {
 		want, ok := inputs[in.role]
 		if !ok {
-			fmt.Fprintf(w, "warning: %s records no digest of the %s file; cannot tell whether %s changed since\n", planPath, in.role, in.path)
+			warns = append(warns, fmt.Sprintf("%s records no digest of the %s file; cannot tell whether %s changed since", planPath, in.role, in.path))
 			continue
 		}
 		got, err := fileDigest(in.path)
 		if err != nil {
-			fmt.Fprintf(w, "warning: cannot compare %s with the plan: %v\n", in.path, err)
+			warns = append(warns, fmt.Sprintf("cannot compare %s with the plan: %v", in.path, err))
 			continue
 		}
 		if got != want {
-			fmt.Fprintf(w, "warning: %s has changed since %s was written; the plan read may not match it (run forelay plan again, or leave out --plan)\n", in.path, planPath)
+			warns = append(warns, fmt.Sprintf("%s has changed since %s was written; the plan read may not match it (run forelay plan again, or leave out --plan)", in.path, planPath))
 		}
 	}
-	return nil
+	return warns, nil
 }
 
 // fileDigest returns "sha256:" and the hex SHA-256 of the file, the form

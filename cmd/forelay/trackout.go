@@ -62,6 +62,7 @@ type trackOutJSON struct {
 	Periods      []trackPeriodJSON `json:"periods"`
 	FVA          fvaJSON           `json:"fva"`
 	Latest       latestJSON        `json:"latest"`
+	Warnings     []string          `json:"warnings"`
 }
 
 func trackJSON(r trackReport) trackOutJSON {
@@ -70,7 +71,7 @@ func trackJSON(r trackReport) trackOutJSON {
 	o := trackOutJSON{Scenario: tr.Scenario, Plan: tp.Name, PlanSource: r.source, Series: tp.Series, Units: tp.Units,
 		Signal: c.Signal.String(), TSLimit: num(c.TSLimit), Z: num(c.Z), MADSmoothing: num(c.MADSmoothing),
 		MAD: num(c.InitialMAD), MSE: num(c.MSE), Sigma: num(tr.Limits.Sigma), UCL: num(tr.Limits.UCL), LCL: num(tr.Limits.LCL),
-		Periods: []trackPeriodJSON{},
+		Periods: []trackPeriodJSON{}, Warnings: warningList(r.warnings),
 	}
 	for i, p := range tr.Points {
 		rules := make([]string, len(p.Rules))
