@@ -163,6 +163,9 @@ func bufferRun(opts *BufferOptions) error {
 	if err != nil {
 		return err
 	}
+	if err := warnings(opts.IO, opts.Shared, r.Plan.Warnings); err != nil {
+		return err
+	}
 	js, err := marshalIndent(bufferJSON(r))
 	if err != nil {
 		return err

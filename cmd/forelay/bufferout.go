@@ -47,6 +47,7 @@ type bufferOutJSON struct {
 	Periods           []bufferPeriodJSON `json:"periods"`
 	Inputs            map[string]string  `json:"inputs"`
 	Notes             []string           `json:"notes"`
+	Warnings          []string           `json:"warnings"`
 	Caution           string             `json:"caution"`
 }
 
@@ -64,7 +65,7 @@ func bufferJSON(r *bufferResult) bufferOutJSON {
 		OpeningStock: num(b.Opening), Prebuild: num(b.Prebuild), PrebuildBefore: periodOrNull(p, b.PrebuildAt),
 		BuildStart: periodOrNull(p, b.BuildStart), OpeningGap: num(b.Gap), SafetyStock: num(r.Safety),
 		LeadTime: num(r.Opts.LeadTime), Sigma: num(r.Sigma), Z: num(r.Z), CycleServiceLevel: num(r.CSL),
-		Inputs: p.Digests, Notes: r.Notes, Caution: cautionText}
+		Inputs: p.Digests, Notes: r.Notes, Warnings: warningList(r.Plan.Warnings), Caution: cautionText}
 	if r.Sim != nil {
 		seed := r.Sim.Seed
 		o.Paths, o.Seed, o.Errors = r.Sim.Paths, &seed, r.Sim.Errors.String()

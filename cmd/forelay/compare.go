@@ -99,6 +99,9 @@ func compareRun(opts *CompareOptions) error {
 	if err != nil {
 		return err
 	}
+	if err := warnings(opts.IO, opts.Shared, r.Plan.Warnings); err != nil {
+		return err
+	}
 	js, err := marshalIndent(compareJSON(r))
 	if err != nil {
 		return err

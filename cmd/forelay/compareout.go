@@ -43,6 +43,7 @@ type compareOutJSON struct {
 	Scenarios     []compareScenarioJSON `json:"scenarios"`
 	Inputs        map[string]string     `json:"inputs"`
 	Notes         []string              `json:"notes"`
+	Warnings      []string              `json:"warnings"`
 	Caution       string                `json:"caution"`
 }
 
@@ -50,7 +51,7 @@ func compareJSON(r *compareResult) compareOutJSON {
 	p, sim := r.Plan, r.Sim
 	o := compareOutJSON{Plan: p.File.Plan, Units: p.File.Units, Paths: sim.Paths, Seed: sim.Seed, Errors: sim.Errors.String(),
 		Service: num(r.Opts.Service), BaselineTotal: num(scenario.Total(p.Baseline)), Inputs: p.Digests,
-		Notes: r.Notes, Caution: cautionText}
+		Notes: r.Notes, Warnings: warningList(r.Plan.Warnings), Caution: cautionText}
 	for _, c := range r.Rows {
 		cj := compareScenarioJSON{Name: c.Name, Events: eventIDs(c.Events), Total: num(c.Total), BaselineTotal: num(c.BaselineTotal),
 			Change:            num(c.Total - c.BaselineTotal),
