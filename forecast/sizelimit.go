@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"unicode/utf8"
 )
 
 // ErrTooLarge: an input file, or one line of it, is larger than its limit.
@@ -22,15 +23,19 @@ type SizeLimits struct {
 
 // A SizeError says which limit an input broke. It wraps ErrTooLarge.
 type SizeError struct {
-	// Limit names the limit broken: "bytes" or "line-bytes".
+	// Limit names the limit broken: "bytes", "line-bytes" or
+	// "name-length".
 	Limit string
 	// Max is the limit in bytes.
 	Max int64
 }
 
 func (e *SizeError) Error() string {
-	if e.Limit == "line-bytes" {
+	switch e.Limit {
+	case "line-bytes":
 		return fmt.Sprintf("a line longer than %d bytes; is this the right file?", e.Max)
+	case "name-length":
+		return fmt.Sprintf("a series name longer than %d characters; is this the right column?", e.Max)
 	}
 	return fmt.Sprintf("larger than %d bytes; is this the right file?", e.Max)
 }
@@ -86,4 +91,16 @@ func (b *boundedReader) Read(p []byte) (int, error) {
 		return 0, b.err
 	}
 	return n, err
+}
+
+// CheckNameLength returns a *ParseError wrapping a *SizeError for the first
+// series whose name has more than max characters (runes), nil when every
+// name is within the limit.
+func (h *History) CheckNameLength(max int) error {
+	for _, s := range h.Series {
+		if utf8.RuneCountInString(s.Name) > max {
+			return &ParseError{File: h.File, Field: fmt.Sprintf("series %.40q...", s.Name), Err: &SizeError{Limit: "name-length", Max: int64(max)}}
+		}
+	}
+	return nil
 }

@@ -114,12 +114,5 @@ func (d *decoder) checkLimits(f *File) {
 // checkSeriesNames refuses a history whose series names are longer than
 // the file's name limit.
 func (f *File) checkSeriesNames(h *forecast.History) error {
-	max := f.Limits.orDefaults().NameLength
-	for _, s := range h.Series {
-		if n := utf8.RuneCountInString(s.Name); n > max {
-			return &forecast.ParseError{File: h.File, Err: fmt.Errorf("series name %.40q... has %s",
-				s.Name, limitError(n, max, "characters", "name-length"))}
-		}
-	}
-	return nil
+	return h.CheckNameLength(f.Limits.orDefaults().NameLength)
 }

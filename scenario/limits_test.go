@@ -70,7 +70,7 @@ func TestLoadHistoryLimits(t *testing.T) {
 		wantErr string
 		is      error
 	}{
-		{Limits{NameLength: 20}, "h.csv: series name", nil},
+		{Limits{NameLength: 20}, `h.csv: series "ssssssssssssssssssssssssssssss"...: a series name longer than 20 characters`, forecast.ErrTooLarge},
 		{Limits{Input: forecast.SizeLimits{LineBytes: 30}}, "h.csv:1: a line longer than 30 bytes", forecast.ErrTooLarge},
 		{Limits{Input: forecast.SizeLimits{Bytes: 50}}, "h.csv: larger than 50 bytes", forecast.ErrTooLarge},
 	} {

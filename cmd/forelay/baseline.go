@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
@@ -39,14 +40,15 @@ type baselineFlags struct {
 }
 
 func (b *baselineFlags) register(fs *pflag.FlagSet) {
-	fs.StringVar(&b.Method, "method", "auto", "baseline method: "+fmt.Sprint(forecast.Methods()))
+	fs.StringVar(&b.Method, "method", "auto", "baseline method: "+strings.Join(forecast.Methods(), ", "))
 	fs.IntVar(&b.Season, "season", 0, "periods per seasonal cycle (0: 12 for months, 4 for quarters, 52 for weeks, 7 for days)")
 	fs.Float64Var(&b.Alpha, "alpha", 0, "hold the level smoothing parameter at this value (0-1)")
 	fs.Float64Var(&b.Beta, "beta", 0, "hold the trend smoothing parameter at this value (0-1)")
 	fs.Float64Var(&b.Gamma, "gamma", 0, "hold the seasonal smoothing parameter at this value (0-1)")
 	fs.Float64Var(&b.Phi, "phi", 0, "hold the trend damping factor at this value")
 	fs.IntVar(&b.Window, "window", 0, "moving-average window in periods (0: 3)")
-	fs.Float64SliceVar(&b.Weights, "weights", nil, "weighted-moving-average weights, oldest first (default: fitted)")
+	fs.Float64SliceVar(&b.Weights, "weights", nil, "weighted-moving-average weights `w1,w2,...`, oldest first (default: fitted)")
+	fs.Lookup("weights").DefValue = "" // "fitted", said in the usage
 	fs.BoolVar(&b.Dummies, "dummies", false, "linear-trend: add seasonal dummy variables")
 	fs.BoolVar(&b.Damped, "damped", false, "holt-winters-*: damp the trend")
 	fs.StringVar(&b.Metric, "metric", "mad", "auto: backtest error to minimise: mad, mse, mape or mase")

@@ -52,6 +52,12 @@ one with the lowest error on --metric wins; the table shows every candidate.`,
 			if opts.History == "" {
 				return flagErrorf("--history is required")
 			}
+			if cmd.Flags().Changed("workers") && opts.Workers < 1 {
+				return flagErrorf("--workers %d: must be at least 1 (leave it out for one worker per core)", opts.Workers)
+			}
+			if l := opts.Shared.limits(); int64(opts.Baseline.Horizon) > l.get("horizon") {
+				return l.exceeded("--horizon", "horizon", int64(opts.Baseline.Horizon))
+			}
 			opts.Baseline.record(cmd)
 			if runF != nil {
 				return runF(opts)
@@ -66,13 +72,14 @@ one with the lowest error on --metric wins; the table shows every candidate.`,
 	fl.StringVar(&opts.Fill, "fill", "none", "missing periods: none (an error), zero or interpolate")
 	fl.StringVar(&opts.Units, "units", "", "unit of the values, for the tables (e.g. litres)")
 	fl.BoolVar(&opts.JSON, "json", false, "print one JSON object per series per line")
-	fl.IntVar(&opts.Workers, "workers", 0, "series fitted in parallel (0: one per core)")
+	fl.IntVar(&opts.Workers, "workers", 0, "series fitted in parallel, at least 1 (default: one per core)")
 	opts.Baseline.register(fl)
 	return cmd
 }
 
-// loadHistory reads a history file with the period and fill flags.
-func loadHistory(path, period, fill string) (*forecast.History, error) {
+// loadHistory reads a history file with the period and fill flags, under
+// the size limits.
+func loadHistory(path, period, fill string, l limits) (*forecast.History, error) {
 	freq, err := forecast.ParseFrequency(period)
 	if err != nil {
 		return nil, &flagError{err: fmt.Errorf("--period: %w", err)}
@@ -86,8 +93,11 @@ func loadHistory(path, period, fill string) (*forecast.History, error) {
 		return nil, &inputError{err: err}
 	}
 	defer fh.Close()
-	h, err := forecast.ReadHistory(fh, path, forecast.ReadOptions{Freq: freq, Fill: fm})
+	h, err := forecast.ReadHistory(forecast.BoundedReader(fh, path, l.input()), path, forecast.ReadOptions{Freq: freq, Fill: fm})
 	if err != nil {
+		return nil, &inputError{err: err}
+	}
+	if err := h.CheckNameLength(int(l.get("name-length"))); err != nil {
 		return nil, &inputError{err: err}
 	}
 	return h, nil
@@ -98,7 +108,7 @@ func fitRun(opts *FitOptions) error {
 	if err != nil {
 		return err
 	}
-	h, err := loadHistory(opts.History, opts.Period, opts.Fill)
+	h, err := loadHistory(opts.History, opts.Period, opts.Fill, opts.Shared.limits())
 	if err != nil {
 		return err
 	}

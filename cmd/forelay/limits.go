@@ -92,9 +92,9 @@ func limitHint(err error) string {
 	if !errors.As(err, &se) {
 		return ""
 	}
-	name := "history-bytes"
-	if se.Limit == "line-bytes" {
-		name = "line-bytes"
+	name := se.Limit
+	if name == "bytes" {
+		name = "history-bytes"
 	}
 	return fmt.Sprintf(" If it is, raise the limit with --limit %s=N.", name)
 }
