@@ -91,7 +91,11 @@ func planRun(opts *PlanOptions) error {
 	var set *outputSet
 	if opts.Out != "" {
 		set = newOutputSet(opts.Out)
-		set.add("plan.csv", planCSV(p))
+		csv, err := planCSV(p)
+		if err != nil {
+			return err
+		}
+		set.add("plan.csv", csv)
 		set.add("plan.json", js)
 		if !opts.NoChart {
 			if err := set.addChart("plan", planChart(p)); err != nil {

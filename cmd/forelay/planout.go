@@ -1,8 +1,6 @@
 package main
 
 import (
-	"bytes"
-	"encoding/csv"
 	"encoding/json"
 	"strconv"
 
@@ -26,14 +24,13 @@ func fmtCSV(v float64) string { return strconv.FormatFloat(v, 'f', 2, 64) }
 // planCSV renders plan.csv: one row per scenario and period with the
 // columns scenario, period, baseline, adjusted, risk_weighted, lower, upper
 // and then one column per future event holding its contribution.
-func planCSV(p *scenario.Plan) []byte {
-	var b bytes.Buffer
-	w := csv.NewWriter(&b)
+func planCSV(p *scenario.Plan) ([]byte, error) {
+	var rows [][]string
 	head := []string{"scenario", "period", "baseline", "adjusted", "risk_weighted", "lower", "upper"}
 	for _, e := range p.Future {
 		head = append(head, e.ID)
 	}
-	w.Write(head)
+	rows = append(rows, head)
 	for _, sp := range p.Scenarios {
 		for t, per := range p.Periods {
 			row := []string{sp.Name, per.String(), fmtCSV(p.Baseline[t]), fmtCSV(sp.Adjusted[t]),
@@ -41,11 +38,10 @@ func planCSV(p *scenario.Plan) []byte {
 			for i := range p.Future {
 				row = append(row, fmtCSV(sp.Contrib[i][t]))
 			}
-			w.Write(row)
+			rows = append(rows, row)
 		}
 	}
-	w.Flush()
-	return b.Bytes()
+	return encodeCSV(rows)
 }
 
 // The JSON shape of plan.json (and "forelay plan --json"). Field names are

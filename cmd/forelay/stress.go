@@ -155,7 +155,11 @@ func stressRun(opts *StressOptions) error {
 	var set *outputSet
 	if opts.Out != "" {
 		set = newOutputSet(opts.Out)
-		set.add("stress.csv", stressCSV(r))
+		csv, err := stressCSV(r)
+		if err != nil {
+			return err
+		}
+		set.add("stress.csv", csv)
 		set.add("stress.json", js)
 		if !opts.NoChart {
 			if err := set.addChart("fan", fanChart(r)); err != nil {

@@ -1,8 +1,6 @@
 package main
 
 import (
-	"bytes"
-	"encoding/csv"
 	"fmt"
 	"io"
 	"math"
@@ -133,15 +131,14 @@ func stressJSON(r *stressResult) stressOutJSON {
 // frozen-production columns are there only when production is frozen.
 // Quantities have two decimals, probabilities and utilisations four; a
 // value that does not apply (no capacity) is an empty cell.
-func stressCSV(r *stressResult) []byte {
-	var b bytes.Buffer
-	w := csv.NewWriter(&b)
+func stressCSV(r *stressResult) ([]byte, error) {
+	var rows [][]string
 	head := []string{"scenario", "period", "mean", "p5", "p10", "p50", "p90", "p95", "capacity", "p_breach",
 		"expected_shortfall", "shortfall_if_breach", "util_p50", "util_p90"}
 	if r.Frozen != nil {
 		head = append(head, "production", "stock", "stock_at_p50_demand", "stock_at_p90_demand", "p_short", "idle", "overload")
 	}
-	w.Write(head)
+	rows = append(rows, head)
 	for s, rk := range r.Risks {
 		for t, pr := range rk.Periods {
 			row := []string{rk.Name, r.Plan.Periods[t].String(), csvNum(pr.Mean, 2), csvNum(pr.P5, 2), csvNum(pr.P10, 2),
@@ -152,11 +149,10 @@ func stressCSV(r *stressResult) []byte {
 				row = append(row, csvNum(fz.Production[t], 2), csvNum(fz.Stock[t], 2), csvNum(fz.StockP50[t], 2),
 					csvNum(fz.StockP90[t], 2), csvNum(fz.PShort[t], 4), csvNum(fz.Idle[t], 2), csvNum(fz.Overload[t], 2))
 			}
-			w.Write(row)
+			rows = append(rows, row)
 		}
 	}
-	w.Flush()
-	return b.Bytes()
+	return encodeCSV(rows)
 }
 
 // writeStressText writes the human report of a stress run.

@@ -191,7 +191,11 @@ func trackRun(opts *TrackOptions) error {
 	var set *outputSet
 	if opts.Out != "" {
 		set = newOutputSet(opts.Out)
-		set.add("track.csv", trackCSV(rep))
+		csv, err := trackCSV(rep)
+		if err != nil {
+			return err
+		}
+		set.add("track.csv", csv)
 		control, signal := trackCharts(rep)
 		if err := set.addChart("control", control); err != nil {
 			return err

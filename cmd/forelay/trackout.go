@@ -1,8 +1,6 @@
 package main
 
 import (
-	"bytes"
-	"encoding/csv"
 	"strconv"
 	"strings"
 
@@ -94,21 +92,19 @@ func trackJSON(r trackReport) trackOutJSON {
 // period, actual, plan, baseline, error, cum_error, mad, tracking_signal,
 // sigmas, verdict and rules (rule names separated by spaces). Values have
 // two decimals, the signal and the sigmas four.
-func trackCSV(r trackReport) []byte {
+func trackCSV(r trackReport) ([]byte, error) {
 	tr := r.tr
-	var b bytes.Buffer
-	w := csv.NewWriter(&b)
-	w.Write([]string{"period", "actual", "plan", "baseline", "error", "cum_error", "mad", "tracking_signal", "sigmas", "verdict", "rules"})
+	var rows [][]string
+	rows = append(rows, []string{"period", "actual", "plan", "baseline", "error", "cum_error", "mad", "tracking_signal", "sigmas", "verdict", "rules"})
 	for i, p := range tr.Points {
 		rules := make([]string, len(p.Rules))
 		for k, ru := range p.Rules {
 			rules[k] = ru.String()
 		}
-		w.Write([]string{tr.Periods[i].String(), fmtCSV(p.Actual), fmtCSV(p.Plan), fmtCSV(tr.Baseline[i]), fmtCSV(p.Error),
+		rows = append(rows, []string{tr.Periods[i].String(), fmtCSV(p.Actual), fmtCSV(p.Plan), fmtCSV(tr.Baseline[i]), fmtCSV(p.Error),
 			fmtCSV(p.CumError), fmtCSV(p.MAD), fmt4(p.TrackingSignal), fmt4(p.Sigmas), p.Verdict.String(), strings.Join(rules, " ")})
 	}
-	w.Flush()
-	return b.Bytes()
+	return encodeCSV(rows)
 }
 
 func fmt4(v float64) string { return strconv.FormatFloat(v, 'f', 4, 64) }
