@@ -247,6 +247,10 @@ func (hr *historyReader) readRows(r io.Reader) error {
 			if errors.As(err, &pe) {
 				return &ParseError{File: hr.file, Line: pe.Line, Column: pe.Column, Err: pe.Err}
 			}
+			var own *ParseError // from a BoundedReader: it names the file already
+			if errors.As(err, &own) {
+				return own
+			}
 			return fmt.Errorf("%s: %w", hr.file, err)
 		}
 		cells := make([]cell, len(rec))
