@@ -397,7 +397,8 @@ func (s *Simulation) shocks() ([]float64, error) {
 
 // scenarioPaths returns the demand paths of scenario sp: the baseline,
 // the error paths and the draws of the scenario's events times their
-// contributions per unit (shapes, by event of p.Future), summarised.
+// contributions per unit (shapes, by event of p.Future), raised to the
+// plan's floor where they fall below it, summarised.
 func (s *Simulation) scenarioPaths(sp *ScenarioPlan, shapes [][]float64) *PathSet {
 	p := s.Plan
 	H := len(p.Periods)
@@ -423,8 +424,23 @@ func (s *Simulation) scenarioPaths(sp *ScenarioPlan, shapes [][]float64) *PathSe
 			}
 		}
 	}
+	if p.Floor != nil {
+		floorPaths(ps.Demand, *p.Floor)
+	}
 	ps.summarise()
 	return ps
+}
+
+// floorPaths raises every path value below floor to it: simulated demand,
+// like the plan, never goes below the floor (see Bands.Floor).
+func floorPaths(demand [][]float64, floor float64) {
+	for _, row := range demand {
+		for i, v := range row {
+			if v < floor {
+				row[i] = floor
+			}
+		}
+	}
 }
 
 // drawErrors fills s.Error path by path: each period's shock is drawn and

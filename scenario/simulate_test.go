@@ -370,3 +370,48 @@ func TestSimulateErrors(t *testing.T) {
 		}
 	}
 }
+
+// TestSimulateFloor: simulated demand, like the plan, never goes below the
+// floor; with floor: none it does. The test history runs near 1,000 a
+// month; a loss of 1,100 takes every path's middle below zero.
+func TestSimulateFloor(t *testing.T) {
+	body := `plan: floor
+horizon: 6
+baseline: {method: naive}
+bands: {floor: %s}
+events:
+  - {id: loss, kind: step, start: 2026-02, effect: {units: -1100}}
+`
+	for _, c := range []struct {
+		floor   string
+		wantMin float64 // the least P50 over the periods of the loss, at least
+		clipped bool
+	}{
+		{"0", 0, true},
+		{"none", math.Inf(-1), false},
+	} {
+		p := buildTestPlan(t, sprintf(body, c.floor), testHistory(48))
+		sim, err := Simulate(p, SimOptions{Paths: 2000, Seed: 5, Errors: Normal})
+		if err != nil {
+			t.Fatal(err)
+		}
+		ps := sim.Scenarios[0]
+		low := math.Inf(1)
+		for _, row := range ps.Demand {
+			for _, v := range row {
+				low = math.Min(low, v)
+			}
+		}
+		if c.clipped && low < 0 {
+			t.Errorf("floor %s: a path goes to %v", c.floor, low)
+		}
+		if !c.clipped && low >= 0 {
+			t.Errorf("floor %s: no path below 0 (least %v); the loss should take them there", c.floor, low)
+		}
+		for tt := 1; tt < len(p.Periods); tt++ {
+			if ps.Spread[tt].P50 < c.wantMin {
+				t.Errorf("floor %s, period %d: P50 %v below %v", c.floor, tt, ps.Spread[tt].P50, c.wantMin)
+			}
+		}
+	}
+}
