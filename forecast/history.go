@@ -599,11 +599,9 @@ func (hr *historyReader) series(c *column) (Series, []Filled, *ParseError) {
 		}
 	}
 	if lo < 0 {
-		at, field := c.header, hr.periodField
+		at, field := c.header, ""
 		if hr.long {
 			at, field = c.rows[0].values[0], hr.valueField
-		} else {
-			field = ""
 		}
 		return Series{}, nil, hr.errAt(at, field, fmt.Errorf("%w: series %q has no values", ErrEmptyCell, c.name))
 	}
