@@ -35,6 +35,11 @@ type Backtest struct {
 	// number of h-step errors) and HorizonCount[h-1] that number.
 	HorizonMSE   []float64
 	HorizonCount []int
+	// Forecasts[i][k] is the (k+1)-step forecast made at origin Train+i,
+	// and Errors[i][k] the actual minus it; both rows are as long as the
+	// lead times that origin reaches (at most len(HorizonMSE)), and an
+	// error is NaN where the actual is missing.
+	Forecasts, Errors [][]float64
 	// Model is the model fitted on the first training window.
 	Model Model
 }
@@ -87,8 +92,12 @@ func RunBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit boo
 		}
 		h := min(maxH, n-o)
 		f := model.Forecast(h)
+		errs := make([]float64, h)
+		bt.Forecasts = append(bt.Forecasts, f)
+		bt.Errors = append(bt.Errors, errs)
 		for k := 0; k < h; k++ {
 			e := y[o+k] - f[k]
+			errs[k] = e
 			if math.IsNaN(e) {
 				continue
 			}
