@@ -9,7 +9,7 @@ package forecast
 //
 // with season m >= 1 and damping φ in (0, 1], a and b depending on the
 // model's parameters and states. ShockForm gives m and φ; a and b follow
-// from two weights of each residue class (see scenario.ImpulseWeights).
+// from two weights of each residue class (see ImpulseWeights).
 // The forecast errors the model implies then obey a recursion of O(m)
 // operations per period, instead of a sum over all earlier shocks:
 //

@@ -98,7 +98,7 @@ func (r *shockResponse) weights(h int) []float64 {
 // two forecasts: 1e-9 relative to the weights plus 1e-12 relative to the
 // forecasts' size.
 func modelResponse(md forecast.Model, y []float64, h int) (r *shockResponse, psi []float64) {
-	psi, size := impulse(md, y, h)
+	psi, size := forecast.ImpulseResponse(md, y, h)
 	m, phi, ok := forecast.ShockForm(md)
 	if !ok || h <= 1 {
 		return nil, psi

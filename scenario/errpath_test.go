@@ -156,7 +156,7 @@ func TestModelResponses(t *testing.T) {
 				t.Fatal("no recursion: the simulation would fall back to the O(h²) sums")
 			}
 			// The weights differ from ImpulseWeights by rounding only.
-			equalSlices(t, "psi", psi, ImpulseWeights(md, tc.y, h), 1e-9)
+			equalSlices(t, "psi", psi, forecast.ImpulseWeights(md, tc.y, h), 1e-9)
 		})
 	}
 }

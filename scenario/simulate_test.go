@@ -49,7 +49,7 @@ func TestImpulseWeights(t *testing.T) {
 				t.Fatal(err)
 			}
 			orig := append([]float64(nil), y...)
-			got := ImpulseWeights(m, y, tc.h)
+			got := forecast.ImpulseWeights(m, y, tc.h)
 			equalSlices(t, "psi", got, tc.want, tc.tol)
 			equalSlices(t, "y after", y, orig, 0)
 		})
