@@ -75,16 +75,97 @@ const (
 	VarAnalytic   VarianceSource = "analytic"
 	VarBacktest   VarianceSource = "backtest"
 	VarRandomWalk VarianceSource = "mse-times-h"
+	// VarCalibrated: the errors of forecasts from earlier origins (see
+	// CalibrateVariance); VarFlatCalibrated: their one-step variance at
+	// every lead time.
+	VarCalibrated     VarianceSource = "calibrated"
+	VarFlatCalibrated VarianceSource = "flat-calibrated"
 )
 
-// Variance returns the forecast error variance for horizons 1..h and where
-// it came from. Flat gives the in-sample MSE for every horizon. Widening
+// Variance returns the calibrated forecast error variance for horizons
+// 1..h and where it came from: VarianceFrom with Calibrated.
+func (r *Result) Variance(h int, mode BandMode) ([]float64, VarianceSource) {
+	return r.VarianceFrom(h, mode, Calibrated)
+}
+
+// VarianceFrom returns the forecast error variance for horizons 1..h and
+// where it came from. With from Calibrated (the default) the variance is
+// the backtest errors' (CalibrateVariance), shrunk toward the model's
+// variance (ModelVariance with Widening) where they are few; Flat then
+// gives the calibrated one-step variance at every horizon. Without any
+// backtest error it is ModelVariance. With FromModel it is ModelVariance.
+func (r *Result) VarianceFrom(h int, mode BandMode, from BandSource) ([]float64, VarianceSource) {
+	if from == Calibrated && h > 0 {
+		if v, _ := r.calibrated(h); v != nil {
+			if mode == Flat {
+				for i := range v {
+					v[i] = v[0]
+				}
+				return v, VarFlatCalibrated
+			}
+			return v, VarCalibrated
+		}
+	}
+	return r.ModelVariance(h, mode)
+}
+
+// Calibration says what the calibrated variance rests on; the zero value
+// when the fit has no backtest.
+func (r *Result) Calibration() Calibration {
+	if r.Backtest == nil {
+		return Calibration{}
+	}
+	_, cal := r.calibrated(1)
+	return cal
+}
+
+// calibrated returns the calibrated variance at lead times 1..h, nil when
+// the backtest has no error; the shape is the model's analytic variance,
+// or none.
+func (r *Result) calibrated(h int) ([]float64, Calibration) {
+	if r.Backtest == nil {
+		return nil, Calibration{}
+	}
+	var shape []float64
+	if c, ok := r.Model.VarianceFactors(h); ok {
+		shape = make([]float64, h)
+		for i := range shape {
+			shape[i] = r.Accuracy.MSE * c[i]
+		}
+	}
+	if shape == nil {
+		v, cal := CalibrateVariance(r.Backtest.Errors, nil)
+		if v == nil {
+			return nil, cal
+		}
+		return extendShape(v, h), cal
+	}
+	return CalibrateVariance(r.Backtest.Errors, shape)
+}
+
+// extendShape returns v cut or grown to h values, growing in proportion to
+// the lead time past its end.
+func extendShape(v []float64, h int) []float64 {
+	out := make([]float64, h)
+	last := len(v)
+	for i := range out {
+		if i < last {
+			out[i] = v[i]
+		} else {
+			out[i] = v[last-1] * float64(i+1) / float64(last)
+		}
+	}
+	return out
+}
+
+// ModelVariance returns the forecast error variance the model implies for
+// horizons 1..h and where it came from. Flat gives the in-sample MSE for every horizon. Widening
 // gives MSE * c_h when the model has analytic variance factors
 // (Model.VarianceFactors); otherwise the backtest's per-horizon MSE, where a
 // horizon the backtest did not reach takes the last reached one's value
 // scaled by h/h_last; with no backtest at all, MSE * h (random-walk growth,
 // a deliberately wide fallback).
-func (r *Result) Variance(h int, mode BandMode) ([]float64, VarianceSource) {
+func (r *Result) ModelVariance(h int, mode BandMode) ([]float64, VarianceSource) {
 	v := make([]float64, h)
 	mse := r.Accuracy.MSE
 	if mode == Flat {
@@ -121,11 +202,17 @@ func (r *Result) Variance(h int, mode BandMode) ([]float64, VarianceSource) {
 	return v, VarRandomWalk
 }
 
-// Forecast returns h forecast points with bands of half-width z sqrt(v_h),
-// v from Variance.
+// Forecast returns h forecast points with calibrated bands:
+// ForecastFrom with Calibrated.
 func (r *Result) Forecast(h int, z float64, mode BandMode) []Point {
+	return r.ForecastFrom(h, z, mode, Calibrated)
+}
+
+// ForecastFrom returns h forecast points with bands of half-width
+// z sqrt(v_h), v from VarianceFrom.
+func (r *Result) ForecastFrom(h int, z float64, mode BandMode, from BandSource) []Point {
 	f := r.Model.Forecast(h)
-	v, _ := r.Variance(h, mode)
+	v, _ := r.VarianceFrom(h, mode, from)
 	pts := make([]Point, h)
 	for i := range pts {
 		w := z * math.Sqrt(v[i])

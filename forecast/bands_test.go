@@ -87,9 +87,10 @@ func TestBacktestNaive(t *testing.T) {
 	}
 }
 
-// TestVarianceSources checks the band variance of each source on the
-// naive method, whose h-step variance factor is h (random walk; Hyndman &
-// Athanasopoulos, FPP 3rd ed., table 5.2): analytic = MSE * h; flat = MSE.
+// TestVarianceSources checks the band variance of each model source on
+// the naive method, whose h-step variance factor is h (random walk;
+// Hyndman & Athanasopoulos, FPP 3rd ed., table 5.2): analytic = MSE * h;
+// flat = MSE. These are the bands of "from: model".
 func TestVarianceSources(t *testing.T) {
 	start, _ := ParsePeriod("2020-01", Monthly)
 	s := Series{Name: "a", Start: start, Values: []float64{10, 12, 11, 13, 12, 14, 13, 15, 14, 16}}
@@ -102,15 +103,15 @@ func TestVarianceSources(t *testing.T) {
 	if !scalar.EqualWithinAbs(r.Accuracy.MSE, 3, 1e-12) {
 		t.Fatalf("MSE %v, want 3", r.Accuracy.MSE)
 	}
-	v, src := r.Variance(3, Widening)
+	v, src := r.VarianceFrom(3, Widening, FromModel)
 	if src != VarAnalytic || !scalar.EqualWithinAbs(v[2], 9, 1e-12) {
 		t.Errorf("widening: %v from %s, want 9 (3 * 3) from analytic", v[2], src)
 	}
-	v, src = r.Variance(3, Flat)
+	v, src = r.VarianceFrom(3, Flat, FromModel)
 	if src != VarFlat || v[2] != 3 {
 		t.Errorf("flat: %v from %s, want 3", v[2], src)
 	}
-	pts := r.Forecast(1, 2, Flat)
+	pts := r.ForecastFrom(1, 2, Flat, FromModel)
 	// Naive forecast 16, band 16 -/+ 2 sqrt(3) = 16 -/+ 3.464102.
 	if p := pts[0]; p.Value != 16 || !scalar.EqualWithinAbs(p.Upper, 19.464102, 1e-6) || p.Period.String() != "2020-11" {
 		t.Errorf("forecast point %+v", p)
