@@ -121,26 +121,25 @@ func (r *Result) Calibration() Calibration {
 
 // calibrated returns the calibrated variance at lead times 1..h, nil when
 // the backtest has no error; the shape is the model's analytic variance,
-// or none.
+// or none. The calibration always spans every lead time the backtest
+// scored, so the variance at a lead time does not depend on h.
 func (r *Result) calibrated(h int) ([]float64, Calibration) {
 	if r.Backtest == nil {
 		return nil, Calibration{}
 	}
+	H := max(h, len(r.Backtest.HorizonMSE))
 	var shape []float64
-	if c, ok := r.Model.VarianceFactors(h); ok {
-		shape = make([]float64, h)
+	if c, ok := r.Model.VarianceFactors(H); ok {
+		shape = make([]float64, H)
 		for i := range shape {
 			shape[i] = r.Accuracy.MSE * c[i]
 		}
 	}
-	if shape == nil {
-		v, cal := CalibrateVariance(r.Backtest.Errors, nil)
-		if v == nil {
-			return nil, cal
-		}
-		return extendShape(v, h), cal
+	v, cal := CalibrateVariance(r.Backtest.Errors, shape)
+	if v == nil {
+		return nil, cal
 	}
-	return CalibrateVariance(r.Backtest.Errors, shape)
+	return extendShape(v, H)[:h], cal
 }
 
 // extendShape returns v cut or grown to h values, growing in proportion to

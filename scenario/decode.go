@@ -128,7 +128,7 @@ func parse(r io.Reader, path string, l Limits) (*File, error) {
 			Select:     "backtest",
 			MSEDivisor: "n-1",
 		},
-		Bands: Bands{Widen: "horizon", Floor: new(float64)},
+		Bands: Bands{Widen: "horizon", From: "calibrated", Floor: new(float64)},
 	}
 	d.file(root, f)
 	d.validate(f)
@@ -145,7 +145,7 @@ var (
 	topKeys        = []string{"plan", "history", "horizon", "baseline", "bands", "units", "events", "scenarios", "capacity", "production"}
 	historyKeys    = []string{"file", "series", "period", "fill"}
 	baselineKeys   = []string{"method", "season", "metric", "select", "alpha", "beta", "gamma", "phi", "window", "weights", "dummies", "damped", "mse_divisor", "refit", "holdout"}
-	bandsKeys      = []string{"z", "coverage", "widen", "floor"}
+	bandsKeys      = []string{"z", "coverage", "widen", "from", "floor"}
 	eventKeys      = []string{"id", "kind", "start", "end", "periods", "effect", "ramp", "probability", "range", "payback", "past", "note"}
 	effectKeys     = []string{"units", "percent", "from"}
 	rampKeys       = []string{"periods", "shape"}
@@ -164,6 +164,7 @@ var (
 	selectValues     = []string{"backtest", "aicc"}
 	divisorValues    = []string{"n-1", "n"}
 	widenValues      = []string{"horizon", "flat"}
+	bandFromValues   = []string{"calibrated", "model"}
 	kindValues       = []string{"step", "pulse"}
 	shapeValues      = []string{"immediate", "linear", "s-curve"}
 	fromValues       = []string{"past"}
@@ -638,6 +639,7 @@ func (d *decoder) file(root *yaml.Node, f *File) {
 		b.num("z", &f.Bands.Z)
 		b.num("coverage", &f.Bands.Coverage)
 		b.enum("widen", "widen", widenValues, &f.Bands.Widen)
+		b.enum("from", "band source", bandFromValues, &f.Bands.From)
 		d.floor(b, &f.Bands)
 		f.Bands.Pos = d.position(b.node)
 	}

@@ -127,6 +127,10 @@ type Bands struct {
 	// Widen is "horizon" (the default: bands widen with the lead time) or
 	// "flat" (one width for every period).
 	Widen string
+	// From is "calibrated" (the default: the spread at each lead time is
+	// measured on the backtest's out-of-sample errors) or "model" (the
+	// variance the model class implies from its in-sample errors).
+	From string
 	// Floor is the least demand can be: Build clips the adjusted and
 	// risk-weighted plans and both bands at it. Parse sets 0 when the
 	// file gives none; nil (the file's "floor: none") means no floor, for

@@ -39,8 +39,10 @@ type Plan struct {
 	// Z is the band half-width in standard errors, Mode how the baseline
 	// variance grows, and Floor the least demand can be (nil: no floor):
 	// each scenario's plans and bands are clipped at it.
-	Z     float64
-	Mode  forecast.BandMode
+	Z    float64
+	Mode forecast.BandMode
+	// From is what the baseline variance rests on (bands.from).
+	From  forecast.BandSource
 	Floor *float64
 	// Scenarios are the plans of each scenario, in file order.
 	Scenarios []ScenarioPlan
@@ -223,6 +225,9 @@ func newPlan(f *File) (*Plan, forecast.Spec, error) {
 	if p.Mode, err = forecast.ParseBandMode(f.Bands.Widen); err != nil {
 		return nil, spec, f.errAt(f.Bands.Pos, "bands.widen", err)
 	}
+	if p.From, err = forecast.ParseBandSource(f.Bands.From); err != nil {
+		return nil, spec, f.errAt(f.Bands.Pos, "bands.from", err)
+	}
 	for role, path := range map[string]string{"scenario": f.Path, "history": f.History.File} {
 		if d, err := digest(path); err == nil {
 			p.Digests[role] = d
@@ -337,7 +342,7 @@ func (p *Plan) lay() {
 		p.Periods[i] = first.Add(i)
 	}
 	p.Baseline = p.Fit.Model.Forecast(hz)
-	p.BaselineVar, p.VarSource = p.Fit.Variance(hz, p.Mode)
+	p.BaselineVar, p.VarSource = p.Fit.VarianceFrom(hz, p.Mode, p.From)
 	for _, e := range p.Future {
 		if e.Prorated(first) {
 			p.Notes = append(p.Notes, fmt.Sprintf("event %q has dates finer than the %s periods; its effect is prorated by the share of days in each period", e.ID, first.Freq))

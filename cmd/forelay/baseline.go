@@ -33,6 +33,7 @@ type baselineFlags struct {
 	Z          float64
 	Coverage   float64
 	Bands      string
+	BandsFrom  string
 
 	// set records which of alpha, beta, gamma, phi, z and coverage were
 	// given on the command line.
@@ -59,7 +60,8 @@ func (b *baselineFlags) register(fs *pflag.FlagSet) {
 	fs.IntVar(&b.Horizon, "horizon", 0, "periods to forecast (0: 12 months, 8 quarters, 26 weeks, 28 days or 5 years)")
 	fs.Float64Var(&b.Z, "z", 2, "band half-width in standard errors")
 	fs.Float64Var(&b.Coverage, "coverage", 0, "band coverage instead of --z, e.g. 0.9 for a central 90% band")
-	fs.StringVar(&b.Bands, "bands", "horizon", "band width: horizon (widens with lead time) or flat (z sqrt(MSE))")
+	fs.StringVar(&b.Bands, "bands", "horizon", "band width: horizon (widens with lead time) or flat (one width)")
+	fs.StringVar(&b.BandsFrom, "bands-from", "calibrated", "band spread: calibrated (errors of forecasts from earlier origins) or model (the model's own variance)")
 }
 
 func (b *baselineFlags) record(cmd *cobra.Command) {
@@ -73,6 +75,7 @@ func (b *baselineFlags) record(cmd *cobra.Command) {
 type bandSettings struct {
 	Z    float64
 	Mode forecast.BandMode
+	From forecast.BandSource
 }
 
 // spec turns the flags into a forecast.Spec and band settings; every error
@@ -143,6 +146,9 @@ func (b *baselineFlags) spec() (forecast.Spec, bandSettings, error) {
 	}
 	if bs.Mode, err = forecast.ParseBandMode(b.Bands); err != nil {
 		return s, bs, &flagError{err: fmt.Errorf("--bands: %w", err)}
+	}
+	if bs.From, err = forecast.ParseBandSource(b.BandsFrom); err != nil {
+		return s, bs, &flagError{err: fmt.Errorf("--bands-from: %w", err)}
 	}
 	return s, bs, nil
 }

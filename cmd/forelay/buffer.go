@@ -119,7 +119,8 @@ type bufferResult struct {
 	Sim      *scenario.Simulation // nil with --demand bands
 	Scenario int
 	Buffer   scenario.Buffer
-	Sigma    float64
+	Sigma    float64 // spread of one period's forecast error (lead time 1)
+	Spread   float64 // spread of demand over the lead time
 	Z        float64
 	Safety   float64
 	CSL      float64
@@ -151,10 +152,11 @@ func computeBuffer(opts *BufferOptions) (*bufferResult, error) {
 		demand = r.Sim.Scenarios[sc].QuantileDemand(opts.Service)
 	}
 	r.Buffer = scenario.PlanBuffer(demand, capacity, opts.OpeningStock)
-	r.Sigma = math.Sqrt(p.Fit.Accuracy.MSE)
+	r.Sigma = math.Sqrt(p.BaselineVar[0])
+	r.Spread = math.Sqrt(p.Fit.LeadTimeVariance(opts.LeadTime, p.Mode, p.From))
 	r.Z = scenario.ServiceZ(opts.Service)
-	r.Safety = scenario.SafetyStock(opts.Service, r.Sigma, opts.LeadTime)
-	r.CSL = scenario.CycleServiceLevel(r.Safety, r.Sigma, opts.LeadTime)
+	r.Safety = scenario.SafetyStock(opts.Service, r.Spread, 1)
+	r.CSL = scenario.CycleServiceLevel(r.Safety, r.Spread, 1)
 	return r, nil
 }
 

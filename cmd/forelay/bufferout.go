@@ -42,6 +42,7 @@ type bufferOutJSON struct {
 	SafetyStock       num                `json:"safety_stock"`
 	LeadTime          num                `json:"lead_time"`
 	Sigma             num                `json:"sigma"`
+	LeadTimeSpread    num                `json:"lead_time_spread"`
 	Z                 num                `json:"z"`
 	CycleServiceLevel num                `json:"cycle_service_level"`
 	Periods           []bufferPeriodJSON `json:"periods"`
@@ -64,7 +65,7 @@ func bufferJSON(r *bufferResult) bufferOutJSON {
 		Service: num(r.Opts.Service), ServiceDefinition: serviceDefinition, DemandSource: demandSourceName(r),
 		OpeningStock: num(b.Opening), Prebuild: num(b.Prebuild), PrebuildBefore: periodOrNull(p, b.PrebuildAt),
 		BuildStart: periodOrNull(p, b.BuildStart), OpeningGap: num(b.Gap), SafetyStock: num(r.Safety),
-		LeadTime: num(r.Opts.LeadTime), Sigma: num(r.Sigma), Z: num(r.Z), CycleServiceLevel: num(r.CSL),
+		LeadTime: num(r.Opts.LeadTime), Sigma: num(r.Sigma), LeadTimeSpread: num(r.Spread), Z: num(r.Z), CycleServiceLevel: num(r.CSL),
 		Inputs: p.Digests, Notes: r.Notes, Warnings: warningList(r.Plan.Warnings), Caution: cautionText}
 	if r.Sim != nil {
 		seed := r.Sim.Seed
@@ -134,9 +135,10 @@ func writeBufferText(w io.Writer, r *bufferResult) {
 	if r.Opts.LeadTime != 1 {
 		period += "s"
 	}
-	fmt.Fprintf(w, "Safety stock for a lead time of %s %s: z %.3f x sigma %s x sqrt(%s) = %s%s, a %s %s.\n",
-		lead, period, r.Z, fmtNum(r.Sigma, 0), lead, fmtNum(r.Safety, 0), units, pctText(r.CSL), serviceDefinition)
-	fmt.Fprintln(w, "(sigma: root mean squared one-step error of the baseline; errors of different periods taken as independent.)")
+	fmt.Fprintf(w, "Safety stock for a lead time of %s %s: z %.3f x spread %s = %s%s, a %s %s.\n",
+		lead, period, r.Z, fmtNum(r.Spread, 0), fmtNum(r.Safety, 0), units, pctText(r.CSL), serviceDefinition)
+	fmt.Fprintf(w, "(spread: standard deviation of the summed forecast errors over the lead time, from the baseline's %s band variance\n"+
+		"and the model's carry-over of errors from one period to the next; one period alone: %s.)\n", p.From, fmtNum(r.Sigma, 0))
 	if len(r.Notes) > 0 {
 		fmt.Fprintln(w)
 		for _, n := range r.Notes {

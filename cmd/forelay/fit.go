@@ -234,10 +234,10 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 	}
 
 	fmt.Fprintln(w)
-	pts := r.Forecast(horizon, b.Z, b.Mode)
-	_, src := r.Variance(horizon, b.Mode)
+	pts := r.ForecastFrom(horizon, b.Z, b.Mode, b.From)
+	_, src := r.VarianceFrom(horizon, b.Mode, b.From)
 	fmt.Fprintf(w, "Forecast%s; band = forecast +- %.3g x standard error (%s; %.1f%% if errors are normal)\n",
-		unit, b.Z, bandSourceText(src), 100*forecast.Coverage(b.Z))
+		unit, b.Z, bandSourceText(src, r.Calibration()), 100*forecast.Coverage(b.Z))
 	ft := newTable("period", "forecast", "lower", "upper")
 	for _, p := range pts {
 		ft.add(p.Period.String(), fmtNum(p.Value, 1), fmtNum(p.Lower, 1), fmtNum(p.Upper, 1))
@@ -300,8 +300,16 @@ func candidateNote(r *forecast.Result) string {
 		"the parameters at the top are the final fit on all %d periods.", n)
 }
 
-func bandSourceText(src forecast.VarianceSource) string {
+func bandSourceText(src forecast.VarianceSource, cal forecast.Calibration) string {
 	switch src {
+	case forecast.VarCalibrated, forecast.VarFlatCalibrated:
+		how := "widening with lead time"
+		if src == forecast.VarFlatCalibrated {
+			how = "flat: the one-step spread at every lead time"
+		}
+		return fmt.Sprintf("%s, calibrated on %s out-of-sample %s from %d %s at lead times 1 to %d, %s x the model's variance",
+			how, fmtNum(float64(cal.Errors), 0), plural(cal.Errors, "error", "errors"), cal.Origins,
+			plural(cal.Origins, "origin", "origins"), cal.Leads, fmtNum(cal.Ratio, 2))
 	case forecast.VarFlat:
 		return "flat: sqrt(MSE) at every lead time"
 	case forecast.VarAnalytic:

@@ -83,10 +83,31 @@ type pointJSON struct {
 }
 
 type bandsJSON struct {
-	Z        num    `json:"z"`
-	Coverage num    `json:"coverage"`
-	Mode     string `json:"mode"`
-	Variance string `json:"variance"`
+	Z           num              `json:"z"`
+	Coverage    num              `json:"coverage"`
+	Mode        string           `json:"mode"`
+	From        string           `json:"from"`
+	Variance    string           `json:"variance"`
+	Calibration *calibrationJSON `json:"calibration"`
+}
+
+// calibrationJSON says what calibrated bands rest on; null when the bands
+// are the model's.
+type calibrationJSON struct {
+	Errors  int `json:"errors"`
+	Origins int `json:"origins"`
+	Leads   int `json:"leads"`
+	Ratio   num `json:"ratio"`
+}
+
+// toCalibrationJSON returns the calibration of r when src is calibrated,
+// else nil.
+func toCalibrationJSON(r *forecast.Result, src forecast.VarianceSource) *calibrationJSON {
+	if src != forecast.VarCalibrated && src != forecast.VarFlatCalibrated {
+		return nil
+	}
+	c := r.Calibration()
+	return &calibrationJSON{Errors: c.Errors, Origins: c.Origins, Leads: c.Leads, Ratio: num(c.Ratio)}
 }
 
 type fitOutJSON struct {
@@ -142,7 +163,8 @@ func fitJSON(r *forecast.Result, horizon int, b bandSettings) fitOutJSON {
 		o.Candidates = append(o.Candidates, cj)
 	}
 	_, src := r.Variance(horizon, b.Mode)
-	o.Bands = bandsJSON{Z: num(b.Z), Coverage: num(forecast.Coverage(b.Z)), Mode: b.Mode.String(), Variance: string(src)}
+	o.Bands = bandsJSON{Z: num(b.Z), Coverage: num(forecast.Coverage(b.Z)), Mode: b.Mode.String(), From: b.From.String(),
+		Variance: string(src), Calibration: toCalibrationJSON(r, src)}
 	for _, p := range r.Forecast(horizon, b.Z, b.Mode) {
 		o.Forecast = append(o.Forecast, pointJSON{Period: p.Period.String(), Value: num(p.Value), Lower: num(p.Lower), Upper: num(p.Upper)})
 	}

@@ -138,7 +138,7 @@ func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
 	fmt.Fprintf(w, "Baseline accuracy (one step, in-sample): MAD %s, MSE %s (/%s), MAPE %s%%\n",
 		fmtNum(r.Accuracy.MAD, d), fmtNum(r.Accuracy.MSE, d), r.Accuracy.Divisor, fmtNum(r.Accuracy.MAPE, 2))
 	writeFlags(w, r)
-	fmt.Fprintf(w, "Bands: adjusted +- %.3g x standard error (%s; event ranges count as 90%% intervals)\n", p.Z, bandSourceText(p.VarSource))
+	fmt.Fprintf(w, "Bands: adjusted +- %.3g x standard error (%s; event ranges count as 90%% intervals)\n", p.Z, bandSourceText(p.VarSource, p.Fit.Calibration()))
 
 	if len(p.Cleaning) > 0 {
 		fmt.Fprintln(w)

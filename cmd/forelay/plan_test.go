@@ -77,14 +77,33 @@ func TestNewCmdFit(t *testing.T) {
 // plan.csv against the committed golden (values within 0.01; rewrite with
 // FORELAY_UPDATE_GOLDEN=1 after a deliberate change), and plan.png decodes
 // at the stated size (8 x 4.5 inches at 96 dpi = 768 x 432 pixels) and is
-// not blank.
+// not blank. The golden of the calibrated bands (the default) is
+// dairy-plan.csv; the demo with bands: {from: model} must still give the
+// model's bands of the release before calibration, dairy-plan-model.csv.
 func TestPlanRunDemo(t *testing.T) {
 	if testing.Short() {
 		t.Skip("fits the demo")
 	}
+	for _, c := range []struct{ from, golden string }{
+		{"", "dairy-plan.csv"},
+		{"model", "dairy-plan-model.csv"},
+	} {
+		t.Run(c.golden, func(t *testing.T) {
+			checkDemoPlan(t, c.from, filepath.Join("testdata", "golden", c.golden))
+		})
+	}
+}
+
+// checkDemoPlan plans the demo, with bands.from set to from when it is not
+// empty, checks plan.csv against golden and the chart against its size.
+func checkDemoPlan(t *testing.T, from, golden string) {
 	dir := t.TempDir()
+	file := "../../examples/dairy/plan.yaml"
+	if from != "" {
+		file = demoCopy(t, from)
+	}
 	f, out, _ := testFactory()
-	err := planRun(&PlanOptions{IO: f.IO, File: "../../examples/dairy/plan.yaml", Out: dir})
+	err := planRun(&PlanOptions{IO: f.IO, File: file, Out: dir})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -95,7 +114,6 @@ func TestPlanRunDemo(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	golden := filepath.Join("testdata", "golden", "dairy-plan.csv")
 	if os.Getenv("FORELAY_UPDATE_GOLDEN") != "" {
 		if err := os.WriteFile(golden, got, 0o644); err != nil {
 			t.Fatal(err)
@@ -198,4 +216,29 @@ func TestPlanJSONWarnings(t *testing.T) {
 	if js, _ = marshalIndent(planJSON(p)); !bytes.Contains(js, []byte(`"warnings": []`)) {
 		t.Errorf("no empty warnings list in\n%s", js)
 	}
+}
+
+// demoCopy copies the demo scenario and its history into a temporary
+// directory with bands.from set, and returns the scenario's path.
+func demoCopy(t *testing.T, from string) string {
+	t.Helper()
+	dir := t.TempDir()
+	src, err := os.ReadFile("../../examples/dairy/plan.yaml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	plan := strings.Replace(string(src), "bands: {z: 2, widen: horizon}", "bands: {z: 2, widen: horizon, from: "+from+"}", 1)
+	if plan == string(src) {
+		t.Fatal("the demo's bands line has changed; update demoCopy")
+	}
+	hist, err := os.ReadFile("../../examples/dairy/history.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for name, b := range map[string][]byte{"plan.yaml": []byte(plan), "history.csv": hist} {
+		if err := os.WriteFile(filepath.Join(dir, name), b, 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	return filepath.Join(dir, "plan.yaml")
 }

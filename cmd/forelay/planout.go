@@ -58,11 +58,13 @@ type planHistoryJSON struct {
 }
 
 type planBandsJSON struct {
-	Z        num    `json:"z"`
-	Coverage num    `json:"coverage"`
-	Widen    string `json:"widen"`
-	Variance string `json:"variance"`
-	Floor    *num   `json:"floor"`
+	Z           num              `json:"z"`
+	Coverage    num              `json:"coverage"`
+	Widen       string           `json:"widen"`
+	From        string           `json:"from"`
+	Variance    string           `json:"variance"`
+	Calibration *calibrationJSON `json:"calibration"`
+	Floor       *num             `json:"floor"`
 }
 
 type cleanedJSON struct {
@@ -146,7 +148,8 @@ func planJSON(p *scenario.Plan) planOutJSON {
 	bs := bandSettings{Z: p.Z, Mode: p.Mode}
 	o.Baseline = fitJSON(p.Fit, len(p.Periods), bs)
 	o.Baseline.Forecast = nil // the plan's periods carry the baseline
-	o.Bands = planBandsJSON{Z: num(p.Z), Coverage: num(forecast.Coverage(p.Z)), Widen: p.Mode.String(), Variance: string(p.VarSource)}
+	o.Bands = planBandsJSON{Z: num(p.Z), Coverage: num(forecast.Coverage(p.Z)), Widen: p.Mode.String(), From: p.From.String(),
+		Variance: string(p.VarSource), Calibration: toCalibrationJSON(p.Fit, p.VarSource)}
 	if p.Floor != nil {
 		v := num(*p.Floor)
 		o.Bands.Floor = &v

@@ -63,3 +63,11 @@ func (t *table) write(w io.Writer) error {
 	_, err := io.WriteString(w, b.String())
 	return err
 }
+
+// plural returns one when n is 1 and many otherwise.
+func plural(n int, one, many string) string {
+	if n == 1 {
+		return one
+	}
+	return many
+}
