@@ -175,7 +175,7 @@ func evalMethod(train forecast.Series, actual []float64, m forecast.Method, scal
 	}
 	h := len(actual)
 	t := trial{chosen: r.Method, band: make([][]int8, len(zs))}
-	var pts []forecast.Point
+	pts := r.Forecast(h, 0, cfg.Bands) // the points, in case there is no band
 	for i, z := range zs {
 		pts = r.Forecast(h, z, cfg.Bands)
 		t.band[i] = make([]int8, h)

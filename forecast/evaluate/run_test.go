@@ -177,3 +177,17 @@ func TestFailureCounted(t *testing.T) {
 		t.Errorf("failures %+v, want one of 2 origins", res.Failures)
 	}
 }
+
+// TestNoBands: with no coverage asked for, MASE and service are still
+// measured (the figures of TestNaiveByHand).
+func TestNoBands(t *testing.T) {
+	cfg := Config{Methods: []forecast.Method{forecast.Naive}, Coverages: []float64{}, Workers: 1}
+	res, err := Run([]Case{lineCase()}, cfg)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := sliceOf(t, res, "naive", SourceAll, FreqAll)
+	if want := 6.5 / 12; len(s.Bands) != 0 || !scalar.EqualWithinAbs(s.MASE, want, 1e-12) || s.Service[0].Covered != 2 {
+		t.Errorf("%+v, want no band, MASE %v and lead 1 covered twice", s, want)
+	}
+}
