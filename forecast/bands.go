@@ -130,16 +130,43 @@ func (r *Result) calibrated(h int) ([]float64, Calibration) {
 	H := max(h, len(r.Backtest.HorizonMSE))
 	var shape []float64
 	if c, ok := r.Model.VarianceFactors(H); ok {
+		base := r.residualVariance()
 		shape = make([]float64, H)
 		for i := range shape {
-			shape[i] = r.Accuracy.MSE * c[i]
+			shape[i] = base * c[i]
 		}
 	}
 	v, cal := CalibrateVariance(r.Backtest.Errors, shape)
 	if v == nil {
 		return nil, cal
 	}
-	return extendShape(v, H)[:h], cal
+	v = extendShape(v, H)[:h]
+	// The variance is an estimate resting on few degrees of freedom when
+	// the history is short: the in-sample errors left after the fit and
+	// one per origin. A forecast error divided by such an estimate follows
+	// Student's t with that many degrees of freedom, whose variance is
+	// df/(df-2) times the estimate's.
+	cal.DF = r.dof() + cal.Origins
+	inflate := float64(cal.DF) / float64(cal.DF-2)
+	if cal.DF < 3 {
+		inflate = 3
+	}
+	for i := range v {
+		v[i] *= inflate
+	}
+	return v, cal
+}
+
+// dof is the number of in-sample one-step errors less the model's
+// estimated parameters and initial states, at least 0.
+func (r *Result) dof() int {
+	n := 0
+	for _, e := range r.Residuals() {
+		if !math.IsNaN(e) {
+			n++
+		}
+	}
+	return max(n-r.Model.NumParams(), 0)
 }
 
 // extendShape returns v cut or grown to h values, growing in proportion to
@@ -218,4 +245,14 @@ func (r *Result) ForecastFrom(h int, z float64, mode BandMode, from BandSource) 
 		pts[i] = Point{Period: r.Series.Next().Add(i), Value: f[i], Lower: f[i] - w, Upper: f[i] + w}
 	}
 	return pts
+}
+
+// residualVariance is the one-step error variance the calibration leans on
+// where out-of-sample errors are few: the sum of squared in-sample errors
+// over the degrees of freedom the fit leaves, n - p (p the model's
+// estimated parameters and initial states), so that a model with many
+// parameters on a short history is not taken at its in-sample word. With
+// n - p below 1 it is the in-sample SSE itself.
+func (r *Result) residualVariance() float64 {
+	return r.SSE / float64(max(r.dof(), 1))
 }

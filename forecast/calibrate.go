@@ -56,6 +56,10 @@ type Calibration struct {
 	// forecast origins they came from and Leads the longest lead time
 	// with at least one error.
 	Errors, Origins, Leads int
+	// DF is the degrees of freedom the variance rests on (set by
+	// Result's calibrated bands: in-sample errors less parameters, plus
+	// one per origin).
+	DF int
 	// Ratio is the pooled ratio of the out-of-sample mean squared error to
 	// the model's variance at the same lead times, after shrinkage: above
 	// 1, the model's own bands were too narrow out of sample.

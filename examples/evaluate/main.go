@@ -37,6 +37,7 @@ import (
 	"os"
 	"time"
 
+	"forelay/forecast"
 	"forelay/forecast/evaluate"
 )
 
@@ -58,6 +59,7 @@ type options struct {
 	step    int
 	workers int
 	json    bool
+	from    string
 }
 
 // parseFlags reads the command line. Errors are usage errors; flag's own
@@ -73,6 +75,7 @@ func parseFlags(args []string, errOut io.Writer) (options, error) {
 	fs.IntVar(&o.step, "step", 0, "periods between origins (0: the held-out length)")
 	fs.IntVar(&o.workers, "workers", 0, "series evaluated at once (0: one per core)")
 	fs.BoolVar(&o.json, "json", false, "print JSON instead of tables")
+	fs.StringVar(&o.from, "bands-from", "calibrated", "what the bands rest on: calibrated or model (the release before calibration)")
 	if err := fs.Parse(args); err != nil {
 		return o, err
 	}
@@ -114,7 +117,16 @@ func run(args []string, stdout, stderr io.Writer) int {
 	}
 	cases = append(cases, evaluate.Synthetic(o.seed, o.reps, nil)...)
 	start := time.Now()
-	res, err := evaluate.Run(cases, evaluate.Config{MaxOrigins: o.origins, Step: o.step, Workers: o.workers})
+	from, err := forecast.ParseBandSource(o.from)
+	if err != nil {
+		fmt.Fprintln(stderr, "evaluate: -bands-from:", err)
+		return exitUsage
+	}
+	cfg := evaluate.Config{MaxOrigins: o.origins, Step: o.step, Workers: o.workers, From: from}
+	if from == forecast.FromModel {
+		cfg.SafetyStock = evaluate.SigmaSqrtL
+	}
+	res, err := evaluate.Run(cases, cfg)
 	if err != nil {
 		fmt.Fprintln(stderr, "evaluate:", err)
 		return exitFail

@@ -16,7 +16,16 @@ import (
 // realised service.
 type SafetyStockFunc func(r *forecast.Result, lead int, service float64) float64
 
-// SigmaSqrtL is the safety stock forelay sizes today (Silver, Pyke & Thomas,
+// LeadTimeSpread is the safety stock forelay sizes since its bands are
+// calibrated, as the buffer command does: z times the spread of demand
+// over the lead time (Result.LeadTimeVariance, calibrated bands).
+func LeadTimeSpread(r *forecast.Result, lead int, service float64) float64 {
+	z := distuv.UnitNormal.Quantile(service)
+	return z * math.Sqrt(r.LeadTimeVariance(float64(lead), forecast.Widening, forecast.Calibrated))
+}
+
+// SigmaSqrtL is the safety stock forelay sized before its bands were
+// calibrated (Silver, Pyke & Thomas,
 // Inventory and Production Management in Supply Chains, 4th ed.), as
 // scenario.SafetyStock does:
 //
@@ -41,9 +50,12 @@ type Config struct {
 	Methods []forecast.Method
 	// Coverages are the nominal band coverages; nil means 0.8 and 0.95.
 	Coverages []float64
-	// Bands is the band mode passed to Result.Forecast; the zero value is
-	// forecast.Widening, the default of `forelay fit`.
+	// Bands is the band mode passed to Result.ForecastFrom; the zero value
+	// is forecast.Widening, the default of `forelay fit`.
 	Bands forecast.BandMode
+	// From is what the bands rest on; the zero value is
+	// forecast.Calibrated, the default.
+	From forecast.BandSource
 	// Horizon returns the held-out length H for a frequency; nil means
 	// Frequency.DefaultHorizon (12 months, 8 quarters).
 	Horizon func(forecast.Frequency) int
@@ -60,7 +72,7 @@ type Config struct {
 	// Service is the cycle service level of the safety stock; zero means
 	// 0.95.
 	Service float64
-	// SafetyStock sizes the safety stock; nil means SigmaSqrtL.
+	// SafetyStock sizes the safety stock; nil means LeadTimeSpread.
 	SafetyStock SafetyStockFunc
 	// Workers is the number of series evaluated at once; zero means
 	// runtime.GOMAXPROCS(0). The results do not depend on it.
@@ -96,7 +108,7 @@ func (c Config) resolve() Config {
 		c.Service = 0.95
 	}
 	if c.SafetyStock == nil {
-		c.SafetyStock = SigmaSqrtL
+		c.SafetyStock = LeadTimeSpread
 	}
 	if c.Workers < 1 {
 		c.Workers = runtime.GOMAXPROCS(0)

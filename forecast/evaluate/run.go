@@ -169,15 +169,18 @@ func evalCase(c Case, cfg Config, zs []float64) caseRun {
 func evalMethod(train forecast.Series, actual []float64, m forecast.Method, scale float64, cfg Config, zs []float64) trial {
 	spec := cfg.Spec
 	spec.Method = m
+	if spec.Horizon == 0 {
+		spec.Horizon = len(actual) // the backtest reaches the lead times scored, as a plan's does
+	}
 	r, err := forecast.Fit(train, spec)
 	if err != nil {
 		return trial{err: err.Error()}
 	}
 	h := len(actual)
 	t := trial{chosen: r.Method, band: make([][]int8, len(zs))}
-	pts := r.Forecast(h, 0, cfg.Bands) // the points, in case there is no band
+	pts := r.ForecastFrom(h, 0, cfg.Bands, cfg.From) // the points, in case there is no band
 	for i, z := range zs {
-		pts = r.Forecast(h, z, cfg.Bands)
+		pts = r.ForecastFrom(h, z, cfg.Bands, cfg.From)
 		t.band[i] = make([]int8, h)
 		for k, p := range pts {
 			t.band[i][k] = classify(actual[k], p)

@@ -34,7 +34,9 @@ func sliceOf(t *testing.T, res *Results, m, source, freq string) Slice {
 	return Slice{}
 }
 
-// TestNaiveByHand checks the counting against a hand calculation.
+// TestNaiveByHand checks the counting against a hand calculation, on the
+// model's bands (from: model) and the textbook safety stock, whose
+// arithmetic can be written out.
 //
 // The line has 60 months: origins 48 and 36 (Origins). Naive predicts each
 // value by the one before, so every in-sample error is 1 and, over the o-1
@@ -53,7 +55,8 @@ func sliceOf(t *testing.T, res *Results, m, source, freq string) Slice {
 // L = 1 needs 1 <= 1.6449*sigma (about 1.66): covered; L = 3 needs
 // 1+2+3 = 6 <= 1.6449*sigma*sqrt(3) (about 2.88): not covered.
 func TestNaiveByHand(t *testing.T) {
-	res, err := Run([]Case{lineCase()}, Config{Methods: []forecast.Method{forecast.Naive}, Workers: 1})
+	res, err := Run([]Case{lineCase()}, Config{Methods: []forecast.Method{forecast.Naive}, Workers: 1,
+		From: forecast.FromModel, SafetyStock: SigmaSqrtL})
 	if err != nil {
 		t.Fatal(err)
 	}
