@@ -128,12 +128,14 @@ func (m *crostonModel) rate(z, p, alpha float64) float64 {
 	return r
 }
 
-// sse returns the in-sample one-step SSE for alpha.
-func (m *crostonModel) sse(y []float64, alpha float64) float64 {
+// sse returns the in-sample one-step SSE for alpha, of the errors divided
+// by c (a power of two from dataScale, so that the squares neither
+// overflow nor underflow; the minimiser does not depend on c).
+func (m *crostonModel) sse(y []float64, alpha, c float64) float64 {
 	pred, _, _ := m.run(y, alpha)
 	s := 0.0
 	for t := m.first + 1; t < len(y); t++ {
-		e := y[t] - pred[t]
+		e := (y[t] - pred[t]) / c
 		s += e * e
 	}
 	return s
@@ -143,7 +145,8 @@ func (m *crostonModel) sse(y []float64, alpha float64) float64 {
 // globally (minimizeGlobal1D: a 51-point grid with both bounds, then
 // Brent's method around the best point, to 1e-7).
 func (m *crostonModel) bestAlpha(y []float64) float64 {
-	a, _ := minimizeGlobal1D(func(a float64) float64 { return m.sse(y, a) },
+	c := dataScale(y)
+	a, _ := minimizeGlobal1D(func(a float64) float64 { return m.sse(y, a, c) },
 		crostonAlphaMin, crostonAlphaMax, 50, 1e-7)
 	if math.IsNaN(a) {
 		return crostonAlphaMin // no finite SSE; cannot happen for finite y

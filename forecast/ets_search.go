@@ -144,7 +144,9 @@ func (f *etsFitter) fit() (etsParams, etsStates, int) {
 	f.initialStates()
 	switch len(f.free) {
 	case 0:
-		if !f.solveStates() {
+		if f.solveStates() {
+			f.bestF = f.sseAt(f.x)
+		} else {
 			f.initialStates()
 		}
 		copy(f.bestX, f.x)

@@ -347,3 +347,37 @@ func brentMin(f func(float64) float64, a, b, x, fx, tol float64) (float64, float
 	}
 	return x, fx
 }
+
+// dataScale returns the power of two nearest (in log scale) to the mean
+// absolute value of the finite values of y, or 1 if that mean is zero or
+// there are none. Dividing by a power of two is exact (within the range of
+// normal numbers), so a fit on y/dataScale(y) is the same as on y up to
+// the scale, while its sums of squares stay far from overflow (values near
+// 1e160 square past the largest float64) and from underflow (near 1e-160).
+func dataScale(y []float64) float64 {
+	var mean float64
+	k := 0
+	for _, v := range y {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			continue
+		}
+		k++
+		mean += (math.Abs(v) - mean) / float64(k) // running mean, no overflow
+	}
+	if !(mean > 0) || math.IsInf(mean, 0) {
+		return 1
+	}
+	return math.Exp2(math.Round(math.Log2(mean)))
+}
+
+// scaleBy returns y divided by c, or y itself when c is 1.
+func scaleBy(y []float64, c float64) []float64 {
+	if c == 1 {
+		return y
+	}
+	out := make([]float64, len(y))
+	for i, v := range y {
+		out[i] = v / c
+	}
+	return out
+}
