@@ -105,6 +105,8 @@ type etsFitter struct {
 	bestPar [4]float64
 	bestU   []float64
 
+	maxGN int // caps the Gauss-Newton steps of an inner solve (0: 50)
+
 	lin *etsFitter // the additive season model of the same data (additiveStates)
 
 	// anchor, when not nil, is where every inner solve of a
@@ -311,7 +313,11 @@ func (f *etsFitter) solveStates() bool {
 	if len(f.anchor) == f.k {
 		copy(f.x, f.anchor)
 	}
-	for it := 0; it < 50; it++ {
+	iters := 50
+	if f.maxGN > 0 {
+		iters = f.maxGN
+	}
+	for it := 0; it < iters; it++ {
 		sse := f.passStates()
 		if !(sse < math.Inf(1)) {
 			return false

@@ -124,17 +124,19 @@ const etsStarts = 3
 // Several: a multi-start local search.
 //
 //  1. S(θ) on a small grid (see grid); for a multiplicative season the
-//     three best grid points are evaluated with the model itself, each
-//     with several starts of the inner solve (bestInner).
+//     three best grid points are evaluated with the model itself, the
+//     first with several starts of the inner solve (bestInner).
 //  2. BFGS from the best point (descend). The sin² transform makes every
 //     bound a stationary point of the free variables, so a parameter can
 //     stop on a bound that the SSE would rather leave; when the gradient
 //     in θ at the result points into the interval for such a parameter,
 //     BFGS is restarted with it moved inside (at most twice).
 //  3. The same from up to two more grid points spread away from the first
-//     and from each other (spreadStarts), whatever their SSE: the SSE of
-//     exponential smoothing often has several local minima, for instance
-//     a trend that is smoothed hard against one damped or hardly updated.
+//     and from each other (spreadStarts), whatever their SSE (with
+//     several starts of the inner solve for a multiplicative season): the
+//     SSE of exponential smoothing often has several local minima, for
+//     instance a trend that is smoothed hard against one damped or hardly
+//     updated.
 //  4. Probes of the bounds at the best point (probe): each free parameter
 //     at either bound and each pair at the four corners, the others held;
 //     a descent from the best probe if it beats the best point.
@@ -162,7 +164,7 @@ func (f *etsFitter) fit() (etsParams, etsStates, int) {
 		starts = 3
 	}
 	for i := 0; i < starts && i < len(pts); i++ {
-		if f.mult {
+		if f.mult && i == 0 {
 			f.bestInner(pts[i].u)
 		} else {
 			f.evalStart(pts[i].u)
@@ -238,9 +240,11 @@ func (f *etsFitter) probe() bool {
 		copy(f.x, x0)
 		if f.mult {
 			f.anchor = append(f.anchor[:0], x0...)
+			f.maxGN = 3 // enough to tell a better point; S is overestimated, never under
 		}
 		v := f.value(u)
 		f.anchor = f.anchor[:0]
+		f.maxGN = 0
 		if v < candF {
 			candF = v
 			cand = u
@@ -307,11 +311,11 @@ func (f *etsFitter) fit1D() {
 func (f *etsFitter) descend(u0 []float64) { f.descendFrom(u0, f.bestX) }
 
 // descendFrom is descend with the inner solves of a multiplicative season
-// anchored at x0 in the first run (at the best states in the restarts):
-// every evaluation of one run starts from the same states, so that S is
-// one function for the line searches (its inner problem can have several
-// minima, and a warm start from the previous point could jump between
-// them).
+// anchored at x0 in the first run (at the best states in the restarts)
+// and then at the states of each new iterate: every evaluation of one line
+// search starts from the same states, so that S is one function for it
+// (the inner problem can have several minima, and a warm start from the
+// previous trial point could jump between them).
 func (f *etsFitter) descendFrom(u0, x0 []float64) {
 	x0 = append([]float64(nil), x0...)
 	for restart := 0; restart < 3; restart++ {
@@ -323,7 +327,15 @@ func (f *etsFitter) descendFrom(u0, x0 []float64) {
 			f.anchor = append(f.anchor[:0], x0...)
 			x0 = f.bestX
 		}
-		minimizeSmooth(f.objective, u0, smoothSettings{Step: 0.2})
+		set := smoothSettings{Step: 0.2}
+		if f.mult {
+			// Each line search starts its inner solves from the states
+			// of the iterate it leaves (f.x holds them after a major
+			// iteration): close to the solutions, and the same for the
+			// whole line search.
+			set.Major = func() { copy(f.anchor, f.x) }
+		}
+		minimizeSmooth(f.objective, u0, set)
 		f.anchor = f.anchor[:0]
 		u, moved := f.leaveBounds()
 		if !moved {

@@ -112,6 +112,9 @@ type smoothSettings struct {
 	// (default 1). The variables are scaled by it, so GradTol applies to
 	// the gradient in the scaled variables x/Step.
 	Step float64
+	// Major, if not nil, is called after each major iteration, when the
+	// last point evaluated is the new iterate.
+	Major func()
 }
 
 // smoothResult is what minimizeSmooth found.
@@ -199,6 +202,9 @@ func minimizeSmooth(fg func(x, grad []float64) float64, x0 []float64, set smooth
 		switch {
 		case op == optimize.MajorIteration:
 			res.Iter++
+			if set.Major != nil {
+				set.Major()
+			}
 			if floats.Norm(loc.Gradient, math.Inf(1)) < set.GradTol || res.Iter >= set.MaxIter {
 				return res
 			}
