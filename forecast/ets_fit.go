@@ -107,8 +107,6 @@ type etsFitter struct {
 
 	maxGN int // caps the Gauss-Newton steps of an inner solve (0: 50)
 
-	lin *etsFitter // the additive season model of the same data (additiveStates)
-
 	// anchor, when not nil, is where every inner solve of a
 	// multiplicative season starts (see solveStates).
 	anchor []float64

@@ -138,8 +138,9 @@ const etsStarts = 3
 //     instance a trend that is smoothed hard against one damped or hardly
 //     updated.
 //  4. Probes of the bounds at the best point (probe): each free parameter
-//     at either bound and each pair at the four corners, the others held;
-//     a descent from the best probe if it beats the best point.
+//     at either bound (and, damped or multiplicative, each pair at the
+//     four corners), the others held; a descent from the best probe if it
+//     beats the best point.
 //
 // All evaluations keep the best point seen, which is the result.
 func (f *etsFitter) fit() (etsParams, etsStates, int) {
@@ -223,8 +224,9 @@ func (f *etsFitter) spreadStarts(pts []gridPoint, k int) []gridPoint {
 }
 
 // probe evaluates S at the best point with each free parameter moved to
-// either bound and each pair of them moved to the four corners of their
-// bounds, the others held (in θ). If the best of these points is lower
+// either bound and, for a damped trend or a multiplicative season, each
+// pair of them moved to the four corners of their bounds, the others held
+// (in θ). If the best of these points is lower
 // than the best so far by more than a millionth, it descends from there.
 // It reports whether the best point improved.
 func (f *etsFitter) probe() bool {
@@ -258,11 +260,15 @@ func (f *etsFitter) probe() bool {
 		par[f.free[q]] = iv.lo + fr*(iv.hi-iv.lo)
 		return par
 	}
+	// Pairs only where they made a difference on the wide comparison:
+	// with a damped trend (damping and trend smoothing trade off) or a
+	// multiplicative season.
+	pairs := f.sh.damped || f.mult
 	for q := range f.free {
 		for _, a := range []float64{0, 1} {
 			try(at(f.bestPar, q, a))
 		}
-		for r := q + 1; r < len(f.free); r++ {
+		for r := q + 1; r < len(f.free) && pairs; r++ {
 			for _, a := range []float64{0, 1} {
 				for _, b := range []float64{0, 1} {
 					try(at(at(f.bestPar, q, a), r, b))
