@@ -105,7 +105,13 @@ func etsMinPoints(m Method, season int) int {
 // for an infinity; for the multiplicative season an error when a value is
 // zero or negative; and an error when a held parameter is out of range
 // (alpha, beta, gamma in [0, 1], phi in (0, 1]). Positions in messages are
-// 1-based. It panics if m is not one of the five methods.
+// 1-based. A fit that fails (no parameters in the bounds give a finite
+// SSE, or a parameter, state or prediction comes out non-finite) is an
+// error too: the model returned always has fitted parameters. The
+// estimation runs on y divided by a power of two near its mean absolute
+// value (dataScale), so data near 1e160 or 1e-160 fit as well as data
+// near 1; the model is in the units of y. It panics if m is not one of
+// the five methods.
 func fitETS(y []float64, m Method, cfg Config) (Model, error) {
 	sh, err := etsShapeFor(m, cfg)
 	if err != nil {

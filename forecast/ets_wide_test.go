@@ -71,7 +71,7 @@ func loadETSWindows(tb testing.TB) *etsWindows {
 }
 
 // fitWindow fits one window with forelay and returns its SSE and the
-// window's data.
+// model.
 func (g *etsWindows) fitWindow(tb testing.TB, w etsWindowFit) (sse float64, md Model) {
 	tb.Helper()
 	y, ok := g.Series[w.Series]
