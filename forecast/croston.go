@@ -54,9 +54,10 @@ type crostonModel struct {
 //
 //	SSE(alpha) = sum_{t > f} (y_t - yhat_t)^2
 //
-// over [0.05, 0.3]: a grid with step 0.005 finds the best point, then a
-// golden-section search refines it within one grid step on either side
-// (to 1e-7). Ties go to the smaller alpha. Other Fixed fields are ignored.
+// over [0.05, 0.3] globally: a grid of 51 points, both bounds included,
+// finds the best point, then Brent's method refines it within one grid
+// step on either side (to 1e-7). Ties go to the smaller alpha. Other Fixed
+// fields are ignored.
 //
 // Zero values are the periods without demand; any other value, negative
 // ones included, is a demand. It returns an error wrapping ErrBadNumber if
@@ -127,51 +128,30 @@ func (m *crostonModel) rate(z, p, alpha float64) float64 {
 	return r
 }
 
-// sse returns the in-sample one-step SSE for alpha.
-func (m *crostonModel) sse(y []float64, alpha float64) float64 {
+// sse returns the in-sample one-step SSE for alpha, of the errors divided
+// by c (a power of two from dataScale, so that the squares neither
+// overflow nor underflow; the minimiser does not depend on c).
+func (m *crostonModel) sse(y []float64, alpha, c float64) float64 {
 	pred, _, _ := m.run(y, alpha)
 	s := 0.0
 	for t := m.first + 1; t < len(y); t++ {
-		e := y[t] - pred[t]
+		e := (y[t] - pred[t]) / c
 		s += e * e
 	}
 	return s
 }
 
-// bestAlpha minimises sse over [crostonAlphaMin, crostonAlphaMax]: a grid
-// with step 0.005, then golden-section search around the best grid point.
+// bestAlpha minimises sse over [crostonAlphaMin, crostonAlphaMax]
+// globally (minimizeGlobal1D: a 51-point grid with both bounds, then
+// Brent's method around the best point, to 1e-7).
 func (m *crostonModel) bestAlpha(y []float64) float64 {
-	const step = 0.005
-	steps := int(math.Round((crostonAlphaMax - crostonAlphaMin) / step))
-	best, bestSSE := crostonAlphaMin, math.Inf(1)
-	for i := 0; i <= steps; i++ {
-		a := crostonAlphaMin + float64(i)*step
-		if s := m.sse(y, a); s < bestSSE {
-			best, bestSSE = a, s
-		}
+	c := dataScale(y)
+	a, _ := minimizeGlobal1D(func(a float64) float64 { return m.sse(y, a, c) },
+		crostonAlphaMin, crostonAlphaMax, 50, 1e-7)
+	if math.IsNaN(a) {
+		return crostonAlphaMin // no finite SSE; cannot happen for finite y
 	}
-	lo := math.Max(crostonAlphaMin, best-step)
-	hi := math.Min(crostonAlphaMax, best+step)
-	invPhi := (math.Sqrt(5) - 1) / 2
-	c := hi - invPhi*(hi-lo)
-	d := lo + invPhi*(hi-lo)
-	fc, fd := m.sse(y, c), m.sse(y, d)
-	for hi-lo > 1e-7 {
-		if fc <= fd {
-			hi, d, fd = d, c, fc
-			c = hi - invPhi*(hi-lo)
-			fc = m.sse(y, c)
-		} else {
-			lo, c, fc = c, d, fd
-			d = lo + invPhi*(hi-lo)
-			fd = m.sse(y, d)
-		}
-	}
-	mid := (lo + hi) / 2
-	if s := m.sse(y, mid); s < bestSSE {
-		return mid
-	}
-	return best
+	return a
 }
 
 func (m *crostonModel) Method() Method {

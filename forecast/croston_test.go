@@ -105,7 +105,7 @@ func TestCrostonFilterOtherData(t *testing.T) {
 }
 
 // TestCrostonFittedAlpha checks the alpha search: it stays in [0.05, 0.3]
-// (here strictly inside, so the golden-section refinement runs) and no alpha on a fine grid (step 0.0005) over that range has a lower
+// (here strictly inside, so the refinement around the best grid point runs) and no alpha on a fine grid (step 0.0005) over that range has a lower
 // in-sample SSE, recomputed here from the recursion of TestCrostonByHand.
 func TestCrostonFittedAlpha(t *testing.T) {
 	// Invented demand (drawn once from a seeded generator, then fixed):

@@ -1,6 +1,7 @@
 package forecast
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strconv"
@@ -104,7 +105,13 @@ func etsMinPoints(m Method, season int) int {
 // for an infinity; for the multiplicative season an error when a value is
 // zero or negative; and an error when a held parameter is out of range
 // (alpha, beta, gamma in [0, 1], phi in (0, 1]). Positions in messages are
-// 1-based. It panics if m is not one of the five methods.
+// 1-based. A fit that fails (no parameters in the bounds give a finite
+// SSE, or a parameter, state or prediction comes out non-finite) is an
+// error too: the model returned always has fitted parameters. The
+// estimation runs on y divided by a power of two near its mean absolute
+// value (dataScale), so data near 1e160 or 1e-160 fit as well as data
+// near 1; the model is in the units of y. It panics if m is not one of
+// the five methods.
 func fitETS(y []float64, m Method, cfg Config) (Model, error) {
 	sh, err := etsShapeFor(m, cfg)
 	if err != nil {
@@ -128,11 +135,55 @@ func fitETS(y []float64, m Method, cfg Config) (Model, error) {
 	if err != nil {
 		return nil, err
 	}
-	f := newETSFitter(sh, y, fixed)
+	// Fit on y scaled to a mean absolute value near 1 (exactly: the scale
+	// is a power of two), so that values near 1e160 or 1e-160 neither
+	// overflow nor underflow in the sums of squares; the states go back
+	// to the units of y.
+	c := dataScale(y)
+	f := newETSFitter(sh, scaleBy(y, c), fixed)
 	par, init, nEst := f.fit()
+	if !(f.bestF < math.Inf(1)) {
+		return nil, fmt.Errorf("%s: the fit failed: no smoothing parameters in their bounds give a finite in-sample error", m)
+	}
+	init.level *= c
+	init.trend *= c
+	if !sh.mult {
+		for j := range init.season {
+			init.season[j] *= c
+		}
+	}
 	md := newETSModel(sh, par, init, y)
 	md.nEst = nEst
+	if err := md.checkFinite(); err != nil {
+		return nil, fmt.Errorf("%s: the fit failed: %w", m, err)
+	}
 	return md, nil
+}
+
+// checkFinite returns an error if a parameter, a state or a fitted value
+// of the model is not finite.
+func (md *etsModel) checkFinite() error {
+	bad := func(v float64) bool { return math.IsNaN(v) || math.IsInf(v, 0) }
+	p := md.par
+	if bad(p.alpha) || bad(p.beta) || bad(p.gamma) || bad(p.phi) {
+		return fmt.Errorf("a smoothing parameter is not finite (%+v)", p)
+	}
+	for _, st := range []etsStates{md.init, md.last} {
+		if bad(st.level) || bad(st.trend) {
+			return errors.New("the level or trend is not finite")
+		}
+		for _, v := range st.season {
+			if bad(v) {
+				return errors.New("a seasonal state is not finite")
+			}
+		}
+	}
+	for i, v := range md.fitted {
+		if bad(v) {
+			return fmt.Errorf("the one-step prediction at position %d is %v", i+1, v)
+		}
+	}
+	return nil
 }
 
 // etsCheckFixed validates the held parameters that apply to the shape and

@@ -246,6 +246,9 @@ func (f *etsFitter) sseAt(x []float64) float64 {
 // states are s_j - s_{m-1} (normalisation), so their rows are differences
 // of these sums.
 func (f *etsFitter) passStatesLinear() float64 {
+	if f.m == 1 {
+		return f.passNoSeason()
+	}
 	k, m, n := f.k, f.m, len(f.y)
 	alpha, gamma, phi := f.par[etsAlpha], f.par[etsGamma], f.par[etsPhi]
 	ab := alpha * f.par[etsBeta]
@@ -345,6 +348,62 @@ func (f *etsFitter) passStatesLinear() float64 {
 			}
 			g[f.ks+i] = gs[i] - gs[last]
 		}
+	}
+	if math.IsNaN(sse) {
+		return math.Inf(1)
+	}
+	return sse
+}
+
+// passNoSeason is passStatesLinear for a model without a season: the
+// impulse responses of the errors to a unit initial level (h_l) and, with
+// a trend, trend (h_b), and the 1×1 or 2×2 normal equations from them.
+func (f *etsFitter) passNoSeason() float64 {
+	n := len(f.y)
+	alpha, phi := f.par[etsAlpha], f.par[etsPhi]
+	ab := alpha * f.par[etsBeta]
+	hl, ev := f.hl[:n], f.ev[:n]
+	l, b := f.expand(f.x)
+	var sse float64
+	if f.kb == 0 {
+		// Without a trend, h_l(t) = -(1-α)^t.
+		dl := 1.0
+		for t, yt := range f.y {
+			e := yt - l
+			ev[t] = e
+			sse += e * e
+			l += alpha * e
+			hl[t] = -dl
+			dl -= alpha * dl
+		}
+		f.a[0] = dot(hl, hl)
+		f.g[0] = dot(hl, ev)
+	} else {
+		hb := f.hb[:n]
+		dl0, db0, dl1, db1 := 1.0, 0.0, 0.0, 1.0
+		for t, yt := range f.y {
+			mu := l + phi*b
+			e := yt - mu
+			ev[t] = e
+			sse += e * e
+			l = mu + alpha*e
+			b = phi*b + ab*e
+			// de = -dμ for each direction.
+			dmu := dl0 + phi*db0
+			hl[t] = -dmu
+			dl0 = dmu - alpha*dmu
+			db0 = phi*db0 - ab*dmu
+			dmu = dl1 + phi*db1
+			hb[t] = -dmu
+			dl1 = dmu - alpha*dmu
+			db1 = phi*db1 - ab*dmu
+		}
+		k := f.k
+		f.a[0] = dot(hl, hl)
+		f.a[k] = dot(hb, hl)
+		f.a[k+1] = dot(hb, hb)
+		f.g[0] = dot(hl, ev)
+		f.g[1] = dot(hb, ev)
 	}
 	if math.IsNaN(sse) {
 		return math.Inf(1)

@@ -1,10 +1,6 @@
 package forecast
 
-import (
-	"cmp"
-	"math"
-	"slices"
-)
+import "math"
 
 // Bounds of the estimated smoothing parameters (component form, see
 // ets.go). They are the usual region of HKOS (2008) for the innovations
@@ -59,16 +55,19 @@ const (
 // Cholesky. For the multiplicative season the errors are not affine in
 // x0; the sensitivities ∂e_t/∂x0, propagated through the recursions
 // (passStates), give Gauss-Newton steps with step halving from the
-// previous solution, until a step gains less than 1e-11 of the SSE,
-// or is predicted to gain less than 1e-9, or is small (1e-5) and gains
-// what was predicted to a thousandth.
+// previous solution (or from the anchor states, see descendFrom), until
+// a step gains less than 1e-11 of the SSE, or is predicted to gain less
+// than 1e-9, or is small (1e-5) and gains what was predicted to a
+// thousandth. That problem can have several minima; at the starts of the
+// outer search it is solved from several initial states (bestInner).
 //
 // Outer problem. S(θ) is smooth, and its gradient is ∂SSE/∂θ at the inner
 // solution (envelope theorem), propagated through the recursions in a
 // second pass (passParams). Each free parameter is kept in its bounds by
 // the transform of interval.fromFree, and gonum's BFGS (minimizeSmooth)
-// minimises S over the free variables, scaled by its value at the start.
-// The start comes from a small grid (see grid and fit).
+// minimises S over the free variables, scaled by its value at the start,
+// from several starts (see fit in ets_search.go). A single free parameter
+// is searched globally instead (fit1D).
 type etsFitter struct {
 	sh   etsShape
 	y    []float64
@@ -105,6 +104,12 @@ type etsFitter struct {
 	bestX   []float64
 	bestPar [4]float64
 	bestU   []float64
+
+	maxGN int // caps the Gauss-Newton steps of an inner solve (0: 50)
+
+	// anchor, when not nil, is where every inner solve of a
+	// multiplicative season starts (see solveStates).
+	anchor []float64
 }
 
 // newETSFitter prepares the estimation of a model of shape sh on y (which
@@ -290,106 +295,6 @@ func (f *etsFitter) freeFor(par [4]float64) []float64 {
 	return u
 }
 
-// gridPoint is one point of the starting grid and its SSE; idx are its
-// positions in the grid's value lists (alpha, beta, gamma, phi).
-type gridPoint struct {
-	par [4]float64
-	idx [4]int
-	u   []float64
-	sse float64
-}
-
-// gridValues returns the starting grid's values for each parameter (gamma
-// as a fraction of its upper bound 1-alpha): a full factorial design over
-// the free smoothing parameters, finer when there are fewer of them. Held
-// parameters get their value alone. With a season, phi, when free, is 0.9
-// here and tried at 0.85 and 0.95 afterwards (see grid).
-func (f *etsFitter) gridValues() (vals [4][]float64) {
-	nfree := 0
-	for _, i := range f.free {
-		if i != etsPhi {
-			nfree++
-		}
-	}
-	if nfree >= 3 {
-		vals[etsAlpha] = []float64{0.2, 0.5, 0.8}
-		vals[etsBeta] = []float64{0.02, 0.2, 0.8}
-	} else {
-		vals[etsAlpha] = []float64{0.1, 0.3, 0.5, 0.7, 0.9}
-		vals[etsBeta] = []float64{0.01, 0.1, 0.4, 0.9}
-	}
-	vals[etsGamma] = []float64{0.05, 0.35, 0.8}
-	vals[etsPhi] = []float64{0.9}
-	if nfree < 3 {
-		vals[etsPhi] = []float64{0.8, 0.9, 0.98}
-	}
-	for i, v := range f.fixed {
-		if !math.IsNaN(v) {
-			vals[i] = []float64{v}
-		}
-	}
-	return vals
-}
-
-// grid evaluates S(θ) on the starting grid (gridValues) and returns the
-// points sorted by SSE, best first; with a season and phi free it then
-// tries phi 0.85 and 0.95 at the best point. That is at most 60 points
-// without a season and 29 with one. For an additive
-// season S(θ) is exact and cheap (one linear pass, one solve). For a
-// multiplicative season the points are ranked on the additive season
-// model of the same data, whose smoothing parameters behave much alike,
-// and the best few are then evaluated properly (see fit).
-func (f *etsFitter) grid() []gridPoint {
-	lin := f
-	if f.mult {
-		sh := f.sh
-		sh.mult = false
-		lin = newETSFitter(sh, f.y, f.fixed)
-		lin.initialStates()
-	}
-	var pts []gridPoint
-	eval := func(par [4]float64, idx [4]int) {
-		u := lin.freeFor(par)
-		lin.setParams(u)
-		sse := lin.passStatesLinear()
-		pred, ok := lin.step()
-		if ok && sse < math.Inf(1) {
-			pts = append(pts, gridPoint{lin.par, idx, u, math.Max(sse-pred, 0)})
-		}
-	}
-	vals := f.gridValues()
-	for ia, a := range vals[etsAlpha] {
-		for ib, b := range vals[etsBeta] {
-			for ig, g := range vals[etsGamma] {
-				for ip, p := range vals[etsPhi] {
-					par := [4]float64{a, b, g, p}
-					if math.IsNaN(f.fixed[etsGamma]) {
-						par[etsGamma] = g * math.Min(etsParamHi, 1-a)
-					}
-					eval(par, [4]int{ia, ib, ig, ip})
-				}
-			}
-		}
-	}
-	if len(pts) == 0 {
-		return nil
-	}
-	sortPts := func() {
-		slices.SortStableFunc(pts, func(p, q gridPoint) int { return cmp.Compare(p.sse, q.sse) })
-	}
-	sortPts()
-	if math.IsNaN(f.fixed[etsPhi]) && len(vals[etsPhi]) == 1 {
-		best := pts[0]
-		for _, p := range []float64{0.85, 0.95} {
-			par := best.par
-			par[etsPhi] = p
-			eval(par, best.idx)
-		}
-		sortPts()
-	}
-	return pts
-}
-
 // solveStates replaces f.x by the best initial states for the current
 // parameters and reports whether that worked (finite SSE).
 func (f *etsFitter) solveStates() bool {
@@ -403,7 +308,14 @@ func (f *etsFitter) solveStates() bool {
 		}
 		return true
 	}
-	for it := 0; it < 50; it++ {
+	if len(f.anchor) == f.k {
+		copy(f.x, f.anchor)
+	}
+	iters := 50
+	if f.maxGN > 0 {
+		iters = f.maxGN
+	}
+	for it := 0; it < iters; it++ {
 		sse := f.passStates()
 		if !(sse < math.Inf(1)) {
 			return false
@@ -505,13 +417,52 @@ func (f *etsFitter) objective(u, grad []float64) float64 {
 			return math.Inf(1)
 		}
 	}
+	f.record(sse, u)
+	return sse / f.scale
+}
+
+// value returns S(θ(u)), like objective without the gradient and the
+// scale, and records the point if it is the best so far.
+func (f *etsFitter) value(u []float64) float64 {
+	f.setParams(u)
+	var sse float64
+	if f.mult {
+		if !f.solveStates() {
+			f.restoreStates()
+			return math.Inf(1)
+		}
+		sse = f.sseAt(f.x)
+	} else {
+		// Linear least squares: the SSE at the solution is the SSE at the
+		// start less the predicted decrease, exactly.
+		s := f.passStatesLinear()
+		pred, ok := f.step()
+		if !ok {
+			f.restoreStates()
+			return math.Inf(1)
+		}
+		for i, d := range f.g {
+			f.x[i] += d
+		}
+		sse = math.Max(s-pred, 0)
+	}
+	if !(sse < math.Inf(1)) {
+		f.restoreStates()
+		return math.Inf(1)
+	}
+	f.record(sse, u)
+	return sse
+}
+
+// record keeps the current states and parameters (free variables u) as
+// the best point if sse is below the best so far.
+func (f *etsFitter) record(sse float64, u []float64) {
 	if sse < f.bestF {
 		f.bestF = sse
 		copy(f.bestX, f.x)
 		f.bestPar = f.par
 		f.bestU = append(f.bestU[:0], u...)
 	}
-	return sse / f.scale
 }
 
 // restoreStates resets f.x after a failed evaluation: to the best states
@@ -529,126 +480,6 @@ func (f *etsFitter) restoreStates() {
 func (f *etsFitter) evalStart(u []float64) float64 {
 	f.scale = 1
 	return f.objective(u, make([]float64, len(u)))
-}
-
-// fit runs the estimation and returns the parameters, the initial states
-// and the number of estimated quantities.
-//
-// Start: S(θ) on a small grid (see grid); for a multiplicative season the
-// three best grid points are re-evaluated with the model itself. Then
-// BFGS from the best point (descend). The sin² transform makes every
-// bound a stationary point of the free variables, so a parameter can stop
-// on a bound that the SSE would rather leave; when the gradient in θ at
-// the result points into the interval for such a parameter, BFGS is
-// restarted with it moved inside (at most twice). Last, a second descent
-// from the best grid point with a clearly different alpha, if that point
-// is within 10% of the best SSE so far. All evaluations keep the best
-// point seen, which is the result.
-func (f *etsFitter) fit() (etsParams, etsStates, int) {
-	f.initialStates()
-	if len(f.free) == 0 {
-		if !f.solveStates() {
-			f.initialStates()
-		}
-		copy(f.bestX, f.x)
-		f.bestPar = f.par
-		return f.result()
-	}
-	pts := f.grid()
-	starts := 1
-	if f.mult {
-		starts = 3
-	}
-	for i := 0; i < starts && i < len(pts); i++ {
-		f.evalStart(pts[i].u)
-	}
-	if len(pts) == 0 || math.IsInf(f.bestF, 1) {
-		// No grid point worked (a multiplicative season with wild data):
-		// try the middle of the grid from the heuristic states.
-		f.initialStates()
-		u := f.freeFor([4]float64{0.3, 0.05, 0.1, 0.9}) // a middling start
-		if math.IsInf(f.evalStart(u), 1) {
-			f.initialStates()
-			copy(f.bestX, f.x)
-			f.setParams(u)
-			f.bestPar = f.par
-			return f.result()
-		}
-	}
-	f.descend(f.bestU)
-	// A second descent from the best grid point two or more grid steps
-	// away from the first start in some parameter, in case the first
-	// descent ended in a poorer local minimum; only when that point is
-	// already within 10% of the best SSE found, since a start further off
-	// rarely ends lower (and the descent costs as much as the first).
-	if len(pts) > 0 {
-		first := pts[0].idx
-		for _, p := range pts[1:] {
-			far := false
-			for i := range first {
-				far = far || p.idx[i]-first[i] >= 2 || first[i]-p.idx[i] >= 2
-			}
-			if !far {
-				continue
-			}
-			if p.sse < 1.1*f.bestF {
-				if f.mult {
-					copy(f.x, f.bestX)
-				}
-				f.descend(p.u)
-			}
-			break
-		}
-	}
-	return f.result()
-}
-
-// descend runs BFGS from u0, then up to two restarts from points moved off
-// the bounds where the SSE would rather leave them (see leaveBounds).
-func (f *etsFitter) descend(u0 []float64) {
-	for restart := 0; restart < 3; restart++ {
-		f.scale = f.bestF
-		if !(f.scale > 0) || math.IsInf(f.scale, 1) {
-			return // a perfect fit, or nothing to scale by
-		}
-		minimizeSmooth(f.objective, u0, smoothSettings{Step: 0.2})
-		u, moved := f.leaveBounds()
-		if !moved {
-			return
-		}
-		u0 = u
-	}
-}
-
-// leaveBounds looks at the best point for free parameters on a bound
-// whose SSE derivative points into the interval, and returns the free
-// variables with each such parameter moved 5% of its interval inside.
-func (f *etsFitter) leaveBounds() (u []float64, moved bool) {
-	u = append([]float64(nil), f.bestU...)
-	copy(f.x, f.bestX)
-	f.setParams(u)
-	if !(f.passParams() < math.Inf(1)) {
-		return u, false
-	}
-	for q, i := range f.free {
-		iv, _, _ := f.paramInterval(i)
-		w := iv.hi - iv.lo
-		if !(w > 0) {
-			continue
-		}
-		s := math.Sin(u[q])
-		s *= s
-		g := f.pgr[q] // ½ ∂SSE/∂θ_i, others held
-		switch {
-		case s < 1e-6 && g < 0:
-			u[q] = iv.toFree(iv.lo + 0.05*w)
-			moved = true
-		case s > 1-1e-6 && g > 0:
-			u[q] = iv.toFree(iv.hi - 0.05*w)
-			moved = true
-		}
-	}
-	return u, moved
 }
 
 // result returns the best parameters and initial states found.

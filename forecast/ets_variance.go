@@ -99,12 +99,17 @@ func etsClass3Factors(p etsParams, st etsStates, sigma2 float64, h int) ([]float
 	cj := make([]float64, h+1)   // c_j = α + β_I φ_j, j = 1..h
 	psi2 := make([]float64, h+1) // c_j²
 	theta := make([]float64, h+1)
+	// The factors are ratios of variances, so the level and trend may be
+	// taken in any unit: in units of the level's power of two, μ̃² stays in
+	// range for data near 1e160.
+	sc := dataScale([]float64{st.level})
+	level, trend := st.level/sc, st.trend/sc
 	var phiJ float64
 	pk := 1.0
 	for j := 1; j <= h; j++ {
 		pk *= p.phi
 		phiJ += pk
-		mu[j] = st.level + phiJ*st.trend
+		mu[j] = level + phiJ*trend
 		cj[j] = p.alpha + bI*phiJ
 		psi2[j] = cj[j] * cj[j]
 	}

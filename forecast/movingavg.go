@@ -88,7 +88,9 @@ func fitWeightedMovingAverage(y []float64, cfg Config) (Model, error) {
 	if w != nil {
 		return newMovingAverageModel(m, w, false, y), nil
 	}
-	w, err := wmaFitWeights(y, simpleWMAWindow(cfg))
+	// The weights do not depend on the scale of y; fitting them on y
+	// scaled near 1 keeps the normal equations in range.
+	w, err := wmaFitWeights(scaleBy(y, dataScale(y)), simpleWMAWindow(cfg))
 	if err != nil {
 		return nil, err
 	}

@@ -112,6 +112,9 @@ type smoothSettings struct {
 	// (default 1). The variables are scaled by it, so GradTol applies to
 	// the gradient in the scaled variables x/Step.
 	Step float64
+	// Major, if not nil, is called after each major iteration, when the
+	// last point evaluated is the new iterate.
+	Major func()
 }
 
 // smoothResult is what minimizeSmooth found.
@@ -199,6 +202,9 @@ func minimizeSmooth(fg func(x, grad []float64) float64, x0 []float64, set smooth
 		switch {
 		case op == optimize.MajorIteration:
 			res.Iter++
+			if set.Major != nil {
+				set.Major()
+			}
 			if floats.Norm(loc.Gradient, math.Inf(1)) < set.GradTol || res.Iter >= set.MaxIter {
 				return res
 			}
@@ -214,4 +220,170 @@ func minimizeSmooth(fg func(x, grad []float64) float64, x0 []float64, set smooth
 	}
 	res.Err = err
 	return res
+}
+
+// minimizeGlobal1D minimises a function of one variable over the closed
+// interval [lo, hi] globally, up to the resolution of a grid: it evaluates
+// f at the n+1 points
+//
+//	x_j = lo + (hi - lo) sin²(π j / (2n)),  j = 0..n
+//
+// (both bounds included; the points are closer together near the bounds,
+// where the SSE of a smoothing parameter changes fastest), takes the best
+// one, x_b, and refines it by Brent's method on [x_{b-1}, x_{b+1}] to an
+// absolute tolerance tol in x. The result is the best point evaluated,
+// grid or refinement, the smaller x on a tie. A minimum in a basin
+// narrower than the grid spacing can be missed; every basin that holds a
+// grid point lower than all the others is found.
+//
+// A non-finite value counts as +Inf; if every value is, x is NaN and fx is
+// +Inf. lo == hi gives that point alone. It panics if n < 2 or lo > hi.
+func minimizeGlobal1D(f func(float64) float64, lo, hi float64, n int, tol float64) (x, fx float64) {
+	if n < 2 || lo > hi {
+		panic("forecast: bad grid for minimizeGlobal1D")
+	}
+	eval := func(v float64) float64 {
+		y := f(v)
+		if math.IsNaN(y) {
+			return math.Inf(1)
+		}
+		return y
+	}
+	if lo == hi {
+		return lo, eval(lo)
+	}
+	w := hi - lo
+	at := func(j int) float64 {
+		if j >= n {
+			return hi // exactly, whatever the rounding of sin²
+		}
+		s := math.Sin(math.Pi * float64(j) / float64(2*n))
+		return lo + w*s*s
+	}
+	x, fx = math.NaN(), math.Inf(1)
+	b := -1
+	for j := 0; j <= n; j++ {
+		v := at(j)
+		if y := eval(v); y < fx {
+			x, fx, b = v, y, j
+		}
+	}
+	if b < 0 {
+		return x, fx
+	}
+	a, c := at(max(b-1, 0)), at(min(b+1, n))
+	if xr, fr := brentMin(eval, a, c, x, fx, tol); fr < fx {
+		x, fx = xr, fr
+	}
+	return x, fx
+}
+
+// brentMin minimises f on [a, b] from the point x inside it (fx = f(x)) by
+// Brent's method: golden-section steps, with a parabola through the three
+// best points whenever it falls well inside the bracket and shrinks the
+// step (R. P. Brent, "Algorithms for Minimization without Derivatives",
+// 1973, ch. 5). It stops when the bracket around the best point is within
+// 2*tol (plus a relative term for rounding) and returns the best point and
+// its value. At most 100 evaluations.
+func brentMin(f func(float64) float64, a, b, x, fx, tol float64) (float64, float64) {
+	const cg = 0.3819660112501051 // (3 - √5)/2, the golden section
+	v, w := x, x
+	fv, fw := fx, fx
+	var d, e float64
+	for it := 0; it < 100; it++ {
+		m := (a + b) / 2
+		t1 := 1e-10*math.Abs(x) + tol/2
+		t2 := 2 * t1
+		if math.Abs(x-m) <= t2-(b-a)/2 {
+			break
+		}
+		golden := true
+		if math.Abs(e) > t1 {
+			// Parabola through (v, fv), (w, fw), (x, fx).
+			r := (x - w) * (fx - fv)
+			q := (x - v) * (fx - fw)
+			p := (x-v)*q - (x-w)*r
+			q = 2 * (q - r)
+			if q > 0 {
+				p = -p
+			} else {
+				q = -q
+			}
+			if math.Abs(p) < math.Abs(q*e/2) && p > q*(a-x) && p < q*(b-x) {
+				e, d = d, p/q
+				golden = false
+				if u := x + d; u-a < t2 || b-u < t2 {
+					d = math.Copysign(t1, m-x)
+				}
+			}
+		}
+		if golden {
+			if x < m {
+				e = b - x
+			} else {
+				e = a - x
+			}
+			d = cg * e
+		}
+		u := x + d
+		if math.Abs(d) < t1 {
+			u = x + math.Copysign(t1, d)
+		}
+		fu := f(u)
+		switch {
+		case fu <= fx:
+			if u < x {
+				b = x
+			} else {
+				a = x
+			}
+			v, fv, w, fw, x, fx = w, fw, x, fx, u, fu
+		default:
+			if u < x {
+				a = u
+			} else {
+				b = u
+			}
+			if fu <= fw || w == x {
+				v, fv, w, fw = w, fw, u, fu
+			} else if fu <= fv || v == x || v == w {
+				v, fv = u, fu
+			}
+		}
+	}
+	return x, fx
+}
+
+// dataScale returns the power of two nearest (in log scale) to the mean
+// absolute value of the finite values of y, or 1 if that mean is zero or
+// there are none. Dividing by a power of two is exact (within the range of
+// normal numbers), so a fit on y/dataScale(y) is the same as on y up to
+// the scale, while its sums of squares stay far from overflow (values near
+// 1e160 square past the largest float64) and from underflow (near 1e-160).
+func dataScale(y []float64) float64 {
+	var mean float64
+	k := 0
+	for _, v := range y {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			continue
+		}
+		k++
+		mean += (math.Abs(v) - mean) / float64(k) // running mean, no overflow
+	}
+	if !(mean > 0) || math.IsInf(mean, 0) {
+		return 1
+	}
+	return math.Exp2(math.Round(math.Log2(mean)))
+}
+
+// scaleBy returns y divided by c, or y itself when c is 1.
+func scaleBy(y []float64, c float64) []float64 {
+	if c == 1 {
+		return y
+	}
+	out := make([]float64, len(y))
+	for i, v := range y {
+		out[i] = v / c
+	}
+	return out
 }
