@@ -351,6 +351,11 @@ func selectMethod(y []float64, spec Spec) ([]Candidate, int, error) {
 		return cands, -1, firstErr
 	}
 	cands[best].Chosen = true
+	for i := range cands {
+		if i != best {
+			cands[i].bt = nil // only the winner's backtest is kept: a result holds one
+		}
+	}
 	return cands, best, nil
 }
 

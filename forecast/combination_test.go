@@ -248,10 +248,14 @@ func TestFewErrorsPenalty(t *testing.T) {
 		}
 		best, bestScore := Method(-1), math.Inf(1)
 		for _, c := range r.Candidates {
-			if c.bt == nil {
+			if c.Backtest == nil {
 				continue
 			}
-			if s := c.Backtest.MAD * fewErrorsPenalty(c.bt); s < bestScore {
+			s := c.Backtest.MAD
+			if c.Method != Combination {
+				s *= FewOriginsFactor(r.Backtest.Origins)
+			}
+			if s < bestScore {
 				best, bestScore = c.Method, s
 			}
 		}
