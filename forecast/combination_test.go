@@ -367,3 +367,44 @@ func TestCombinationShockForm(t *testing.T) {
 }
 
 func ptr(v float64) *float64 { return &v }
+
+// TestInterventionsKeepMembers checks that cleaning past events keeps the
+// members of the combination chosen in the first round: later rounds
+// refit those only.
+func TestInterventionsKeepMembers(t *testing.T) {
+	start, _ := ParsePeriod("2020-01", Monthly)
+	y := noisySeries(60, 6)
+	pulse := make([]float64, len(y))
+	pulse[30] = 1
+	y[30] += 40
+	r, err := FitInterventions(Series{Name: "s", Start: start, Values: y}, Spec{Method: Combination},
+		[]Intervention{{Name: "pulse", Shape: pulse}}, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var want []Method
+	for _, c := range r.Fit.Candidates {
+		if c.Chosen {
+			want = c.Members
+		}
+	}
+	got := Members(r.Fit.Model)
+	if len(got) != len(want) || len(want) != CombineK {
+		t.Fatalf("members %d, chosen candidate's %v", len(got), want)
+	}
+	// The same set; their order (best first) may change as the event
+	// comes out.
+	for _, m := range want {
+		found := false
+		for _, md := range got {
+			found = found || md.Method() == m
+		}
+		if !found {
+			t.Errorf("the first round chose %v, the final fit has %s", m, r.Fit.Model.Describe())
+		}
+	}
+	// The pulse of 40 comes out within a few standard errors.
+	if e, se := r.Effect[0], r.StdErr[0]; math.Abs(e-40) > 4*se {
+		t.Errorf("effect %v +- %v, want about 40", e, se)
+	}
+}
