@@ -8,11 +8,10 @@ import (
 
 // CombineK is the number of single methods the combination averages: the
 // CombineK best by backtest, or every scored one when fewer were scored.
-// Three is the size Makridakis, Spiliotis & Assimakopoulos (2020, "The M4
-// Competition: 100,000 time series and 61 forecasting methods", IJF 36(1))
-// found enough: their benchmark combination averages three exponential
-// smoothing methods, and most of the gain of a combination comes from its
-// first few members.
+// Three is the size of the combination benchmark of Makridakis, Spiliotis
+// & Assimakopoulos (2020, "The M4 Competition: 100,000 time series and 61
+// forecasting methods", IJF 36(1)), the mean of simple, Holt and damped
+// exponential smoothing, which few of the competition's methods beat.
 const CombineK = 3
 
 // combinationModel forecasts with the mean of its members' forecasts:
@@ -23,9 +22,11 @@ const CombineK = 3
 // predictions are the same mean of the members' (NaN where a member has
 // none), so its errors are the mean of the members' errors. The mean was
 // kept over the median: with three members the median is the middle one,
-// which discards the information of the other two, and on the open data
-// sets of the README the mean was the more accurate (see combination_test.go
-// for the arithmetic and the README for the figures).
+// which throws away the other two, and on the open data sets of the README
+// (statsmodels 0.13.5's monthly co2, elec_equip and elnino, quarterly
+// macrodata and interest_inflation, 12 and 8 periods ahead from many
+// origins) the mean of the best three had mean MASE 0.689 (monthly) and
+// 1.008 (quarterly), the median 0.751 and 1.024.
 type combinationModel struct {
 	members []Model
 	fitted  []float64
