@@ -11,7 +11,7 @@ import (
 // Three is the size of the combination benchmark of Makridakis, Spiliotis
 // & Assimakopoulos (2020, "The M4 Competition: 100,000 time series and 61
 // forecasting methods", IJF 36(1)), the mean of simple, Holt and damped
-// exponential smoothing, which few of the competition's methods beat.
+// exponential smoothing, which most submissions did not beat (from memory).
 const CombineK = 3
 
 // combinationModel forecasts with the mean of its members' forecasts:
