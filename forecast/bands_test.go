@@ -118,9 +118,9 @@ func TestVarianceSources(t *testing.T) {
 	}
 }
 
-// TestAutoPicksTrend checks that auto selection prefers a trend method on
-// a straight line (every method without a trend lags it) and reports every
-// candidate with one marked chosen.
+// TestAutoPicksTrend checks that auto selection prefers a trend method, or
+// a combination of trend methods, on a straight line (every method without
+// a trend lags it) and reports every candidate with one marked chosen.
 func TestAutoPicksTrend(t *testing.T) {
 	start, _ := ParsePeriod("2020-01", Monthly)
 	y := make([]float64, 40)
@@ -131,10 +131,16 @@ func TestAutoPicksTrend(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	switch r.Method {
-	case Holt, DampedHolt, LinearTrend:
-	default:
-		t.Errorf("auto chose %v on a line", r.Method)
+	picked := []Model{r.Model}
+	if r.Method == Combination {
+		picked = Members(r.Model)
+	}
+	for _, md := range picked {
+		switch md.Method() {
+		case Holt, DampedHolt, LinearTrend:
+		default:
+			t.Errorf("auto chose %v (%s) on a line", r.Method, r.Model.Describe())
+		}
 	}
 	chosen := 0
 	for _, c := range r.Candidates {

@@ -19,6 +19,9 @@ package forecast
 //	ses, holt, damped-holt                 m = 1, a = α, b = αβ, φ the damping
 //	holt-winters-additive                  m = the season, a_0 = α + γ, a_r = α, b = αβ
 //	holt-winters-multiplicative            m = the season; a and b scale with the seasonal states
+//	combination                            m = the least common multiple of the members' m,
+//	                                       φ that of the members with a trend (the mean of
+//	                                       the members' psi_j; ok = false when two differ)
 //
 // (the additive exponential smoothing weights are those of Hyndman,
 // Koehler, Ord & Snyder 2008, "Forecasting with Exponential Smoothing",
@@ -35,6 +38,39 @@ func ShockForm(md Model) (season int, phi float64, ok bool) {
 		return max(1, m.season), 1, true
 	case *etsModel:
 		return max(1, len(m.last.season)), m.par.phi, true
+	case *combinationModel:
+		return combinationShockForm(m)
 	}
 	return 0, 0, false
+}
+
+// combinationShockForm returns the form of a combination's response, the
+// mean of its members': each member's psi_j repeats with its season, so
+// the mean repeats with their least common multiple; only the members
+// with a trend (b not zero) bring their φ, which must then be shared.
+func combinationShockForm(c *combinationModel) (season int, phi float64, ok bool) {
+	season, phi = 1, 1
+	trend := false
+	for _, md := range c.members {
+		m, p, ok := ShockForm(md)
+		if !ok {
+			return 0, 0, false
+		}
+		season = season / gcd(season, m) * m
+		if e, isETS := md.(*etsModel); isETS && e.shape.trend {
+			if trend && p != phi {
+				return 0, 0, false
+			}
+			phi, trend = p, true
+		}
+	}
+	return season, phi, true
+}
+
+// gcd returns the greatest common divisor of two positive integers.
+func gcd(a, b int) int {
+	for b != 0 {
+		a, b = b, a%b
+	}
+	return a
 }

@@ -5,7 +5,7 @@ import (
 	"math"
 )
 
-// FitMethod fits method m (not Auto) to y. cfg.Season must be at least 1
+// FitMethod fits method m (not Auto, nor Combination, which Fit selects) to y. cfg.Season must be at least 1
 // (Spec resolves it from the frequency). It returns a *TooShortError when y
 // has fewer than MinPoints(m, cfg) values and an error for NaN values or
 // settings the method cannot use.
@@ -43,7 +43,7 @@ func FitMethod(y []float64, m Method, cfg Config) (Model, error) {
 }
 
 // MinPoints returns the fewest observations method m accepts with cfg.
-// For Auto it is the fewest any candidate accepts (naive: 2).
+// For Auto and Combination it is the fewest any candidate accepts (naive: 2).
 func MinPoints(m Method, cfg Config) int {
 	if cfg.Season < 1 {
 		cfg.Season = 1
@@ -51,7 +51,7 @@ func MinPoints(m Method, cfg Config) int {
 	switch m {
 	case SES, Holt, DampedHolt, HoltWintersAdditive, HoltWintersMultiplicative:
 		return etsMinPoints(m, cfg.Season)
-	case Auto:
+	case Auto, Combination:
 		return simpleMinPoints(Naive, cfg)
 	}
 	return simpleMinPoints(m, cfg)

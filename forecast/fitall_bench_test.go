@@ -30,7 +30,8 @@ func benchPortfolio(k, n int) []Series {
 }
 
 // BenchmarkFitAllAuto1000 fits method auto (backtest MAD over every
-// candidate) to 1,000 monthly series of 120 points on two workers. Target:
+// candidate and the combination of the best three, built from their
+// backtests) to 1,000 monthly series of 120 points on two workers. Target:
 // at most 15 s per run on two cores (see README, Performance).
 func BenchmarkFitAllAuto1000(b *testing.B) {
 	series := benchPortfolio(1000, 120)

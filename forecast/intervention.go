@@ -102,6 +102,9 @@ func FitInterventions(s Series, spec Spec, ivs []Intervention, maxIter int) (*In
 		return nil, err
 	}
 	spec.Method, spec.Config = first.Method, first.Config
+	if ms := first.memberMethods(); ms != nil {
+		spec.Candidates = ms // a combination keeps its members
+	}
 	res := first
 	out.Iterations = 1
 	for it := 1; it < maxIter && k > 0; it++ {

@@ -8,8 +8,10 @@ import (
 // Method names a baseline forecasting method.
 type Method int
 
-// The baseline methods. Auto is not a model itself: it picks one of the
-// others by backtest (see Select).
+// The baseline methods. Combination averages the forecasts of the best
+// few single methods by backtest (see combination.go). Auto is not a model
+// itself: it picks one of the others, the combination included, by
+// backtest (see Spec).
 const (
 	MethodUnknown Method = iota
 	Naive
@@ -24,13 +26,14 @@ const (
 	LinearTrend
 	Croston
 	SBA
+	Combination
 	Auto
 )
 
 var methodNames = [...]string{
 	"unknown", "naive", "seasonal-naive", "moving-average", "weighted-moving-average",
 	"ses", "holt", "damped-holt", "holt-winters-additive", "holt-winters-multiplicative",
-	"linear-trend", "croston", "sba", "auto",
+	"linear-trend", "croston", "sba", "combination", "auto",
 }
 
 // String returns the method's name as used on the command line and in files.

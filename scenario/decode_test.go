@@ -67,7 +67,7 @@ func TestParseErrors(t *testing.T) {
 		{"history not a mapping", "plan: p\nhistory: §h.csv\nhorizon: 3\n", false, ErrType, `history: want a mapping of keys, got "h.csv"`},
 		// baseline
 		{"method unknown", head + "baseline: {method: §holtt}\n", false, ErrValue,
-			`baseline.method: unknown method "holtt"; want naive, seasonal-naive, moving-average, weighted-moving-average, ses, holt, damped-holt, holt-winters-additive, holt-winters-multiplicative, linear-trend, croston, sba or auto; did you mean holt?`},
+			`baseline.method: unknown method "holtt"; want naive, seasonal-naive, moving-average, weighted-moving-average, ses, holt, damped-holt, holt-winters-additive, holt-winters-multiplicative, linear-trend, croston, sba, combination or auto; did you mean holt?`},
 		{"metric unknown", head + "baseline: {metric: §rmse}\n", false, ErrValue, `baseline.metric: unknown metric "rmse"; want mad, mse, mape or mase; did you mean mse?`},
 		{"select unknown", head + "baseline: {select: §aic}\n", false, ErrValue, `baseline.select: unknown selection "aic"; want backtest or aicc; did you mean aicc?`},
 		{"divisor unknown", head + "baseline: {mse_divisor: §n-2}\n", false, ErrValue, `baseline.mse_divisor: unknown divisor "n-2"`},

@@ -195,6 +195,9 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 	if p := paramText(r.Model.Params()); p != "" {
 		fmt.Fprintf(w, "Parameters %s (final fit on all %d periods)\n", p, s.Len())
 	}
+	if err := writeMembers(w, r); err != nil {
+		return err
+	}
 	fmt.Fprintln(w)
 
 	if err := writeAccuracy(w, r, unit); err != nil {
@@ -225,10 +228,18 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 		if err := ct.write(w); err != nil {
 			return err
 		}
-		if r.Select == forecast.SelectAICc {
+		switch {
+		case !r.Auto:
+			fmt.Fprintf(w, "* = asked for: the mean of the best %d candidates by backtest %s (errors pooled over every origin and lead time).\n",
+				len(forecast.Members(r.Model)), strings.ToUpper(r.Metric.String()))
+			fmt.Fprintln(w, candidateNote(r))
+		case r.Select == forecast.SelectAICc:
 			fmt.Fprintln(w, "* = chosen: lowest AICc of the in-sample fit; settings and parameters are those of the fit on all the data.")
-		} else {
+		default:
 			fmt.Fprintf(w, "* = chosen: lowest backtest %s (errors pooled over every origin and lead time).\n", strings.ToUpper(r.Metric.String()))
+			if note := penaltyNote(r); note != "" {
+				fmt.Fprintln(w, note)
+			}
 			fmt.Fprintln(w, candidateNote(r))
 		}
 	}
@@ -284,6 +295,47 @@ func signedT(t float64) string {
 		return "-"
 	}
 	return signed(t, 2)
+}
+
+// writeMembers lists the members of a combination with their settings and
+// parameters, one line each; nothing for a single method.
+func writeMembers(w io.Writer, r *forecast.Result) error {
+	members := forecast.Members(r.Model)
+	if len(members) == 0 {
+		return nil
+	}
+	fmt.Fprintf(w, "Members, averaged with equal weights (each a final fit on all %d periods):\n", r.Series.Len())
+	width := 0
+	for _, md := range members {
+		width = max(width, len(md.Method().String()))
+	}
+	for _, md := range members {
+		line := fmt.Sprintf("  %-*s  %s", width, md.Method(), memberSettings(md))
+		if _, err := fmt.Fprintln(w, strings.TrimRight(line, " ")); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// memberSettings joins a model's parameters and settings.
+func memberSettings(md forecast.Model) string {
+	return strings.TrimSpace(paramText(md.Params()) + " " + md.Describe())
+}
+
+// penaltyNote says by how much a single method's backtest error counted
+// more than the combination's in the selection; "" when it did not.
+func penaltyNote(r *forecast.Result) string {
+	bt := r.Backtest
+	if bt == nil {
+		return ""
+	}
+	k := forecast.FewOriginsFactor(bt.Origins)
+	if k == 1 {
+		return ""
+	}
+	return fmt.Sprintf("With %d origins (fewer than 36) a single method's %s counted %.3f times: it had to beat the combination by that margin.",
+		bt.Origins, strings.ToUpper(r.Metric.String()), k)
 }
 
 // candidateNote says where the candidates' figures come from, so that

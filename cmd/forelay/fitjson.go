@@ -58,10 +58,18 @@ func paramsJSON(p forecast.Params) map[string]num {
 	return m
 }
 
+// memberJSON is one member of a combination: its final fit on all the data.
+type memberJSON struct {
+	Method   string         `json:"method"`
+	Params   map[string]num `json:"params"`
+	Settings string         `json:"settings,omitempty"`
+}
+
 type candidateJSON struct {
 	Method   string         `json:"method"`
 	Params   map[string]num `json:"params"`
 	Settings string         `json:"settings,omitempty"`
+	Members  []string       `json:"members,omitempty"`
 	Backtest *accuracyJSON  `json:"backtest"`
 	AICc     num            `json:"aicc"`
 	Chosen   bool           `json:"chosen"`
@@ -121,6 +129,7 @@ type fitOutJSON struct {
 	Settings   string          `json:"settings,omitempty"`
 	Season     int             `json:"season"`
 	Params     map[string]num  `json:"params"`
+	Members    []memberJSON    `json:"members,omitempty"`
 	N          int             `json:"n"`
 	SSE        num             `json:"sse"`
 	Accuracy   accuracyJSON    `json:"accuracy"`
@@ -142,6 +151,9 @@ func fitJSON(r *forecast.Result, horizon int, b bandSettings) fitOutJSON {
 		Flags: warningList(r.Flags()), Warnings: []string{},
 	}
 	o.Accuracy.BiasTest = toBiasTestJSON(r.Bias)
+	for _, md := range forecast.Members(r.Model) {
+		o.Members = append(o.Members, memberJSON{Method: md.Method().String(), Params: paramsJSON(md.Params()), Settings: md.Describe()})
+	}
 	if r.Auto {
 		o.Selection, o.Metric = r.Select.String(), r.Metric.String()
 	}
@@ -156,6 +168,9 @@ func fitJSON(r *forecast.Result, horizon int, b bandSettings) fitOutJSON {
 	for _, c := range r.Candidates {
 		cj := candidateJSON{Method: c.Method.String(), Params: paramsJSON(c.Params), Settings: c.Describe,
 			AICc: num(c.AICc), Chosen: c.Chosen, Skipped: c.Skipped}
+		for _, m := range c.Members {
+			cj.Members = append(cj.Members, m.String())
+		}
 		if c.Backtest != nil {
 			a := toAccuracyJSON(*c.Backtest)
 			cj.Backtest = &a
