@@ -136,7 +136,12 @@ func (r *Result) calibrated(h int) ([]float64, Calibration) {
 			shape[i] = base * c[i]
 		}
 	}
-	v, cal := CalibrateVariance(r.Backtest.Errors, shape)
+	errs := r.Backtest.Errors
+	if r.selErrors != nil {
+		errs = r.selErrors
+	}
+	v, cal := CalibrateVariance(errs, shape)
+	cal.Selection = r.selErrors != nil
 	if v == nil {
 		return nil, cal
 	}

@@ -83,6 +83,11 @@ type Result struct {
 	Metric     Metric
 	Select     Selection
 	Candidates []Candidate
+
+	// selErrors are the errors of the selection itself under Auto (see
+	// selectionErrors): the calibrated bands rest on them rather than on
+	// the winner's backtest, whose errors chance has made low.
+	selErrors [][]float64
 }
 
 // Residuals returns y minus the one-step in-sample predictions (NaN where
@@ -194,6 +199,14 @@ func (r *Result) fitSelected(y []float64, spec Spec) (Model, error) {
 	r.Auto = spec.Method == Auto
 	r.Method = win.Method
 	r.Backtest = win.bt
+	if spec.Select != SelectAICc || spec.Method == Combination {
+		r.selErrors = selectionErrors(cands, spec.Metric, spec.Method == Combination)
+	}
+	for i := range r.Candidates {
+		if i != best {
+			r.Candidates[i].bt = nil // only the winner's backtest is kept: a result holds one
+		}
+	}
 	seasonal := seasonsEnough(len(y), spec)
 	if win.Method == Combination {
 		return fitCombination(y, win.Members, spec.Config, seasonal)
@@ -351,11 +364,6 @@ func selectMethod(y []float64, spec Spec) ([]Candidate, int, error) {
 		return cands, -1, firstErr
 	}
 	cands[best].Chosen = true
-	for i := range cands {
-		if i != best {
-			cands[i].bt = nil // only the winner's backtest is kept: a result holds one
-		}
-	}
 	return cands, best, nil
 }
 

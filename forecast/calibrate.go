@@ -56,6 +56,10 @@ type Calibration struct {
 	// forecast origins they came from and Leads the longest lead time
 	// with at least one error.
 	Errors, Origins, Leads int
+	// Selection is true when the errors are those of the selection itself
+	// (auto and combination: see Result's calibrated bands), not of one
+	// fixed method.
+	Selection bool
 	// DF is the degrees of freedom the variance rests on (set by
 	// Result's calibrated bands: in-sample errors less parameters, plus
 	// one per origin).

@@ -359,8 +359,12 @@ func bandSourceText(src forecast.VarianceSource, cal forecast.Calibration) strin
 		if src == forecast.VarFlatCalibrated {
 			how = "flat: the one-step spread at every lead time"
 		}
-		return fmt.Sprintf("%s, calibrated on %s out-of-sample %s from %d %s at lead times 1 to %d, %s x the model's variance",
-			how, fmtNum(float64(cal.Errors), 0), plural(cal.Errors, "error", "errors"), cal.Origins,
+		whose := ""
+		if cal.Selection {
+			whose = " of the selection's own choices"
+		}
+		return fmt.Sprintf("%s, calibrated on %s out-of-sample %s%s from %d %s at lead times 1 to %d, %s x the model's variance",
+			how, fmtNum(float64(cal.Errors), 0), plural(cal.Errors, "error", "errors"), whose, cal.Origins,
 			plural(cal.Origins, "origin", "origins"), cal.Leads, fmtNum(cal.Ratio, 2))
 	case forecast.VarFlat:
 		return "flat: sqrt(MSE) at every lead time"

@@ -106,6 +106,9 @@ type calibrationJSON struct {
 	Origins int `json:"origins"`
 	Leads   int `json:"leads"`
 	Ratio   num `json:"ratio"`
+	// Selection is true when the errors are those of auto's (or the
+	// combination's) own choices origin by origin.
+	Selection bool `json:"selection"`
 }
 
 // toCalibrationJSON returns the calibration of r when src is calibrated,
@@ -115,7 +118,7 @@ func toCalibrationJSON(r *forecast.Result, src forecast.VarianceSource) *calibra
 		return nil
 	}
 	c := r.Calibration()
-	return &calibrationJSON{Errors: c.Errors, Origins: c.Origins, Leads: c.Leads, Ratio: num(c.Ratio)}
+	return &calibrationJSON{Errors: c.Errors, Origins: c.Origins, Leads: c.Leads, Ratio: num(c.Ratio), Selection: c.Selection}
 }
 
 type fitOutJSON struct {
