@@ -151,7 +151,7 @@ func (r *Result) calibrated(h int) ([]float64, Calibration) {
 	// one per origin. A forecast error divided by such an estimate follows
 	// Student's t with that many degrees of freedom, whose variance is
 	// df/(df-2) times the estimate's.
-	cal.DF = r.dof() + cal.Origins
+	cal.DF = cal.Origins + poolPrior
 	inflate := float64(cal.DF) / float64(cal.DF-2)
 	if cal.DF < 3 {
 		inflate = 3

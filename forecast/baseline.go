@@ -114,19 +114,23 @@ func (s Spec) resolve(ser Series) Spec {
 	if s.Horizon < 1 {
 		s.Horizon = s.Config.Season
 	}
-	switch {
-	case s.Holdout >= 1:
-	case s.Method == Auto || s.Method == Combination:
-		s.Holdout = selectionHoldout(ser.Len(), s.Config.Season, s.Horizon)
-	default:
-		s.Holdout = DefaultHoldout(ser.Len())
+	if s.Holdout < 1 {
+		n := ser.Len()
+		s.Holdout = selectionHoldout(n, s.Config.Season, s.Horizon)
+		if s.Method != Auto && s.Method != Combination {
+			// A single method keeps a first training window it can fit.
+			if limit := n - MinPoints(s.Method, s.Config); s.Holdout > limit {
+				s.Holdout = max(limit, min(DefaultHoldout(n), s.Holdout))
+			}
+		}
 	}
 	return s
 }
 
-// selectionHoldout returns the number of backtest origins Auto and
-// Combination use when the Spec sets none: DefaultHoldout(n), widened so that the longest lead
-// time H is scored at a season's worth of origins where the series allows.
+// selectionHoldout returns the number of backtest origins a fit uses when
+// the Spec sets none: DefaultHoldout(n), widened so that the longest lead
+// time H is scored at a season's worth of origins where the series allows
+// (for selection, and for the calibrated bands of every method).
 // Origins n-o..n-1 reach lead H from o-H+1 of them, so the rule asks for
 //
 //	o >= H + m - 1   (m the season, at least 1)
