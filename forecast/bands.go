@@ -147,10 +147,12 @@ func (r *Result) calibrated(h int) ([]float64, Calibration) {
 	}
 	v = extendShape(v, H)[:h]
 	// The variance is an estimate resting on few degrees of freedom when
-	// the history is short: the in-sample errors left after the fit and
-	// one per origin. A forecast error divided by such an estimate follows
-	// Student's t with that many degrees of freedom, whose variance is
-	// df/(df-2) times the estimate's.
+	// the backtest has few origins: one per origin (the errors of one
+	// origin at its several lead times move together), plus the weight
+	// the pooled ratio gives the model's own variance. A forecast error
+	// divided by such an estimate follows Student's t with that many
+	// degrees of freedom, whose variance is df/(df-2) times the
+	// estimate's.
 	cal.DF = cal.Origins + poolPrior
 	inflate := float64(cal.DF) / float64(cal.DF-2)
 	if cal.DF < 3 {

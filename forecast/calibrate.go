@@ -61,8 +61,8 @@ type Calibration struct {
 	// fixed method.
 	Selection bool
 	// DF is the degrees of freedom the variance rests on (set by
-	// Result's calibrated bands: in-sample errors less parameters, plus
-	// one per origin).
+	// Result's calibrated bands: one per origin, plus poolPrior for the
+	// model's variance it leans on).
 	DF int
 	// Ratio is the pooled ratio of the out-of-sample mean squared error to
 	// the model's variance at the same lead times, after shrinkage: above

@@ -264,7 +264,7 @@ func ratio(x float64, n int) float64 {
 }
 
 // summarise compares auto with seasonal-naive and the best single method
-// for each source and frequency.
+// (the combination is not one) for each source and frequency.
 func summarise(all []Slice, sources []string, freqs map[string][]string) []MASESummary {
 	var out []MASESummary
 	for _, src := range sources {
@@ -279,6 +279,8 @@ func summarise(all []Slice, sources []string, freqs map[string][]string) []MASES
 				case s.Method == forecast.Auto.String():
 					sum.Auto = s.MASE
 					continue
+				case s.Method == forecast.Combination.String():
+					continue // not a single method
 				case s.Method == forecast.SeasonalNaive.String():
 					sum.SeasonalNaive = s.MASE
 				}
