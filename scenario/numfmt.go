@@ -6,12 +6,20 @@ import (
 	"strings"
 )
 
+// Beyond these sizes FormatNumber writes scientific notation.
+const (
+	hugeNumber = 1e15
+	tinyNumber = 1e-6
+)
+
 // FormatNumber formats v for a planner's eyes, with a comma between
 // thousands: FormatNumber(-1234567.891, 1) is "-1,234,567.9". decimals is
 // the number of decimals; a negative decimals gives the fewest that read
 // back as v (FormatNumber(0.25, -1) is "0.25"). NaN prints as "-", the
 // infinities as "inf" and "-inf", and a value that rounds to zero has no
-// minus sign.
+// minus sign. A value of 1e15 or more in size, or a non-zero one below
+// 1e-6 (with decimals >= 0), is written in scientific notation with four
+// decimals (1.4799e+160).
 func FormatNumber(v float64, decimals int) string {
 	switch {
 	case math.IsNaN(v):
@@ -20,6 +28,9 @@ func FormatNumber(v float64, decimals int) string {
 		return "inf"
 	case math.IsInf(v, -1):
 		return "-inf"
+	}
+	if a := math.Abs(v); a >= hugeNumber || a != 0 && a < tinyNumber && decimals >= 0 {
+		return strconv.FormatFloat(v, 'e', 4, 64) // 1.4799e+160: digits by the hundred read as noise
 	}
 	s := strconv.FormatFloat(math.Abs(v), 'f', decimals, 64)
 	whole, frac := s, ""

@@ -356,6 +356,7 @@ func (p *Plan) lay() {
 			p.Notes = append(p.Notes, fmt.Sprintf("scenario %q: the lower band was cut at the floor %s in %d period(s)", sp.Name, FormatNumber(*p.Floor, -1), sp.Floored))
 		}
 	}
+	p.Warnings = append(p.Warnings, p.Fit.Warnings()...)
 	p.Warnings = append(p.Warnings, p.floorWarnings()...)
 }
 

@@ -127,6 +127,15 @@ func fitRun(opts *FitOptions) error {
 		}
 	}
 	outcomes := forecast.FitAll(series, spec, opts.Workers)
+	var warns []string
+	for _, oc := range outcomes {
+		if oc.Err == nil {
+			warns = append(warns, oc.Result.Warnings()...)
+		}
+	}
+	if err := warnings(opts.IO, opts.Shared, warns); err != nil {
+		return err
+	}
 	var out bytes.Buffer
 	var failed []error
 	for i, oc := range outcomes {

@@ -151,7 +151,7 @@ func fitJSON(r *forecast.Result, horizon int, b bandSettings) fitOutJSON {
 		Method: r.Method.String(), Auto: r.Auto, Settings: r.Model.Describe(), Season: r.Config.Season,
 		Params: paramsJSON(r.Model.Params()), N: r.Series.Len(), SSE: num(r.SSE),
 		Accuracy: toAccuracyJSON(r.Accuracy), MSEDivisor: r.Accuracy.Divisor.String(),
-		Flags: warningList(r.Flags()), Warnings: []string{},
+		Flags: warningList(r.Flags()), Warnings: warningList(r.Warnings()),
 	}
 	o.Accuracy.BiasTest = toBiasTestJSON(r.Bias)
 	for _, md := range forecast.Members(r.Model) {
