@@ -76,10 +76,7 @@ func RunBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit boo
 	if err != nil {
 		return nil, err
 	}
-	bt := &Backtest{Train: train, Origins: holdout, Model: base,
-		HorizonMSE: make([]float64, maxH), HorizonCount: make([]int, maxH)}
-	var act, pred []float64
-	oneStep := make([]float64, 0, holdout)
+	bt := &Backtest{Train: train, Origins: holdout, Model: base}
 	for o := train; o < n; o++ {
 		model := base
 		switch {
@@ -90,12 +87,23 @@ func RunBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit boo
 		case o > train:
 			model = base.Extend(y[:o])
 		}
-		h := min(maxH, n-o)
-		f := model.Forecast(h)
-		errs := make([]float64, h)
-		bt.Forecasts = append(bt.Forecasts, f)
-		bt.Errors = append(bt.Errors, errs)
-		for k := 0; k < h; k++ {
+		bt.Forecasts = append(bt.Forecasts, model.Forecast(min(maxH, n-o)))
+	}
+	scoreForecasts(bt, y, maxH, cfg.Season, div)
+	return bt, nil
+}
+
+// scoreForecasts fills the errors and the scores of bt from its Forecasts,
+// bt.Train and the actuals y, over lead times 1..maxH, the way RunBacktest
+// scores them.
+func scoreForecasts(bt *Backtest, y []float64, maxH, season int, div Divisor) {
+	bt.HorizonMSE, bt.HorizonCount = make([]float64, maxH), make([]int, maxH)
+	bt.Errors = make([][]float64, len(bt.Forecasts))
+	var act, pred, oneStep []float64
+	for i, f := range bt.Forecasts {
+		o := bt.Train + i
+		errs := make([]float64, len(f))
+		for k := range f {
 			e := y[o+k] - f[k]
 			errs[k] = e
 			if math.IsNaN(e) {
@@ -106,9 +114,9 @@ func RunBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit boo
 			if k == 0 {
 				oneStep = append(oneStep, e)
 			}
-			act = append(act, y[o+k])
-			pred = append(pred, f[k])
+			act, pred = append(act, y[o+k]), append(pred, f[k])
 		}
+		bt.Errors[i] = errs
 	}
 	for k := range bt.HorizonMSE {
 		if bt.HorizonCount[k] > 0 {
@@ -117,8 +125,7 @@ func RunBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit boo
 			bt.HorizonMSE[k] = math.NaN()
 		}
 	}
-	bt.Accuracy = Measure(act, pred, MASEScale(y[:train], cfg.Season), div)
+	bt.Accuracy = Measure(act, pred, MASEScale(y[:bt.Train], season), div)
 	bt.Accuracy.TrackingSignal = math.NaN()
 	bt.Bias = BiasOf(oneStep)
-	return bt, nil
 }

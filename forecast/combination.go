@@ -2,7 +2,6 @@ package forecast
 
 import (
 	"fmt"
-	"math"
 	"strings"
 )
 
@@ -155,43 +154,6 @@ func combineBacktests(y []float64, members []*Backtest, season int, div Divisor)
 	}
 	scoreForecasts(bt, y, len(first.HorizonMSE), season, div)
 	return bt
-}
-
-// scoreForecasts fills the errors and the scores of bt from its Forecasts,
-// bt.Train and the actuals y, over lead times 1..maxH, the way RunBacktest
-// scores them.
-func scoreForecasts(bt *Backtest, y []float64, maxH, season int, div Divisor) {
-	bt.HorizonMSE, bt.HorizonCount = make([]float64, maxH), make([]int, maxH)
-	bt.Errors = make([][]float64, len(bt.Forecasts))
-	var act, pred, oneStep []float64
-	for i, f := range bt.Forecasts {
-		o := bt.Train + i
-		errs := make([]float64, len(f))
-		for k := range f {
-			e := y[o+k] - f[k]
-			errs[k] = e
-			if math.IsNaN(e) {
-				continue
-			}
-			bt.HorizonMSE[k] += e * e
-			bt.HorizonCount[k]++
-			if k == 0 {
-				oneStep = append(oneStep, e)
-			}
-			act, pred = append(act, y[o+k]), append(pred, f[k])
-		}
-		bt.Errors[i] = errs
-	}
-	for k := range bt.HorizonMSE {
-		if bt.HorizonCount[k] > 0 {
-			bt.HorizonMSE[k] /= float64(bt.HorizonCount[k])
-		} else {
-			bt.HorizonMSE[k] = math.NaN()
-		}
-	}
-	bt.Accuracy = Measure(act, pred, MASEScale(y[:bt.Train], season), div)
-	bt.Accuracy.TrackingSignal = math.NaN()
-	bt.Bias = BiasOf(oneStep)
 }
 
 // fitCombination fits every member method to all of y with its candidate

@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"math"
 	"strconv"
-	"strings"
 )
 
 // splitCapacity splits the gap between capacity c and production prod of
@@ -59,24 +58,9 @@ func (p *Plan) OverloadWarnings(prod []float64, source string) []string {
 // zeros dropped, thousands separated by commas ("20,000", "1,250.5"). A
 // value that rounds to zero keeps three significant digits.
 func groupDigits(v float64) string {
-	s := strconv.FormatFloat(math.Abs(v), 'f', 2, 64)
-	s = strings.TrimRight(strings.TrimRight(s, "0"), ".")
-	if s == "" || s == "0" {
+	r := math.Round(v*100) / 100
+	if r == 0 && v != 0 {
 		return strconv.FormatFloat(v, 'g', 3, 64)
 	}
-	intPart, frac := s, ""
-	if i := strings.IndexByte(s, '.'); i >= 0 {
-		intPart, frac = s[:i], s[i:]
-	}
-	var b strings.Builder
-	if v < 0 {
-		b.WriteByte('-')
-	}
-	for i, c := range intPart {
-		if i > 0 && (len(intPart)-i)%3 == 0 {
-			b.WriteByte(',')
-		}
-		b.WriteRune(c)
-	}
-	return b.String() + frac
+	return FormatNumber(r, -1)
 }
