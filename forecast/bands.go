@@ -142,6 +142,7 @@ func (r *Result) calibrated(h int) ([]float64, Calibration) {
 	}
 	v, cal := CalibrateVariance(errs, shape)
 	cal.Selection = r.selErrors != nil
+	cal.Shaped = shape != nil
 	if v == nil {
 		return nil, cal
 	}

@@ -56,6 +56,10 @@ type Calibration struct {
 	// forecast origins they came from and Leads the longest lead time
 	// with at least one error.
 	Errors, Origins, Leads int
+	// Shaped is true when the calibration leaned on the model's analytic
+	// variance; without one the errors' own shape is used and Ratio is 1
+	// by construction.
+	Shaped bool
 	// Selection is true when the errors are those of the selection itself
 	// (auto and combination: see Result's calibrated bands), not of one
 	// fixed method.

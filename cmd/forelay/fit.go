@@ -372,9 +372,13 @@ func bandSourceText(src forecast.VarianceSource, cal forecast.Calibration) strin
 		if cal.Selection {
 			whose = " of the selection's own choices"
 		}
-		return fmt.Sprintf("%s, calibrated on %s out-of-sample %s%s from %d %s at lead times 1 to %d, %s x the model's variance",
+		ratio := fmtNum(cal.Ratio, 2) + " x the model's variance"
+		if !cal.Shaped {
+			ratio = "shaped by the errors themselves"
+		}
+		return fmt.Sprintf("%s, calibrated on %s out-of-sample %s%s from %d %s at lead times 1 to %d, %s",
 			how, fmtNum(float64(cal.Errors), 0), plural(cal.Errors, "error", "errors"), whose, cal.Origins,
-			plural(cal.Origins, "origin", "origins"), cal.Leads, fmtNum(cal.Ratio, 2))
+			plural(cal.Origins, "origin", "origins"), cal.Leads, ratio)
 	case forecast.VarFlat:
 		return "flat: sqrt(MSE) at every lead time"
 	case forecast.VarAnalytic:

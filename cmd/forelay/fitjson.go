@@ -118,7 +118,11 @@ func toCalibrationJSON(r *forecast.Result, src forecast.VarianceSource) *calibra
 		return nil
 	}
 	c := r.Calibration()
-	return &calibrationJSON{Errors: c.Errors, Origins: c.Origins, Leads: c.Leads, Ratio: num(c.Ratio), Selection: c.Selection}
+	ratio := num(c.Ratio)
+	if !c.Shaped {
+		ratio = num(math.NaN()) // no model variance to compare with: null
+	}
+	return &calibrationJSON{Errors: c.Errors, Origins: c.Origins, Leads: c.Leads, Ratio: ratio, Selection: c.Selection}
 }
 
 type fitOutJSON struct {

@@ -8,6 +8,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"forelay/forecast"
 	"forelay/scenario"
 )
 
@@ -133,6 +134,8 @@ func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
 	fmt.Fprintf(w, "Baseline %s (%s)", r.Method, how)
 	if pt := paramText(r.Model.Params()); pt != "" {
 		fmt.Fprintf(w, ", %s", pt)
+	} else if r.Method == forecast.Combination {
+		fmt.Fprintf(w, ", %s", r.Model.Describe())
 	}
 	fmt.Fprintf(w, "; fitted to %d periods %s to %s\n", p.History.Len(), p.History.Start, p.History.Period(p.History.Len()-1))
 	fmt.Fprintf(w, "Baseline accuracy (one step, in-sample): MAD %s, MSE %s (/%s), MAPE %s%%\n",
