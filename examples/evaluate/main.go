@@ -38,7 +38,7 @@ import (
 	"time"
 
 	"forelay/forecast"
-	"forelay/forecast/evaluate"
+	"forelay/scenario/evaluate"
 )
 
 func main() { os.Exit(run(os.Args[1:], os.Stdout, os.Stderr)) }

@@ -8,7 +8,7 @@ import (
 	"slices"
 	"strings"
 
-	"forelay/forecast/evaluate"
+	"forelay/scenario/evaluate"
 )
 
 // report looks slices up by method, source, frequency and group.

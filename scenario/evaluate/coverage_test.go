@@ -189,7 +189,7 @@ func TestDeterministic(t *testing.T) {
 // the calibrated bands. The open data alone are logged, not held to it:
 // 85 origins of mostly macroeconomic series, the last ones across the 2008
 // recession. The release before calibration missed the goal
-// (forecast/evaluate/testdata/before.txt).
+// (scenario/evaluate/testdata/before.txt).
 func TestCoverageTarget(t *testing.T) {
 	if testing.Short() {
 		t.Skip("the full evaluation: run without -short")
