@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"forelay/scenario/data"
 	"io"
 	"path/filepath"
 	"regexp"
@@ -18,7 +19,7 @@ import (
 )
 
 // Sentinel errors, matched with errors.Is. Every problem in a scenario file
-// comes back as a *forecast.ParseError (or an ErrorList of them) whose Err
+// comes back as a *data.ParseError (or an ErrorList of them) whose Err
 // wraps one of these, or forecast.ErrBadPeriod for a label that cannot be
 // read.
 var (
@@ -50,10 +51,10 @@ func (p *problem) Error() string { return p.msg }
 func (p *problem) Unwrap() error { return p.kind }
 
 // An ErrorList holds several problems found in one file, sorted by
-// position. Parse, Load and Resolve return a single *forecast.ParseError
+// position. Parse, Load and Resolve return a single *data.ParseError
 // when there is one problem and an ErrorList when there are more; both
 // work with errors.As and errors.Is.
-type ErrorList []*forecast.ParseError
+type ErrorList []*data.ParseError
 
 // Error prints one problem per line.
 func (l ErrorList) Error() string {
@@ -86,7 +87,7 @@ func Load(path string) (*File, error) {
 //
 // The decoding is strict: unknown keys, keys given twice, values of the
 // wrong type and values out of range are errors. Every problem found is
-// reported, sorted by position, as a *forecast.ParseError naming the file,
+// reported, sorted by position, as a *data.ParseError naming the file,
 // the 1-based line and column (in bytes) and the key path, such as
 //
 //	plan.yaml:7:5: event "fair-week": ramp.periods: must be at least 1
@@ -178,12 +179,12 @@ var (
 type reporter struct {
 	file string
 	pos  map[string]Pos
-	errs []*forecast.ParseError
+	errs []*data.ParseError
 }
 
 // fail records a problem at a position.
 func (r *reporter) fail(at Pos, field string, kind error, format string, args ...any) {
-	r.errs = append(r.errs, &forecast.ParseError{
+	r.errs = append(r.errs, &data.ParseError{
 		File:   r.file,
 		Line:   at.Line,
 		Column: at.Column,
@@ -194,7 +195,7 @@ func (r *reporter) fail(at Pos, field string, kind error, format string, args ..
 
 // failErr records a problem whose error is already made.
 func (r *reporter) failErr(at Pos, field string, err error) {
-	r.errs = append(r.errs, &forecast.ParseError{File: r.file, Line: at.Line, Column: at.Column, Field: field, Err: err})
+	r.errs = append(r.errs, &data.ParseError{File: r.file, Line: at.Line, Column: at.Column, Field: field, Err: err})
 }
 
 // given reports whether the value at a key path was decoded without error.

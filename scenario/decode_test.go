@@ -3,6 +3,7 @@ package scenario
 import (
 	"errors"
 	"fmt"
+	"forelay/scenario/data"
 	"os"
 	"path/filepath"
 	"strings"
@@ -219,11 +220,11 @@ func TestParseErrors(t *testing.T) {
 			if err == nil {
 				t.Fatalf("no error; file %+v", f)
 			}
-			var pe *forecast.ParseError
+			var pe *data.ParseError
 			if !errors.As(err, &pe) {
-				t.Fatalf("error %T %v is no *forecast.ParseError", err, err)
+				t.Fatalf("error %T %v is no *data.ParseError", err, err)
 			}
-			if _, ok := err.(*forecast.ParseError); !ok {
+			if _, ok := err.(*data.ParseError); !ok {
 				t.Fatalf("want exactly one problem, got:\n%v", err)
 			}
 			prefix := fmt.Sprintf("plan.yaml:%d:%d: ", line, col)
@@ -296,7 +297,7 @@ func TestParseSeveralErrors(t *testing.T) {
 	if !errors.Is(err, ErrUnknownEvent) || !errors.Is(err, ErrUnknownKey) || !errors.Is(err, ErrValue) {
 		t.Error("errors.Is does not see the problems of the list")
 	}
-	var pe *forecast.ParseError
+	var pe *data.ParseError
 	if !errors.As(err, &pe) || pe.Line != 3 {
 		t.Errorf("errors.As gives %v; want the first problem", pe)
 	}

@@ -113,7 +113,7 @@
 // known key is close ("probabilty: unknown key; did you mean
 // probability?"); so are a key given twice, a value of the wrong type
 // (numbers must be YAML numbers, not quoted text) and a value out of range.
-// Each problem is a *forecast.ParseError printed as
+// Each problem is a *data.ParseError printed as
 //
 //	plan.yaml:7:5: event "fair-week": ramp.periods: must be at least 1
 //
@@ -121,7 +121,7 @@
 // unknown and missing keys: a missing key is reported where its mapping
 // starts) and the key path; an event's path starts with its id, a
 // scenario's with its name. All problems found are returned, sorted by
-// position: one as a *forecast.ParseError, several as an ErrorList. The
+// position: one as a *data.ParseError, several as an ErrorList. The
 // errors wrap the sentinels of this package (ErrUnknownKey, ErrType, ...)
 // or forecast.ErrBadPeriod.
 //

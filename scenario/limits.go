@@ -2,11 +2,10 @@ package scenario
 
 import (
 	"fmt"
+	"forelay/scenario/data"
 	"io"
 	"os"
 	"unicode/utf8"
-
-	"forelay/forecast"
 )
 
 // Limits bound what a scenario file may ask for and the files it names,
@@ -23,7 +22,7 @@ type Limits struct {
 	NameLength int
 	// Input bounds the scenario file and every file it names (history,
 	// production plan).
-	Input forecast.SizeLimits
+	Input data.SizeLimits
 }
 
 // MaxHorizon is the most periods any plan may have, whatever the limits:
@@ -36,7 +35,7 @@ func DefaultLimits() Limits {
 		Horizon:    10_000,
 		Events:     10_000,
 		NameLength: 200,
-		Input:      forecast.SizeLimits{Bytes: 1 << 30, LineBytes: 1 << 20},
+		Input:      data.SizeLimits{Bytes: 1 << 30, LineBytes: 1 << 20},
 	}
 }
 
@@ -75,7 +74,7 @@ func LoadLimited(path string, l Limits) (*File, error) {
 // and applies them to the files it names.
 func ParseLimited(r io.Reader, path string, l Limits) (*File, error) {
 	l = l.orDefaults()
-	return parse(forecast.BoundedReader(r, path, l.Input), path, l)
+	return parse(data.BoundedReader(r, path, l.Input), path, l)
 }
 
 // limitError is the message of a value above its limit: what the limit
@@ -113,6 +112,6 @@ func (d *decoder) checkLimits(f *File) {
 
 // checkSeriesNames refuses a history whose series names are longer than
 // the file's name limit.
-func (f *File) checkSeriesNames(h *forecast.History) error {
+func (f *File) checkSeriesNames(h *data.History) error {
 	return h.CheckNameLength(f.Limits.orDefaults().NameLength)
 }

@@ -2,12 +2,11 @@ package scenario
 
 import (
 	"errors"
+	"forelay/scenario/data"
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
-
-	"forelay/forecast"
 )
 
 func TestParseLimited(t *testing.T) {
@@ -40,7 +39,7 @@ func TestParseLimited(t *testing.T) {
 			"f.yaml:1:7: plan: a name of 21 is above the limit of 20 characters"},
 		{"long scenario name", head + "horizon: 12\nscenarios:\n  - {name: " + strings.Repeat("s", 21) + ", events: []}\n", Limits{NameLength: 20},
 			`scenario "sssssssssssssssssssss": name: a name of 21 is above the limit of 20 characters`},
-		{"file too large", head + "horizon: 12\n# " + strings.Repeat("x", 100) + "\n", Limits{Input: forecast.SizeLimits{Bytes: 64}},
+		{"file too large", head + "horizon: 12\n# " + strings.Repeat("x", 100) + "\n", Limits{Input: data.SizeLimits{Bytes: 64}},
 			"f.yaml: larger than 64 bytes"},
 	} {
 		_, err := ParseLimited(strings.NewReader(c.src), "f.yaml", c.l)
@@ -70,9 +69,9 @@ func TestLoadHistoryLimits(t *testing.T) {
 		wantErr string
 		is      error
 	}{
-		{Limits{NameLength: 20}, `h.csv: series "ssssssssssssssssssssssssssssss"...: a series name longer than 20 characters`, forecast.ErrTooLarge},
-		{Limits{Input: forecast.SizeLimits{LineBytes: 30}}, "h.csv:1: a line longer than 30 bytes", forecast.ErrTooLarge},
-		{Limits{Input: forecast.SizeLimits{Bytes: 50}}, "h.csv: larger than 50 bytes", forecast.ErrTooLarge},
+		{Limits{NameLength: 20}, `h.csv: series "ssssssssssssssssssssssssssssss"...: a series name longer than 20 characters`, data.ErrTooLarge},
+		{Limits{Input: data.SizeLimits{LineBytes: 30}}, "h.csv:1: a line longer than 30 bytes", data.ErrTooLarge},
+		{Limits{Input: data.SizeLimits{Bytes: 50}}, "h.csv: larger than 50 bytes", data.ErrTooLarge},
 	} {
 		f, err := ParseLimited(strings.NewReader(src), dir+"/plan.yaml", c.l)
 		if err != nil {

@@ -3,6 +3,7 @@ package scenario
 import (
 	"errors"
 	"fmt"
+	"forelay/scenario/data"
 	"strconv"
 
 	"forelay/forecast"
@@ -70,7 +71,7 @@ type lintNote struct {
 
 // warning prints a note the way errors are printed.
 func (f *File) warning(n *lintNote) string {
-	pe := &forecast.ParseError{File: f.Path, Line: n.at.Line, Column: n.at.Column, Field: n.field, Err: errors.New(n.msg)}
+	pe := &data.ParseError{File: f.Path, Line: n.at.Line, Column: n.at.Column, Field: n.field, Err: errors.New(n.msg)}
 	return pe.Error()
 }
 

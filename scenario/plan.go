@@ -5,6 +5,7 @@ import (
 	"encoding/hex"
 	"errors"
 	"fmt"
+	"forelay/scenario/data"
 	"math"
 	"os"
 
@@ -22,7 +23,7 @@ type Plan struct {
 	History forecast.Series
 	Cleaned []float64
 	// Filled lists the history cells filled under history.fill.
-	Filled []forecast.Filled
+	Filled []data.Filled
 	// Fit is the baseline fitted to the cleaned history.
 	Fit *forecast.Result
 	// Cleaning holds one estimate per past event or past occurrence, in
@@ -143,8 +144,8 @@ func (f *File) Spec() (forecast.Spec, error) {
 
 // LoadHistory reads the series the file's history block names. Errors
 // name the history file and line, or the scenario file's history key.
-func (f *File) LoadHistory() (*forecast.History, forecast.Series, error) {
-	fill, err := forecast.ParseFillMode(f.History.Fill)
+func (f *File) LoadHistory() (*data.History, forecast.Series, error) {
+	fill, err := data.ParseFillMode(f.History.Fill)
 	if err != nil {
 		return nil, forecast.Series{}, f.errAt(f.History.Pos, "history.fill", err)
 	}
@@ -153,8 +154,8 @@ func (f *File) LoadHistory() (*forecast.History, forecast.Series, error) {
 		return nil, forecast.Series{}, f.errAt(f.History.Pos, "history.file", err)
 	}
 	defer fh.Close()
-	in := forecast.BoundedReader(fh, f.History.File, f.Limits.orDefaults().Input)
-	h, err := forecast.ReadHistory(in, f.History.File, forecast.ReadOptions{Freq: f.History.Period, Fill: fill})
+	in := data.BoundedReader(fh, f.History.File, f.Limits.orDefaults().Input)
+	h, err := data.ReadHistory(in, f.History.File, data.ReadOptions{Freq: f.History.Period, Fill: fill})
 	if err != nil {
 		return nil, forecast.Series{}, err
 	}
@@ -181,7 +182,7 @@ func (f *File) LoadHistory() (*forecast.History, forecast.Series, error) {
 }
 
 func (f *File) errAt(p Pos, field string, err error) error {
-	return &forecast.ParseError{File: f.Path, Line: p.Line, Column: p.Column, Field: field, Err: err}
+	return &data.ParseError{File: f.Path, Line: p.Line, Column: p.Column, Field: field, Err: err}
 }
 
 // Build fits the baseline and lays the events on it. The history is read
@@ -321,7 +322,7 @@ func (p *Plan) clean(spec forecast.Spec) error {
 		var ts *forecast.TooShortError
 		if errors.As(err, &ts) {
 			ts.Series = ser.Name
-			return &forecast.ParseError{File: f.History.File, Err: err}
+			return &data.ParseError{File: f.History.File, Err: err}
 		}
 		return f.errAt(Pos{}, "events", err)
 	}

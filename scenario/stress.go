@@ -2,6 +2,7 @@ package scenario
 
 import (
 	"fmt"
+	"forelay/scenario/data"
 	"math"
 	"os"
 	"slices"
@@ -146,11 +147,11 @@ func CapacityRisk(ps *PathSet, capacity []float64, threshold float64) Risk {
 
 // FrozenProduction returns the production held at the previous plan for
 // each plan period, and where it came from: the values of the
-// production.plan CSV (read with forecast.ReadHistory at the history's
+// production.plan CSV (read with data.ReadHistory at the history's
 // frequency; its only series, or the one named like the history's series)
 // when the file names one, else the baseline forecast ("baseline").
 //
-// It returns a *forecast.ParseError naming the CSV (and its line) for a
+// It returns a *data.ParseError naming the CSV (and its line) for a
 // bad file, or naming the scenario file's production.plan key when the
 // CSV holds several series and none is named like the history's, or does
 // not cover every plan period.
@@ -164,7 +165,7 @@ func (p *Plan) FrozenProduction() (prod []float64, source string, err error) {
 		at = q
 	}
 	fail := func(format string, args ...any) error {
-		return &forecast.ParseError{File: p.File.Path, Line: at.Line, Column: at.Column, Field: "production.plan",
+		return &data.ParseError{File: p.File.Path, Line: at.Line, Column: at.Column, Field: "production.plan",
 			Err: &problem{kind: ErrValue, msg: fmt.Sprintf(format, args...)}}
 	}
 	fh, err := os.Open(pr.Plan)
@@ -172,7 +173,7 @@ func (p *Plan) FrozenProduction() (prod []float64, source string, err error) {
 		return nil, "", fail("%v", err)
 	}
 	defer fh.Close()
-	h, err := forecast.ReadHistory(fh, pr.Plan, forecast.ReadOptions{Freq: p.History.Freq()})
+	h, err := data.ReadHistory(fh, pr.Plan, data.ReadOptions{Freq: p.History.Freq()})
 	if err != nil {
 		return nil, "", err
 	}

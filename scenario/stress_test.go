@@ -2,13 +2,12 @@ package scenario
 
 import (
 	"errors"
+	"forelay/scenario/data"
 	"math"
 	"strings"
 	"testing"
 
 	"gonum.org/v1/gonum/floats/scalar"
-
-	"forelay/forecast"
 )
 
 // handPaths makes a PathSet from demand[t][i].
@@ -147,7 +146,7 @@ func TestFrozenProduction(t *testing.T) {
 			}
 			got, src, err := p.FrozenProduction()
 			if tc.wantErr != nil {
-				var pe *forecast.ParseError
+				var pe *data.ParseError
 				if !errors.As(err, &pe) {
 					t.Fatalf("error %v, want a ParseError", err)
 				}

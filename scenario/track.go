@@ -5,6 +5,7 @@ import (
 	"encoding/csv"
 	"errors"
 	"fmt"
+	"forelay/scenario/data"
 	"io"
 	"math"
 	"strings"
@@ -154,7 +155,7 @@ func (tp TrackPlan) Choose(name string) (PlanLine, error) {
 }
 
 // ReadActuals reads new actuals of the planned series from r, a CSV file
-// in one of the history layouts (see forecast.ReadHistory), and returns
+// in one of the history layouts (see data.ReadHistory), and returns
 // them aligned with the plan: actual[i] belongs to tp.Periods[i]. The name
 // is used in error messages only.
 //
@@ -163,19 +164,19 @@ func (tp TrackPlan) Choose(name string) (PlanLine, error) {
 // the plan are tracked, n = len(actual). Labels are read in the plan's
 // frequency (dates label weeks when the plan is weekly).
 //
-// Every error about the file's content is a *forecast.ParseError naming
+// Every error about the file's content is a *data.ParseError naming
 // the file and, where there is one, the line and column of the row at
 // fault, for example
 //
 //	actuals.csv:3:1: period: not a plan period: 2026-09 is inside the history (which ends 2026-10); track only periods after it
 //
-// Its Err wraps one of forecast.ReadHistory's sentinels for a malformed
-// file (a value cell is a plain decimal number, see forecast.ParseDecimal:
-// 1_000 wraps forecast.ErrNotDecimal, NaN or an infinity
-// forecast.ErrNotFinite, never a gap), forecast.ErrNoSeries when the planned series is missing (the
+// Its Err wraps one of data.ReadHistory's sentinels for a malformed
+// file (a value cell is a plain decimal number, see data.ParseDecimal:
+// 1_000 wraps data.ErrNotDecimal, NaN or an infinity
+// data.ErrNotFinite, never a gap), data.ErrNoSeries when the planned series is missing (the
 // message lists the series found), forecast.ErrBadPeriod when the labels
 // have another frequency than the plan, ErrOffPlan for a period inside
-// the history or beyond the horizon, and forecast.ErrGap when the actuals
+// the history or beyond the horizon, and data.ErrGap when the actuals
 // start after the first plan period or skip a period (an empty cell
 // counts as a skipped period). An error from r is returned as it is, and
 // one wrapping ErrTrackPlan if tp fails Check.
@@ -191,8 +192,8 @@ func (tp TrackPlan) ReadActuals(r io.Reader, name string) ([]float64, error) {
 	// Read with gaps filled, so that the filled list can name the gaps of
 	// the planned series alone, and with the frequency the labels give;
 	// dates are read again as weeks when the plan is weekly.
-	opt := forecast.ReadOptions{Fill: forecast.FillZero}
-	h, err := forecast.ReadHistory(bytes.NewReader(src), name, opt)
+	opt := data.ReadOptions{Fill: data.FillZero}
+	h, err := data.ReadHistory(bytes.NewReader(src), name, opt)
 	if err != nil {
 		return nil, err
 	}
@@ -200,7 +201,7 @@ func (tp TrackPlan) ReadActuals(r io.Reader, name string) ([]float64, error) {
 	if got := h.Series[0].Freq(); got != freq {
 		if (got == forecast.Daily || got == forecast.Weekly) && (freq == forecast.Daily || freq == forecast.Weekly) {
 			opt.Freq = freq
-			if h, err = forecast.ReadHistory(bytes.NewReader(src), name, opt); err != nil {
+			if h, err = data.ReadHistory(bytes.NewReader(src), name, opt); err != nil {
 				return nil, err
 			}
 		} else {
@@ -217,8 +218,8 @@ func (tp TrackPlan) ReadActuals(r io.Reader, name string) ([]float64, error) {
 		}
 	}
 	if !found {
-		return nil, &forecast.ParseError{File: name, Line: loc.headerLine, Column: 1, Err: fmt.Errorf("%w: the plan's series %q is not in the file (it has %s)",
-			forecast.ErrNoSeries, tp.Series, strings.Join(names, ", "))}
+		return nil, &data.ParseError{File: name, Line: loc.headerLine, Column: 1, Err: fmt.Errorf("%w: the plan's series %q is not in the file (it has %s)",
+			data.ErrNoSeries, tp.Series, strings.Join(names, ", "))}
 	}
 
 	first, last := tp.Periods[0], tp.Periods[len(tp.Periods)-1]
@@ -238,7 +239,7 @@ func (tp TrackPlan) ReadActuals(r io.Reader, name string) ([]float64, error) {
 				ErrOffPlan, start, first))
 		}
 		return nil, loc.errAt(start, fmt.Errorf("%w: the actuals start at %s but the plan at %s; actuals must start at the first plan period and run without gaps",
-			forecast.ErrGap, start, first))
+			data.ErrGap, start, first))
 	}
 	for _, fl := range h.Filled {
 		if fl.Series != tp.Series {
@@ -246,7 +247,7 @@ func (tp TrackPlan) ReadActuals(r io.Reader, name string) ([]float64, error) {
 		}
 		if fl.Line > 0 {
 			return nil, loc.errAt(fl.Period, fmt.Errorf("%w: no actual for %s (its cell is empty); actuals must run without gaps from the first plan period",
-				forecast.ErrGap, fl.Period))
+				data.ErrGap, fl.Period))
 		}
 		next := fl.Period.Add(1)
 		for k := s.Index(next); k < s.Len(); k++ {
@@ -256,7 +257,7 @@ func (tp TrackPlan) ReadActuals(r io.Reader, name string) ([]float64, error) {
 			}
 		}
 		return nil, loc.errAt(next, fmt.Errorf("%w: no actual for %s (no row before %s); actuals must run without gaps from the first plan period",
-			forecast.ErrGap, fl.Period, next))
+			data.ErrGap, fl.Period, next))
 	}
 	if n := s.Len(); n > len(tp.Periods) {
 		beyond := first.Add(len(tp.Periods))
@@ -272,7 +273,7 @@ func samePeriod(a, b forecast.Period) bool {
 }
 
 // A rowFinder finds the line of a period's row in a history file that
-// forecast.ReadHistory has already accepted, for error messages.
+// data.ReadHistory has already accepted, for error messages.
 type rowFinder struct {
 	file       string
 	headerLine int
@@ -300,7 +301,7 @@ func newRowFinder(src []byte, file, series string) *rowFinder {
 			continue
 		}
 		if rf.headerLine == 0 {
-			// The layout rule of forecast.ReadHistory: long when the header
+			// The layout rule of data.ReadHistory: long when the header
 			// has series, period and value columns, else wide with the
 			// period first.
 			rf.headerLine, _ = cr.FieldPos(0)
@@ -353,7 +354,7 @@ func (rf *rowFinder) pos(p forecast.Period) (line, col int) {
 // errAt returns a ParseError at the row of p (no line when it has none).
 func (rf *rowFinder) errAt(p forecast.Period, err error) error {
 	line, col := rf.pos(p)
-	return &forecast.ParseError{File: rf.file, Line: line, Column: col, Field: "period", Err: err}
+	return &data.ParseError{File: rf.file, Line: line, Column: col, Field: "period", Err: err}
 }
 
 // errAtFirst returns a ParseError at the first data row.
@@ -362,7 +363,7 @@ func (rf *rowFinder) errAtFirst(err error) error {
 	if rf.firstLine > 0 {
 		col = rf.rows[0].col
 	}
-	return &forecast.ParseError{File: rf.file, Line: rf.firstLine, Column: col, Field: "period", Err: err}
+	return &data.ParseError{File: rf.file, Line: rf.firstLine, Column: col, Field: "period", Err: err}
 }
 
 // Tracking is the result of following actuals against one scenario of a

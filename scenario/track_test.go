@@ -2,6 +2,7 @@ package scenario
 
 import (
 	"errors"
+	"forelay/scenario/data"
 	"math"
 	"os"
 	"path/filepath"
@@ -133,26 +134,26 @@ func TestReadActualsErrors(t *testing.T) {
 	}{
 		{"inside the history", "period,widgets\n§2026-11,90\n2026-12,95\n2027-01,99\n", ErrOffPlan,
 			"2026-11 is inside the history (which ends 2026-12); track only periods after it"},
-		{"starts late", "period,widgets\n§2027-02,90\n2027-03,95\n", forecast.ErrGap,
+		{"starts late", "period,widgets\n§2027-02,90\n2027-03,95\n", data.ErrGap,
 			"the actuals start at 2027-02 but the plan at 2027-01; actuals must start at the first plan period and run without gaps"},
-		{"missing row", "period,widgets\n2027-01,90\n2027-02,95\n§2027-04,99\n", forecast.ErrGap,
+		{"missing row", "period,widgets\n2027-01,90\n2027-02,95\n§2027-04,99\n", data.ErrGap,
 			"no actual for 2027-03 (no row before 2027-04)"},
-		{"empty cell", "period,widgets\n2027-01,90\n§2027-02,\n2027-03,99\n", forecast.ErrGap, "no actual for 2027-02 (its cell is empty)"},
+		{"empty cell", "period,widgets\n2027-01,90\n§2027-02,\n2027-03,99\n", data.ErrGap, "no actual for 2027-02 (its cell is empty)"},
 		{"beyond the horizon", "period,widgets\n2027-01,1\n2027-02,2\n2027-03,3\n2027-04,4\n2027-05,5\n2027-06,6\n§2027-07,7\n",
 			ErrOffPlan, "2027-07 is beyond the plan's horizon (the plan ends 2027-06)"},
-		{"wrong series", "§period,gadgets,gizmos\n2027-01,1,2\n", forecast.ErrNoSeries,
+		{"wrong series", "§period,gadgets,gizmos\n2027-01,1,2\n", data.ErrNoSeries,
 			`the plan's series "widgets" is not in the file (it has "gadgets", "gizmos")`},
 		{"other frequency", "period,widgets\n§2027-Q1,90\n", forecast.ErrBadPeriod, "the actuals are by quarter but the plan is by month"},
 		{"long layout gap", "series,period,value\ngadgets,2027-01,5\nwidgets,2027-01,90\ngadgets,2027-02,6\ngadgets,2027-03,7\nwidgets,§2027-03,92\n",
-			forecast.ErrGap, "no actual for 2027-02"},
+			data.ErrGap, "no actual for 2027-02"},
 		{"not a number", "period,widgets\n2027-01,§9O\n", forecast.ErrBadNumber, `"9O"`},
-		// Actuals go through forecast.ParseDecimal like the history.
-		{"digit separator", "period,widgets\n2027-01,§1_000\n", forecast.ErrNotDecimal,
+		// Actuals go through data.ParseDecimal like the history.
+		{"digit separator", "period,widgets\n2027-01,§1_000\n", data.ErrNotDecimal,
 			`actuals.csv:2:9: widgets: not a plain decimal number: "1_000"`},
 		// Gaps are read with a zero fill, which must not hide a NaN.
-		{"NaN is not a gap", "period,widgets\n2027-01,90\n2027-02,§NaN\n2027-03,99\n", forecast.ErrNotFinite,
+		{"NaN is not a gap", "period,widgets\n2027-01,90\n2027-02,§NaN\n2027-03,99\n", data.ErrNotFinite,
 			`actuals.csv:3:9: widgets: not a finite number: "NaN"; leave the cell empty`},
-		{"infinity", "series,period,value\nwidgets,2027-01,§-inf\n", forecast.ErrNotFinite, `"-inf"`},
+		{"infinity", "series,period,value\nwidgets,2027-01,§-inf\n", data.ErrNotFinite, `"-inf"`},
 	} {
 		t.Run(c.name, func(t *testing.T) {
 			src, line, col := pos(c.csv)
@@ -160,9 +161,9 @@ func TestReadActualsErrors(t *testing.T) {
 			if !errors.Is(err, c.want) {
 				t.Fatalf("error %v, want one wrapping %v", err, c.want)
 			}
-			var pe *forecast.ParseError
+			var pe *data.ParseError
 			if !errors.As(err, &pe) {
-				t.Fatalf("error %T %v is not a *forecast.ParseError", err, err)
+				t.Fatalf("error %T %v is not a *data.ParseError", err, err)
 			}
 			if pe.File != "actuals.csv" || pe.Line != line || pe.Column != col {
 				t.Errorf("error at %s:%d:%d, want actuals.csv:%d:%d", pe.File, pe.Line, pe.Column, line, col)

@@ -3,6 +3,7 @@ package scenario
 import (
 	"errors"
 	"fmt"
+	"forelay/scenario/data"
 	"strings"
 	"testing"
 
@@ -103,7 +104,7 @@ func TestResolveErrors(t *testing.T) {
 				t.Fatalf("Parse: %v", err)
 			}
 			err = f.Resolve(tc.next)
-			if _, ok := err.(*forecast.ParseError); !ok {
+			if _, ok := err.(*data.ParseError); !ok {
 				t.Fatalf("want exactly one problem, got %v", err)
 			}
 			prefix := fmt.Sprintf("plan.yaml:%d:%d: ", line, col)

@@ -3,6 +3,7 @@ package main
 import (
 	"errors"
 	"fmt"
+	"forelay/scenario/data"
 	"strings"
 
 	"forelay/forecast"
@@ -34,7 +35,7 @@ func exitCode(err error) int {
 	var (
 		fe *flagError
 		ie *inputError
-		pe *forecast.ParseError
+		pe *data.ParseError
 		ts *forecast.TooShortError
 		ae *alertError
 	)

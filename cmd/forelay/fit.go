@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"forelay/scenario/data"
 	"io"
 	"math"
 	"os"
@@ -79,12 +80,12 @@ one with the lowest error on --metric wins; the table shows every candidate.`,
 
 // loadHistory reads a history file with the period and fill flags, under
 // the size limits.
-func loadHistory(path, period, fill string, l limits) (*forecast.History, error) {
+func loadHistory(path, period, fill string, l limits) (*data.History, error) {
 	freq, err := forecast.ParseFrequency(period)
 	if err != nil {
 		return nil, &flagError{err: fmt.Errorf("--period: %w", err)}
 	}
-	fm, err := forecast.ParseFillMode(fill)
+	fm, err := data.ParseFillMode(fill)
 	if err != nil {
 		return nil, &flagError{err: fmt.Errorf("--fill: %w", err)}
 	}
@@ -93,7 +94,7 @@ func loadHistory(path, period, fill string, l limits) (*forecast.History, error)
 		return nil, &inputError{err: err}
 	}
 	defer fh.Close()
-	h, err := forecast.ReadHistory(forecast.BoundedReader(fh, path, l.input()), path, forecast.ReadOptions{Freq: freq, Fill: fm})
+	h, err := data.ReadHistory(data.BoundedReader(fh, path, l.input()), path, data.ReadOptions{Freq: freq, Fill: fm})
 	if err != nil {
 		return nil, &inputError{err: err}
 	}

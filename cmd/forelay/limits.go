@@ -3,12 +3,12 @@ package main
 import (
 	"errors"
 	"fmt"
+	"forelay/scenario/data"
 	"math"
 	"slices"
 	"strconv"
 	"strings"
 
-	"forelay/forecast"
 	"forelay/scenario"
 )
 
@@ -81,14 +81,14 @@ func (l limits) scenario() scenario.Limits {
 }
 
 // input returns the size limits of an input file.
-func (l limits) input() forecast.SizeLimits {
-	return forecast.SizeLimits{Bytes: l.get("history-bytes"), LineBytes: l.get("line-bytes")}
+func (l limits) input() data.SizeLimits {
+	return data.SizeLimits{Bytes: l.get("history-bytes"), LineBytes: l.get("line-bytes")}
 }
 
 // limitHint names the flag that raises the size limit an input file broke,
 // or returns "" for any other error.
 func limitHint(err error) string {
-	var se *forecast.SizeError
+	var se *data.SizeError
 	if !errors.As(err, &se) {
 		return ""
 	}

@@ -7,6 +7,7 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
+	"forelay/scenario/data"
 	"io"
 	"math"
 	"os"
@@ -170,7 +171,7 @@ func trackRun(opts *TrackOptions) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	actual, err := tp.ReadActuals(forecast.BoundedReader(fh, opts.Actuals, opts.Shared.limits().input()), opts.Actuals)
+	actual, err := tp.ReadActuals(data.BoundedReader(fh, opts.Actuals, opts.Shared.limits().input()), opts.Actuals)
 	fh.Close()
 	if err != nil {
 		return &inputError{err: err}
@@ -500,7 +501,7 @@ type savedPlanJSON struct {
 
 // readSavedPlan reads a plan.json written by "forelay plan --out" and
 // returns the plan to track against and the input digests it records.
-// Errors are *forecast.ParseError naming the file (with the line and
+// Errors are *data.ParseError naming the file (with the line and
 // column of a JSON syntax or type error) and the field at fault.
 func readSavedPlan(path string) (scenario.TrackPlan, map[string]string, error) {
 	var tp scenario.TrackPlan
@@ -510,7 +511,7 @@ func readSavedPlan(path string) (scenario.TrackPlan, map[string]string, error) {
 	}
 	var sp savedPlanJSON
 	if err := json.Unmarshal(src, &sp); err != nil {
-		pe := &forecast.ParseError{File: path, Err: err}
+		pe := &data.ParseError{File: path, Err: err}
 		var se *json.SyntaxError
 		var te *json.UnmarshalTypeError
 		switch {
@@ -523,7 +524,7 @@ func readSavedPlan(path string) (scenario.TrackPlan, map[string]string, error) {
 		return tp, nil, pe
 	}
 	bad := func(field, format string, a ...any) error {
-		return &forecast.ParseError{File: path, Field: field, Err: fmt.Errorf("%w: "+format, append([]any{errSavedPlan}, a...)...)}
+		return &data.ParseError{File: path, Field: field, Err: fmt.Errorf("%w: "+format, append([]any{errSavedPlan}, a...)...)}
 	}
 	freq, err := forecast.ParseFrequency(sp.History.Period)
 	if err != nil || freq == forecast.FreqUnknown {
@@ -568,7 +569,7 @@ func readSavedPlan(path string) (scenario.TrackPlan, map[string]string, error) {
 		tp.Scenarios = append(tp.Scenarios, line)
 	}
 	if err := tp.Check(); err != nil {
-		return tp, nil, &forecast.ParseError{File: path, Err: err}
+		return tp, nil, &data.ParseError{File: path, Err: err}
 	}
 	return tp, sp.Inputs, nil
 }

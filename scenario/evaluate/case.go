@@ -2,6 +2,7 @@ package evaluate
 
 import (
 	"fmt"
+	"forelay/scenario/data"
 	"os"
 	"path/filepath"
 
@@ -44,7 +45,7 @@ func ReadOpen(dir string) ([]Case, error) {
 		if err != nil {
 			return nil, fmt.Errorf("open data: %w (run /usr/bin/python3 testdata/open/gen_open.py to write it)", err)
 		}
-		h, err := forecast.ReadHistory(f, path, forecast.ReadOptions{})
+		h, err := data.ReadHistory(f, path, data.ReadOptions{})
 		f.Close()
 		if err != nil {
 			return nil, err

@@ -80,7 +80,7 @@
 // has several problems, the first one met is reported; the order and gap
 // checks, which need a whole series, report the earliest cell in the file.
 // An error from the io.Reader itself is returned wrapped as it is.
-package forecast
+package data
 
 import (
 	"bufio"
@@ -89,6 +89,7 @@ import (
 	"encoding/csv"
 	"errors"
 	"fmt"
+	"forelay/forecast"
 	"io"
 	"math"
 	"slices"
@@ -109,7 +110,7 @@ const maxFillGap = 10000
 type ReadOptions struct {
 	// Freq forces the frequency of the file. FreqUnknown (the zero value)
 	// infers it from the labels.
-	Freq Frequency
+	Freq forecast.Frequency
 	// Fill says what to do with gaps. FillNone (the zero value) makes them
 	// errors.
 	Fill FillMode
@@ -124,7 +125,7 @@ type History struct {
 	// Series holds the series in file order (column order for the wide
 	// layout, order of first appearance for the long one). Each has at least
 	// one value and no gaps.
-	Series []Series
+	Series []forecast.Series
 	// Filled lists every value that a fill mode made up, by series in the
 	// order of Series and then by period. It is nil when nothing was filled.
 	Filled []Filled
@@ -133,7 +134,7 @@ type History struct {
 // Lookup returns the series called name. An empty name picks the only
 // series of a file that has exactly one. When no series matches it returns
 // an error wrapping ErrNoSeries whose message lists the series of the file.
-func (h *History) Lookup(name string) (Series, error) {
+func (h *History) Lookup(name string) (forecast.Series, error) {
 	if name == "" && len(h.Series) == 1 {
 		return h.Series[0], nil
 	}
@@ -145,9 +146,9 @@ func (h *History) Lookup(name string) (Series, error) {
 		names[i] = strconv.Quote(s.Name)
 	}
 	if name == "" {
-		return Series{}, fmt.Errorf("%w: %s holds %d series, name one of %s", ErrNoSeries, h.File, len(h.Series), strings.Join(names, ", "))
+		return forecast.Series{}, fmt.Errorf("%w: %s holds %d series, name one of %s", ErrNoSeries, h.File, len(h.Series), strings.Join(names, ", "))
 	}
-	return Series{}, fmt.Errorf("%w %q in %s (it has %s)", ErrNoSeries, name, h.File, strings.Join(names, ", "))
+	return forecast.Series{}, fmt.Errorf("%w %q in %s (it has %s)", ErrNoSeries, name, h.File, strings.Join(names, ", "))
 }
 
 // ReadHistory reads a history file in the format described in the package
@@ -155,7 +156,7 @@ func (h *History) Lookup(name string) (Series, error) {
 // only. It panics if opt.Freq or opt.Fill is not one of the defined
 // constants; every problem with the data comes back as an error.
 func ReadHistory(r io.Reader, name string, opt ReadOptions) (*History, error) {
-	if opt.Freq < FreqUnknown || opt.Freq > Yearly {
+	if opt.Freq < forecast.FreqUnknown || opt.Freq > forecast.Yearly {
 		panic(fmt.Sprintf("forecast: ReadHistory with %v", opt.Freq))
 	}
 	if opt.Fill < FillNone || opt.Fill > FillInterpolate {
@@ -184,7 +185,7 @@ type cell struct {
 // A row is one data row. For the long layout series holds the series name
 // and values one cell; for the wide layout values holds one cell per series.
 type row struct {
-	period Period
+	period forecast.Period
 	label  cell
 	series cell
 	values []cell
@@ -213,8 +214,8 @@ type historyReader struct {
 	rows                                 []*row
 	cols                                 []*column
 
-	form     Frequency // frequency of the label form
-	formCell cell      // first label, where the form was set
+	form     forecast.Frequency // frequency of the label form
+	formCell cell               // first label, where the form was set
 }
 
 func (hr *historyReader) errAt(c cell, field string, err error) *ParseError {
@@ -425,22 +426,22 @@ func (hr *historyReader) parseRow(rw *row) error {
 // before it.
 func (hr *historyReader) parseLabel(rw *row) error {
 	if rw.label.text == "" {
-		return hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: no period label", ErrBadPeriod))
+		return hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: no period label", forecast.ErrBadPeriod))
 	}
-	lf, err := LabelFrequency(rw.label.text)
+	lf, err := forecast.LabelFrequency(rw.label.text)
 	if err != nil {
 		return hr.errAt(rw.label, hr.periodField, err)
 	}
 	// Check the label itself (a month 13, a 30 February, a week 53
 	// that does not exist) in its own frequency.
-	if _, err := ParsePeriod(rw.label.text, lf); err != nil {
+	if _, err := forecast.ParsePeriod(rw.label.text, lf); err != nil {
 		return hr.errAt(rw.label, hr.periodField, err)
 	}
-	if hr.form == FreqUnknown {
+	if hr.form == forecast.FreqUnknown {
 		hr.form, hr.formCell = lf, rw.label
 	} else if lf != hr.form {
 		return hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: %q is %s, but the labels before it are %s (line %d)",
-			ErrBadPeriod, rw.label.text, labelKind(lf, false), labelKind(hr.form, true), hr.formCell.line))
+			forecast.ErrBadPeriod, rw.label.text, labelKind(lf, false), labelKind(hr.form, true), hr.formCell.line))
 	}
 	return nil
 }
@@ -455,13 +456,13 @@ func parseValue(s string) (float64, error) {
 }
 
 // labelKind names a label form for messages: "a month" or "months".
-func labelKind(f Frequency, plural bool) string {
-	one := map[Frequency][2]string{
-		Daily:     {"a date", "dates"},
-		Weekly:    {"an ISO week", "ISO weeks"},
-		Monthly:   {"a month", "months"},
-		Quarterly: {"a quarter", "quarters"},
-		Yearly:    {"a year", "years"},
+func labelKind(f forecast.Frequency, plural bool) string {
+	one := map[forecast.Frequency][2]string{
+		forecast.Daily:     {"a date", "dates"},
+		forecast.Weekly:    {"an ISO week", "ISO weeks"},
+		forecast.Monthly:   {"a month", "months"},
+		forecast.Quarterly: {"a quarter", "quarters"},
+		forecast.Yearly:    {"a year", "years"},
 	}[f]
 	if plural {
 		return one[1]
@@ -471,9 +472,9 @@ func labelKind(f Frequency, plural bool) string {
 
 // frequency returns the frequency of the file: the forced one if it fits
 // the labels, else the one the labels give.
-func (hr *historyReader) frequency() (Frequency, error) {
-	if f := hr.opt.Freq; f != FreqUnknown {
-		if f == hr.form || f == Weekly && hr.form == Daily {
+func (hr *historyReader) frequency() (forecast.Frequency, error) {
+	if f := hr.opt.Freq; f != forecast.FreqUnknown {
+		if f == hr.form || f == forecast.Weekly && hr.form == forecast.Daily {
 			return f, nil
 		}
 		how := "aggregate first"
@@ -481,9 +482,9 @@ func (hr *historyReader) frequency() (Frequency, error) {
 			how = fmt.Sprintf("%s cannot be split into %ss", labelKind(hr.form, true), f)
 		}
 		return 0, hr.errAt(hr.formCell, hr.periodField, fmt.Errorf("%w: labels are %s but --period %s was asked; %s",
-			ErrBadPeriod, labelKind(hr.form, true), f, how))
+			forecast.ErrBadPeriod, labelKind(hr.form, true), f, how))
 	}
-	if hr.form != Daily {
+	if hr.form != forecast.Daily {
 		return hr.form, nil
 	}
 	// Dates: the smallest spacing between consecutive dates of a series
@@ -491,33 +492,33 @@ func (hr *historyReader) frequency() (Frequency, error) {
 	minGap := 0
 	for _, c := range hr.cols {
 		for i := 1; i < len(c.rows); i++ {
-			a, _ := ParsePeriod(c.rows[i-1].label.text, Daily)
-			b, _ := ParsePeriod(c.rows[i].label.text, Daily)
+			a, _ := forecast.ParsePeriod(c.rows[i-1].label.text, forecast.Daily)
+			b, _ := forecast.ParsePeriod(c.rows[i].label.text, forecast.Daily)
 			if d := b.Sub(a); d > 0 && (minGap == 0 || d < minGap) {
 				minGap = d
 			}
 		}
 	}
 	if minGap > 0 && minGap%7 == 0 {
-		return Weekly, nil
+		return forecast.Weekly, nil
 	}
-	return Daily, nil
+	return forecast.Daily, nil
 }
 
 // parsePeriods reads every label in frequency f.
-func (hr *historyReader) parsePeriods(f Frequency) error {
-	var anchor Period // first week, for the weekday check
+func (hr *historyReader) parsePeriods(f forecast.Frequency) error {
+	var anchor forecast.Period // first week, for the weekday check
 	for _, rw := range hr.rows {
-		p, err := ParsePeriod(rw.label.text, f)
+		p, err := forecast.ParsePeriod(rw.label.text, f)
 		if err != nil {
 			return hr.errAt(rw.label, hr.periodField, err) // not reached: checked before
 		}
-		if f == Weekly && hr.form == Daily {
+		if f == forecast.Weekly && hr.form == forecast.Daily {
 			if anchor.IsZero() {
 				anchor = p
 			} else if wa, wp := anchor.Start().Weekday(), p.Start().Weekday(); wa != wp {
 				return hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: %s is a %s, but the weeks of this file start on %s (line %d)",
-					ErrBadPeriod, rw.label.text, wp, wa, hr.formCell.line))
+					forecast.ErrBadPeriod, rw.label.text, wp, wa, hr.formCell.line))
 			}
 		}
 		rw.period = p
@@ -546,7 +547,7 @@ func (hr *historyReader) build() (*History, error) {
 	// Order: periods increase within each series.
 	var first *ParseError
 	for _, c := range hr.cols {
-		seen := map[Period]int{}
+		seen := map[forecast.Period]int{}
 		for i, rw := range c.rows {
 			if l, ok := seen[rw.period]; ok {
 				first = earliest(first, hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w %s%s (first on line %d)",
@@ -588,7 +589,7 @@ func (hr *historyReader) build() (*History, error) {
 }
 
 // series turns one column into a Series, checking and filling its gaps.
-func (hr *historyReader) series(c *column) (Series, []Filled, *ParseError) {
+func (hr *historyReader) series(c *column) (forecast.Series, []Filled, *ParseError) {
 	lo, hi := -1, -1 // first and last row with a value
 	for i, rw := range c.rows {
 		if !math.IsNaN(rw.nums[c.vi[i]]) {
@@ -603,7 +604,7 @@ func (hr *historyReader) series(c *column) (Series, []Filled, *ParseError) {
 		if hr.long {
 			at, field = c.rows[0].values[0], hr.valueField
 		}
-		return Series{}, nil, hr.errAt(at, field, fmt.Errorf("%w: series %q has no values", ErrEmptyCell, c.name))
+		return forecast.Series{}, nil, hr.errAt(at, field, fmt.Errorf("%w: series %q has no values", ErrEmptyCell, c.name))
 	}
 	rows, vi := c.rows[lo:hi+1], c.vi[lo:hi+1]
 	start := rows[0].period
@@ -618,7 +619,7 @@ func (hr *historyReader) series(c *column) (Series, []Filled, *ParseError) {
 			prev := rows[i-1]
 			d := rw.period.Sub(prev.period)
 			if d > maxFillGap && hr.opt.Fill != FillNone {
-				return Series{}, nil, hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: %d periods%s from %s to %s (between line %d and %d); too long to fill",
+				return forecast.Series{}, nil, hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: %d periods%s from %s to %s (between line %d and %d); too long to fill",
 					ErrGap, d-1, hr.forSeries(c), prev.period.Add(1), rw.period.Add(-1), prev.label.line, rw.label.line))
 			}
 			if d > 1 && hr.opt.Fill == FillNone {
@@ -626,14 +627,14 @@ func (hr *historyReader) series(c *column) (Series, []Filled, *ParseError) {
 				if d > 2 {
 					what = fmt.Sprintf("values for %s to %s", prev.period.Add(1), rw.period.Add(-1))
 				}
-				return Series{}, nil, hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: no %s%s (between line %d and %d); use --fill zero|interpolate",
+				return forecast.Series{}, nil, hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: no %s%s (between line %d and %d); use --fill zero|interpolate",
 					ErrGap, what, hr.forSeries(c), prev.label.line, rw.label.line))
 			}
 		}
 		k := rw.period.Sub(start)
 		v := rw.nums[vi[i]]
 		if math.IsNaN(v) && hr.opt.Fill == FillNone {
-			return Series{}, nil, hr.errAt(rw.values[vi[i]], hr.fieldOf(vi[i]), fmt.Errorf("%w for %s inside series %q (a %w); use --fill zero|interpolate",
+			return forecast.Series{}, nil, hr.errAt(rw.values[vi[i]], hr.fieldOf(vi[i]), fmt.Errorf("%w for %s inside series %q (a %w); use --fill zero|interpolate",
 				ErrEmptyCell, rw.period, c.name, ErrGap))
 		}
 		values[k] = v
@@ -645,5 +646,5 @@ func (hr *historyReader) series(c *column) (Series, []Filled, *ParseError) {
 			filled = append(filled, Filled{Series: c.name, Period: start.Add(k), Value: values[k], Line: lines[k]})
 		}
 	}
-	return Series{Name: c.name, Start: start, Values: values}, filled, nil
+	return forecast.Series{Name: c.name, Start: start, Values: values}, filled, nil
 }

@@ -1,9 +1,10 @@
-package forecast
+package data
 
 import (
 	"encoding/csv"
 	"errors"
 	"fmt"
+	"forelay/forecast"
 	"math"
 	"os"
 	"path/filepath"
@@ -34,7 +35,7 @@ type wantFilled struct {
 	line           int
 }
 
-func checkHistory(t *testing.T, h *History, layout string, freq Frequency, want []wantSeries, filled []wantFilled, tol float64) {
+func checkHistory(t *testing.T, h *History, layout string, freq forecast.Frequency, want []wantSeries, filled []wantFilled, tol float64) {
 	t.Helper()
 	if h.Layout != layout {
 		t.Errorf("Layout = %q, want %q", h.Layout, layout)
@@ -76,7 +77,7 @@ func TestReadHistory(t *testing.T) {
 		input  string
 		opt    ReadOptions
 		layout string
-		freq   Frequency
+		freq   forecast.Frequency
 		// want and filled are read off the input by hand, unless a
 		// comment gives the calculation.
 		want   []wantSeries
@@ -86,7 +87,7 @@ func TestReadHistory(t *testing.T) {
 		{
 			name:   "wide monthly, ragged starts and ends",
 			input:  "period,north,south\n2025-11,10,\n2025-12,12,5\n2026-01,11,6\n2026-02,,7\n",
-			layout: "wide", freq: Monthly,
+			layout: "wide", freq: forecast.Monthly,
 			want: []wantSeries{{"north", "2025-11", []float64{10, 12, 11}}, {"south", "2025-12", []float64{5, 6, 7}}},
 		},
 		{
@@ -97,20 +98,20 @@ func TestReadHistory(t *testing.T) {
 				"5.25,,east,2026-02\n" +
 				"1e2,,west,2026-02\n" +
 				"+7,,west,2026-03\n",
-			layout: "long", freq: Monthly,
+			layout: "long", freq: forecast.Monthly,
 			want: []wantSeries{{"east", "2026-01", []float64{4.5, 5.25}}, {"west", "2026-01", []float64{-3, 100, 7}}},
 		},
 		{
 			name:   "daily dates",
 			input:  "period,kiosk\n2026-02-27,3\n2026-02-28,4\n2026-03-01,5\n",
-			layout: "wide", freq: Daily,
+			layout: "wide", freq: forecast.Daily,
 			want: []wantSeries{{"kiosk", "2026-02-27", []float64{3, 4, 5}}},
 		},
 		{
 			// Python: date(2026,3,4) is a Wednesday; one week later is 03-11.
 			name:   "weekly inferred from dates 7 days apart",
 			input:  "period,kiosk\n2026-03-04,3\n2026-03-11,4\n2026-03-18,5\n",
-			layout: "wide", freq: Weekly,
+			layout: "wide", freq: forecast.Weekly,
 			want: []wantSeries{{"kiosk", "2026-03-04", []float64{3, 4, 5}}},
 		},
 		{
@@ -119,7 +120,7 @@ func TestReadHistory(t *testing.T) {
 			name:   "weekly inferred, missing week interpolated",
 			input:  "period,kiosk\n2026-03-04,3\n2026-03-11,3\n2026-03-25,5\n",
 			opt:    ReadOptions{Fill: FillInterpolate},
-			layout: "wide", freq: Weekly,
+			layout: "wide", freq: forecast.Weekly,
 			want:   []wantSeries{{"kiosk", "2026-03-04", []float64{3, 3, 4, 5}}},
 			filled: []wantFilled{{"kiosk", "2026-03-18", 4, 0}},
 		},
@@ -128,8 +129,8 @@ func TestReadHistory(t *testing.T) {
 			// same. The missing week is filled with 0.
 			name:   "forced weekly on dates, zero fill",
 			input:  "period,kiosk\n2026-03-04,3\n2026-03-18,5\n",
-			opt:    ReadOptions{Freq: Weekly, Fill: FillZero},
-			layout: "wide", freq: Weekly,
+			opt:    ReadOptions{Freq: forecast.Weekly, Fill: FillZero},
+			layout: "wide", freq: forecast.Weekly,
 			want:   []wantSeries{{"kiosk", "2026-03-04", []float64{3, 0, 5}}},
 			filled: []wantFilled{{"kiosk", "2026-03-11", 0, 0}},
 		},
@@ -137,7 +138,7 @@ func TestReadHistory(t *testing.T) {
 			// One date per series gives no spacing: days.
 			name:   "single dates are days",
 			input:  "series,period,value\na,2026-03-04,1\nb,2026-03-11,2\n",
-			layout: "long", freq: Daily,
+			layout: "long", freq: forecast.Daily,
 			want: []wantSeries{{"a", "2026-03-04", []float64{1}}, {"b", "2026-03-11", []float64{2}}},
 		},
 		{
@@ -145,7 +146,7 @@ func TestReadHistory(t *testing.T) {
 			// fromisocalendar(2026,1,1) = 2025-12-29, one week apart.
 			name:   "ISO weeks across a year end",
 			input:  "period,kiosk\n2025-W52,1\n2026-W01,2\n2026-W02,3\n",
-			layout: "wide", freq: Weekly,
+			layout: "wide", freq: forecast.Weekly,
 			want: []wantSeries{{"kiosk", "2025-W52", []float64{1, 2, 3}}},
 		},
 		{
@@ -153,40 +154,40 @@ func TestReadHistory(t *testing.T) {
 			// fromisocalendar(2021,1,1) = 2021-01-04 follows it.
 			name:   "ISO week 53",
 			input:  "period,kiosk\n2020-W52,1\n2020-W53,2\n2021-W01,3\n",
-			opt:    ReadOptions{Freq: Weekly},
-			layout: "wide", freq: Weekly,
+			opt:    ReadOptions{Freq: forecast.Weekly},
+			layout: "wide", freq: forecast.Weekly,
 			want: []wantSeries{{"kiosk", "2020-W52", []float64{1, 2, 3}}},
 		},
 		{
 			name:   "quarters",
 			input:  "period,kiosk\n2025-Q3,1\n2025-Q4,2\n2026-Q1,3\n",
-			layout: "wide", freq: Quarterly,
+			layout: "wide", freq: forecast.Quarterly,
 			want: []wantSeries{{"kiosk", "2025-Q3", []float64{1, 2, 3}}},
 		},
 		{
 			name:   "years, forced",
 			input:  "period,kiosk\n2024,1\n2025,2\n2026,3\n",
-			opt:    ReadOptions{Freq: Yearly},
-			layout: "wide", freq: Yearly,
+			opt:    ReadOptions{Freq: forecast.Yearly},
+			layout: "wide", freq: forecast.Yearly,
 			want: []wantSeries{{"kiosk", "2024", []float64{1, 2, 3}}},
 		},
 		{
 			name:   "BOM, CRLF, blank and empty rows, spaces",
 			input:  "\ufeffperiod , a\r\n\r\n  \r\n2026-01 ,  1 \r\n,\r\n 2026-02, 2\r\n",
-			layout: "wide", freq: Monthly,
+			layout: "wide", freq: forecast.Monthly,
 			want: []wantSeries{{"a", "2026-01", []float64{1, 2}}},
 		},
 		{
 			name:   "quoted names and values",
 			input:  "period,\"north, east\",\"say \"\"hi\"\"\"\n2026-01,\"1.5\",2\n",
-			layout: "wide", freq: Monthly,
+			layout: "wide", freq: forecast.Monthly,
 			want: []wantSeries{{"north, east", "2026-01", []float64{1.5}}, {"say \"hi\"", "2026-01", []float64{2}}},
 		},
 		{
 			// Every form of ParseDecimal's grammar, spaces around it.
 			name:   "plain decimal forms",
 			input:  "period,a\n2026-01, +.5 \n2026-02,7.\n2026-03,-1.25E+2\n2026-04,3e-1\n2026-05,007\n",
-			layout: "wide", freq: Monthly,
+			layout: "wide", freq: forecast.Monthly,
 			want: []wantSeries{{"a", "2026-01", []float64{0.5, 7, -125, 0.3, 7}}},
 		},
 		{
@@ -196,7 +197,7 @@ func TestReadHistory(t *testing.T) {
 			name:   "wide, interpolate over an empty cell and a missing row",
 			input:  "period,a\n2026-01,10\n2026-02,\n2026-04,16\n",
 			opt:    ReadOptions{Fill: FillInterpolate},
-			layout: "wide", freq: Monthly,
+			layout: "wide", freq: forecast.Monthly,
 			want:   []wantSeries{{"a", "2026-01", []float64{10, 12, 14, 16}}},
 			filled: []wantFilled{{"a", "2026-02", 12, 3}, {"a", "2026-03", 14, 0}},
 			tol:    1e-12,
@@ -204,8 +205,8 @@ func TestReadHistory(t *testing.T) {
 		{
 			name:   "forced month on month labels",
 			input:  "period,a\n2026-01,1\n",
-			opt:    ReadOptions{Freq: Monthly},
-			layout: "wide", freq: Monthly,
+			opt:    ReadOptions{Freq: forecast.Monthly},
+			layout: "wide", freq: forecast.Monthly,
 			want: []wantSeries{{"a", "2026-01", []float64{1}}},
 		},
 	}
@@ -229,13 +230,13 @@ func TestReadHistoryFiles(t *testing.T) {
 		file   string
 		opt    ReadOptions
 		layout string
-		freq   Frequency
+		freq   forecast.Frequency
 		want   []wantSeries
 		filled []wantFilled
 		tol    float64
 	}{
 		{
-			file: "wide_monthly.csv", layout: "wide", freq: Monthly,
+			file: "wide_monthly.csv", layout: "wide", freq: forecast.Monthly,
 			want: []wantSeries{
 				{"bolts", "2025-10", []float64{120, 132, 128, 141}},
 				{"nuts", "2025-11", []float64{40, 44, 39, 47}},
@@ -245,7 +246,7 @@ func TestReadHistoryFiles(t *testing.T) {
 		{
 			// BOM, CRLF, blank lines and a note column; the dates are
 			// Wednesdays 7 days apart (Python datetime), so weeks.
-			file: "long_weekly.csv", layout: "long", freq: Weekly,
+			file: "long_weekly.csv", layout: "long", freq: forecast.Weekly,
 			want: []wantSeries{
 				{"hinges", "2026-01-07", []float64{30, 34, -2}},
 				{"latches", "2026-01-14", []float64{12, 15}},
@@ -254,7 +255,7 @@ func TestReadHistoryFiles(t *testing.T) {
 		{
 			// clips: empty cell on line 3 (2025-02), no row for 2025-03; pins:
 			// no rows for 2025-03 and 2025-04. All become 0.
-			file: "long_gaps.csv", opt: ReadOptions{Fill: FillZero}, layout: "long", freq: Monthly,
+			file: "long_gaps.csv", opt: ReadOptions{Fill: FillZero}, layout: "long", freq: forecast.Monthly,
 			want: []wantSeries{
 				{"clips", "2025-01", []float64{10, 0, 0, 16, 20}},
 				{"pins", "2025-02", []float64{7, 0, 0, 1}},
@@ -269,7 +270,7 @@ func TestReadHistoryFiles(t *testing.T) {
 			//   2025-02: 10 + (16-10)*1/3 = 12, 2025-03: 10 + (16-10)*2/3 = 14
 			// pins from 7 (2025-02) to 1 (2025-05), d = 3:
 			//   2025-03: 7 + (1-7)*1/3 = 5,     2025-04: 7 + (1-7)*2/3 = 3
-			file: "long_gaps.csv", opt: ReadOptions{Fill: FillInterpolate}, layout: "long", freq: Monthly,
+			file: "long_gaps.csv", opt: ReadOptions{Fill: FillInterpolate}, layout: "long", freq: forecast.Monthly,
 			want: []wantSeries{
 				{"clips", "2025-01", []float64{10, 12, 14, 16, 20}},
 				{"pins", "2025-02", []float64{7, 5, 3, 1}},
@@ -283,7 +284,7 @@ func TestReadHistoryFiles(t *testing.T) {
 	}
 	for _, tc := range tests {
 		t.Run(tc.file+"/"+tc.opt.Fill.String(), func(t *testing.T) {
-			f, err := os.Open(filepath.Join("..", "testdata", "history", tc.file))
+			f, err := os.Open(filepath.Join("..", "..", "testdata", "history", tc.file))
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -445,82 +446,82 @@ func TestReadHistoryErrors(t *testing.T) {
 		{
 			name:  "bad month",
 			input: "period,a\n§2026-13,5\n",
-			want:  []error{ErrBadPeriod},
+			want:  []error{forecast.ErrBadPeriod},
 			field: "period",
 		},
 		{
 			name:  "no such date",
 			input: "period,a\n2026-02-28,5\n§2026-02-29,5\n",
-			want:  []error{ErrBadPeriod},
+			want:  []error{forecast.ErrBadPeriod},
 		},
 		{
 			name:  "no such ISO week",
 			input: "period,a\n2021-W52,5\n§2021-W53,5\n",
-			want:  []error{ErrBadPeriod},
+			want:  []error{forecast.ErrBadPeriod},
 		},
 		{
 			name:  "unreadable label",
 			input: "Series,Period,Value\na,§Jan 2026,5\n",
-			want:  []error{ErrBadPeriod},
+			want:  []error{forecast.ErrBadPeriod},
 			field: "Period",
 		},
 		{
 			name:  "empty label",
 			input: "period,a\n2026-01,1\n §,5\n", // columns skip leading spaces
-			want:  []error{ErrBadPeriod},
+			want:  []error{forecast.ErrBadPeriod},
 			msg:   "no period label",
 		},
 		{
 			name:  "mixed label forms",
 			input: "period,a\n2026-01,5\n§2026-Q1,6\n",
-			want:  []error{ErrBadPeriod},
+			want:  []error{forecast.ErrBadPeriod},
 			msg:   `"2026-Q1" is a quarter, but the labels before it are months (line 2)`,
 		},
 		{
 			name:  "forced coarser frequency",
 			input: "period,a\n§2026-01,5\n2026-02,6\n",
-			opt:   ReadOptions{Freq: Quarterly},
-			want:  []error{ErrBadPeriod},
+			opt:   ReadOptions{Freq: forecast.Quarterly},
+			want:  []error{forecast.ErrBadPeriod},
 			msg:   "labels are months but --period quarter was asked; aggregate first",
 		},
 		{
 			name:  "forced months on dates",
 			input: "period,a\n§2026-01-01,5\n",
-			opt:   ReadOptions{Freq: Monthly},
-			want:  []error{ErrBadPeriod},
+			opt:   ReadOptions{Freq: forecast.Monthly},
+			want:  []error{forecast.ErrBadPeriod},
 			msg:   "aggregate first",
 		},
 		{
 			name:  "forced finer frequency",
 			input: "period,a\n§2026-01,5\n",
-			opt:   ReadOptions{Freq: Daily},
-			want:  []error{ErrBadPeriod},
+			opt:   ReadOptions{Freq: forecast.Daily},
+			want:  []error{forecast.ErrBadPeriod},
 			msg:   "months cannot be split into days",
 		},
 		{
 			name:  "forced days on ISO weeks",
 			input: "period,a\n§2026-W01,5\n",
-			opt:   ReadOptions{Freq: Daily},
-			want:  []error{ErrBadPeriod},
+			opt:   ReadOptions{Freq: forecast.Daily},
+			want:  []error{forecast.ErrBadPeriod},
 		},
 		{
 			// Smallest spacing 7 days, so weeks from Wednesday 2026-03-04;
 			// Python: date(2026,3,19).strftime("%A") = Thursday.
 			name:  "weekly date off the weekday",
 			input: "period,a\n2026-03-04,1\n2026-03-11,2\n§2026-03-19,3\n",
-			want:  []error{ErrBadPeriod},
+			want:  []error{forecast.ErrBadPeriod},
 			msg:   "2026-03-19 is a Thursday, but the weeks of this file start on Wednesday (line 2)",
 		},
 		{
 			name:  "forced weeks, date off the weekday",
 			input: "period,a\n2026-03-04,1\n§2026-03-05,2\n",
-			opt:   ReadOptions{Freq: Weekly},
-			want:  []error{ErrBadPeriod},
+			opt:   ReadOptions{Freq: forecast.Weekly},
+			want:  []error{forecast.ErrBadPeriod},
 		},
 		{
 			name:  "forced days on weekly dates leaves gaps",
 			input: "period,a\n2026-03-04,1\n§2026-03-11,2\n",
-			opt:   ReadOptions{Freq: Daily},
+			opt:   ReadOptions{Freq: forecast.Daily},
 			want:  []error{ErrGap},
 			msg:   "no values for 2026-03-05 to 2026-03-10 (between line 2 and 3)",
 		},
@@ -661,7 +662,7 @@ func TestReadHistoryErrors(t *testing.T) {
 func TestReadHistoryGapMessage(t *testing.T) {
 	var b strings.Builder
 	b.WriteString("period,qty\n")
-	p := mustPeriod(t, "2024-03", Monthly)
+	p := mustPeriod(t, "2024-03", forecast.Monthly)
 	for range 13 { // 2024-03 .. 2025-03 on lines 2 to 14
 		fmt.Fprintf(&b, "%s,1\n", p)
 		p = p.Add(1)
@@ -688,7 +689,7 @@ func TestReadHistoryReaderError(t *testing.T) {
 }
 
 func TestReadHistoryPanicsOnBadOptions(t *testing.T) {
-	for _, opt := range []ReadOptions{{Freq: Frequency(9)}, {Fill: FillMode(-1)}} {
+	for _, opt := range []ReadOptions{{Freq: forecast.Frequency(9)}, {Fill: FillMode(-1)}} {
 		func() {
 			defer func() {
 				if recover() == nil {
@@ -717,7 +718,7 @@ func TestLookup(t *testing.T) {
 	if !errors.Is(err, ErrNoSeries) || !strings.Contains(err.Error(), `name one of "north", "south"`) {
 		t.Errorf("Lookup(\"\") error = %v", err)
 	}
-	one := &History{File: "one.csv", Series: []Series{{Name: "only"}}}
+	one := &History{File: "one.csv", Series: []forecast.Series{{Name: "only"}}}
 	if s, err := one.Lookup(""); err != nil || s.Name != "only" {
 		t.Errorf("Lookup(\"\") on one series = %+v, %v", s, err)
 	}
@@ -830,7 +831,7 @@ func FuzzReadHistory(f *testing.F) {
 	f.Add("period,a\n2026-Q1,1\n2026-Q3,NaN\n2026-Q4,-2\n", uint8(4), uint8(1))
 	f.Add("period,a\n2026-Q1,1_0\n2026-Q2,\n2026-Q3,.5e+1\n", uint8(4), uint8(2))
 	f.Fuzz(func(t *testing.T, data string, freq, fill uint8) {
-		opt := ReadOptions{Freq: Frequency(freq % 6), Fill: FillMode(fill % 3)}
+		opt := ReadOptions{Freq: forecast.Frequency(freq % 6), Fill: FillMode(fill % 3)}
 		h, err := ReadHistory(strings.NewReader(data), "f.csv", opt)
 		if err != nil {
 			var pe *ParseError
@@ -851,7 +852,7 @@ func FuzzReadHistory(f *testing.F) {
 					t.Fatalf("series %q holds %v", s.Name, v)
 				}
 			}
-			if opt.Freq != FreqUnknown && s.Freq() != opt.Freq {
+			if opt.Freq != forecast.FreqUnknown && s.Freq() != opt.Freq {
 				t.Fatalf("series %q is %v, asked %v", s.Name, s.Freq(), opt.Freq)
 			}
 		}
@@ -868,4 +869,14 @@ func FuzzReadHistory(f *testing.F) {
 			}
 		}
 	})
+}
+
+// mustPeriod parses label at frequency f or fails the test.
+func mustPeriod(t *testing.T, label string, f forecast.Frequency) forecast.Period {
+	t.Helper()
+	p, err := forecast.ParsePeriod(label, f)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return p
 }

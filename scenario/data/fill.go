@@ -1,7 +1,8 @@
-package forecast
+package data
 
 import (
 	"fmt"
+	"forelay/forecast"
 	"math"
 	"strings"
 )
@@ -58,7 +59,7 @@ type Filled struct {
 	// Series is the name of the series the value went into.
 	Series string
 	// Period is the period that had no value.
-	Period Period
+	Period forecast.Period
 	// Value is the value filled in.
 	Value float64
 	// Line is the 1-based line of the empty cell, or 0 when the period had

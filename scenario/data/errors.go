@@ -1,0 +1,57 @@
+package data
+
+import (
+	"errors"
+	"fmt"
+
+	"forelay/forecast"
+)
+
+// Sentinel errors, matched with errors.Is. Parse errors wrap them.
+var (
+	// ErrMissingColumn: the header lacks a column the layout needs.
+	ErrMissingColumn = errors.New("missing column")
+	// ErrBadNumber: a cell that should hold a number does not (the same
+	// error value as forecast's, so errors.Is matches either).
+	ErrBadNumber = forecast.ErrBadNumber
+	// ErrEmptyCell: a cell that should hold a value is empty or NaN (the
+	// same error value as forecast's).
+	ErrEmptyCell = forecast.ErrEmptyCell
+	// ErrDuplicatePeriod: the same period appears twice for one series.
+	ErrDuplicatePeriod = errors.New("duplicate period")
+	// ErrUnsorted: the periods of a series go backwards.
+	ErrUnsorted = errors.New("periods out of order")
+	// ErrGap: periods are missing and no fill rule was given.
+	ErrGap = errors.New("gap in periods")
+	// ErrNoSeries: the file holds no series, or not the one asked for.
+	ErrNoSeries = errors.New("no such series")
+)
+
+// A ParseError reports a problem at a place in an input file. Line and
+// Column are 1-based; Column counts bytes (as encoding/csv does). A zero
+// Line or Column is left out of the message.
+type ParseError struct {
+	File   string
+	Line   int
+	Column int
+	Field  string // the column or key involved, if any
+	Err    error
+}
+
+// Error prints "file:line:column: field: message".
+func (e *ParseError) Error() string {
+	s := e.File
+	if e.Line > 0 {
+		s += fmt.Sprintf(":%d", e.Line)
+		if e.Column > 0 {
+			s += fmt.Sprintf(":%d", e.Column)
+		}
+	}
+	if e.Field != "" {
+		s += ": " + e.Field
+	}
+	return s + ": " + e.Err.Error()
+}
+
+// Unwrap returns the underlying error.
+func (e *ParseError) Unwrap() error { return e.Err }
