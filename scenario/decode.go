@@ -120,16 +120,8 @@ func parse(r io.Reader, path string, l Limits) (*File, error) {
 		Path:   path,
 		Dir:    filepath.Dir(path),
 		Limits: l,
-		History: HistoryRef{
-			Fill: "none",
-		},
-		Baseline: Baseline{
-			Method:     forecast.Auto,
-			Metric:     "mad",
-			Select:     "backtest",
-			MSEDivisor: "n-1",
-		},
-		Bands: Bands{Widen: "horizon", From: "calibrated", Floor: new(float64)},
+		Baseline: Baseline{Method: forecast.Auto},
+		Bands: Bands{Floor: new(float64)},
 	}
 	d.file(root, f)
 	d.validate(f)
@@ -542,6 +534,22 @@ func (m *mapping) boolean(key string, dst *bool) bool {
 	return true
 }
 
+// typed decodes one of the allowed words with parse into dst, a typed
+// value, and reports whether it did; what names the value in the message.
+// The allowed words and parse must agree: a word parse refuses is a bug.
+func typed[T any](m *mapping, key, what string, allowed []string, parse func(string) (T, error), dst *T) bool {
+	var word string
+	if !m.enum(key, what, allowed, &word) {
+		return false
+	}
+	v, err := parse(word)
+	if err != nil {
+		panic("scenario: " + what + " " + word + " allowed but not parsed: " + err.Error())
+	}
+	*dst = v
+	return true
+}
+
 // enum decodes one of the allowed words into dst and reports whether it
 // did; what names the value in the message ("metric").
 func (m *mapping) enum(key, what string, allowed []string, dst *string) bool {
@@ -639,8 +647,8 @@ func (d *decoder) file(root *yaml.Node, f *File) {
 	if b := m.sub("bands", bandsKeys); b != nil {
 		b.num("z", &f.Bands.Z)
 		b.num("coverage", &f.Bands.Coverage)
-		b.enum("widen", "widen", widenValues, &f.Bands.Widen)
-		b.enum("from", "band source", bandFromValues, &f.Bands.From)
+		typed(b, "widen", "widen", widenValues, forecast.ParseBandMode, &f.Bands.Widen)
+		typed(b, "from", "band source", bandFromValues, forecast.ParseBandSource, &f.Bands.From)
 		d.floor(b, &f.Bands)
 		f.Bands.Pos = d.position(b.node)
 	}
@@ -661,8 +669,8 @@ func (d *decoder) file(root *yaml.Node, f *File) {
 		f.Capacity = d.capacity(c)
 	}
 	if p := m.sub("production", productionKeys); p != nil {
-		pr := &Production{Mode: "follow", Pos: d.position(p.node)}
-		p.enum("mode", "mode", modeValues, &pr.Mode)
+		pr := &Production{Mode: Follow, Pos: d.position(p.node)}
+		typed(p, "mode", "mode", modeValues, ParseProductionMode, &pr.Mode)
 		if p.str("plan", &pr.Plan) {
 			pr.Plan = resolvePath(f.Dir, pr.Plan)
 		}
@@ -709,7 +717,7 @@ func (d *decoder) history(m *mapping, f *File) {
 			d.pos[m.field("period")] = d.position(n)
 		}
 	}
-	m.enum("fill", "fill", fillValues, &h.Fill)
+	typed(m, "fill", "fill", fillValues, data.ParseFillMode, &h.Fill)
 }
 
 // baseline decodes the baseline settings.
@@ -727,8 +735,8 @@ func (d *decoder) baseline(m *mapping, b *Baseline) {
 		}
 	}
 	m.integer("season", &b.Config.Season)
-	m.enum("metric", "metric", metricValues, &b.Metric)
-	m.enum("select", "selection", selectValues, &b.Select)
+	typed(m, "metric", "metric", metricValues, forecast.ParseMetric, &b.Metric)
+	typed(m, "select", "selection", selectValues, forecast.ParseSelection, &b.Select)
 	for _, p := range []struct {
 		key string
 		dst **float64
@@ -760,7 +768,7 @@ func (d *decoder) baseline(m *mapping, b *Baseline) {
 	}
 	m.boolean("dummies", &b.Config.Dummies)
 	m.boolean("damped", &b.Config.Damped)
-	m.enum("mse_divisor", "divisor", divisorValues, &b.MSEDivisor)
+	typed(m, "mse_divisor", "divisor", divisorValues, forecast.ParseDivisor, &b.MSEDivisor)
 	m.boolean("refit", &b.Refit)
 	m.integer("holdout", &b.Holdout)
 }

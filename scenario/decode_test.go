@@ -310,9 +310,9 @@ func TestParseBOMAndDefaults(t *testing.T) {
 		t.Fatal(err)
 	}
 	b := f.Baseline
-	if f.History.File != filepath.Join("plans", "data", "h.csv") || f.History.Fill != "none" || f.History.Period != forecast.FreqUnknown ||
-		b.Method != forecast.Auto || b.Metric != "mad" || b.Select != "backtest" || b.MSEDivisor != "n-1" || b.Refit || b.Holdout != 0 ||
-		f.Bands.Widen != "horizon" || f.Bands.Floor == nil || *f.Bands.Floor != 0 || f.Capacity != nil || f.Production != nil || f.Units != "" {
+	if f.History.File != filepath.Join("plans", "data", "h.csv") || f.History.Fill != data.FillNone || f.History.Period != forecast.FreqUnknown ||
+		b.Method != forecast.Auto || b.Metric != forecast.MetricMAD || b.Select != forecast.SelectBacktest || b.MSEDivisor != forecast.DivisorNMinus1 || b.Refit || b.Holdout != 0 ||
+		f.Bands.Widen != forecast.Widening || f.Bands.From != forecast.Calibrated || f.Bands.Floor == nil || *f.Bands.Floor != 0 || f.Capacity != nil || f.Production != nil || f.Units != "" {
 		t.Errorf("defaults: %+v", f)
 	}
 	// Z = 2 by default; coverage 2Φ(2) − 1 = 0.9544997361 (standard normal

@@ -4,6 +4,7 @@ import (
 	"fmt"
 
 	"forelay/forecast"
+	"forelay/scenario/data"
 )
 
 // A Pos is a place in a scenario file. Line and Column are 1-based; Column
@@ -80,9 +81,9 @@ type HistoryRef struct {
 	// Period is the history's frequency; FreqUnknown means "infer it from
 	// the labels" (File.Resolve then sets it to the inferred one).
 	Period forecast.Frequency
-	// Fill is what to do with gaps: "none" (gaps are errors, the default),
-	// "zero" or "interpolate".
-	Fill string
+	// Fill is what to do with gaps: data.FillNone (gaps are errors, the
+	// default), FillZero or FillInterpolate.
+	Fill data.FillMode
 	// Pos is where the history key stands.
 	Pos Pos
 }
@@ -95,15 +96,13 @@ type Baseline struct {
 	// Config holds the method's settings (season, fixed parameters,
 	// window, weights, dummies, damped).
 	Config forecast.Config
-	// Metric ranks methods and backtests: "mad" (the default), "mse",
-	// "mape" or "mase".
-	Metric string
-	// Select is how auto picks a method: "backtest" (the default) or
-	// "aicc".
-	Select string
-	// MSEDivisor is the divisor of the mean squared error: "n-1" (the
-	// default) or "n".
-	MSEDivisor string
+	// Metric ranks methods and backtests (MAD by default).
+	Metric forecast.Metric
+	// Select is how auto picks a method (by backtest by default, or AICc).
+	Select forecast.Selection
+	// MSEDivisor is the divisor of the mean squared error (n-1 by
+	// default, or n).
+	MSEDivisor forecast.Divisor
 	// Refit refits the model at each backtest origin when true.
 	Refit bool
 	// Holdout is the number of backtest periods; zero means the fit
@@ -124,13 +123,14 @@ type Bands struct {
 	// normal error, in (0, 1); when Z was given Parse sets
 	//     Coverage = 2Φ(Z) − 1.
 	Coverage float64
-	// Widen is "horizon" (the default: bands widen with the lead time) or
-	// "flat" (one width for every period).
-	Widen string
-	// From is "calibrated" (the default: the spread at each lead time is
-	// measured on the backtest's out-of-sample errors) or "model" (the
-	// variance the model class implies from its in-sample errors).
-	From string
+	// Widen is forecast.Widening (the default: bands widen with the lead
+	// time) or forecast.Flat (one width for every period).
+	Widen forecast.BandMode
+	// From is forecast.Calibrated (the default: the spread at each lead
+	// time is measured on the backtest's out-of-sample errors) or
+	// forecast.FromModel (the variance the model class implies from its
+	// in-sample errors).
+	From forecast.BandSource
 	// Floor is the least demand can be: Build clips the adjusted and
 	// risk-weighted plans and both bands at it. Parse sets 0 when the
 	// file gives none; nil (the file's "floor: none") means no floor, for
@@ -213,9 +213,9 @@ func (c *Capacity) At(p forecast.Period) float64 {
 
 // Production says how the production plan treats the demand plan.
 type Production struct {
-	// Mode is "follow" (the default: production follows the plan) or
-	// "frozen" (production is held at Plan).
-	Mode string
+	// Mode is Follow (the default: production follows the plan) or
+	// Frozen (production is held at Plan).
+	Mode ProductionMode
 	// Plan is an optional production plan CSV, resolved against the
 	// scenario file's directory when relative; empty when not given.
 	Plan string
@@ -365,4 +365,34 @@ type Payback struct {
 	// Periods is the number of periods after the pulse over which the
 	// payback is spread evenly, at least 1.
 	Periods int
+}
+
+// ProductionMode says whether production follows the plan or is held.
+type ProductionMode int
+
+// The production modes. Follow is the zero value and the default.
+const (
+	// Follow: production follows the adjusted plan.
+	Follow ProductionMode = iota
+	// Frozen: production is held at the previous plan.
+	Frozen
+)
+
+// String returns follow or frozen, the words the scenario file uses.
+func (m ProductionMode) String() string {
+	if m == Frozen {
+		return "frozen"
+	}
+	return "follow"
+}
+
+// ParseProductionMode reads follow or frozen; "" gives Follow.
+func ParseProductionMode(s string) (ProductionMode, error) {
+	switch s {
+	case "", "follow":
+		return Follow, nil
+	case "frozen":
+		return Frozen, nil
+	}
+	return Follow, fmt.Errorf("unknown production mode %q (want follow or frozen)", s)
 }

@@ -126,36 +126,22 @@ func Peak(v []float64) (int, float64) {
 }
 
 // Spec returns the forecast settings of the file's baseline block.
-func (f *File) Spec() (forecast.Spec, error) {
+func (f *File) Spec() forecast.Spec {
 	b := f.Baseline
-	s := forecast.Spec{Method: b.Method, Config: b.Config, Holdout: b.Holdout, Refit: b.Refit, Horizon: f.Horizon}
-	var err error
-	if s.Metric, err = forecast.ParseMetric(b.Metric); err != nil {
-		return s, err
-	}
-	if s.Select, err = forecast.ParseSelection(b.Select); err != nil {
-		return s, err
-	}
-	if s.Divisor, err = forecast.ParseDivisor(b.MSEDivisor); err != nil {
-		return s, err
-	}
-	return s, nil
+	return forecast.Spec{Method: b.Method, Config: b.Config, Holdout: b.Holdout, Refit: b.Refit, Horizon: f.Horizon,
+		Metric: b.Metric, Select: b.Select, Divisor: b.MSEDivisor}
 }
 
 // LoadHistory reads the series the file's history block names. Errors
 // name the history file and line, or the scenario file's history key.
 func (f *File) LoadHistory() (*data.History, forecast.Series, error) {
-	fill, err := data.ParseFillMode(f.History.Fill)
-	if err != nil {
-		return nil, forecast.Series{}, f.errAt(f.History.Pos, "history.fill", err)
-	}
 	fh, err := os.Open(f.History.File)
 	if err != nil {
 		return nil, forecast.Series{}, f.errAt(f.History.Pos, "history.file", err)
 	}
 	defer fh.Close()
 	in := data.BoundedReader(fh, f.History.File, f.Limits.orDefaults().Input)
-	h, err := data.ReadHistory(in, f.History.File, data.ReadOptions{Freq: f.History.Period, Fill: fill})
+	h, err := data.ReadHistory(in, f.History.File, data.ReadOptions{Freq: f.History.Period, Fill: f.History.Fill})
 	if err != nil {
 		return nil, forecast.Series{}, err
 	}
@@ -211,10 +197,7 @@ func newPlan(f *File) (*Plan, forecast.Spec, error) {
 	if err := f.Resolve(ser.Next()); err != nil {
 		return nil, forecast.Spec{}, err
 	}
-	spec, err := f.Spec()
-	if err != nil {
-		return nil, spec, f.errAt(f.Baseline.Pos, "baseline", err)
-	}
+	spec := f.Spec()
 	p := &Plan{File: f, History: ser, Z: f.Bands.Z, Floor: f.Bands.Floor, Digests: map[string]string{}, Warnings: f.Lint(ser)}
 	for _, fl := range h.Filled {
 		if fl.Series == ser.Name {
@@ -223,12 +206,7 @@ func newPlan(f *File) (*Plan, forecast.Spec, error) {
 				f.History.File, fl.Period, FormatNumber(fl.Value, Decimals([]float64{fl.Value})), f.History.Fill))
 		}
 	}
-	if p.Mode, err = forecast.ParseBandMode(f.Bands.Widen); err != nil {
-		return nil, spec, f.errAt(f.Bands.Pos, "bands.widen", err)
-	}
-	if p.From, err = forecast.ParseBandSource(f.Bands.From); err != nil {
-		return nil, spec, f.errAt(f.Bands.Pos, "bands.from", err)
-	}
+	p.Mode, p.From = f.Bands.Widen, f.Bands.From
 	for role, path := range map[string]string{"scenario": f.Path, "history": f.History.File} {
 		if d, err := digest(path); err == nil {
 			p.Digests[role] = d

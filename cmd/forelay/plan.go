@@ -127,7 +127,7 @@ func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
 	how := "as asked"
 	if r.Auto {
 		how = "chosen by lowest backtest " + strings.ToUpper(r.Metric.String())
-		if r.Select.String() == "aicc" {
+		if r.Select == forecast.SelectAICc {
 			how = "chosen by lowest AICc"
 		}
 	}

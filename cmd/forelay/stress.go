@@ -124,7 +124,7 @@ func computeStress(opts *StressOptions) (*stressResult, error) {
 	for _, ps := range sim.Scenarios {
 		r.Risks = append(r.Risks, scenario.CapacityRisk(ps, capacity, opts.Breach))
 	}
-	if pr := p.File.Production; pr != nil && pr.Mode == "frozen" {
+	if pr := p.File.Production; pr != nil && pr.Mode == scenario.Frozen {
 		prod, src, err := p.FrozenProduction()
 		if err != nil {
 			return nil, &inputError{err: err}
