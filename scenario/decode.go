@@ -117,11 +117,11 @@ func parse(r io.Reader, path string, l Limits) (*File, error) {
 		return nil, d.err()
 	}
 	f := &File{
-		Path:   path,
-		Dir:    filepath.Dir(path),
-		Limits: l,
+		Path:     path,
+		Dir:      filepath.Dir(path),
+		Limits:   l,
 		Baseline: Baseline{Method: forecast.Auto},
-		Bands: Bands{Floor: new(float64)},
+		Bands:    Bands{Floor: new(float64)},
 	}
 	d.file(root, f)
 	d.validate(f)

@@ -1,8 +1,6 @@
 package scenario
 
 import (
-	"crypto/sha256"
-	"encoding/hex"
 	"errors"
 	"fmt"
 	"forelay/scenario/data"
@@ -208,7 +206,7 @@ func newPlan(f *File) (*Plan, forecast.Spec, error) {
 	}
 	p.Mode, p.From = f.Bands.Widen, f.Bands.From
 	for role, path := range map[string]string{"scenario": f.Path, "history": f.History.File} {
-		if d, err := digest(path); err == nil {
+		if d, err := data.Digest(path); err == nil {
 			p.Digests[role] = d
 		}
 	}
@@ -408,15 +406,6 @@ func learnFromPast(p *Plan) {
 		p.Notes = append(p.Notes, fmt.Sprintf("event %q: effect learnt from %d past occurrence(s): %s per period, 90%% range %s to %s",
 			e.ID, len(est), FormatNumber(mean, d), FormatNumber(e.Range.Low, d), FormatNumber(e.Range.High, d)))
 	}
-}
-
-func digest(path string) (string, error) {
-	b, err := os.ReadFile(path)
-	if err != nil {
-		return "", err
-	}
-	sum := sha256.Sum256(b)
-	return "sha256:" + hex.EncodeToString(sum[:]), nil
 }
 
 // seasonalConfounding returns the first event whose past occurrences fall

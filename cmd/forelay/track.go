@@ -2,8 +2,6 @@ package main
 
 import (
 	"bytes"
-	"crypto/sha256"
-	"encoding/hex"
 	"encoding/json"
 	"errors"
 	"fmt"
@@ -267,7 +265,7 @@ func checkInputs(file, planPath string, inputs map[string]string) ([]string, err
 			warns = append(warns, fmt.Sprintf("%s records no digest of the %s file; cannot tell whether %s changed since", planPath, in.role, in.path))
 			continue
 		}
-		got, err := fileDigest(in.path)
+		got, err := data.Digest(in.path)
 		if err != nil {
 			warns = append(warns, fmt.Sprintf("cannot compare %s with the plan: %v", in.path, err))
 			continue
@@ -277,17 +275,6 @@ func checkInputs(file, planPath string, inputs map[string]string) ([]string, err
 		}
 	}
 	return warns, nil
-}
-
-// fileDigest returns "sha256:" and the hex SHA-256 of the file, the form
-// plan.json records.
-func fileDigest(path string) (string, error) {
-	b, err := os.ReadFile(path)
-	if err != nil {
-		return "", err
-	}
-	sum := sha256.Sum256(b)
-	return "sha256:" + hex.EncodeToString(sum[:]), nil
 }
 
 // writeTrackText writes the human report of a tracking run.

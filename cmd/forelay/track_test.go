@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"encoding/json"
 	"errors"
+	"forelay/scenario/data"
 	"os"
 	"path/filepath"
 	"reflect"
@@ -77,11 +78,11 @@ func trackFiles(t *testing.T, actuals string) string {
 	write("history.csv", "period,widgets\n2026-10,98\n2026-11,103\n2026-12,99\n")
 	write("plan.yaml", "plan: tiny\nhistory: {file: history.csv}\nhorizon: 6\nbaseline: {method: naive}\n")
 	write("actuals.csv", actuals)
-	sd, err := fileDigest(filepath.Join(dir, "plan.yaml"))
+	sd, err := data.Digest(filepath.Join(dir, "plan.yaml"))
 	if err != nil {
 		t.Fatal(err)
 	}
-	hd, err := fileDigest(filepath.Join(dir, "history.csv"))
+	hd, err := data.Digest(filepath.Join(dir, "history.csv"))
 	if err != nil {
 		t.Fatal(err)
 	}
