@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"forelay/scenario/report"
 	"math"
 	"strings"
 
@@ -72,11 +73,7 @@ func (b *baselineFlags) record(cmd *cobra.Command) {
 }
 
 // bandSettings are the resolved band flags.
-type bandSettings struct {
-	Z    float64
-	Mode forecast.BandMode
-	From forecast.BandSource
-}
+type bandSettings = report.Bands
 
 // spec turns the flags into a forecast.Spec and band settings; every error
 // is a flag error.

@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"forelay/scenario/report"
 	"io"
 	"strconv"
 	"strings"
@@ -66,7 +67,7 @@ func bufferJSON(r *bufferResult) bufferOutJSON {
 		OpeningStock: num(b.Opening), Prebuild: num(b.Prebuild), PrebuildBefore: periodOrNull(p, b.PrebuildAt),
 		BuildStart: periodOrNull(p, b.BuildStart), OpeningGap: num(b.Gap), SafetyStock: num(r.Safety),
 		LeadTime: num(r.Opts.LeadTime), Sigma: num(r.Sigma), LeadTimeSpread: num(r.Spread), Z: num(r.Z), CycleServiceLevel: num(r.CSL),
-		Inputs: p.Digests, Notes: r.Notes, Warnings: warningList(r.Plan.Warnings), Caution: cautionText}
+		Inputs: p.Digests, Notes: r.Notes, Warnings: warningList(r.Plan.Warnings), Caution: report.Caution}
 	if r.Sim != nil {
 		seed := r.Sim.Seed
 		o.Paths, o.Seed, o.Errors = r.Sim.Paths, &seed, r.Sim.Errors.String()
@@ -146,7 +147,7 @@ func writeBufferText(w io.Writer, r *bufferResult) {
 		}
 	}
 	fmt.Fprintln(w)
-	fmt.Fprintln(w, cautionText)
+	fmt.Fprintln(w, report.Caution)
 }
 
 // bufferChart is the build plan: demand at the service quantile,

@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"forelay/scenario/report"
 	"io"
 	"math"
 	"strings"
@@ -24,8 +25,8 @@ type compareScenarioJSON struct {
 	Total             num                `json:"total"`
 	BaselineTotal     num                `json:"baseline_total"`
 	Change            num                `json:"change"`
-	Peak              peakJSON           `json:"peak"`
-	P90Peak           peakJSON           `json:"p90_peak"`
+	Peak              report.PeakDoc     `json:"peak"`
+	P90Peak           report.PeakDoc     `json:"p90_peak"`
 	BreachProbability num                `json:"breach_probability"`
 	Prebuild          num                `json:"prebuild"`
 	PrebuildBefore    *string            `json:"prebuild_before"`
@@ -51,12 +52,12 @@ func compareJSON(r *compareResult) compareOutJSON {
 	p, sim := r.Plan, r.Sim
 	o := compareOutJSON{Plan: p.File.Plan, Units: p.File.Units, Paths: sim.Paths, Seed: sim.Seed, Errors: sim.Errors.String(),
 		Service: num(r.Opts.Service), BaselineTotal: num(scenario.Total(p.Baseline)), Inputs: p.Digests,
-		Notes: r.Notes, Warnings: warningList(r.Plan.Warnings), Caution: cautionText}
+		Notes: r.Notes, Warnings: warningList(r.Plan.Warnings), Caution: report.Caution}
 	for _, c := range r.Rows {
 		cj := compareScenarioJSON{Name: c.Name, Events: eventIDs(c.Events), Total: num(c.Total), BaselineTotal: num(c.BaselineTotal),
 			Change:            num(c.Total - c.BaselineTotal),
-			Peak:              peakJSON{Period: p.Periods[c.Peak].String(), Value: num(c.PeakValue)},
-			P90Peak:           peakJSON{Period: p.Periods[c.P90Peak].String(), Value: num(c.P90PeakValue)},
+			Peak:              report.PeakDoc{Period: p.Periods[c.Peak].String(), Value: num(c.PeakValue)},
+			P90Peak:           report.PeakDoc{Period: p.Periods[c.P90Peak].String(), Value: num(c.P90PeakValue)},
 			BreachProbability: num(c.PAnyBreach), Prebuild: num(c.Prebuild), PrebuildBefore: periodOrNull(p, c.PrebuildAt),
 			Contributions: []contributionJSON{}}
 		for _, k := range c.Contributions {
@@ -177,7 +178,7 @@ func writeCompareText(w io.Writer, r *compareResult) {
 		}
 	}
 	fmt.Fprintln(w)
-	fmt.Fprintln(w, cautionText)
+	fmt.Fprintln(w, report.Caution)
 }
 
 // waterfallChart walks from the baseline total through each event's

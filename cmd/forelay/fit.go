@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"forelay/scenario/data"
+	"forelay/scenario/report"
 	"io"
 	"math"
 	"os"
@@ -154,7 +155,7 @@ func fitRun(opts *FitOptions) error {
 			continue
 		}
 		if opts.JSON {
-			line, err := marshalLine(fitJSON(oc.Result, horizon, bands))
+			line, err := marshalLine(report.Fit(oc.Result, horizon, bands))
 			if err != nil {
 				return err
 			}

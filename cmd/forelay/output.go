@@ -16,6 +16,7 @@ import (
 
 	"forelay/plots"
 	"forelay/scenario"
+	"forelay/scenario/report"
 )
 
 // outputSet collects a run's output files in memory and writes them all at
@@ -147,26 +148,11 @@ func (o *outputSet) paths() []string {
 	return out
 }
 
-// num is a float64 that marshals NaN and infinities as JSON null and
-// rounds to 10 significant digits, so JSON output is stable across
-// platforms and never fails on a missing value.
-type num float64
+// num is a JSON number: null for NaN and the infinities (see report.Num).
+type num = report.Num
 
-func (n num) MarshalJSON() ([]byte, error) {
-	f := float64(n)
-	if math.IsNaN(f) || math.IsInf(f, 0) {
-		return []byte("null"), nil
-	}
-	return []byte(strconv.FormatFloat(f, 'g', 10, 64)), nil
-}
-
-func nums(v []float64) []num {
-	out := make([]num, len(v))
-	for i, x := range v {
-		out[i] = num(x)
-	}
-	return out
-}
+// nums converts v to JSON numbers.
+func nums(v []float64) []num { return report.Nums(v) }
 
 // marshalLine encodes v as one line of JSON.
 func marshalLine(v any) ([]byte, error) {
@@ -238,12 +224,7 @@ func warnings(ios *IOStreams, shared *sharedFlags, list []string) error {
 
 // warningList returns list, or an empty list for nil, so that the
 // "warnings" field of a JSON document is always a list.
-func warningList(list []string) []string {
-	if list == nil {
-		return []string{}
-	}
-	return list
-}
+func warningList(list []string) []string { return report.List(list) }
 
 // finish ends a command run: it writes the output set (nil when no --out
 // was given) and lists the files on ErrOut, then prints the JSON document

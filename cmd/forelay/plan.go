@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"forelay/scenario/report"
 	"io"
 	"math"
 	"strings"
@@ -85,7 +86,7 @@ func planRun(opts *PlanOptions) error {
 	if err := warnings(opts.IO, opts.Shared, p.Warnings); err != nil {
 		return err
 	}
-	js, err := marshalIndent(planJSON(p))
+	js, err := marshalIndent(report.Plan(p))
 	if err != nil {
 		return err
 	}
@@ -208,12 +209,8 @@ func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
 		}
 	}
 	fmt.Fprintln(w)
-	fmt.Fprintln(w, cautionText)
+	fmt.Fprintln(w, report.Caution)
 }
-
-// cautionText is printed under every plan and written into plan.json.
-const cautionText = "Caution: this plan is a statistical estimate. Where supply is safety-critical (utilities, medical supply),\n" +
-	"defer to the applicable reliability standards, local codes and licensed practice."
 
 func contains(list []*scenario.Event, e *scenario.Event) bool {
 	for _, x := range list {

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"encoding/csv"
 	"encoding/json"
+	"forelay/scenario/report"
 	"image/png"
 	"os"
 	"path/filepath"
@@ -194,7 +195,7 @@ func TestPlanJSONWarnings(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	js, err := marshalIndent(planJSON(p))
+	js, err := marshalIndent(report.Plan(p))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -213,7 +214,7 @@ func TestPlanJSONWarnings(t *testing.T) {
 		t.Error("the text summary prints the warnings")
 	}
 	p.Warnings = nil
-	if js, _ = marshalIndent(planJSON(p)); !bytes.Contains(js, []byte(`"warnings": []`)) {
+	if js, _ = marshalIndent(report.Plan(p)); !bytes.Contains(js, []byte(`"warnings": []`)) {
 		t.Errorf("no empty warnings list in\n%s", js)
 	}
 }

@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"forelay/scenario/report"
 	"io"
 	"math"
 	"strings"
@@ -45,8 +46,8 @@ type frozenJSON struct {
 	Source         string             `json:"source"`
 	OpeningStock   num                `json:"opening_stock"`
 	FirstShortfall *string            `json:"first_shortfall"`
-	Lowest         peakJSON           `json:"lowest_stock"`
-	Highest        peakJSON           `json:"highest_stock"`
+	Lowest         report.PeakDoc     `json:"lowest_stock"`
+	Highest        report.PeakDoc     `json:"highest_stock"`
 	EndStock       num                `json:"end_stock"`
 	IdleTotal      num                `json:"idle_total"`
 	OverloadTotal  num                `json:"overload_total"`
@@ -96,7 +97,7 @@ func stressJSON(r *stressResult) stressOutJSON {
 	p, sim := r.Plan, r.Sim
 	o := stressOutJSON{Plan: p.File.Plan, Units: p.File.Units, Series: p.History.Name, Paths: sim.Paths, Seed: sim.Seed,
 		Errors: sim.Errors.String(), ErrorPool: sim.Pool, Psi: nums(sim.Psi), Quantiles: quantileDefinition,
-		BreachThreshold: num(r.Opts.Breach), Inputs: p.Digests, Notes: r.Notes, Warnings: warningList(r.Warnings), Caution: cautionText}
+		BreachThreshold: num(r.Opts.Breach), Inputs: p.Digests, Notes: r.Notes, Warnings: warningList(r.Warnings), Caution: report.Caution}
 	for s, rk := range r.Risks {
 		sj := stressScenarioJSON{Name: rk.Name, Events: eventIDs(p.Scenarios[s].Events),
 			FirstBreach: periodOrNull(p, rk.FirstBreach), TotalExpectedShortfall: num(rk.TotalExpectedShortfall),
@@ -110,8 +111,8 @@ func stressJSON(r *stressResult) stressOutJSON {
 		if r.Frozen != nil {
 			fz := r.Frozen[s]
 			fj := &frozenJSON{Source: r.Source, OpeningStock: num(fz.Opening), FirstShortfall: periodOrNull(p, fz.FirstShortfall),
-				Lowest:   peakJSON{Period: p.Periods[fz.Low].String(), Value: num(fz.Stock[fz.Low])},
-				Highest:  peakJSON{Period: p.Periods[fz.High].String(), Value: num(fz.Stock[fz.High])},
+				Lowest:   report.PeakDoc{Period: p.Periods[fz.Low].String(), Value: num(fz.Stock[fz.Low])},
+				Highest:  report.PeakDoc{Period: p.Periods[fz.High].String(), Value: num(fz.Stock[fz.High])},
 				EndStock: num(fz.Stock[len(fz.Stock)-1]), IdleTotal: num(scenario.Total(fz.Idle)),
 				OverloadTotal: num(scenario.Total(fz.Overload))}
 			for t := range fz.Stock {
@@ -215,7 +216,7 @@ func writeStressText(w io.Writer, r *stressResult) {
 		}
 	}
 	fmt.Fprintln(w)
-	fmt.Fprintln(w, cautionText)
+	fmt.Fprintln(w, report.Caution)
 }
 
 // writeFrozenText writes the frozen-production projection of a scenario.

@@ -5,6 +5,7 @@ import (
 	"encoding/json"
 	"errors"
 	"forelay/scenario/data"
+	"forelay/scenario/report"
 	"os"
 	"path/filepath"
 	"reflect"
@@ -372,7 +373,7 @@ func TestReadSavedPlanRoundTrip(t *testing.T) {
 		Out: out, NoChart: true}); err != nil {
 		t.Fatal(err)
 	}
-	saved, inputs, err := readSavedPlan(filepath.Join(out, "plan.json"))
+	saved, inputs, err := report.ReadPlan(filepath.Join(out, "plan.json"))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -416,7 +417,7 @@ func TestReadSavedPlanErrors(t *testing.T) {
 			if err := os.WriteFile(path, []byte(c.json), 0o644); err != nil {
 				t.Fatal(err)
 			}
-			_, _, err := readSavedPlan(path)
+			_, _, err := report.ReadPlan(path)
 			if err == nil || !strings.Contains(err.Error(), c.msg) {
 				t.Errorf("error %v, want %q", err, c.msg)
 			}

@@ -1,4 +1,4 @@
-package main
+package report
 
 import (
 	"math"
@@ -6,18 +6,19 @@ import (
 	"forelay/forecast"
 )
 
-// The JSON shapes of "forelay fit --json". Field names are part of the
+// The JSON shapes of "forelay fit --json" (FitDoc) and of the baseline in
+// plan.json. Field names are part of the
 // documented interface (README, "JSON output"); keep them stable.
 
 type accuracyJSON struct {
 	N           int `json:"n"`
-	MAD         num `json:"mad"`
-	MSE         num `json:"mse"`
-	RMSE        num `json:"rmse"`
-	MAPE        num `json:"mape"`
+	MAD         Num `json:"mad"`
+	MSE         Num `json:"mse"`
+	RMSE        Num `json:"rmse"`
+	MAPE        Num `json:"mape"`
 	MAPESkipped int `json:"mape_skipped"`
-	MASE        num `json:"mase"`
-	Bias        num `json:"bias"`
+	MASE        Num `json:"mase"`
+	Bias        Num `json:"bias"`
 	// BiasTest is the test of the one-step errors (in-sample, or one per
 	// backtest origin); nil for the candidates. It replaces the tracking
 	// signal, which grows with the number of errors and tests nothing.
@@ -27,32 +28,32 @@ type accuracyJSON struct {
 // biasTestJSON is a forecast.BiasTest of the one-step errors.
 type biasTestJSON struct {
 	N           int  `json:"n"`
-	Mean        num  `json:"mean"`
-	SE          num  `json:"se"`
+	Mean        Num  `json:"mean"`
+	SE          Num  `json:"se"`
 	Lag         int  `json:"lag"`
-	T           num  `json:"t"`
-	P           num  `json:"p"`
+	T           Num  `json:"t"`
+	P           Num  `json:"p"`
 	Significant bool `json:"significant"`
 }
 
 func toAccuracyJSON(a forecast.Accuracy) accuracyJSON {
-	return accuracyJSON{N: a.N, MAD: num(a.MAD), MSE: num(a.MSE), RMSE: num(a.RMSE), MAPE: num(a.MAPE),
-		MAPESkipped: a.MAPESkipped, MASE: num(a.MASE), Bias: num(a.Bias)}
+	return accuracyJSON{N: a.N, MAD: Num(a.MAD), MSE: Num(a.MSE), RMSE: Num(a.RMSE), MAPE: Num(a.MAPE),
+		MAPESkipped: a.MAPESkipped, MASE: Num(a.MASE), Bias: Num(a.Bias)}
 }
 
 func toBiasTestJSON(b forecast.BiasTest) *biasTestJSON {
-	return &biasTestJSON{N: b.N, Mean: num(b.Mean), SE: num(b.SE), Lag: b.Lag, T: num(b.T), P: num(b.P), Significant: b.Significant()}
+	return &biasTestJSON{N: b.N, Mean: Num(b.Mean), SE: Num(b.SE), Lag: b.Lag, T: Num(b.T), P: Num(b.P), Significant: b.Significant()}
 }
 
 // paramsJSON lists only the parameters that apply to the model.
-func paramsJSON(p forecast.Params) map[string]num {
-	m := map[string]num{}
+func paramsJSON(p forecast.Params) map[string]Num {
+	m := map[string]Num{}
 	for _, kv := range []struct {
 		k string
 		v float64
 	}{{"alpha", p.Alpha}, {"beta", p.Beta}, {"gamma", p.Gamma}, {"phi", p.Phi}} {
 		if kv.v == kv.v {
-			m[kv.k] = num(kv.v)
+			m[kv.k] = Num(kv.v)
 		}
 	}
 	return m
@@ -61,17 +62,17 @@ func paramsJSON(p forecast.Params) map[string]num {
 // memberJSON is one member of a combination: its final fit on all the data.
 type memberJSON struct {
 	Method   string         `json:"method"`
-	Params   map[string]num `json:"params"`
+	Params   map[string]Num `json:"params"`
 	Settings string         `json:"settings,omitempty"`
 }
 
 type candidateJSON struct {
 	Method   string         `json:"method"`
-	Params   map[string]num `json:"params"`
+	Params   map[string]Num `json:"params"`
 	Settings string         `json:"settings,omitempty"`
 	Members  []string       `json:"members,omitempty"`
 	Backtest *accuracyJSON  `json:"backtest"`
-	AICc     num            `json:"aicc"`
+	AICc     Num            `json:"aicc"`
 	Chosen   bool           `json:"chosen"`
 	Skipped  string         `json:"skipped,omitempty"`
 }
@@ -80,19 +81,19 @@ type backtestJSON struct {
 	Train       int          `json:"train"`
 	Origins     int          `json:"origins"`
 	Accuracy    accuracyJSON `json:"accuracy"`
-	HorizonRMSE []num        `json:"horizon_rmse"`
+	HorizonRMSE []Num        `json:"horizon_rmse"`
 }
 
 type pointJSON struct {
 	Period string `json:"period"`
-	Value  num    `json:"value"`
-	Lower  num    `json:"lower"`
-	Upper  num    `json:"upper"`
+	Value  Num    `json:"value"`
+	Lower  Num    `json:"lower"`
+	Upper  Num    `json:"upper"`
 }
 
 type bandsJSON struct {
-	Z           num              `json:"z"`
-	Coverage    num              `json:"coverage"`
+	Z           Num              `json:"z"`
+	Coverage    Num              `json:"coverage"`
 	Mode        string           `json:"mode"`
 	From        string           `json:"from"`
 	Variance    string           `json:"variance"`
@@ -105,7 +106,7 @@ type calibrationJSON struct {
 	Errors  int `json:"errors"`
 	Origins int `json:"origins"`
 	Leads   int `json:"leads"`
-	Ratio   num `json:"ratio"`
+	Ratio   Num `json:"ratio"`
 	// Selection is true when the errors are those of auto's (or the
 	// combination's) own choices origin by origin.
 	Selection bool `json:"selection"`
@@ -118,14 +119,15 @@ func toCalibrationJSON(r *forecast.Result, src forecast.VarianceSource) *calibra
 		return nil
 	}
 	c := r.Calibration()
-	ratio := num(c.Ratio)
+	ratio := Num(c.Ratio)
 	if !c.Shaped {
-		ratio = num(math.NaN()) // no model variance to compare with: null
+		ratio = Num(math.NaN()) // no model variance to compare with: null
 	}
 	return &calibrationJSON{Errors: c.Errors, Origins: c.Origins, Leads: c.Leads, Ratio: ratio, Selection: c.Selection}
 }
 
-type fitOutJSON struct {
+// FitDoc is one fitted series as JSON.
+type FitDoc struct {
 	Series     string          `json:"series"`
 	Period     string          `json:"period"`
 	Start      string          `json:"start"`
@@ -135,10 +137,10 @@ type fitOutJSON struct {
 	Metric     string          `json:"metric,omitempty"`
 	Settings   string          `json:"settings,omitempty"`
 	Season     int             `json:"season"`
-	Params     map[string]num  `json:"params"`
+	Params     map[string]Num  `json:"params"`
 	Members    []memberJSON    `json:"members,omitempty"`
 	N          int             `json:"n"`
-	SSE        num             `json:"sse"`
+	SSE        Num             `json:"sse"`
 	Accuracy   accuracyJSON    `json:"accuracy"`
 	MSEDivisor string          `json:"mse_divisor"`
 	Backtest   *backtestJSON   `json:"backtest"`
@@ -149,13 +151,22 @@ type fitOutJSON struct {
 	Warnings   []string        `json:"warnings"`
 }
 
-func fitJSON(r *forecast.Result, horizon int, b bandSettings) fitOutJSON {
-	o := fitOutJSON{
+// Bands are the band settings a fit is reported with.
+type Bands struct {
+	Z    float64
+	Mode forecast.BandMode
+	From forecast.BandSource
+}
+
+// Fit returns the document of one fitted series (one line of
+// "forelay fit --json") with its forecast for horizon periods.
+func Fit(r *forecast.Result, horizon int, b Bands) FitDoc {
+	o := FitDoc{
 		Series: r.Series.Name, Period: r.Series.Freq().String(), Start: r.Series.Start.String(),
 		Method: r.Method.String(), Auto: r.Auto, Settings: r.Model.Describe(), Season: r.Config.Season,
-		Params: paramsJSON(r.Model.Params()), N: r.Series.Len(), SSE: num(r.SSE),
+		Params: paramsJSON(r.Model.Params()), N: r.Series.Len(), SSE: Num(r.SSE),
 		Accuracy: toAccuracyJSON(r.Accuracy), MSEDivisor: r.Accuracy.Divisor.String(),
-		Flags: warningList(r.Flags()), Warnings: warningList(r.Warnings()),
+		Flags: List(r.Flags()), Warnings: List(r.Warnings()),
 	}
 	o.Accuracy.BiasTest = toBiasTestJSON(r.Bias)
 	for _, md := range forecast.Members(r.Model) {
@@ -165,16 +176,16 @@ func fitJSON(r *forecast.Result, horizon int, b bandSettings) fitOutJSON {
 		o.Selection, o.Metric = r.Select.String(), r.Metric.String()
 	}
 	if bt := r.Backtest; bt != nil {
-		rm := make([]num, len(bt.HorizonMSE))
+		rm := make([]Num, len(bt.HorizonMSE))
 		for i, v := range bt.HorizonMSE {
-			rm[i] = num(math.Sqrt(v))
+			rm[i] = Num(math.Sqrt(v))
 		}
 		o.Backtest = &backtestJSON{Train: bt.Train, Origins: bt.Origins, Accuracy: toAccuracyJSON(bt.Accuracy), HorizonRMSE: rm}
 		o.Backtest.Accuracy.BiasTest = toBiasTestJSON(bt.Bias)
 	}
 	for _, c := range r.Candidates {
 		cj := candidateJSON{Method: c.Method.String(), Params: paramsJSON(c.Params), Settings: c.Describe,
-			AICc: num(c.AICc), Chosen: c.Chosen, Skipped: c.Skipped}
+			AICc: Num(c.AICc), Chosen: c.Chosen, Skipped: c.Skipped}
 		for _, m := range c.Members {
 			cj.Members = append(cj.Members, m.String())
 		}
@@ -184,11 +195,11 @@ func fitJSON(r *forecast.Result, horizon int, b bandSettings) fitOutJSON {
 		}
 		o.Candidates = append(o.Candidates, cj)
 	}
-	_, src := r.Variance(horizon, b.Mode)
-	o.Bands = bandsJSON{Z: num(b.Z), Coverage: num(forecast.Coverage(b.Z)), Mode: b.Mode.String(), From: b.From.String(),
+	_, src := r.VarianceFrom(horizon, b.Mode, b.From)
+	o.Bands = bandsJSON{Z: Num(b.Z), Coverage: Num(forecast.Coverage(b.Z)), Mode: b.Mode.String(), From: b.From.String(),
 		Variance: string(src), Calibration: toCalibrationJSON(r, src)}
-	for _, p := range r.Forecast(horizon, b.Z, b.Mode) {
-		o.Forecast = append(o.Forecast, pointJSON{Period: p.Period.String(), Value: num(p.Value), Lower: num(p.Lower), Upper: num(p.Upper)})
+	for _, p := range r.ForecastFrom(horizon, b.Z, b.Mode, b.From) {
+		o.Forecast = append(o.Forecast, pointJSON{Period: p.Period.String(), Value: Num(p.Value), Lower: Num(p.Lower), Upper: Num(p.Upper)})
 	}
 	return o
 }
