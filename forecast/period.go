@@ -48,7 +48,7 @@ func PeriodOf(f Frequency, t time.Time) Period {
 // dayNumber returns the number of days from 1970-01-01 to the day of t (a
 // midnight UTC). It works from Unix seconds rather than a time.Duration,
 // which saturates about 292 years from the epoch.
-func dayNumber(t time.Time) int { return floorDiv(int(t.Unix()), 86400) }
+func dayNumber(t time.Time) int { return FloorDiv(int(t.Unix()), 86400) }
 
 // Add returns the period h steps after p (before it when h < 0).
 func (p Period) Add(h int) Period {
@@ -88,9 +88,9 @@ func (p Period) Start() time.Time {
 	case Daily, Weekly:
 		return epoch.AddDate(0, 0, p.n)
 	case Monthly:
-		return time.Date(floorDiv(p.n, 12), time.Month(mod(p.n, 12)+1), 1, 0, 0, 0, 0, time.UTC)
+		return time.Date(FloorDiv(p.n, 12), time.Month(mod(p.n, 12)+1), 1, 0, 0, 0, 0, time.UTC)
 	case Quarterly:
-		return time.Date(floorDiv(p.n, 4), time.Month(3*mod(p.n, 4)+1), 1, 0, 0, 0, 0, time.UTC)
+		return time.Date(FloorDiv(p.n, 4), time.Month(3*mod(p.n, 4)+1), 1, 0, 0, 0, 0, time.UTC)
 	case Yearly:
 		return time.Date(p.n, 1, 1, 0, 0, 0, 0, time.UTC)
 	}
@@ -117,9 +117,9 @@ func (p Period) String() string {
 		}
 		return p.Start().Format("2006-01-02")
 	case Monthly:
-		return fmt.Sprintf("%04d-%02d", floorDiv(p.n, 12), mod(p.n, 12)+1)
+		return fmt.Sprintf("%04d-%02d", FloorDiv(p.n, 12), mod(p.n, 12)+1)
 	case Quarterly:
-		return fmt.Sprintf("%04d-Q%d", floorDiv(p.n, 4), mod(p.n, 4)+1)
+		return fmt.Sprintf("%04d-Q%d", FloorDiv(p.n, 4), mod(p.n, 4)+1)
 	case Yearly:
 		return fmt.Sprintf("%04d", p.n)
 	}
@@ -224,7 +224,10 @@ func ParsePeriod(label string, f Frequency) (Period, error) {
 	}
 }
 
-func floorDiv(a, b int) int {
+// FloorDiv returns floor(a / b), rounding toward minus infinity where Go's
+// division truncates toward zero: FloorDiv(-7, 2) is -4. It panics if b
+// is 0.
+func FloorDiv(a, b int) int {
 	q := a / b
 	if (a%b != 0) && ((a < 0) != (b < 0)) {
 		q--
@@ -232,4 +235,4 @@ func floorDiv(a, b int) int {
 	return q
 }
 
-func mod(a, b int) int { return a - b*floorDiv(a, b) }
+func mod(a, b int) int { return a - b*FloorDiv(a, b) }

@@ -3,6 +3,7 @@ package plots
 import (
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 	"strings"
 
@@ -151,7 +152,7 @@ func (c ControlChart) hitNotes() ([]int, []string) {
 	byIdx := map[int][]string{}
 	for _, h := range c.Hits {
 		l := byIdx[h.Index]
-		if h.Label != "" && !contains(l, h.Label) {
+		if h.Label != "" && !slices.Contains(l, h.Label) {
 			l = append(l, h.Label)
 		}
 		byIdx[h.Index] = l
@@ -166,15 +167,6 @@ func (c ControlChart) hitNotes() ([]int, []string) {
 		notes[k] = strings.Join(byIdx[i], ",")
 	}
 	return idx, notes
-}
-
-func contains(ss []string, s string) bool {
-	for _, x := range ss {
-		if x == s {
-			return true
-		}
-	}
-	return false
 }
 
 // check validates c.

@@ -270,7 +270,7 @@ func calendarKeys() []func(time.Time) int {
 		keys = append(keys, func(t time.Time) int { return t.Year()*100 + (int(t.Month())-1)/k })
 	}
 	for _, k := range []int{1, 2, 5, 10, 25, 50, 100} {
-		keys = append(keys, func(t time.Time) int { return floorDiv(t.Year(), k) })
+		keys = append(keys, func(t time.Time) int { return forecast.FloorDiv(t.Year(), k) })
 	}
 	return keys
 }
@@ -297,7 +297,7 @@ func isoWeekRules(ps []forecast.Period) [][]bool {
 		keys = append(keys, func(v [2]int) int { return v[0]*100 + min((v[1]-1)/k, 52/k-1) })
 	}
 	for _, k := range []int{1, 2, 5, 10, 25, 50, 100} {
-		keys = append(keys, func(v [2]int) int { return floorDiv(v[0], k) })
+		keys = append(keys, func(v [2]int) int { return forecast.FloorDiv(v[0], k) })
 	}
 	var rules [][]bool
 	for _, key := range keys {
@@ -369,15 +369,6 @@ func equalBools(a, b []bool) bool {
 		}
 	}
 	return true
-}
-
-// floorDiv returns floor(a / b) for b > 0.
-func floorDiv(a, b int) int {
-	q := a / b
-	if a%b != 0 && a < 0 {
-		q--
-	}
-	return q
 }
 
 // wrapLabel breaks s at spaces into lines no wider than w in style sty. A

@@ -68,7 +68,7 @@ func containing(grid forecast.Period, t time.Time) forecast.Period {
 	case forecast.Daily:
 		return grid.Add(daysBetween(grid.Start(), t))
 	case forecast.Weekly:
-		return grid.Add(floorDiv(daysBetween(grid.Start(), t), 7))
+		return grid.Add(forecast.FloorDiv(daysBetween(grid.Start(), t), 7))
 	}
 	return forecast.PeriodOf(grid.Freq, t)
 }
@@ -99,11 +99,3 @@ func overlap(p forecast.Period, from, to time.Time) float64 {
 // finer reports whether grain a is strictly finer than grain b (a day is
 // finer than a week, a week than a month, and so on).
 func finer(a, b forecast.Frequency) bool { return a < b }
-
-func floorDiv(a, b int) int {
-	q := a / b
-	if a%b != 0 && (a < 0) != (b < 0) {
-		q--
-	}
-	return q
-}

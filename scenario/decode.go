@@ -8,6 +8,7 @@ import (
 	"io"
 	"path/filepath"
 	"regexp"
+	"slices"
 	"sort"
 	"strconv"
 	"strings"
@@ -377,7 +378,7 @@ func (d *decoder) mapping(n *yaml.Node, path string, keys []string) *mapping {
 			continue
 		}
 		field := join(path, k.Value)
-		if !contains(keys, k.Value) {
+		if !slices.Contains(keys, k.Value) {
 			d.fail(at, field, ErrUnknownKey, "unknown key%s", didYouMean(k.Value, keys))
 			continue
 		}
@@ -395,16 +396,6 @@ func (d *decoder) mapping(n *yaml.Node, path string, keys []string) *mapping {
 func hasPrefix(s string, prefixes []string) bool {
 	for _, p := range prefixes {
 		if strings.HasPrefix(s, p) {
-			return true
-		}
-	}
-	return false
-}
-
-// contains reports whether list holds s.
-func contains(list []string, s string) bool {
-	for _, x := range list {
-		if x == s {
 			return true
 		}
 	}
@@ -557,7 +548,7 @@ func (m *mapping) enum(key, what string, allowed []string, dst *string) bool {
 	if n == nil {
 		return false
 	}
-	if !contains(allowed, n.Value) {
+	if !slices.Contains(allowed, n.Value) {
 		m.d.fail(m.d.position(n), m.field(key), ErrValue, "unknown %s %q; want %s%s",
 			what, n.Value, orList(allowed), didYouMean(n.Value, allowed))
 		return false

@@ -5,6 +5,7 @@ import (
 	"forelay/scenario/report"
 	"io"
 	"math"
+	"slices"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -175,7 +176,7 @@ func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
 		t := newTable("", "total"+units, "vs baseline", "share")
 		t.add("baseline", fmtNum(base, d), "", "")
 		for i, e := range p.Future {
-			if !contains(sp.Events, e) {
+			if !slices.Contains(sp.Events, e) {
 				continue
 			}
 			c := scenario.Total(sp.Contrib[i])
@@ -210,15 +211,6 @@ func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
 	}
 	fmt.Fprintln(w)
 	fmt.Fprintln(w, report.Caution)
-}
-
-func contains(list []*scenario.Event, e *scenario.Event) bool {
-	for _, x := range list {
-		if x == e {
-			return true
-		}
-	}
-	return false
 }
 
 func inUnits(u string) string {
