@@ -3,7 +3,6 @@ package forecast
 import (
 	"fmt"
 	"math"
-	"strconv"
 	"strings"
 )
 
@@ -121,32 +120,12 @@ func (r *Result) bounds() []paramBound {
 	return out
 }
 
-// signedGrouped formats v with a sign, thousands separators and 0, 1 or
-// 2 decimals for sizes from 100, 10 and below: +1,234, -56.7, +0.42.
+// signedGrouped formats v with a sign, thousands separators and the
+// decimals SpreadDecimals gives its size: +1,234, -56.7, +0.42.
 func signedGrouped(v float64) string {
-	dec := 2
-	switch a := math.Abs(v); {
-	case a >= 100:
-		dec = 0
-	case a >= 10:
-		dec = 1
-	}
-	s := strconv.FormatFloat(math.Abs(v), 'f', dec, 64)
-	intPart, frac, _ := strings.Cut(s, ".")
-	var b strings.Builder
-	b.WriteByte('+')
+	s := strings.TrimPrefix(FormatNumber(v, SpreadDecimals(v)), "-")
 	if v < 0 {
-		b.Reset()
-		b.WriteByte('-')
+		return "-" + s // the sign of a small mean error still says which way it leans
 	}
-	for i, c := range intPart {
-		if i > 0 && (len(intPart)-i)%3 == 0 {
-			b.WriteByte(',')
-		}
-		b.WriteRune(c)
-	}
-	if frac != "" {
-		b.WriteString("." + frac)
-	}
-	return b.String()
+	return "+" + s
 }

@@ -1,4 +1,4 @@
-package scenario
+package forecast
 
 import (
 	"math"
@@ -64,6 +64,18 @@ func Decimals(v []float64) int {
 	case m >= 1000:
 		return 0
 	case m >= 100:
+		return 1
+	}
+	return 2
+}
+
+// SpreadDecimals picks the decimals for values the size of an error or a
+// spread: none from 100 up, one from 10, two below.
+func SpreadDecimals(size float64) int {
+	switch a := math.Abs(size); {
+	case a >= 100:
+		return 0
+	case a >= 10:
 		return 1
 	}
 	return 2

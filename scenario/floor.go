@@ -2,6 +2,7 @@ package scenario
 
 import (
 	"fmt"
+	"forelay/forecast"
 	"strings"
 )
 
@@ -102,8 +103,8 @@ func (p *Plan) floorWarnings() []string {
 	if p.Floor == nil {
 		return nil
 	}
-	d := Decimals(p.Baseline)
-	floor := FormatNumber(*p.Floor, -1)
+	d := forecast.Decimals(p.Baseline)
+	floor := forecast.FormatNumber(*p.Floor, -1)
 	var out []string
 	var low []int
 	for t, b := range p.Baseline {
@@ -118,7 +119,7 @@ func (p *Plan) floorWarnings() []string {
 		}
 		out = append(out, fmt.Sprintf("the baseline itself falls below the floor %s in %s, down to %s; the plan is clipped at the floor there. "+
 			"Choose a baseline method that does not trend below it (baseline.method), or set bands.floor: none if demand can be negative.",
-			floor, p.periodList(low), FormatNumber(least, d)))
+			floor, p.periodList(low), forecast.FormatNumber(least, d)))
 	}
 	units := ""
 	if u := p.File.Units; u != "" {
@@ -127,13 +128,13 @@ func (p *Plan) floorWarnings() []string {
 	per := "a " + p.History.Freq().String()
 	for _, sp := range p.Scenarios {
 		for _, c := range sp.Clips {
-			size := FormatNumber(c.Most, d)
-			if FormatNumber(c.Least, d) != size {
+			size := forecast.FormatNumber(c.Most, d)
+			if forecast.FormatNumber(c.Least, d) != size {
 				size = "up to " + size
 			}
 			out = append(out, fmt.Sprintf("scenario %s: event %s takes %s%s %s off a baseline of about %s in %s; the plan is clipped at the floor %s there. "+
 				"Check the units (typed for another series or period?), or set bands.floor: none if demand can be negative.",
-				sp.Name, c.Event.ID, size, units, per, FormatNumber(c.Baseline, d), p.periodList(c.Periods), floor))
+				sp.Name, c.Event.ID, size, units, per, forecast.FormatNumber(c.Baseline, d), p.periodList(c.Periods), floor))
 		}
 	}
 	return out

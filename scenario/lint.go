@@ -140,12 +140,12 @@ func (l *linter) pastTypo(e *Event) *lintNote {
 		e.Start.From.Before(l.first.Start()) {
 		return nil
 	}
-	size := FormatNumber(ef.Units, -1)
+	size := forecast.FormatNumber(ef.Units, -1)
 	if u := l.f.Units; u != "" {
 		size += " " + u
 	}
 	if ef.IsPercent {
-		size = FormatNumber(ef.Percent, -1) + " %"
+		size = forecast.FormatNumber(ef.Percent, -1) + " %"
 	}
 	hint := ""
 	if w, ok := yearLater(e.Start); ok && !w.From.Before(l.next.Start()) && w.From.Before(l.end.End()) {

@@ -2,6 +2,7 @@ package scenario
 
 import (
 	"fmt"
+	"forelay/forecast"
 	"math"
 	"strconv"
 )
@@ -62,5 +63,5 @@ func groupDigits(v float64) string {
 	if r == 0 && v != 0 {
 		return strconv.FormatFloat(v, 'g', 3, 64)
 	}
-	return FormatNumber(r, -1)
+	return forecast.FormatNumber(r, -1)
 }

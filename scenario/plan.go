@@ -201,7 +201,7 @@ func newPlan(f *File) (*Plan, forecast.Spec, error) {
 		if fl.Series == ser.Name {
 			p.Filled = append(p.Filled, fl)
 			p.Notes = append(p.Notes, fmt.Sprintf("%s: no value for %s; filled with %s (history.fill %s)",
-				f.History.File, fl.Period, FormatNumber(fl.Value, Decimals([]float64{fl.Value})), f.History.Fill))
+				f.History.File, fl.Period, forecast.FormatNumber(fl.Value, forecast.Decimals([]float64{fl.Value})), f.History.Fill))
 		}
 	}
 	p.Mode, p.From = f.Bands.Widen, f.Bands.From
@@ -330,7 +330,7 @@ func (p *Plan) lay() {
 	}
 	for _, sp := range p.Scenarios {
 		if sp.Floored > 0 {
-			p.Notes = append(p.Notes, fmt.Sprintf("scenario %q: the lower band was cut at the floor %s in %d period(s)", sp.Name, FormatNumber(*p.Floor, -1), sp.Floored))
+			p.Notes = append(p.Notes, fmt.Sprintf("scenario %q: the lower band was cut at the floor %s in %d period(s)", sp.Name, forecast.FormatNumber(*p.Floor, -1), sp.Floored))
 		}
 	}
 	p.Warnings = append(p.Warnings, p.Fit.Warnings()...)
@@ -402,9 +402,9 @@ func learnFromPast(p *Plan) {
 		}
 		e.Effect = Effect{Units: mean, FromPast: true}
 		e.Range = &Range{Low: mean - 1.645*s, High: mean + 1.645*s}
-		d := Decimals([]float64{mean, e.Range.Low, e.Range.High})
+		d := forecast.Decimals([]float64{mean, e.Range.Low, e.Range.High})
 		p.Notes = append(p.Notes, fmt.Sprintf("event %q: effect learnt from %d past occurrence(s): %s per period, 90%% range %s to %s",
-			e.ID, len(est), FormatNumber(mean, d), FormatNumber(e.Range.Low, d), FormatNumber(e.Range.High, d)))
+			e.ID, len(est), forecast.FormatNumber(mean, d), forecast.FormatNumber(e.Range.Low, d), forecast.FormatNumber(e.Range.High, d)))
 	}
 }
 

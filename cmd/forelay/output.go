@@ -5,6 +5,7 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
+	"forelay/forecast"
 	"io"
 	"io/fs"
 	"math"
@@ -15,7 +16,6 @@ import (
 	"gonum.org/v1/plot"
 
 	"forelay/plots"
-	"forelay/scenario"
 	"forelay/scenario/report"
 )
 
@@ -165,7 +165,7 @@ func marshalLine(v any) ([]byte, error) {
 
 // fmtNum formats a value for tables: thousands separators, the given
 // decimals, "-" for NaN (see scenario.FormatNumber).
-func fmtNum(v float64, decimals int) string { return scenario.FormatNumber(v, decimals) }
+func fmtNum(v float64, decimals int) string { return forecast.FormatNumber(v, decimals) }
 
 // fmtParam formats a smoothing parameter, "-" when it does not apply.
 func fmtParam(v float64) string {

@@ -239,4 +239,4 @@ func pct(v, base float64) string {
 
 // decimalsFor picks the decimals for a table of values like v (see
 // scenario.Decimals).
-func decimalsFor(v []float64) int { return scenario.Decimals(v) }
+func decimalsFor(v []float64) int { return forecast.Decimals(v) }

@@ -283,7 +283,7 @@ func writeTrackText(w io.Writer, r trackReport) {
 	if tp.Units != "" {
 		units = " " + tp.Units
 	}
-	dec := valueDecimals(tp.MAD)
+	dec := forecast.SpreadDecimals(tp.MAD)
 	n := len(tr.Points)
 	fmt.Fprintf(w, "Tracking %s against scenario %s of plan %s: %d %s period(s) %s to %s%s\n",
 		tp.Series, tr.Scenario, tp.Name, n, tr.Periods[0].Freq, tr.Periods[0], tr.Periods[n-1], inUnits(tp.Units))
@@ -436,18 +436,6 @@ func rulesText(rules []forecast.Rule) string {
 		s[i] = r.String()
 	}
 	return strings.Join(s, ", ")
-}
-
-// valueDecimals picks the decimals for values of the size of mad: none
-// from 100 up, one from 10, two below.
-func valueDecimals(mad float64) int {
-	switch {
-	case mad >= 100:
-		return 0
-	case mad >= 10:
-		return 1
-	}
-	return 2
 }
 
 // fmtG formats a setting with up to three significant digits: 4, 0.1,
