@@ -165,27 +165,10 @@ func bufferRun(opts *BufferOptions) error {
 	if err != nil {
 		return err
 	}
-	if err := warnings(opts.IO, opts.Shared, r.Plan.Warnings); err != nil {
-		return err
-	}
-	js, err := marshalIndent(bufferJSON(r))
-	if err != nil {
-		return err
-	}
-	var set *outputSet
-	if opts.Out != "" {
-		set = newOutputSet(opts.Out)
-		csv, err := bufferCSV(r)
-		if err != nil {
-			return err
-		}
-		set.add("buffer.csv", csv)
-		set.add("buffer.json", js)
-		if !opts.NoChart {
-			if err := set.addChart("buffer", bufferChart(r)); err != nil {
-				return err
-			}
-		}
-	}
-	return finish(opts.IO, set, js, opts.JSON, func(w io.Writer) { writeBufferText(w, r) })
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, runOutput{
+		name: "buffer", warnings: r.Plan.Warnings, doc: bufferJSON(r),
+		csv:    func() ([]byte, error) { return bufferCSV(r) },
+		charts: func() []namedChart { return []namedChart{{"buffer", bufferChart(r)}} },
+		text:   func(w io.Writer) { writeBufferText(w, r) },
+	})
 }

@@ -99,35 +99,18 @@ func compareRun(opts *CompareOptions) error {
 	if err != nil {
 		return err
 	}
-	if err := warnings(opts.IO, opts.Shared, r.Plan.Warnings); err != nil {
-		return err
-	}
-	js, err := marshalIndent(compareJSON(r))
-	if err != nil {
-		return err
-	}
-	var set *outputSet
-	if opts.Out != "" {
-		set = newOutputSet(opts.Out)
-		csv, err := compareCSV(r)
-		if err != nil {
-			return err
-		}
-		set.add("compare.csv", csv)
-		set.add("compare.json", js)
-		if !opts.NoChart {
-			if err := set.addChart("compare", compareChart(r)); err != nil {
-				return err
-			}
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, runOutput{
+		name: "compare", warnings: r.Plan.Warnings, doc: compareJSON(r),
+		csv: func() ([]byte, error) { return compareCSV(r) },
+		charts: func() []namedChart {
+			charts := []namedChart{{"compare", compareChart(r)}}
 			for _, c := range r.Rows {
-				if len(c.Contributions) == 0 {
-					continue
-				}
-				if err := set.addChart("waterfall-"+c.Name, waterfallChart(r, c)); err != nil {
-					return err
+				if len(c.Contributions) > 0 {
+					charts = append(charts, namedChart{"waterfall-" + c.Name, waterfallChart(r, c)})
 				}
 			}
-		}
-	}
-	return finish(opts.IO, set, js, opts.JSON, func(w io.Writer) { writeCompareText(w, r) })
+			return charts
+		},
+		text: func(w io.Writer) { writeCompareText(w, r) },
+	})
 }

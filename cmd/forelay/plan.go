@@ -84,33 +84,16 @@ func planRun(opts *PlanOptions) error {
 	if err != nil {
 		return err
 	}
-	if err := warnings(opts.IO, opts.Shared, p.Warnings); err != nil {
-		return err
-	}
-	js, err := marshalIndent(report.Plan(p))
-	if err != nil {
-		return err
-	}
-	var set *outputSet
-	if opts.Out != "" {
-		set = newOutputSet(opts.Out)
-		csv, err := planCSV(p)
-		if err != nil {
-			return err
-		}
-		set.add("plan.csv", csv)
-		set.add("plan.json", js)
-		if !opts.NoChart {
-			if err := set.addChart("plan", planChart(p)); err != nil {
-				return err
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, runOutput{
+		name: "plan", warnings: p.Warnings, doc: report.Plan(p),
+		csv:    func() ([]byte, error) { return planCSV(p) },
+		charts: func() []namedChart { return []namedChart{{"plan", planChart(p)}} },
+		text: func(w io.Writer) {
+			writePlanText(w, p, opts.Detail)
+			if ev != nil {
+				writeEventText(w, p, ev)
 			}
-		}
-	}
-	return finish(opts.IO, set, js, opts.JSON, func(w io.Writer) {
-		writePlanText(w, p, opts.Detail)
-		if ev != nil {
-			writeEventText(w, p, ev)
-		}
+		},
 	})
 }
 

@@ -145,32 +145,16 @@ func stressRun(opts *StressOptions) error {
 	if err != nil {
 		return err
 	}
-	if err := warnings(opts.IO, opts.Shared, r.Warnings); err != nil {
-		return err
-	}
-	js, err := marshalIndent(stressJSON(r))
-	if err != nil {
-		return err
-	}
-	var set *outputSet
-	if opts.Out != "" {
-		set = newOutputSet(opts.Out)
-		csv, err := stressCSV(r)
-		if err != nil {
-			return err
-		}
-		set.add("stress.csv", csv)
-		set.add("stress.json", js)
-		if !opts.NoChart {
-			if err := set.addChart("fan", fanChart(r)); err != nil {
-				return err
-			}
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, runOutput{
+		name: "stress", warnings: r.Warnings, doc: stressJSON(r),
+		csv: func() ([]byte, error) { return stressCSV(r) },
+		charts: func() []namedChart {
+			charts := []namedChart{{"fan", fanChart(r)}}
 			if r.Frozen != nil {
-				if err := set.addChart("stock", stockChart(r)); err != nil {
-					return err
-				}
+				charts = append(charts, namedChart{"stock", stockChart(r)})
 			}
-		}
-	}
-	return finish(opts.IO, set, js, opts.JSON, func(w io.Writer) { writeStressText(w, r) })
+			return charts
+		},
+		text: func(w io.Writer) { writeStressText(w, r) },
+	})
 }

@@ -176,32 +176,17 @@ func trackRun(opts *TrackOptions) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	if err := warnings(opts.IO, opts.Shared, warns); err != nil {
-		return err
-	}
 	rep := trackReport{tp: tp, tr: tr, source: source, defaultLimit: opts.TSLimit == 0, warnings: warns}
-
-	js, err := marshalIndent(trackJSON(rep))
+	err = emit(opts.IO, opts.Shared, opts.Out, opts.JSON, false, runOutput{
+		name: "track", noJSONFile: true, warnings: warns, doc: trackJSON(rep),
+		csv: func() ([]byte, error) { return trackCSV(rep) },
+		charts: func() []namedChart {
+			control, signal := trackCharts(rep)
+			return []namedChart{{"control", control}, {"signal", signal}}
+		},
+		text: func(w io.Writer) { writeTrackText(w, rep) },
+	})
 	if err != nil {
-		return err
-	}
-	var set *outputSet
-	if opts.Out != "" {
-		set = newOutputSet(opts.Out)
-		csv, err := trackCSV(rep)
-		if err != nil {
-			return err
-		}
-		set.add("track.csv", csv)
-		control, signal := trackCharts(rep)
-		if err := set.addChart("control", control); err != nil {
-			return err
-		}
-		if err := set.addChart("signal", signal); err != nil {
-			return err
-		}
-	}
-	if err := finish(opts.IO, set, js, opts.JSON, func(w io.Writer) { writeTrackText(w, rep) }); err != nil {
 		return err
 	}
 	per, last := tr.Latest()
