@@ -137,13 +137,6 @@ func newErrorFilter(r *shockResponse) *errorFilter {
 	return &errorFilter{r: r, g: make([]float64, r.m), d: make([]float64, r.m)}
 }
 
-// reset starts a new path.
-func (f *errorFilter) reset() {
-	clear(f.g)
-	clear(f.d)
-	f.tm = 0
-}
-
 // next takes the next period's shock and returns its error u_t.
 func (f *errorFilter) next(eps float64) float64 {
 	r, g, d := f.r, f.g, f.d
