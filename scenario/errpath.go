@@ -137,13 +137,6 @@ func newErrorFilter(r *shockResponse) *errorFilter {
 	return &errorFilter{r: r, g: make([]float64, r.m), d: make([]float64, r.m)}
 }
 
-// reset starts a new path.
-func (f *errorFilter) reset() {
-	clear(f.g)
-	clear(f.d)
-	f.tm = 0
-}
-
 // next takes the next period's shock and returns its error u_t.
 func (f *errorFilter) next(eps float64) float64 {
 	r, g, d := f.r, f.g, f.d
@@ -165,4 +158,67 @@ func (f *errorFilter) next(eps float64) float64 {
 		f.tm = 0
 	}
 	return u
+}
+
+// A laneFilter runs the shocks of up to lanes paths through a
+// shockResponse side by side, period by period: errorFilter's recursion
+// with one lane per path, each lane doing the arithmetic of
+// errorFilter.next in the same order (so the same numbers), the lanes'
+// independent sums giving the processor work to overlap.
+type laneFilter struct {
+	r     *shockResponse
+	lanes int
+	g, d  []float64 // m × lanes: class c of lane i at c*lanes + i
+	eps   []float64 // one period's shocks
+}
+
+func newLaneFilter(r *shockResponse, lanes int) *laneFilter {
+	return &laneFilter{r: r, lanes: lanes, g: make([]float64, r.m*lanes), d: make([]float64, r.m*lanes), eps: make([]float64, lanes)}
+}
+
+// run turns the shocks in buf into the unscaled errors u_t of B paths
+// (B <= lanes) over the periods buf holds: period t of path i is
+// buf[t*lanes + i], shock in and error out.
+func (f *laneFilter) run(buf []float64, B int) {
+	r, L := f.r, f.lanes
+	clear(f.g)
+	clear(f.d)
+	eps := f.eps[:B]
+	tm := 0
+	for t0 := 0; t0+L <= len(buf); t0 += L {
+		u := buf[t0 : t0+B]
+		copy(eps, u)
+		for _, k := range r.active {
+			c := tm - k
+			if c < 0 {
+				c += r.m
+			}
+			a, b := r.a[k], r.b[k]
+			g, d := f.g[c*L:c*L+B], f.d[c*L:c*L+B]
+			if r.trend {
+				for i := range u {
+					u[i] += a*g[i] + b*d[i]
+				}
+			} else {
+				for i := range u {
+					u[i] += a * g[i]
+				}
+			}
+		}
+		g := f.g[tm*L : tm*L+B]
+		for i, e := range eps {
+			g[i] += e
+		}
+		if r.trend {
+			for c := range r.m {
+				g, d := f.g[c*L:c*L+B], f.d[c*L:c*L+B]
+				for i := range d {
+					d[i] = r.phi * (g[i] + d[i])
+				}
+			}
+		}
+		if tm++; tm == r.m {
+			tm = 0
+		}
+	}
 }

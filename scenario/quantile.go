@@ -77,16 +77,66 @@ type Spread struct {
 
 // spreadOf returns the Spread of the values in col, rearranging col. The
 // mean is summed first, in the given order, so it does not depend on the
-// selection.
+// selection. The order statistics the five quantiles read are selected
+// together (selectAll), then read by Quantile.
 func spreadOf(col []float64) Spread {
 	s := Spread{Mean: mean(col)}
-	o := orderStats{x: col}
-	s.P5 = o.quantile(Levels[0])
-	s.P10 = o.quantile(Levels[1])
-	s.P50 = o.quantile(Levels[2])
-	s.P90 = o.quantile(Levels[3])
-	s.P95 = o.quantile(Levels[4])
+	n := len(col)
+	var buf [2 * len(Levels)]int
+	ks := buf[:0]
+	for _, p := range Levels {
+		h := float64(n-1) * p
+		lo := int(math.Floor(h))
+		switch {
+		case n == 0:
+		case lo >= n-1:
+			ks = append(ks, n-1)
+		case h > float64(lo):
+			ks = append(ks, lo, lo+1)
+		default:
+			ks = append(ks, lo)
+		}
+	}
+	selectAll(col, slices.Compact(ks))
+	s.P5 = Quantile(col, Levels[0])
+	s.P10 = Quantile(col, Levels[1])
+	s.P50 = Quantile(col, Levels[2])
+	s.P90 = Quantile(col, Levels[3])
+	s.P95 = Quantile(col, Levels[4])
 	return s
+}
+
+// selectAll rearranges x so that every position in ks (0-based, in
+// increasing order, no repeats) holds its order statistic, as selectK
+// does for one: a partition by lomutoPartition, then the same on each side
+// that holds wanted positions (quicksort's recursion, kept to the parts
+// that matter), so that the positions share the first partitions instead
+// of each scanning the whole of x. A part that shrinks too slowly is
+// sorted instead, which bounds the worst case at O(n log n).
+func selectAll(x []float64, ks []int) {
+	selectIn(x, 0, len(x)-1, ks, 2*bits.Len(uint(len(x)))+8)
+}
+
+// selectIn is selectAll on x[lo:hi+1], every position of ks in [lo, hi],
+// with depth partitions left before it sorts.
+func selectIn(x []float64, lo, hi int, ks []int, depth int) {
+	for len(ks) > 0 && hi > lo {
+		switch {
+		case len(ks) == 1:
+			selectK(x[lo:hi+1], ks[0]-lo)
+			return
+		case hi-lo < 16 || depth == 0:
+			slices.Sort(x[lo : hi+1])
+			return
+		}
+		depth--
+		i, j := lomutoPartition(x, lo, hi)
+		// x[lo:j+1] <= pivot, x[j+1:i] equal to it, x[i:hi+1] >= pivot.
+		left, _ := slices.BinarySearch(ks, j+1)
+		right, _ := slices.BinarySearch(ks, i)
+		selectIn(x, lo, j, ks[:left], depth)
+		lo, ks = i, ks[right:]
+	}
 }
 
 // orderStats finds order statistics of x one after another, in increasing
@@ -134,7 +184,8 @@ func (o *orderStats) quantile(p float64) float64 {
 // selectK rearranges x so that x[k] is its k-th smallest value (0-based),
 // with x[:k] <= x[k] <= x[k+1:]: Hoare's selection (C. A. R. Hoare, 1961,
 // "Algorithm 65: Find", Communications of the ACM 4(7)), with the median
-// of three as pivot, in O(len(x)) operations on average. A range that
+// of three as pivot and a branch-free partition (lomutoPartition), in
+// O(len(x)) operations on average. A range that
 // shrinks too slowly is sorted instead, which bounds the worst case at
 // O(n log n). k = 0 and k = len(x) − 1 are a single scan. It panics if k is
 // out of range.
@@ -155,7 +206,7 @@ func selectK(x []float64, k int) {
 			slices.Sort(x[lo : hi+1])
 			return
 		}
-		i, j := hoarePartition(x, lo, hi)
+		i, j := lomutoPartition(x, lo, hi)
 		switch {
 		case k <= j:
 			hi = j
@@ -190,10 +241,23 @@ func moveMax(x []float64) {
 	x[len(x)-1], x[best] = x[best], x[len(x)-1]
 }
 
-// hoarePartition splits x[lo:hi+1] around the median of x[lo], its
-// middle and x[hi], and returns j < i with x[lo:j+1] <= pivot,
-// x[i:hi+1] >= pivot and x[j+1:i] equal to the pivot.
-func hoarePartition(x []float64, lo, hi int) (i, j int) {
+// mean returns the arithmetic mean of x, NaN when x is empty.
+func mean(x []float64) float64 {
+	if len(x) == 0 {
+		return math.NaN()
+	}
+	return Total(x) / float64(len(x))
+}
+
+// lomutoPartition splits x[lo:hi+1] (hi > lo) around the median of x[lo],
+// its middle and x[hi], and returns j < i with x[lo:j+1] <= pivot,
+// x[j+1:i] equal to the pivot and x[i:hi+1] >= pivot. It is Lomuto's
+// scheme written without a branch on the comparison (every value is
+// swapped, and the boundary moves by the comparison's outcome, 0 or 1),
+// which spares the processor the mispredicted jumps of random data. When
+// no value is below the pivot, a second pass gathers the values equal to
+// it, so that a run of ties costs one pass.
+func lomutoPartition(x []float64, lo, hi int) (i, j int) {
 	mid := lo + (hi-lo)/2
 	if x[mid] < x[lo] {
 		x[mid], x[lo] = x[lo], x[mid]
@@ -204,28 +268,35 @@ func hoarePartition(x []float64, lo, hi int) (i, j int) {
 	if x[hi] < x[mid] {
 		x[hi], x[mid] = x[mid], x[hi]
 	}
-	pivot := x[mid]
-	i, j = lo, hi
-	for i <= j {
-		for i <= hi && x[i] < pivot {
-			i++
-		}
-		for j >= lo && x[j] > pivot {
-			j--
-		}
-		if i <= j {
-			x[i], x[j] = x[j], x[i]
-			i++
-			j--
-		}
+	x[lo], x[mid] = x[mid], x[lo]
+	pivot := x[lo]
+	b := lo + 1
+	for k := lo + 1; k <= hi; k++ {
+		v := x[k]
+		x[k] = x[b]
+		x[b] = v
+		b += b2i(v < pivot)
 	}
-	return i, j
+	// x[lo+1:b] < pivot, x[b:hi+1] >= pivot.
+	if b > lo+1 {
+		x[lo], x[b-1] = x[b-1], x[lo]
+		return b, b - 2
+	}
+	for k := lo + 1; k <= hi; k++ {
+		v := x[k]
+		x[k] = x[b]
+		x[b] = v
+		b += b2i(v <= pivot)
+	}
+	// x[lo:b] equal the pivot, x[b:hi+1] > pivot.
+	return b, lo - 1
 }
 
-// mean returns the arithmetic mean of x, NaN when x is empty.
-func mean(x []float64) float64 {
-	if len(x) == 0 {
-		return math.NaN()
+// b2i returns 1 for true and 0 for false; the compiler turns it into a
+// flag read, not a jump.
+func b2i(c bool) int {
+	if c {
+		return 1
 	}
-	return Total(x) / float64(len(x))
+	return 0
 }

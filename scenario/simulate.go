@@ -3,13 +3,9 @@ package scenario
 import (
 	"errors"
 	"fmt"
-	"hash/fnv"
 	"math"
-	"math/rand/v2"
 	"slices"
 	"strings"
-
-	"gonum.org/v1/gonum/stat/distuv"
 
 	"forelay/forecast"
 )
@@ -75,12 +71,18 @@ type SimOptions struct {
 	// Paths is the number of sample paths; zero means DefaultPaths, and
 	// any other value below MinPaths is an error.
 	Paths int
-	// Seed seeds the random streams (math/rand/v2 PCG); every seed,
-	// zero included, is valid. The same plan, options and seed give the
-	// same paths, bit for bit.
+	// Seed seeds the random streams (math/rand/v2 PCG, one stream per
+	// block of StreamBlock paths; see Simulation); every seed, zero
+	// included, is valid. The same plan, options and seed give the same
+	// paths, bit for bit.
 	Seed uint64
 	// Errors is how the forecast-error shocks are drawn.
 	Errors ErrorModel
+	// Workers is the number of goroutines that draw the blocks of paths
+	// and summarise the periods; zero (or less) means one per core
+	// (GOMAXPROCS). The results are the same, bit for bit, whatever the
+	// number of workers.
+	Workers int
 }
 
 // A Simulation holds sample paths of the demand of every scenario of a
@@ -116,8 +118,9 @@ type SimOptions struct {
 // every method of package forecast has an impulse response of the form
 // psi_j = a_{j mod m} + b_{j mod m} φ_j (forecast.ShockForm), and each path
 // runs forward through the matching recursion, O(m) operations per period
-// (see errorFilter), the shocks drawn in the same order. A model whose
-// response has no known form falls back to the sums.
+// (see errorFilter; laneFilter runs 32 paths side by side), the shocks
+// drawn in the same order. A model whose response has no known form falls
+// back to the sums.
 //
 // # Events
 //
@@ -133,11 +136,26 @@ type SimOptions struct {
 //
 // # Random streams
 //
-// The shocks come from PCG(seed, 0) and each event's draws from its own
-// stream PCG(seed, FNV-1a hash of its id), two uniform numbers per path
-// (occurrence, then size) whether or not it occurs, so an event's draws do
-// not change when other events are added, removed or given another
-// probability.
+// The paths are split into blocks of StreamBlock (1,024) paths: path i is
+// in block i / StreamBlock. Every block has its own streams, math/rand/v2
+// PCG generators seeded with (seed, streamID(kind, key, block)), streamID
+// being the 64-bit FNV-1a hash of kind + "\x00" + key + "\x00" + the block
+// index in decimal:
+//
+//   - the shocks of block b come from the stream ("shock", series, b),
+//     series being the name of the history series (Plan.History.Name), H
+//     draws per path, the paths in order and each path's periods in order;
+//   - the draws of each event in block b come from the stream ("event",
+//     its id, b), two uniform numbers per path (occurrence, then size)
+//     whether or not it occurs.
+//
+// So path i's numbers depend only on the seed, the series name, the block
+// of i and i's place in it (and, for an event's draws, the event's id):
+// not on the number of paths that follow, on the other events (adding,
+// removing or reweighting one leaves the others' draws as they were), nor
+// on the number of workers. A run of N paths gives the first N paths of a
+// run of more paths with the same seed, and the blocks can be drawn apart
+// and put together.
 type Simulation struct {
 	// Plan is the plan simulated.
 	Plan *Plan
@@ -267,17 +285,6 @@ func unitShape(e *Event, first forecast.Period, baseline []float64) []float64 {
 	return u.Contribution(first, baseline)
 }
 
-// eventStream returns the seed stream of an event: the FNV-1a hash of its
-// id, never 0 (the shocks' stream).
-func eventStream(id string) uint64 {
-	h := fnv.New64a()
-	h.Write([]byte(id))
-	if s := h.Sum64(); s != 0 {
-		return s
-	}
-	return 1
-}
-
 // matrix returns rows slices of n values each, backed by one array.
 func matrix(rows, n int) [][]float64 {
 	back := make([]float64, rows*n)
@@ -289,14 +296,18 @@ func matrix(rows, n int) [][]float64 {
 }
 
 // Simulate draws sample paths of every scenario of p (see Simulation for
-// the model). It returns an error wrapping ErrTooFewPaths when opt.Paths
-// is below MinPaths (and not zero), ErrNoResiduals when there are no
-// in-sample errors to draw from, and an error when the plan's baseline
-// variance is not finite. It panics if p has no periods.
+// the model and the random streams). It returns an error wrapping
+// ErrTooFewPaths when opt.Paths is below MinPaths (and not zero),
+// ErrNoResiduals when there are no in-sample errors to draw from, and an
+// error when the plan's baseline variance is not finite. It panics if p
+// has no periods.
 //
-// The cost grows linearly with the number of paths and with the horizon,
-// and so does the memory: 8 × Paths × (H × (1 + scenarios) + events)
-// bytes for the error, demand and event draws of every path.
+// The blocks of paths are drawn, and then the periods of every scenario
+// summarised, by opt.Workers goroutines, each writing its own part of the
+// result. The cost grows linearly with the number of paths and with the
+// horizon, and so does the memory: 8 × Paths × (H × (1 + scenarios) +
+// events) bytes for the error, demand and event draws of every path, and
+// 8 × (Paths + 32 H) bytes of scratch space per worker.
 func Simulate(p *Plan, opt SimOptions) (*Simulation, error) {
 	n := opt.Paths
 	if n == 0 {
@@ -321,19 +332,12 @@ func Simulate(p *Plan, opt SimOptions) (*Simulation, error) {
 	}
 
 	s.Error = matrix(H, n)
-	s.drawErrors(pool, resp)
 	s.Amount = matrix(len(p.Future), n)
-	for k, e := range p.Future {
-		drawEvent(e, opt.Seed, s.Amount[k])
-	}
-	first := p.Periods[0]
-	shapes := make([][]float64, len(p.Future))
-	for k, e := range p.Future {
-		shapes[k] = unitShape(e, first, p.Baseline)
-	}
-	for i := range p.Scenarios {
-		s.Scenarios = append(s.Scenarios, s.scenarioPaths(&p.Scenarios[i], shapes))
-	}
+	d := s.newDraws(pool, resp)
+	inParallel(opt.Workers, (n+StreamBlock-1)/StreamBlock, func() func(int) {
+		return d.worker().block
+	})
+	s.scenarioPaths(opt.Workers)
 	return s, nil
 }
 
@@ -356,140 +360,70 @@ func (s *Simulation) shocks() ([]float64, error) {
 	return pool, nil
 }
 
-// scenarioPaths returns the demand paths of scenario sp: the baseline,
-// the error paths and the draws of the scenario's events times their
-// contributions per unit (shapes, by event of p.Future), raised to the
-// plan's floor where they fall below it, summarised.
-func (s *Simulation) scenarioPaths(sp *ScenarioPlan, shapes [][]float64) *PathSet {
+// scenarioPaths fills s.Scenarios with the demand paths of every scenario
+// of the plan, summarised, one period of one scenario per job on workers
+// goroutines (see demandRow).
+func (s *Simulation) scenarioPaths(workers int) {
 	p := s.Plan
 	H := len(p.Periods)
-	ps := &PathSet{Name: sp.Name, Demand: matrix(H, s.Paths), Spread: make([]Spread, H)}
-	for t, row := range ps.Demand {
-		b, e := p.Baseline[t], s.Error[t]
-		for i := range row {
-			row[i] = b + e[i]
+	first := p.Periods[0]
+	shapes := make([][]float64, len(p.Future))
+	for k, e := range p.Future {
+		shapes[k] = unitShape(e, first, p.Baseline)
+	}
+	s.Scenarios = make([]*PathSet, len(p.Scenarios))
+	members := make([][]bool, len(p.Scenarios))
+	for i := range p.Scenarios {
+		sp := &p.Scenarios[i]
+		s.Scenarios[i] = &PathSet{Name: sp.Name, Demand: matrix(H, s.Paths), Spread: make([]Spread, H)}
+		members[i] = make([]bool, len(p.Future))
+		for k, e := range p.Future {
+			members[i][k] = slices.Contains(sp.Events, e)
 		}
 	}
-	for k, e := range p.Future {
-		if !slices.Contains(sp.Events, e) {
+	inParallel(workers, len(s.Scenarios)*H, func() func(int) {
+		scratch := make([]float64, s.Paths)
+		return func(j int) {
+			sc, t := j/H, j%H
+			s.demandRow(s.Scenarios[sc], t, members[sc], shapes, scratch)
+		}
+	})
+}
+
+// demandRow fills period t of ps: the baseline, the error paths and the
+// draws of the scenario's events (those with in[k] set) times their
+// contributions per unit (shapes, by event of Plan.Future), raised to the
+// plan's floor where they fall below it; then its Spread, through
+// scratch (Paths values).
+func (s *Simulation) demandRow(ps *PathSet, t int, in []bool, shapes [][]float64, scratch []float64) {
+	p := s.Plan
+	row := ps.Demand[t]
+	b, e := p.Baseline[t], s.Error[t]
+	for i := range row {
+		row[i] = b + e[i]
+	}
+	for k, amt := range s.Amount {
+		if !in[k] || t >= len(shapes[k]) || shapes[k][t] == 0 {
 			continue
 		}
-		amt := s.Amount[k]
-		for t, u := range shapes[k] {
-			if u == 0 {
-				continue
-			}
-			row := ps.Demand[t]
-			for i, a := range amt {
-				row[i] += a * u
-			}
+		u := shapes[k][t]
+		for i, a := range amt {
+			row[i] += a * u
 		}
 	}
 	if p.Floor != nil {
-		floorPaths(ps.Demand, *p.Floor)
+		floorRow(row, *p.Floor)
 	}
-	ps.summarise()
-	return ps
+	copy(scratch, row)
+	ps.Spread[t] = spreadOf(scratch)
 }
 
-// floorPaths raises every path value below floor to it: simulated demand,
+// floorRow raises every path value below floor to it: simulated demand,
 // like the plan, never goes below the floor (see Bands.Floor).
-func floorPaths(demand [][]float64, floor float64) {
-	for _, row := range demand {
-		for i, v := range row {
-			if v < floor {
-				row[i] = floor
-			}
-		}
-	}
-}
-
-// drawErrors fills s.Error path by path: each period's shock is drawn and
-// run through the model's error recursion (resp), then rescaled. Without
-// a recursion (a model whose response has no known form) the psi-weighted
-// sums are formed directly, which costs O(H²) per path.
-func (s *Simulation) drawErrors(pool []float64, resp *shockResponse) {
-	H, n := len(s.Error), s.Paths
-	r := rand.New(rand.NewPCG(s.Seed, 0))
-	sd := math.Sqrt(s.S2)
-	draw := func() float64 { return pool[r.IntN(len(pool))] }
-	if s.Errors == Normal {
-		draw = func() float64 { return sd * r.NormFloat64() }
-	}
-	if resp == nil {
-		s.convolveErrors(draw)
-		return
-	}
-	// Paths go by blocks of pathBlock, through a buffer with one row of the
-	// block's paths per period, so that s.Error is written row by row.
-	f := newErrorFilter(resp)
-	buf := make([]float64, H*pathBlock)
-	for i0 := 0; i0 < n; i0 += pathBlock {
-		B := min(pathBlock, n-i0)
-		for b := range B {
-			f.reset()
-			for t := 0; t < H; t++ {
-				buf[t*pathBlock+b] = s.Scale[t] * f.next(draw())
-			}
-		}
-		for t, row := range s.Error {
-			copy(row[i0:i0+B], buf[t*pathBlock:t*pathBlock+B])
-		}
-	}
-}
-
-// pathBlock is the number of paths drawErrors runs before writing them.
-const pathBlock = 32
-
-// convolveErrors fills s.Error with the psi-weighted sums of the shocks
-// that draw gives, H per path in period order.
-func (s *Simulation) convolveErrors(draw func() float64) {
-	H, n := len(s.Error), s.Paths
-	// Only the non-zero weights cost time.
-	var lags []int
-	for j, w := range s.Psi {
-		if w != 0 {
-			lags = append(lags, j+1)
-		}
-	}
-	eps := make([]float64, H)
-	for i := 0; i < n; i++ {
-		for t := range eps {
-			eps[t] = draw()
-		}
-		for t := 0; t < H; t++ {
-			v := eps[t]
-			for _, j := range lags {
-				if j > t {
-					break
-				}
-				v += s.Psi[j-1] * eps[t-j]
-			}
-			s.Error[t][i] = s.Scale[t] * v
-		}
-	}
-}
-
-// drawEvent fills amt with event e's size on each path (0 where it does
-// not occur), from the event's own stream.
-func drawEvent(e *Event, seed uint64, amt []float64) {
-	r := rand.New(rand.NewPCG(seed, eventStream(e.ID)))
-	effect := e.Effect.Value()
-	var tri *distuv.Triangle
-	if rg := e.Range; rg != nil && rg.Low < rg.High {
-		t := distuv.NewTriangle(rg.Low, rg.High, math.Min(math.Max(effect, rg.Low), rg.High), nil)
-		tri = &t
-	}
-	for i := range amt {
-		occ, u := r.Float64(), r.Float64()
-		if occ >= e.Probability {
-			amt[i] = 0
-			continue
-		}
-		if tri != nil {
-			amt[i] = tri.Quantile(u)
-		} else {
-			amt[i] = effect
+func floorRow(row []float64, floor float64) {
+	for i, v := range row {
+		if v < floor {
+			row[i] = floor
 		}
 	}
 }

@@ -47,7 +47,8 @@ func horizonBody(h int) string {
 }
 
 // runSimBench draws 10,000 paths of plan p per iteration and sets them
-// against capacity.
+// against capacity. Workers is left at zero, one per core: -cpu N runs
+// the benchmarks on N workers (the results are the same for any N).
 func runSimBench(b *testing.B, p *Plan) {
 	capacity := p.CapacityPerPeriod()
 	b.ReportAllocs()

@@ -3,6 +3,10 @@ package scenario
 import (
 	"errors"
 	"math"
+	"math/rand/v2"
+	"reflect"
+	"slices"
+	"strings"
 	"testing"
 
 	"gonum.org/v1/gonum/floats/scalar"
@@ -345,6 +349,153 @@ func TestSimulateEventStreams(t *testing.T) {
 		t.Fatal(err)
 	}
 	equalSlices(t, "promo draws", b.Amount[0], a.Amount[1], 0)
+}
+
+// simModels are the three ways a simulation draws its errors: bootstrap
+// and normal shocks through the recursion, and the direct sums.
+var simModels = []struct {
+	name   string
+	errors ErrorModel
+	opaque bool
+}{
+	{"bootstrap", Bootstrap, false},
+	{"normal", Normal, false},
+	{"sums", Bootstrap, true},
+}
+
+// simPlan builds the event plan with a naive baseline (every psi weight
+// 1), hiding the model's form when opaque.
+func simPlan(t *testing.T, opaque bool) *Plan {
+	t.Helper()
+	p := buildTestPlan(t, strings.Replace(eventBody, "linear-trend, dummies: true", "naive", 1), testHistory(48))
+	if opaque {
+		p.Fit.Model = opaqueModel{p.Fit.Model}
+	}
+	return p
+}
+
+// The worker count changes nothing: 1, 2 and 7 workers give the same
+// simulation, every path and every summary, bit for bit. 3,000 paths
+// make two full blocks and a short one.
+func TestSimulateWorkers(t *testing.T) {
+	for _, m := range simModels {
+		t.Run(m.name, func(t *testing.T) {
+			p := simPlan(t, m.opaque)
+			var first *Simulation
+			for _, w := range []int{1, 2, 7} {
+				sim, err := Simulate(p, SimOptions{Paths: 3000, Seed: 8, Errors: m.errors, Workers: w})
+				if err != nil {
+					t.Fatal(err)
+				}
+				if first == nil {
+					first = sim
+				} else if !reflect.DeepEqual(sim, first) {
+					t.Errorf("%d workers: the simulation differs from 1 worker's", w)
+				}
+			}
+		})
+	}
+}
+
+// The paths can be drawn in parts: a run of N paths is the first N paths
+// of a run of 2N, block for block, for N a multiple of StreamBlock and
+// for N that ends inside a block.
+func TestSimulateInParts(t *testing.T) {
+	for _, m := range simModels {
+		t.Run(m.name, func(t *testing.T) {
+			p := simPlan(t, m.opaque)
+			for _, n := range []int{2 * StreamBlock, 1500} {
+				short, err := Simulate(p, SimOptions{Paths: n, Seed: 4, Errors: m.errors, Workers: 2})
+				if err != nil {
+					t.Fatal(err)
+				}
+				long, err := Simulate(p, SimOptions{Paths: 2 * n, Seed: 4, Errors: m.errors, Workers: 1})
+				if err != nil {
+					t.Fatal(err)
+				}
+				samePrefix(t, sprintf("%d paths: error", n), short.Error, long.Error)
+				samePrefix(t, sprintf("%d paths: event draws", n), short.Amount, long.Amount)
+				for k := range short.Scenarios {
+					samePrefix(t, sprintf("%d paths: demand of %s", n, short.Scenarios[k].Name), short.Scenarios[k].Demand, long.Scenarios[k].Demand)
+				}
+			}
+		})
+	}
+}
+
+// samePrefix checks that every row of short is the start of the same row
+// of long, bit for bit.
+func samePrefix(t *testing.T, what string, short, long [][]float64) {
+	t.Helper()
+	for r, row := range short {
+		for i, v := range row {
+			if math.Float64bits(v) != math.Float64bits(long[r][i]) {
+				t.Fatalf("%s: row %d path %d (block %d): %v, want %v", what, r, i, i/StreamBlock, v, long[r][i])
+			}
+		}
+	}
+}
+
+// TestSimulateStreamDefinition draws the first paths of block 1 again
+// from the documented streams, built here from hash/fnv and
+// math/rand/v2: the shocks from PCG(seed, FNV-1a("shock\x00demand\x001"))
+// (the test history's series is "demand"), H = 6 normal draws per path,
+// and the event's two uniforms per path from
+// PCG(seed, FNV-1a("event\x00contract\x001")). The linear trend has no
+// psi weights, so error = k_h × sd × z exactly; the size is the
+// triangular quantile of the second uniform.
+func TestSimulateStreamDefinition(t *testing.T) {
+	const seed = 21
+	p := buildTestPlan(t, eventBody, testHistory(48))
+	sim, err := Simulate(p, SimOptions{Paths: 2 * StreamBlock, Seed: seed, Errors: Normal})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if p.History.Name != "demand" {
+		t.Fatalf("series %q", p.History.Name)
+	}
+	shocks := rand.New(rand.NewPCG(seed, fnvRef("shock\x00demand\x001")))
+	events := rand.New(rand.NewPCG(seed, fnvRef("event\x00contract\x001")))
+	sd := math.Sqrt(sim.S2)
+	k := slices.IndexFunc(p.Future, func(e *Event) bool { return e.ID == "contract" })
+	for i := StreamBlock; i < StreamBlock+5; i++ {
+		for tt := range p.Periods {
+			want := sim.Scale[tt] * (sd * shocks.NormFloat64())
+			if got := sim.Error[tt][i]; got != want {
+				t.Errorf("path %d period %d: error %v, want %v", i, tt, got, want)
+			}
+		}
+		// The contract: probability 0.7, size triangular on [20, 80]
+		// peaked at 30 (eventBody), read at the second uniform.
+		want := 0.0
+		if occ, u := events.Float64(), events.Float64(); occ < 0.7 {
+			want = distuv.NewTriangle(20, 80, 30, nil).Quantile(u)
+		}
+		if got := sim.Amount[k][i]; got != want {
+			t.Errorf("path %d: contract drawn %v, want %v", i, got, want)
+		}
+	}
+}
+
+// The shocks are keyed by the series name, the event draws are not: a
+// series of another name gets other errors and the same event draws.
+func TestSimulateSeriesKey(t *testing.T) {
+	p := buildTestPlan(t, eventBody, testHistory(48))
+	a, err := Simulate(p, SimOptions{Paths: 300, Seed: 2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.History.Name = "cream"
+	b, err := Simulate(p, SimOptions{Paths: 300, Seed: 2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if reflect.DeepEqual(a.Error, b.Error) {
+		t.Error("renaming the series left its errors as they were")
+	}
+	if !reflect.DeepEqual(a.Amount, b.Amount) {
+		t.Error("renaming the series changed the event draws")
+	}
 }
 
 func TestSimulateErrors(t *testing.T) {

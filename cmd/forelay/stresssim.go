@@ -14,9 +14,10 @@ import (
 
 // simFlags are the Monte Carlo flags shared by stress, buffer and compare.
 type simFlags struct {
-	Paths  int
-	Seed   uint64
-	Errors string
+	Paths   int
+	Seed    uint64
+	Errors  string
+	Workers int // goroutines of the Monte Carlo; 0: one per core
 }
 
 // defaultSeed is the seed used when --seed is not given, so that runs are
@@ -48,7 +49,7 @@ func (s *simFlags) check(l limits) error {
 // passed.
 func (s *simFlags) options() scenario.SimOptions {
 	em, _ := scenario.ParseErrorModel(s.Errors)
-	return scenario.SimOptions{Paths: s.Paths, Seed: s.Seed, Errors: em}
+	return scenario.SimOptions{Paths: s.Paths, Seed: s.Seed, Errors: em, Workers: s.Workers}
 }
 
 // simulate runs the Monte Carlo; a plan whose errors cannot be drawn is
