@@ -180,3 +180,28 @@ func (c *countValue) Set(s string) error {
 	*c.n = int(math.Max(math.Min(f, math.MaxInt32), math.MinInt32))
 	return nil
 }
+
+// givenInt is the pflag.Value of a whole-number flag whose default means
+// "decide for me": it records whether the flag was given at all.
+type givenInt struct {
+	n     *int
+	given *bool
+}
+
+func (g *givenInt) Type() string { return "N" }
+
+func (g *givenInt) String() string {
+	if g.n == nil || !*g.given {
+		return ""
+	}
+	return strconv.Itoa(*g.n)
+}
+
+func (g *givenInt) Set(s string) error {
+	n, err := strconv.Atoi(s)
+	if err != nil {
+		return fmt.Errorf("%q is not a whole number", s)
+	}
+	*g.n, *g.given = n, true
+	return nil
+}

@@ -18,6 +18,8 @@ type simFlags struct {
 	Seed    uint64
 	Errors  string
 	Workers int // goroutines of the Monte Carlo; 0: one per core
+	// WorkersGiven is true when --workers was given.
+	WorkersGiven bool
 }
 
 // defaultSeed is the seed used when --seed is not given, so that runs are
@@ -28,6 +30,7 @@ func (s *simFlags) register(fl *pflag.FlagSet) {
 	fl.Var(newCountValue(&s.Paths, scenario.DefaultPaths), "paths", fmt.Sprintf("number of Monte Carlo sample paths, at least %d; 2e5 is read as 200000", scenario.MinPaths))
 	fl.Uint64Var(&s.Seed, "seed", defaultSeed, "seed of the random streams; the same seed gives the same results")
 	fl.StringVar(&s.Errors, "errors", "bootstrap", "forecast errors: bootstrap (resample the in-sample one-step errors) or normal")
+	fl.Var(&givenInt{n: &s.Workers, given: &s.WorkersGiven}, "workers", "Monte Carlo blocks drawn at once, at least 1 (default: one per core); the results are the same for any number")
 }
 
 // check validates the flags against the limits; every problem is a flag
@@ -41,6 +44,9 @@ func (s *simFlags) check(l limits) error {
 	}
 	if _, err := scenario.ParseErrorModel(s.Errors); err != nil {
 		return &flagError{err: fmt.Errorf("--errors: %w", err)}
+	}
+	if s.WorkersGiven && s.Workers < 1 {
+		return flagErrorf("--workers %d: must be at least 1 (leave it out for one worker per core)", s.Workers)
 	}
 	return nil
 }
