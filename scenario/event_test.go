@@ -1,6 +1,7 @@
 package scenario
 
 import (
+	"forelay/scenario/internal/plantest"
 	"math"
 	"testing"
 
@@ -47,14 +48,7 @@ func pulse(start, end string, n int, pb *Payback) *Event {
 
 func equalSlices(t *testing.T, what string, got, want []float64, tol float64) {
 	t.Helper()
-	if len(got) != len(want) {
-		t.Fatalf("%s: len %d, want %d (%v)", what, len(got), len(want), got)
-	}
-	for i := range want {
-		if !scalar.EqualWithinAbsOrRel(got[i], want[i], tol, tol) {
-			t.Errorf("%s[%d] = %.12g, want %.12g (all: %v)", what, i, got[i], want[i], got)
-		}
-	}
+	plantest.EqualSlices(t, what, got, want, tol)
 }
 
 // sc holds the s-curve shares for P = 4 and P = 3, s(k) = (tanh(4k/P − 2) +

@@ -396,3 +396,14 @@ func ParseProductionMode(s string) (ProductionMode, error) {
 	}
 	return Follow, fmt.Errorf("unknown production mode %q (want follow or frozen)", s)
 }
+
+// ValueError returns the error of a value found wrong after decoding (by a
+// check that needs other files): a *data.ParseError at the position of
+// key's value, or at when key was not given, wrapping ErrValue.
+func (f *File) ValueError(key string, at Pos, format string, args ...any) error {
+	if q, ok := f.pos[key]; ok {
+		at = q
+	}
+	return &data.ParseError{File: f.Path, Line: at.Line, Column: at.Column, Field: key,
+		Err: &problem{kind: ErrValue, msg: fmt.Sprintf(format, args...)}}
+}

@@ -2,6 +2,8 @@ package main
 
 import (
 	"fmt"
+	"forelay/scenario/sim"
+	"forelay/scenario/supply"
 	"io"
 	"math"
 
@@ -116,9 +118,9 @@ func (o *BufferOptions) check() error {
 type bufferResult struct {
 	Plan     *scenario.Plan
 	Opts     *BufferOptions
-	Sim      *scenario.Simulation // nil with --demand bands
+	Sim      *sim.Simulation // nil with --demand bands
 	Scenario int
-	Buffer   scenario.Buffer
+	Buffer   supply.Buffer
 	Sigma    float64 // spread of one period's forecast error (lead time 1)
 	Spread   float64 // spread of demand over the lead time
 	Z        float64
@@ -136,14 +138,14 @@ func computeBuffer(opts *BufferOptions) (*bufferResult, error) {
 	if err != nil {
 		return nil, err
 	}
-	capacity := p.CapacityPerPeriod()
+	capacity := supply.CapacityPerPeriod(p)
 	if capacity == nil {
 		return nil, &inputError{err: fmt.Errorf("%s: capacity: buffer sizing needs a capacity block (capacity: {units: ...})", p.File.Path)}
 	}
 	r := &bufferResult{Plan: p, Opts: opts, Scenario: sc, Notes: append([]string{}, p.Notes...)}
 	var demand []float64
 	if opts.Demand == demandBands {
-		demand = p.BandDemand(sc, opts.Service)
+		demand = supply.BandDemand(p, sc, opts.Service)
 	} else {
 		if r.Sim, err = simulate(p, &opts.Sim); err != nil {
 			return nil, err
@@ -151,12 +153,12 @@ func computeBuffer(opts *BufferOptions) (*bufferResult, error) {
 		r.Notes = simNotes(p)
 		demand = r.Sim.Scenarios[sc].QuantileDemand(opts.Service)
 	}
-	r.Buffer = scenario.PlanBuffer(demand, capacity, opts.OpeningStock)
+	r.Buffer = supply.PlanBuffer(demand, capacity, opts.OpeningStock)
 	r.Sigma = math.Sqrt(p.BaselineVar[0])
 	r.Spread = math.Sqrt(p.Fit.LeadTimeVariance(opts.LeadTime, p.Mode, p.From))
-	r.Z = scenario.ServiceZ(opts.Service)
-	r.Safety = scenario.SafetyStock(opts.Service, r.Spread, 1)
-	r.CSL = scenario.CycleServiceLevel(r.Safety, r.Spread, 1)
+	r.Z = supply.ServiceZ(opts.Service)
+	r.Safety = supply.SafetyStock(opts.Service, r.Spread, 1)
+	r.CSL = supply.CycleServiceLevel(r.Safety, r.Spread, 1)
 	return r, nil
 }
 

@@ -1,6 +1,8 @@
 package main
 
 import (
+	"forelay/scenario/sim"
+	"forelay/scenario/supply"
 	"io"
 
 	"github.com/spf13/cobra"
@@ -76,9 +78,9 @@ func (o *CompareOptions) check() error {
 // compareResult is everything "forelay compare" computes.
 type compareResult struct {
 	Plan  *scenario.Plan
-	Sim   *scenario.Simulation
+	Sim   *sim.Simulation
 	Opts  *CompareOptions
-	Rows  []scenario.Comparison
+	Rows  []supply.Comparison
 	Notes []string
 }
 
@@ -87,11 +89,11 @@ func computeCompare(opts *CompareOptions) (*compareResult, error) {
 	if err != nil {
 		return nil, err
 	}
-	sim, err := simulate(p, &opts.Sim)
+	mc, err := simulate(p, &opts.Sim)
 	if err != nil {
 		return nil, err
 	}
-	return &compareResult{Plan: p, Sim: sim, Opts: opts, Rows: scenario.Compare(sim, opts.Service), Notes: simNotes(p)}, nil
+	return &compareResult{Plan: p, Sim: mc, Opts: opts, Rows: supply.Compare(mc, opts.Service), Notes: simNotes(p)}, nil
 }
 
 func compareRun(opts *CompareOptions) error {

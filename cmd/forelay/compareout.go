@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"forelay/scenario/report"
+	"forelay/scenario/supply"
 	"io"
 	"math"
 	"strings"
@@ -49,8 +50,8 @@ type compareOutJSON struct {
 }
 
 func compareJSON(r *compareResult) compareOutJSON {
-	p, sim := r.Plan, r.Sim
-	o := compareOutJSON{Plan: p.File.Plan, Units: p.File.Units, Paths: sim.Paths, Seed: sim.Seed, Errors: sim.Errors.String(),
+	p, mc := r.Plan, r.Sim
+	o := compareOutJSON{Plan: p.File.Plan, Units: p.File.Units, Paths: mc.Paths, Seed: mc.Seed, Errors: mc.Errors.String(),
 		Service: num(r.Opts.Service), BaselineTotal: num(scenario.Total(p.Baseline)), Inputs: p.Digests,
 		Notes: r.Notes, Warnings: warningList(r.Plan.Warnings), Caution: report.Caution}
 	for _, c := range r.Rows {
@@ -108,7 +109,7 @@ func zeroIfNaN(v float64) float64 {
 
 // contributionOf formats event id's contribution to c with format, or
 // returns missing when the event is not in the scenario.
-func contributionOf(c scenario.Comparison, id string, format func(float64, int) string, missing string) string {
+func contributionOf(c supply.Comparison, id string, format func(float64, int) string, missing string) string {
 	for _, k := range c.Contributions {
 		if k.ID == id {
 			return format(k.Total, 2)
@@ -183,7 +184,7 @@ func writeCompareText(w io.Writer, r *compareResult) {
 
 // waterfallChart walks from the baseline total through each event's
 // contribution to scenario c's total.
-func waterfallChart(r *compareResult, c scenario.Comparison) plots.Waterfall {
+func waterfallChart(r *compareResult, c supply.Comparison) plots.Waterfall {
 	p := r.Plan
 	wf := plots.Waterfall{
 		Title:      "Plan " + p.File.Plan + ": " + c.Name,
@@ -221,7 +222,7 @@ func compareChart(r *compareResult) plots.ComparisonChart {
 		ChangeUnits: "change from baseline",
 		Labels:      labels,
 		Baseline:    p.Baseline,
-		Capacity:    p.CapacityPerPeriod(),
+		Capacity:    supply.CapacityPerPeriod(p),
 	}
 	for _, sp := range p.Scenarios {
 		if len(sp.Events) == 0 {

@@ -1,6 +1,8 @@
 package main
 
 import (
+	"forelay/scenario/sim"
+	"forelay/scenario/supply"
 	"io"
 	"slices"
 
@@ -92,12 +94,12 @@ func (o *StressOptions) check() error {
 // stressResult is everything "forelay stress" computes.
 type stressResult struct {
 	Plan   *scenario.Plan
-	Sim    *scenario.Simulation
+	Sim    *sim.Simulation
 	Opts   *StressOptions
-	Risks  []scenario.Risk
-	Frozen []scenario.StockProjection // nil unless production is frozen
-	Source string                     // where frozen production comes from
-	Chart  int                        // the scenario charted
+	Risks  []supply.Risk
+	Frozen []supply.StockProjection // nil unless production is frozen
+	Source string                   // where frozen production comes from
+	Chart  int                      // the scenario charted
 	Notes  []string
 	// Warnings are the plan's warnings and, under frozen production, one
 	// per period where the plan asks for more than capacity.
@@ -115,24 +117,24 @@ func computeStress(opts *StressOptions) (*stressResult, error) {
 	if err != nil {
 		return nil, err
 	}
-	sim, err := simulate(p, &opts.Sim)
+	mc, err := simulate(p, &opts.Sim)
 	if err != nil {
 		return nil, err
 	}
-	r := &stressResult{Plan: p, Sim: sim, Opts: opts, Chart: chart, Notes: simNotes(p), Warnings: p.Warnings}
-	capacity := p.CapacityPerPeriod()
-	for _, ps := range sim.Scenarios {
-		r.Risks = append(r.Risks, scenario.CapacityRisk(ps, capacity, opts.Breach))
+	r := &stressResult{Plan: p, Sim: mc, Opts: opts, Chart: chart, Notes: simNotes(p), Warnings: p.Warnings}
+	capacity := supply.CapacityPerPeriod(p)
+	for _, ps := range mc.Scenarios {
+		r.Risks = append(r.Risks, supply.CapacityRisk(ps, capacity, opts.Breach))
 	}
 	if pr := p.File.Production; pr != nil && pr.Mode == scenario.Frozen {
-		prod, src, err := p.FrozenProduction()
+		prod, src, err := supply.FrozenProduction(p)
 		if err != nil {
 			return nil, &inputError{err: err}
 		}
 		r.Source = src
-		r.Warnings = append(slices.Clip(r.Warnings), p.OverloadWarnings(prod, src)...)
+		r.Warnings = append(slices.Clip(r.Warnings), supply.OverloadWarnings(p, prod, src)...)
 		for s, sp := range p.Scenarios {
-			r.Frozen = append(r.Frozen, scenario.ProjectStock(prod, sp.Adjusted, capacity, opts.OpeningStock, sim.Scenarios[s]))
+			r.Frozen = append(r.Frozen, supply.ProjectStock(prod, sp.Adjusted, capacity, opts.OpeningStock, mc.Scenarios[s]))
 		}
 	} else if pr != nil && pr.Plan != "" {
 		r.Notes = append(r.Notes, "production.plan is read only with production mode frozen")

@@ -3,6 +3,7 @@ package main
 import (
 	"forelay/plots"
 	"forelay/scenario"
+	"forelay/scenario/supply"
 )
 
 // fanLabels returns the x labels of a chart that shows the last periods
@@ -40,7 +41,7 @@ func fanChart(r *stressResult) plots.FanChart {
 	for t, pr := range rk.Periods {
 		c.P5[t], c.P10[t], c.P50[t], c.P90[t], c.P95[t], c.Mean[t] = pr.P5, pr.P10, pr.P50, pr.P90, pr.P95, pr.Mean
 	}
-	if capacity := p.CapacityPerPeriod(); capacity != nil {
+	if capacity := supply.CapacityPerPeriod(p); capacity != nil {
 		c.Capacity = capacity
 	}
 	return c

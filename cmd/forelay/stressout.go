@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"forelay/scenario/report"
+	"forelay/scenario/supply"
 	"io"
 	"math"
 	"strings"
@@ -94,9 +95,9 @@ func eventIDs(list []*scenario.Event) []string {
 }
 
 func stressJSON(r *stressResult) stressOutJSON {
-	p, sim := r.Plan, r.Sim
-	o := stressOutJSON{Plan: p.File.Plan, Units: p.File.Units, Series: p.History.Name, Paths: sim.Paths, Seed: sim.Seed,
-		Errors: sim.Errors.String(), ErrorPool: sim.Pool, Psi: nums(sim.Psi), Quantiles: quantileDefinition,
+	p, mc := r.Plan, r.Sim
+	o := stressOutJSON{Plan: p.File.Plan, Units: p.File.Units, Series: p.History.Name, Paths: mc.Paths, Seed: mc.Seed,
+		Errors: mc.Errors.String(), ErrorPool: mc.Pool, Psi: nums(mc.Psi), Quantiles: quantileDefinition,
 		BreachThreshold: num(r.Opts.Breach), Inputs: p.Digests, Notes: r.Notes, Warnings: warningList(r.Warnings), Caution: report.Caution}
 	for s, rk := range r.Risks {
 		sj := stressScenarioJSON{Name: rk.Name, Events: eventIDs(p.Scenarios[s].Events),
@@ -158,7 +159,7 @@ func stressCSV(r *stressResult) ([]byte, error) {
 
 // writeStressText writes the human report of a stress run.
 func writeStressText(w io.Writer, r *stressResult) {
-	p, sim := r.Plan, r.Sim
+	p, mc := r.Plan, r.Sim
 	f := p.File
 	units := ""
 	if f.Units != "" {
@@ -166,7 +167,7 @@ func writeStressText(w io.Writer, r *stressResult) {
 	}
 	fmt.Fprintf(w, "Stress test %s: series %s, %d %s periods %s to %s%s\n", f.Plan, p.History.Name, len(p.Periods),
 		p.History.Freq(), p.Periods[0], p.Periods[len(p.Periods)-1], inUnits(f.Units))
-	fmt.Fprintf(w, "Monte Carlo: %s; quantiles by Hyndman-Fan type 7\n", simText(sim))
+	fmt.Fprintf(w, "Monte Carlo: %s; quantiles by Hyndman-Fan type 7\n", simText(mc))
 	hasCap := f.Capacity != nil
 	if hasCap {
 		fmt.Fprintf(w, "Capacity: %s; breach threshold %s\n", capacityText(p), pctText(r.Opts.Breach))
@@ -220,7 +221,7 @@ func writeStressText(w io.Writer, r *stressResult) {
 }
 
 // writeFrozenText writes the frozen-production projection of a scenario.
-func writeFrozenText(w io.Writer, p *scenario.Plan, fz scenario.StockProjection, source, units string) {
+func writeFrozenText(w io.Writer, p *scenario.Plan, fz supply.StockProjection, source, units string) {
 	from := "the baseline (the previous plan)"
 	if source != "baseline" {
 		from = source
@@ -255,7 +256,7 @@ func writeFrozenText(w io.Writer, p *scenario.Plan, fz scenario.StockProjection,
 // writeOverloadText says in which periods the frozen plan asks for more
 // than the capacity, if any. The overload is counted period by period,
 // never netted against idle capacity elsewhere.
-func writeOverloadText(w io.Writer, p *scenario.Plan, fz scenario.StockProjection, units string) {
+func writeOverloadText(w io.Writer, p *scenario.Plan, fz supply.StockProjection, units string) {
 	var over []string
 	for i, v := range fz.Overload {
 		if v > 0 {

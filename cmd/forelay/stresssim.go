@@ -3,6 +3,7 @@ package main
 import (
 	"errors"
 	"fmt"
+	"forelay/scenario/sim"
 	"math"
 	"strconv"
 	"strings"
@@ -27,7 +28,7 @@ type simFlags struct {
 const defaultSeed = 1
 
 func (s *simFlags) register(fl *pflag.FlagSet) {
-	fl.Var(newCountValue(&s.Paths, scenario.DefaultPaths), "paths", fmt.Sprintf("number of Monte Carlo sample paths, at least %d; 2e5 is read as 200000", scenario.MinPaths))
+	fl.Var(newCountValue(&s.Paths, sim.DefaultPaths), "paths", fmt.Sprintf("number of Monte Carlo sample paths, at least %d; 2e5 is read as 200000", sim.MinPaths))
 	fl.Uint64Var(&s.Seed, "seed", defaultSeed, "seed of the random streams; the same seed gives the same results")
 	fl.StringVar(&s.Errors, "errors", "bootstrap", "forecast errors: bootstrap (resample the in-sample one-step errors) or normal")
 	fl.Var(&givenInt{n: &s.Workers, given: &s.WorkersGiven}, "workers", "Monte Carlo blocks drawn at once, at least 1 (default: one per core); the results are the same for any number")
@@ -39,10 +40,10 @@ func (s *simFlags) check(l limits) error {
 	if int64(s.Paths) > l.get("paths") {
 		return l.exceeded("--paths", "paths", int64(s.Paths))
 	}
-	if s.Paths < scenario.MinPaths {
-		return flagErrorf("--paths %d: at least %d paths are needed (with fewer, P5 and P95 rest on a handful of paths)", s.Paths, scenario.MinPaths)
+	if s.Paths < sim.MinPaths {
+		return flagErrorf("--paths %d: at least %d paths are needed (with fewer, P5 and P95 rest on a handful of paths)", s.Paths, sim.MinPaths)
 	}
-	if _, err := scenario.ParseErrorModel(s.Errors); err != nil {
+	if _, err := sim.ParseErrorModel(s.Errors); err != nil {
 		return &flagError{err: fmt.Errorf("--errors: %w", err)}
 	}
 	if s.WorkersGiven && s.Workers < 1 {
@@ -51,34 +52,34 @@ func (s *simFlags) check(l limits) error {
 	return nil
 }
 
-// options returns the settings for scenario.Simulate; check must have
+// options returns the settings for sim.Simulate; check must have
 // passed.
-func (s *simFlags) options() scenario.SimOptions {
-	em, _ := scenario.ParseErrorModel(s.Errors)
-	return scenario.SimOptions{Paths: s.Paths, Seed: s.Seed, Errors: em, Workers: s.Workers}
+func (s *simFlags) options() sim.SimOptions {
+	em, _ := sim.ParseErrorModel(s.Errors)
+	return sim.SimOptions{Paths: s.Paths, Seed: s.Seed, Errors: em, Workers: s.Workers}
 }
 
 // simulate runs the Monte Carlo; a plan whose errors cannot be drawn is
 // an input error.
-func simulate(p *scenario.Plan, s *simFlags) (*scenario.Simulation, error) {
-	sim, err := scenario.Simulate(p, s.options())
+func simulate(p *scenario.Plan, s *simFlags) (*sim.Simulation, error) {
+	mc, err := sim.Simulate(p, s.options())
 	if err != nil {
-		if errors.Is(err, scenario.ErrTooFewPaths) {
+		if errors.Is(err, sim.ErrTooFewPaths) {
 			return nil, &flagError{err: err}
 		}
 		return nil, &inputError{err: fmt.Errorf("%s: %w", p.File.Path, err)}
 	}
-	return sim, nil
+	return mc, nil
 }
 
 // simText describes a simulation in one line: "10,000 paths, seed 1,
 // errors resampled from 94 in-sample one-step errors".
-func simText(sim *scenario.Simulation) string {
-	how := fmt.Sprintf("errors resampled from %d in-sample one-step errors", sim.Pool)
-	if sim.Errors == scenario.Normal {
+func simText(mc *sim.Simulation) string {
+	how := fmt.Sprintf("errors resampled from %d in-sample one-step errors", mc.Pool)
+	if mc.Errors == sim.Normal {
 		how = "normal errors with the band variance"
 	}
-	return fmt.Sprintf("%s paths, seed %d, %s", fmtNum(float64(sim.Paths), 0), sim.Seed, how)
+	return fmt.Sprintf("%s paths, seed %d, %s", fmtNum(float64(mc.Paths), 0), mc.Seed, how)
 }
 
 // checkUnit reports a flag value outside the open interval (0, 1).

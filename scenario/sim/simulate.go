@@ -1,8 +1,9 @@
-package scenario
+package sim
 
 import (
 	"errors"
 	"fmt"
+	"forelay/scenario"
 	"math"
 	"slices"
 	"strings"
@@ -158,7 +159,7 @@ type SimOptions struct {
 // and put together.
 type Simulation struct {
 	// Plan is the plan simulated.
-	Plan *Plan
+	Plan *scenario.Plan
 	// Paths, Seed and Errors are the settings used.
 	Paths  int
 	Seed   uint64
@@ -195,6 +196,14 @@ type PathSet struct {
 }
 
 // summarise fills Spread from Demand; Spread must be allocated.
+// NewPathSet returns the path set of demand (demand[t][i]: period t of
+// path i) with its spread per period worked out, as Simulate makes them.
+func NewPathSet(name string, demand [][]float64) *PathSet {
+	ps := &PathSet{Name: name, Demand: demand, Spread: make([]Spread, len(demand))}
+	ps.summarise()
+	return ps
+}
+
 func (ps *PathSet) summarise() {
 	if len(ps.Demand) == 0 {
 		return
@@ -275,12 +284,12 @@ func shockPool(res []float64) (pool []float64, s2 float64) {
 
 // unitShape returns an event's contribution per unit of its effect (1 unit,
 // or 1 percent) in each period of the baseline.
-func unitShape(e *Event, first forecast.Period, baseline []float64) []float64 {
+func unitShape(e *scenario.Event, first forecast.Period, baseline []float64) []float64 {
 	u := *e
 	if u.Effect.IsPercent {
-		u.Effect = Effect{Percent: 1, IsPercent: true}
+		u.Effect = scenario.Effect{Percent: 1, IsPercent: true}
 	} else {
-		u.Effect = Effect{Units: 1}
+		u.Effect = scenario.Effect{Units: 1}
 	}
 	return u.Contribution(first, baseline)
 }
@@ -308,7 +317,7 @@ func matrix(rows, n int) [][]float64 {
 // horizon, and so does the memory: 8 × Paths × (H × (1 + scenarios) +
 // events) bytes for the error, demand and event draws of every path, and
 // 8 × (Paths + 32 H) bytes of scratch space per worker.
-func Simulate(p *Plan, opt SimOptions) (*Simulation, error) {
+func Simulate(p *scenario.Plan, opt SimOptions) (*Simulation, error) {
 	n := opt.Paths
 	if n == 0 {
 		n = DefaultPaths

@@ -1,6 +1,9 @@
-package scenario
+package supply
 
 import (
+	"forelay/scenario"
+	"forelay/scenario/internal/plantest"
+	"forelay/scenario/sim"
 	"math"
 	"testing"
 )
@@ -28,7 +31,7 @@ capacity: {units: 1300}
 
 func TestCompare(t *testing.T) {
 	p := buildTestPlan(t, compareBody, testHistory(48))
-	sim, err := Simulate(p, SimOptions{Paths: 2000, Seed: 4})
+	sim, err := sim.Simulate(p, sim.SimOptions{Paths: 2000, Seed: 4})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -36,22 +39,22 @@ func TestCompare(t *testing.T) {
 	if len(cs) != 2 || cs[0].Name != "base" || cs[1].Name != "both" {
 		t.Fatalf("comparisons %+v", cs)
 	}
-	capacity := p.CapacityPerPeriod()
+	capacity := CapacityPerPeriod(p)
 	for s, c := range cs {
 		// The contributions add up to the change against the baseline.
 		sum := 0.0
 		for _, k := range c.Contributions {
 			sum += k.Total
 		}
-		same(t, c.Name+": contributions", sum, c.Total-c.BaselineTotal, 1e-9)
-		same(t, c.Name+": total", c.Total, Total(p.Scenarios[s].Adjusted), 0)
+		plantest.Same(t, c.Name+": contributions", sum, c.Total-c.BaselineTotal, 1e-9)
+		plantest.Same(t, c.Name+": total", c.Total, scenario.Total(p.Scenarios[s].Adjusted), 0)
 		// The breach probability and pre-build are those of CapacityRisk
 		// and PlanBuffer on the same paths.
-		same(t, c.Name+": P(any breach)", c.PAnyBreach, CapacityRisk(sim.Scenarios[s], capacity, 0.1).PAnyBreach, 0)
+		plantest.Same(t, c.Name+": P(any breach)", c.PAnyBreach, CapacityRisk(sim.Scenarios[s], capacity, 0.1).PAnyBreach, 0)
 		b := PlanBuffer(sim.Scenarios[s].QuantileDemand(0.95), capacity, 0)
-		same(t, c.Name+": prebuild", c.Prebuild, b.Prebuild, 0)
-		_, v := Peak(sim.Scenarios[s].QuantileDemand(0.9))
-		same(t, c.Name+": P90 peak", c.P90PeakValue, v, 1e-9)
+		plantest.Same(t, c.Name+": prebuild", c.Prebuild, b.Prebuild, 0)
+		_, v := scenario.Peak(sim.Scenarios[s].QuantileDemand(0.9))
+		plantest.Same(t, c.Name+": P90 peak", c.P90PeakValue, v, 1e-9)
 	}
 	if len(cs[0].Contributions) != 0 || len(cs[1].Contributions) != 2 {
 		t.Errorf("contributions %v / %v", cs[0].Contributions, cs[1].Contributions)
@@ -60,7 +63,7 @@ func TestCompare(t *testing.T) {
 	// one period in June that gives back the same units: -0.2 b_May +
 	// 0.2 b_May = 0.
 	out := cs[1].Contributions[1]
-	same(t, "outage total", out.Total, 0, 1e-6)
+	plantest.Same(t, "outage total", out.Total, 0, 1e-6)
 	p.File.Capacity = nil
 	for _, c := range Compare(sim, 0.95) {
 		if !math.IsNaN(c.PAnyBreach) || !math.IsNaN(c.Prebuild) || c.PrebuildAt != -1 {

@@ -1,8 +1,9 @@
-package scenario
+package supply
 
 import (
 	"fmt"
 	"forelay/forecast"
+	"forelay/scenario"
 	"math"
 	"strconv"
 )
@@ -29,11 +30,11 @@ func splitCapacity(c, prod float64) (idle, overload float64) {
 // is never netted against the idle capacity of other periods. It returns
 // nil without a capacity or without overload, and panics if prod is not as
 // long as the plan.
-func (p *Plan) OverloadWarnings(prod []float64, source string) []string {
+func OverloadWarnings(p *scenario.Plan, prod []float64, source string) []string {
 	if len(prod) != len(p.Periods) {
 		panic("scenario: OverloadWarnings with production of the wrong length")
 	}
-	capacity := p.CapacityPerPeriod()
+	capacity := CapacityPerPeriod(p)
 	if capacity == nil {
 		return nil
 	}

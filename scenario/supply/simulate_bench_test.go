@@ -1,7 +1,9 @@
-package scenario
+package supply
 
 import (
 	"fmt"
+	"forelay/scenario"
+	"forelay/scenario/sim"
 	"runtime"
 	"strings"
 	"testing"
@@ -49,16 +51,16 @@ func horizonBody(h int) string {
 // runSimBench draws 10,000 paths of plan p per iteration and sets them
 // against capacity. Workers is left at zero, one per core: -cpu N runs
 // the benchmarks on N workers (the results are the same for any N).
-func runSimBench(b *testing.B, p *Plan) {
-	capacity := p.CapacityPerPeriod()
+func runSimBench(b *testing.B, p *scenario.Plan) {
+	capacity := CapacityPerPeriod(p)
 	b.ReportAllocs()
 	b.ResetTimer()
 	for b.Loop() {
-		sim, err := Simulate(p, SimOptions{Paths: 10000, Seed: 1})
+		s, err := sim.Simulate(p, sim.SimOptions{Paths: 10000, Seed: 1})
 		if err != nil {
 			b.Fatal(err)
 		}
-		CapacityRisk(sim.Scenarios[0], capacity, 0.1)
+		CapacityRisk(s.Scenarios[0], capacity, 0.1)
 	}
 }
 
@@ -99,10 +101,10 @@ func BenchmarkSimulateHorizon3000(b *testing.B) { benchHorizon(b, 3000) }
 func BenchmarkSimulateHorizonRatio(b *testing.B) {
 	short := buildTestPlan(b, horizonBody(36), testHistory(48))
 	long := buildTestPlan(b, horizonBody(360), testHistory(48))
-	timeOne := func(p *Plan) time.Duration {
+	timeOne := func(p *scenario.Plan) time.Duration {
 		runtime.GC()
 		t0 := cpuTime()
-		if _, err := Simulate(p, SimOptions{Paths: 10000, Seed: 1}); err != nil {
+		if _, err := sim.Simulate(p, sim.SimOptions{Paths: 10000, Seed: 1}); err != nil {
 			b.Fatal(err)
 		}
 		return cpuTime() - t0

@@ -1,6 +1,6 @@
 //go:build !unix
 
-package scenario
+package supply
 
 import "time"
 

@@ -1,6 +1,7 @@
-package scenario
+package sim
 
 import (
+	"forelay/scenario/internal/plantest"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -55,7 +56,7 @@ func TestErrorFilterByHand(t *testing.T) {
 		{"damped", &shockResponse{m: 1, phi: 0.5, a: []float64{0}, b: []float64{1}, active: []int{0}, trend: true}, []float64{1, 2.5, 4.75, 7.875, 11.9375}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			equalSlices(t, "u", filterAll(tc.r, eps), tc.want, 1e-12)
+			plantest.EqualSlices(t, "u", filterAll(tc.r, eps), tc.want, 1e-12)
 		})
 	}
 }
@@ -75,7 +76,7 @@ func TestErrorFilterMatchesConvolution(t *testing.T) {
 	for i := range eps {
 		eps[i] = r.NormFloat64()
 	}
-	equalSlices(t, "u", filterAll(resp, eps), convolve(resp.weights(h+1), eps), 1e-10)
+	plantest.EqualSlices(t, "u", filterAll(resp, eps), convolve(resp.weights(h+1), eps), 1e-10)
 }
 
 func TestFitResponse(t *testing.T) {
@@ -101,8 +102,8 @@ func TestFitResponse(t *testing.T) {
 	if !ok {
 		t.Fatal("the form was not found")
 	}
-	equalSlices(t, "a", r.a, []float64{2, 1}, 1e-12)
-	equalSlices(t, "b", r.b, []float64{3, 0}, 1e-12)
+	plantest.EqualSlices(t, "a", r.a, []float64{2, 1}, 1e-12)
+	plantest.EqualSlices(t, "b", r.b, []float64{3, 0}, 1e-12)
 }
 
 // intermittent returns invented intermittent demand: zero in two periods
@@ -156,7 +157,7 @@ func TestModelResponses(t *testing.T) {
 				t.Fatal("no recursion: the simulation would fall back to the O(h²) sums")
 			}
 			// The weights differ from ImpulseWeights by rounding only.
-			equalSlices(t, "psi", psi, forecast.ImpulseWeights(md, tc.y, h), 1e-9)
+			plantest.EqualSlices(t, "psi", psi, forecast.ImpulseWeights(md, tc.y, h), 1e-9)
 		})
 	}
 }
@@ -182,8 +183,8 @@ func TestModelResponseETS(t *testing.T) {
 		if k == 0 {
 			wantA += par.Gamma
 		}
-		same(t, sprintf("a[%d]", k), r.a[k], wantA, 1e-9)
-		same(t, sprintf("b[%d]", k), r.b[k], par.Alpha*par.Beta, 1e-9)
+		plantest.Same(t, sprintf("a[%d]", k), r.a[k], wantA, 1e-9)
+		plantest.Same(t, sprintf("b[%d]", k), r.b[k], par.Alpha*par.Beta, 1e-9)
 	}
 }
 

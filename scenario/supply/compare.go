@@ -1,6 +1,8 @@
-package scenario
+package supply
 
 import (
+	"forelay/scenario"
+	"forelay/scenario/sim"
 	"math"
 	"slices"
 )
@@ -11,7 +13,7 @@ type Comparison struct {
 	// Name is the scenario's name and Events its future events, in file
 	// order.
 	Name   string
-	Events []*Event
+	Events []*scenario.Event
 	// Total is the sum of the adjusted plan over the plan's periods and
 	// BaselineTotal the baseline's.
 	Total, BaselineTotal float64
@@ -50,21 +52,21 @@ type Contribution struct {
 // Compare returns the key figures of every scenario of the simulated plan,
 // in file order. The pre-build need uses each scenario's simulated demand
 // at the service quantile. It panics if service is outside [0, 1].
-func Compare(sim *Simulation, service float64) []Comparison {
+func Compare(sim *sim.Simulation, service float64) []Comparison {
 	p := sim.Plan
-	capacity := p.CapacityPerPeriod()
-	base := Total(p.Baseline)
+	capacity := CapacityPerPeriod(p)
+	base := scenario.Total(p.Baseline)
 	out := make([]Comparison, len(p.Scenarios))
 	for s, sp := range p.Scenarios {
 		ps := sim.Scenarios[s]
-		c := Comparison{Name: sp.Name, Events: slices.Clone(sp.Events), Total: Total(sp.Adjusted), BaselineTotal: base,
+		c := Comparison{Name: sp.Name, Events: slices.Clone(sp.Events), Total: scenario.Total(sp.Adjusted), BaselineTotal: base,
 			PAnyBreach: math.NaN(), Prebuild: math.NaN(), PrebuildAt: -1}
-		c.Peak, c.PeakValue = Peak(sp.Adjusted)
+		c.Peak, c.PeakValue = scenario.Peak(sp.Adjusted)
 		p90 := make([]float64, len(ps.Spread))
 		for t, sd := range ps.Spread {
 			p90[t] = sd.P90
 		}
-		c.P90Peak, c.P90PeakValue = Peak(p90)
+		c.P90Peak, c.P90PeakValue = scenario.Peak(p90)
 		if capacity != nil {
 			c.PAnyBreach = CapacityRisk(ps, capacity, 1).PAnyBreach
 			b := PlanBuffer(ps.QuantileDemand(service), capacity, 0)
@@ -72,7 +74,7 @@ func Compare(sim *Simulation, service float64) []Comparison {
 		}
 		for k, e := range p.Future {
 			if slices.Contains(sp.Events, e) {
-				c.Contributions = append(c.Contributions, Contribution{ID: e.ID, Total: Total(sp.Contrib[k])})
+				c.Contributions = append(c.Contributions, Contribution{ID: e.ID, Total: scenario.Total(sp.Contrib[k])})
 			}
 		}
 		out[s] = c

@@ -1,8 +1,9 @@
-package scenario
+package supply
 
 import (
-	"fmt"
+	"forelay/scenario"
 	"forelay/scenario/data"
+	"forelay/scenario/sim"
 	"math"
 	"os"
 	"slices"
@@ -12,7 +13,7 @@ import (
 
 // CapacityPerPeriod returns the capacity in each of the plan's periods
 // (Capacity.At), or nil when the file sets no capacity.
-func (p *Plan) CapacityPerPeriod() []float64 {
+func CapacityPerPeriod(p *scenario.Plan) []float64 {
 	c := p.File.Capacity
 	if c == nil {
 		return nil
@@ -27,7 +28,7 @@ func (p *Plan) CapacityPerPeriod() []float64 {
 // PeriodRisk is the simulated demand of one period set against capacity.
 type PeriodRisk struct {
 	// Spread holds the mean and quantiles of the demand.
-	Spread
+	sim.Spread
 	// Capacity is the period's capacity, NaN when there is none; the
 	// fields below are then NaN too.
 	Capacity float64
@@ -70,7 +71,7 @@ type Risk struct {
 // period (nil or NaN entries: no limit) and finds the first period whose
 // breach probability is above threshold. It panics if capacity is neither
 // nil nor as long as the plan.
-func CapacityRisk(ps *PathSet, capacity []float64, threshold float64) Risk {
+func CapacityRisk(ps *sim.PathSet, capacity []float64, threshold float64) Risk {
 	H := len(ps.Demand)
 	if capacity != nil && len(capacity) != H {
 		panic("scenario: CapacityRisk with capacity of the wrong length")
@@ -155,18 +156,13 @@ func CapacityRisk(ps *PathSet, capacity []float64, threshold float64) Risk {
 // bad file, or naming the scenario file's production.plan key when the
 // CSV holds several series and none is named like the history's, or does
 // not cover every plan period.
-func (p *Plan) FrozenProduction() (prod []float64, source string, err error) {
+func FrozenProduction(p *scenario.Plan) (prod []float64, source string, err error) {
 	pr := p.File.Production
 	if pr == nil || pr.Plan == "" {
 		return slices.Clone(p.Baseline), "baseline", nil
 	}
-	at := pr.Pos
-	if q, ok := p.File.pos["production.plan"]; ok {
-		at = q
-	}
 	fail := func(format string, args ...any) error {
-		return &data.ParseError{File: p.File.Path, Line: at.Line, Column: at.Column, Field: "production.plan",
-			Err: &problem{kind: ErrValue, msg: fmt.Sprintf(format, args...)}}
+		return p.File.ValueError("production.plan", pr.Pos, format, args...)
 	}
 	fh, err := os.Open(pr.Plan)
 	if err != nil {
@@ -237,7 +233,7 @@ type StockProjection struct {
 // production as planned, also where the plan asks for more than the
 // capacity (Overload; OverloadWarnings says so to the planner). It panics
 // if the slices differ in length from prod.
-func ProjectStock(prod, demand, capacity []float64, opening float64, ps *PathSet) StockProjection {
+func ProjectStock(prod, demand, capacity []float64, opening float64, ps *sim.PathSet) StockProjection {
 	H := len(prod)
 	if len(demand) != H || (capacity != nil && len(capacity) != H) || (ps != nil && len(ps.Demand) != H) {
 		panic("scenario: ProjectStock with slices of different lengths")
@@ -287,9 +283,8 @@ func ProjectStock(prod, demand, capacity []float64, opening float64, ps *PathSet
 			}
 		}
 		copy(col, cum)
-		o := orderStats{x: col}
-		sp.StockP50[t] = made - o.quantile(0.5)
-		sp.StockP90[t] = made - o.quantile(0.9)
+		sp.StockP50[t] = made - sim.QuantileOf(col, 0.5)
+		sp.StockP90[t] = made - sim.QuantileOf(col, 0.9)
 		sp.PShort[t] = float64(short) / float64(n)
 	}
 	return sp

@@ -1,34 +1,18 @@
-package scenario
+package supply
 
 import (
 	"errors"
+	"forelay/scenario"
 	"forelay/scenario/data"
+	"forelay/scenario/internal/plantest"
+	"forelay/scenario/sim"
 	"math"
 	"strings"
 	"testing"
-
-	"gonum.org/v1/gonum/floats/scalar"
 )
 
 // handPaths makes a PathSet from demand[t][i].
-func handPaths(name string, demand [][]float64) *PathSet {
-	ps := &PathSet{Name: name, Demand: demand, Spread: make([]Spread, len(demand))}
-	ps.summarise()
-	return ps
-}
-
-func same(t *testing.T, what string, got, want, tol float64) {
-	t.Helper()
-	if math.IsNaN(want) {
-		if !math.IsNaN(got) {
-			t.Errorf("%s = %v, want NaN", what, got)
-		}
-		return
-	}
-	if !scalar.EqualWithinAbsOrRel(got, want, tol, tol) {
-		t.Errorf("%s = %.12g, want %.12g", what, got, want)
-	}
-}
+func handPaths(name string, demand [][]float64) *sim.PathSet { return sim.NewPathSet(name, demand) }
 
 func TestCapacityRisk(t *testing.T) {
 	nan := math.NaN()
@@ -71,21 +55,21 @@ func TestCapacityRisk(t *testing.T) {
 			}
 			for i, w := range want {
 				pr := r.Periods[i]
-				same(t, "p_breach", pr.PBreach, w.pb, 1e-12)
-				same(t, "expected shortfall", pr.ExpectedShortfall, w.es, 1e-12)
-				same(t, "shortfall if breach", pr.ShortfallIfBreach, w.ifb, 1e-12)
-				same(t, "util P50", pr.UtilP50, w.u50, 1e-12)
-				same(t, "util P90", pr.UtilP90, w.u90, 1e-12)
+				plantest.Same(t, "p_breach", pr.PBreach, w.pb, 1e-12)
+				plantest.Same(t, "expected shortfall", pr.ExpectedShortfall, w.es, 1e-12)
+				plantest.Same(t, "shortfall if breach", pr.ShortfallIfBreach, w.ifb, 1e-12)
+				plantest.Same(t, "util P50", pr.UtilP50, w.u50, 1e-12)
+				plantest.Same(t, "util P90", pr.UtilP90, w.u90, 1e-12)
 			}
-			same(t, "total expected shortfall", r.TotalExpectedShortfall, 0.65, 1e-12)
-			same(t, "P(any breach)", r.PAnyBreach, 0.4, 1e-12)
+			plantest.Same(t, "total expected shortfall", r.TotalExpectedShortfall, 0.65, 1e-12)
+			plantest.Same(t, "P(any breach)", r.PAnyBreach, 0.4, 1e-12)
 		})
 	}
 	r := CapacityRisk(ps, nil, 0.1)
 	if r.FirstBreach != -1 || !math.IsNaN(r.TotalExpectedShortfall) || !math.IsNaN(r.PAnyBreach) || !math.IsNaN(r.Periods[0].PBreach) {
 		t.Errorf("without capacity: %+v", r)
 	}
-	same(t, "mean without capacity", r.Periods[0].Mean, 5.5, 1e-12)
+	plantest.Same(t, "mean without capacity", r.Periods[0].Mean, 5.5, 1e-12)
 }
 
 func TestProjectStock(t *testing.T) {
@@ -101,17 +85,17 @@ func TestProjectStock(t *testing.T) {
 	// Paths short: 1, 1 and 2 of 4.
 	ps := handPaths("s", [][]float64{{90, 100, 110, 120}, {100, 100, 100, 100}, {100, 120, 80, 140}})
 	sp := ProjectStock([]float64{100, 100, 100}, []float64{80, 90, 150}, []float64{120, 120, 90}, 10, ps)
-	equalSlices(t, "stock", sp.Stock, []float64{30, 40, -10}, 1e-12)
-	equalSlices(t, "idle", sp.Idle, []float64{20, 20, 0}, 1e-12)
-	equalSlices(t, "overload", sp.Overload, []float64{0, 0, 10}, 1e-12)
-	equalSlices(t, "stock at P50", sp.StockP50, []float64{5, 5, 5}, 1e-12)
-	equalSlices(t, "stock at P90", sp.StockP90, []float64{-7, -7, -38}, 1e-12)
-	equalSlices(t, "share short", sp.PShort, []float64{0.25, 0.25, 0.5}, 1e-12)
+	plantest.EqualSlices(t, "stock", sp.Stock, []float64{30, 40, -10}, 1e-12)
+	plantest.EqualSlices(t, "idle", sp.Idle, []float64{20, 20, 0}, 1e-12)
+	plantest.EqualSlices(t, "overload", sp.Overload, []float64{0, 0, 10}, 1e-12)
+	plantest.EqualSlices(t, "stock at P50", sp.StockP50, []float64{5, 5, 5}, 1e-12)
+	plantest.EqualSlices(t, "stock at P90", sp.StockP90, []float64{-7, -7, -38}, 1e-12)
+	plantest.EqualSlices(t, "share short", sp.PShort, []float64{0.25, 0.25, 0.5}, 1e-12)
 	if sp.FirstShortfall != 2 || sp.Low != 2 || sp.High != 1 {
 		t.Errorf("first shortfall %d, low %d, high %d; want 2, 2, 1", sp.FirstShortfall, sp.Low, sp.High)
 	}
 	nop := ProjectStock([]float64{5, 5}, []float64{1, 2}, nil, 0, nil)
-	equalSlices(t, "stock (no paths)", nop.Stock, []float64{4, 7}, 0)
+	plantest.EqualSlices(t, "stock (no paths)", nop.Stock, []float64{4, 7}, 0)
 	if !math.IsNaN(nop.Idle[0]) || !math.IsNaN(nop.Overload[0]) || !math.IsNaN(nop.StockP50[0]) || nop.FirstShortfall != -1 {
 		t.Errorf("no capacity or paths: %+v", nop)
 	}
@@ -144,7 +128,7 @@ func TestFrozenProduction(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			got, src, err := p.FrozenProduction()
+			got, src, err := FrozenProduction(p)
 			if tc.wantErr != nil {
 				var pe *data.ParseError
 				if !errors.As(err, &pe) {
@@ -163,16 +147,16 @@ func TestFrozenProduction(t *testing.T) {
 			if !strings.HasSuffix(src, "prev.csv") {
 				t.Errorf("source %q", src)
 			}
-			equalSlices(t, "production", got, tc.want, 0)
+			plantest.EqualSlices(t, "production", got, tc.want, 0)
 		})
 	}
 	p := buildTestPlan(t, strings.Replace(frozenBody, ", plan: prev.csv", "", 1), hist)
-	got, src, err := p.FrozenProduction()
+	got, src, err := FrozenProduction(p)
 	if err != nil || src != "baseline" {
 		t.Fatalf("no plan CSV: %v, %q", err, src)
 	}
-	equalSlices(t, "production = baseline", got, p.Baseline, 0)
-	equalSlices(t, "capacity", p.CapacityPerPeriod(), []float64{2000, 2000, 2000}, 0)
+	plantest.EqualSlices(t, "production = baseline", got, p.Baseline, 0)
+	plantest.EqualSlices(t, "capacity", CapacityPerPeriod(p), []float64{2000, 2000, 2000}, 0)
 }
 
 const capacityBody = `plan: cap
@@ -186,9 +170,9 @@ capacity:
 func TestCapacityPerPeriod(t *testing.T) {
 	// Capacity.At: 1000 before the change in 2026-03, 1200 from it.
 	p := buildTestPlan(t, capacityBody, testHistory(48))
-	equalSlices(t, "capacity", p.CapacityPerPeriod(), []float64{1000, 1000, 1200, 1200}, 0)
+	plantest.EqualSlices(t, "capacity", CapacityPerPeriod(p), []float64{1000, 1000, 1200, 1200}, 0)
 	p.File.Capacity = nil
-	if p.CapacityPerPeriod() != nil {
+	if CapacityPerPeriod(p) != nil {
 		t.Error("no capacity gave a schedule")
 	}
 }
@@ -217,16 +201,16 @@ func TestOverload(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	prod, src, err := p.FrozenProduction()
+	prod, src, err := FrozenProduction(p)
 	if err != nil {
 		t.Fatal(err)
 	}
-	sp := ProjectStock(prod, p.Scenarios[0].Adjusted, p.CapacityPerPeriod(), 0, nil)
-	equalSlices(t, "idle", sp.Idle, []float64{30000, 0, 10000, 0}, 0)
-	equalSlices(t, "overload", sp.Overload, []float64{0, 20000, 0, 20000}, 0)
-	same(t, "total idle", Total(sp.Idle), 40000, 0)
+	sp := ProjectStock(prod, p.Scenarios[0].Adjusted, CapacityPerPeriod(p), 0, nil)
+	plantest.EqualSlices(t, "idle", sp.Idle, []float64{30000, 0, 10000, 0}, 0)
+	plantest.EqualSlices(t, "overload", sp.Overload, []float64{0, 20000, 0, 20000}, 0)
+	plantest.Same(t, "total idle", scenario.Total(sp.Idle), 40000, 0)
 
-	got := p.OverloadWarnings(prod, src)
+	got := OverloadWarnings(p, prod, src)
 	want := []string{
 		src + ": 2026-02 plans 700,000 against capacity 680,000 (overload 20,000 litres); lower the frozen plan or raise capacity",
 		src + ": 2026-04 plans 720,000 against capacity 700,000 (overload 20,000 litres); lower the frozen plan or raise capacity",
@@ -241,12 +225,12 @@ func TestOverload(t *testing.T) {
 	}
 	// Held at the baseline instead (the naive forecast, below capacity
 	// here: the history is about 1,200 a month), nothing is over.
-	if w := p.OverloadWarnings(p.Baseline, "baseline"); w != nil {
+	if w := OverloadWarnings(p, p.Baseline, "baseline"); w != nil {
 		t.Errorf("baseline production: warnings %q", w)
 	}
 	// Without capacity there is no overload to report.
 	p.File.Capacity = nil
-	if w := p.OverloadWarnings(prod, src); w != nil {
+	if w := OverloadWarnings(p, prod, src); w != nil {
 		t.Errorf("no capacity: warnings %q", w)
 	}
 }

@@ -1,6 +1,8 @@
-package scenario
+package supply
 
 import (
+	"forelay/scenario"
+	"forelay/scenario/internal/plantest"
 	"math"
 	"testing"
 )
@@ -40,8 +42,8 @@ var (
 )
 
 func TestRequiredStock(t *testing.T) {
-	equalSlices(t, "S", RequiredStock(handDemand, handCapacity), []float64{20, 60, 80, 90, 40, 0}, 0)
-	equalSlices(t, "S (never short)", RequiredStock([]float64{1, 2}, []float64{5, 5}), []float64{0, 0}, 0)
+	plantest.EqualSlices(t, "S", RequiredStock(handDemand, handCapacity), []float64{20, 60, 80, 90, 40, 0}, 0)
+	plantest.EqualSlices(t, "S (never short)", RequiredStock([]float64{1, 2}, []float64{5, 5}), []float64{0, 0}, 0)
 }
 
 func TestPlanBuffer(t *testing.T) {
@@ -63,13 +65,13 @@ func TestPlanBuffer(t *testing.T) {
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			b := PlanBuffer(handDemand, handCapacity, tc.opening)
-			equalSlices(t, "build", b.Build, tc.wantBuild, 1e-12)
-			equalSlices(t, "stock", b.Stock, tc.wantStock, 1e-12)
+			plantest.EqualSlices(t, "build", b.Build, tc.wantBuild, 1e-12)
+			plantest.EqualSlices(t, "stock", b.Stock, tc.wantStock, 1e-12)
 			if b.BuildStart != tc.wantStart || b.PrebuildAt != tc.wantPreAt {
 				t.Errorf("build start %d, prebuild at %d; want %d, %d", b.BuildStart, b.PrebuildAt, tc.wantStart, tc.wantPreAt)
 			}
-			same(t, "prebuild", b.Prebuild, tc.wantPrebuild, 0)
-			same(t, "gap", b.Gap, tc.wantGap, 0)
+			plantest.Same(t, "prebuild", b.Prebuild, tc.wantPrebuild, 0)
+			plantest.Same(t, "gap", b.Gap, tc.wantGap, 0)
 		})
 	}
 	b := PlanBuffer([]float64{1, 2}, []float64{5, 5}, 0)
@@ -93,15 +95,15 @@ func TestSafetyStock(t *testing.T) {
 		{0.5, 100, 4, 0},
 	} {
 		got := SafetyStock(tc.service, tc.sigma, tc.lead)
-		same(t, "safety stock", got, tc.want, 1e-6)
+		plantest.Same(t, "safety stock", got, tc.want, 1e-6)
 		// The cycle service level of that stock is the service asked for.
 		if tc.want != 0 {
-			same(t, "cycle service level", CycleServiceLevel(got, tc.sigma, tc.lead), tc.service, 1e-9)
+			plantest.Same(t, "cycle service level", CycleServiceLevel(got, tc.sigma, tc.lead), tc.service, 1e-9)
 		}
 	}
-	same(t, "z(0.95)", ServiceZ(0.95), 1.644854, 1e-6)
-	same(t, "CSL of no stock", CycleServiceLevel(0, 10, 1), 0.5, 1e-12)
-	same(t, "CSL with no error", CycleServiceLevel(0, 0, 1), 1, 0)
+	plantest.Same(t, "z(0.95)", ServiceZ(0.95), 1.644854, 1e-6)
+	plantest.Same(t, "CSL of no stock", CycleServiceLevel(0, 10, 1), 0.5, 1e-12)
+	plantest.Same(t, "CSL with no error", CycleServiceLevel(0, 0, 1), 1, 0)
 	for _, s := range []float64{0, 1, -0.1, 1.5, math.NaN()} {
 		if !math.IsNaN(SafetyStock(s, 1, 1)) {
 			t.Errorf("service %v gave a safety stock", s)
@@ -111,6 +113,6 @@ func TestSafetyStock(t *testing.T) {
 
 func TestBandDemand(t *testing.T) {
 	// Adjusted + z(0.95) sqrt(Var): with Var = 100, 1.644854 * 10 above.
-	p := &Plan{Scenarios: []ScenarioPlan{{Adjusted: []float64{500, 600}, Var: []float64{100, 400}}}}
-	equalSlices(t, "demand", p.BandDemand(0, 0.95), []float64{500 + 16.44854, 600 + 32.89707}, 1e-6)
+	p := &scenario.Plan{Scenarios: []scenario.ScenarioPlan{{Adjusted: []float64{500, 600}, Var: []float64{100, 400}}}}
+	plantest.EqualSlices(t, "demand", BandDemand(p, 0, 0.95), []float64{500 + 16.44854, 600 + 32.89707}, 1e-6)
 }

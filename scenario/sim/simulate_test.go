@@ -1,7 +1,9 @@
-package scenario
+package sim
 
 import (
 	"errors"
+	"forelay/scenario"
+	"forelay/scenario/internal/plantest"
 	"math"
 	"math/rand/v2"
 	"reflect"
@@ -54,8 +56,8 @@ func TestImpulseWeights(t *testing.T) {
 			}
 			orig := append([]float64(nil), y...)
 			got := forecast.ImpulseWeights(m, y, tc.h)
-			equalSlices(t, "psi", got, tc.want, tc.tol)
-			equalSlices(t, "y after", y, orig, 0)
+			plantest.EqualSlices(t, "psi", got, tc.want, tc.tol)
+			plantest.EqualSlices(t, "y after", y, orig, 0)
 		})
 	}
 }
@@ -82,7 +84,7 @@ func TestErrorScales(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			equalSlices(t, "k", got, tc.want, 1e-12)
+			plantest.EqualSlices(t, "k", got, tc.want, 1e-12)
 		})
 	}
 	if _, err := ErrorScales([]float64{math.NaN()}, 1, nil); err == nil {
@@ -348,7 +350,7 @@ func TestSimulateEventStreams(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	equalSlices(t, "promo draws", b.Amount[0], a.Amount[1], 0)
+	plantest.EqualSlices(t, "promo draws", b.Amount[0], a.Amount[1], 0)
 }
 
 // simModels are the three ways a simulation draws its errors: bootstrap
@@ -365,7 +367,7 @@ var simModels = []struct {
 
 // simPlan builds the event plan with a naive baseline (every psi weight
 // 1), hiding the model's form when opaque.
-func simPlan(t *testing.T, opaque bool) *Plan {
+func simPlan(t *testing.T, opaque bool) *scenario.Plan {
 	t.Helper()
 	p := buildTestPlan(t, strings.Replace(eventBody, "linear-trend, dummies: true", "naive", 1), testHistory(48))
 	if opaque {
@@ -457,7 +459,7 @@ func TestSimulateStreamDefinition(t *testing.T) {
 	shocks := rand.New(rand.NewPCG(seed, fnvRef("shock\x00demand\x001")))
 	events := rand.New(rand.NewPCG(seed, fnvRef("event\x00contract\x001")))
 	sd := math.Sqrt(sim.S2)
-	k := slices.IndexFunc(p.Future, func(e *Event) bool { return e.ID == "contract" })
+	k := slices.IndexFunc(p.Future, func(e *scenario.Event) bool { return e.ID == "contract" })
 	for i := StreamBlock; i < StreamBlock+5; i++ {
 		for tt := range p.Periods {
 			want := sim.Scale[tt] * (sd * shocks.NormFloat64())

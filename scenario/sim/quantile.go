@@ -1,6 +1,7 @@
-package scenario
+package sim
 
 import (
+	"forelay/scenario"
 	"math"
 	"math/bits"
 	"slices"
@@ -246,7 +247,7 @@ func mean(x []float64) float64 {
 	if len(x) == 0 {
 		return math.NaN()
 	}
-	return Total(x) / float64(len(x))
+	return scenario.Total(x) / float64(len(x))
 }
 
 // lomutoPartition splits x[lo:hi+1] (hi > lo) around the median of x[lo],

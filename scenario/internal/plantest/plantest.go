@@ -1,0 +1,83 @@
+// Package plantest writes the small invented plans the tests of the
+// planning packages build: a monthly history and a scenario file in a
+// temporary directory. It imports none of them, so that any of their
+// in-package tests can use it.
+package plantest
+
+import (
+	"fmt"
+	"math"
+	"math/rand/v2"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/gonum/floats/scalar"
+)
+
+// History returns n invented monthly values: a level of 1000 rising by 5
+// a month, a yearly swing of ±60 and noise with standard deviation 20
+// (seeded, so every run sees the same numbers).
+func History(n int) []float64 {
+	r := rand.New(rand.NewPCG(1, 1))
+	y := make([]float64, n)
+	for t := range y {
+		y[t] = 1000 + 5*float64(t) + 60*math.Sin(2*math.Pi*float64(t)/12) + 20*r.NormFloat64()
+	}
+	return y
+}
+
+// Write writes the history hist (monthly from 2022-01, series "demand")
+// as history.csv and the scenario file body as plan.yaml, with
+// "history: {file: history.csv}" put first, plus the other files (name to
+// content), into a temporary directory, and returns plan.yaml's path.
+func Write(tb testing.TB, body string, hist []float64, files map[string]string) string {
+	tb.Helper()
+	dir := tb.TempDir()
+	var b strings.Builder
+	b.WriteString("period,demand\n")
+	for t, v := range hist {
+		fmt.Fprintf(&b, "%d-%02d,%.4f\n", 2022+t/12, t%12+1, v)
+	}
+	all := map[string]string{"history.csv": b.String(), "plan.yaml": "history: {file: history.csv}\n" + body}
+	for k, v := range files {
+		all[k] = v
+	}
+	for name, content := range all {
+		if err := os.WriteFile(filepath.Join(dir, name), []byte(content), 0o644); err != nil {
+			tb.Fatal(err)
+		}
+	}
+	return filepath.Join(dir, "plan.yaml")
+}
+
+// EqualSlices reports, as test errors, the values of got that differ from
+// want by more than tol (absolute or relative), and a length that differs
+// as a fatal error.
+func EqualSlices(tb testing.TB, what string, got, want []float64, tol float64) {
+	tb.Helper()
+	if len(got) != len(want) {
+		tb.Fatalf("%s: len %d, want %d (%v)", what, len(got), len(want), got)
+	}
+	for i := range want {
+		if !scalar.EqualWithinAbsOrRel(got[i], want[i], tol, tol) {
+			tb.Errorf("%s[%d] = %.12g, want %.12g (all: %v)", what, i, got[i], want[i], got)
+		}
+	}
+}
+
+// Same reports a test error when got differs from want by more than tol
+// (absolute or relative); a NaN want asks for a NaN.
+func Same(tb testing.TB, what string, got, want, tol float64) {
+	tb.Helper()
+	if math.IsNaN(want) {
+		if !math.IsNaN(got) {
+			tb.Errorf("%s = %v, want NaN", what, got)
+		}
+		return
+	}
+	if !scalar.EqualWithinAbsOrRel(got, want, tol, tol) {
+		tb.Errorf("%s = %.12g, want %.12g", what, got, want)
+	}
+}

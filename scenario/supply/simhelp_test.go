@@ -1,0 +1,41 @@
+package supply
+
+import (
+	"fmt"
+	"testing"
+
+	"forelay/scenario"
+	"forelay/scenario/internal/plantest"
+)
+
+// testHistory is plantest.History.
+func testHistory(n int) []float64 { return plantest.History(n) }
+
+// buildTestPlan writes the history and the scenario file body (without
+// its history key) and builds the plan.
+func buildTestPlan(tb testing.TB, body string, hist []float64) *scenario.Plan {
+	tb.Helper()
+	f, err := scenario.Load(plantest.Write(tb, body, hist, nil))
+	if err != nil {
+		tb.Fatal(err)
+	}
+	p, err := scenario.Build(f)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	return p
+}
+
+// sprintf is fmt.Sprintf, short for the test tables.
+func sprintf(format string, a ...any) string { return fmt.Sprintf(format, a...) }
+
+// buildWithFiles is buildTestPlan with more files written beside the
+// scenario (name -> content); it returns the error of Load or Build.
+func buildWithFiles(tb testing.TB, body string, hist []float64, files map[string]string) (*scenario.Plan, error) {
+	tb.Helper()
+	f, err := scenario.Load(plantest.Write(tb, body, hist, files))
+	if err != nil {
+		return nil, err
+	}
+	return scenario.Build(f)
+}
