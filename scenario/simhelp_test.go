@@ -1,7 +1,6 @@
 package scenario
 
 import (
-	"fmt"
 	"testing"
 
 	"forelay/scenario/internal/plantest"
@@ -32,6 +31,3 @@ func buildWithFiles(tb testing.TB, body string, hist []float64, files map[string
 	}
 	return Build(f)
 }
-
-// sprintf is fmt.Sprintf, short for the test tables.
-func sprintf(format string, a ...any) string { return fmt.Sprintf(format, a...) }

@@ -1,7 +1,6 @@
 package supply
 
 import (
-	"fmt"
 	"testing"
 
 	"forelay/scenario"
@@ -25,9 +24,6 @@ func buildTestPlan(tb testing.TB, body string, hist []float64) *scenario.Plan {
 	}
 	return p
 }
-
-// sprintf is fmt.Sprintf, short for the test tables.
-func sprintf(format string, a ...any) string { return fmt.Sprintf(format, a...) }
 
 // buildWithFiles is buildTestPlan with more files written beside the
 // scenario (name -> content); it returns the error of Load or Build.
