@@ -407,3 +407,16 @@ func (f *File) ValueError(key string, at Pos, format string, args ...any) error 
 	return &data.ParseError{File: f.Path, Line: at.Line, Column: at.Column, Field: key,
 		Err: &problem{kind: ErrValue, msg: fmt.Sprintf(format, args...)}}
 }
+
+// Spec returns the forecast settings of the file's baseline block.
+func (f *File) Spec() forecast.Spec {
+	b := f.Baseline
+	return forecast.Spec{Method: b.Method, Config: b.Config, Holdout: b.Holdout, Refit: b.Refit, Horizon: f.Horizon,
+		Metric: b.Metric, Select: b.Select, Divisor: b.MSEDivisor}
+}
+
+// ErrorAt returns err as a *data.ParseError at position p of the file,
+// naming field.
+func (f *File) ErrorAt(p Pos, field string, err error) error {
+	return &data.ParseError{File: f.Path, Line: p.Line, Column: p.Column, Field: field, Err: err}
+}

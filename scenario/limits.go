@@ -110,8 +110,6 @@ func (d *decoder) checkLimits(f *File) {
 	}
 }
 
-// checkSeriesNames refuses a history whose series names are longer than
-// the file's name limit.
-func (f *File) checkSeriesNames(h *data.History) error {
-	return h.CheckNameLength(f.Limits.orDefaults().NameLength)
-}
+// EffectiveLimits returns the limits f was read under, with the defaults
+// filled in: the limits of the files it names.
+func (f *File) EffectiveLimits() Limits { return f.Limits.orDefaults() }

@@ -1,10 +1,7 @@
 package scenario
 
 import (
-	"errors"
 	"forelay/scenario/data"
-	"os"
-	"path/filepath"
 	"strings"
 	"testing"
 )
@@ -51,38 +48,6 @@ func TestParseLimited(t *testing.T) {
 		}
 		if err == nil || !strings.Contains(err.Error(), c.wantErr) {
 			t.Errorf("%s: err = %v\nwant it to contain %q", c.name, err, c.wantErr)
-		}
-	}
-}
-
-// TestLoadHistoryLimits: the history a file names is read under the file's
-// limits: its size, its line length and its series names.
-func TestLoadHistoryLimits(t *testing.T) {
-	dir := t.TempDir()
-	hist := "period," + strings.Repeat("s", 30) + "\n2026-01,1\n2026-02,2\n2026-03,3\n"
-	if err := os.WriteFile(filepath.Join(dir, "h.csv"), []byte(hist), 0o644); err != nil {
-		t.Fatal(err)
-	}
-	src := "plan: p\nhistory: {file: h.csv}\nhorizon: 3\n"
-	for _, c := range []struct {
-		l       Limits
-		wantErr string
-		is      error
-	}{
-		{Limits{NameLength: 20}, `h.csv: series "ssssssssssssssssssssssssssssss"...: a series name longer than 20 characters`, data.ErrTooLarge},
-		{Limits{Input: data.SizeLimits{LineBytes: 30}}, "h.csv:1: a line longer than 30 bytes", data.ErrTooLarge},
-		{Limits{Input: data.SizeLimits{Bytes: 50}}, "h.csv: larger than 50 bytes", data.ErrTooLarge},
-	} {
-		f, err := ParseLimited(strings.NewReader(src), dir+"/plan.yaml", c.l)
-		if err != nil {
-			t.Fatal(err)
-		}
-		_, _, err = f.LoadHistory()
-		if err == nil || !strings.Contains(err.Error(), c.wantErr) {
-			t.Errorf("limits %+v: err = %v, want %q", c.l, err, c.wantErr)
-		}
-		if c.is != nil && !errors.Is(err, c.is) {
-			t.Errorf("limits %+v: %v does not wrap %v", c.l, err, c.is)
 		}
 	}
 }

@@ -2,14 +2,13 @@ package main
 
 import (
 	"fmt"
+	"forelay/scenario/plan"
 	"forelay/scenario/sim"
 	"forelay/scenario/supply"
 	"io"
 	"math"
 
 	"github.com/spf13/cobra"
-
-	"forelay/scenario"
 )
 
 // BufferOptions are the settings of "forelay buffer".
@@ -116,7 +115,7 @@ func (o *BufferOptions) check() error {
 
 // bufferResult is everything "forelay buffer" computes.
 type bufferResult struct {
-	Plan     *scenario.Plan
+	Plan     *plan.Plan
 	Opts     *BufferOptions
 	Sim      *sim.Simulation // nil with --demand bands
 	Scenario int

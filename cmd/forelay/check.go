@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"forelay/scenario/plan"
 
 	"github.com/spf13/cobra"
 
@@ -48,13 +49,11 @@ func checkRun(opts *CheckOptions) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	_, ser, err := f.LoadHistory()
+	in, err := plan.Read(f)
 	if err != nil {
 		return &inputError{err: err}
 	}
-	if err := f.Resolve(ser.Next()); err != nil {
-		return &inputError{err: err}
-	}
+	ser := in.Series
 	lint := f.Lint(ser)
 	if err := warnings(opts.IO, opts.Shared, lint); err != nil {
 		return err

@@ -1,13 +1,12 @@
 package main
 
 import (
+	"forelay/scenario/plan"
 	"forelay/scenario/sim"
 	"forelay/scenario/supply"
 	"io"
 
 	"github.com/spf13/cobra"
-
-	"forelay/scenario"
 )
 
 // CompareOptions are the settings of "forelay compare".
@@ -77,7 +76,7 @@ func (o *CompareOptions) check() error {
 
 // compareResult is everything "forelay compare" computes.
 type compareResult struct {
-	Plan  *scenario.Plan
+	Plan  *plan.Plan
 	Sim   *sim.Simulation
 	Opts  *CompareOptions
 	Rows  []supply.Comparison

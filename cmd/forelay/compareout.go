@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"forelay/scenario/plan"
 	"forelay/scenario/report"
 	"forelay/scenario/supply"
 	"io"
@@ -9,7 +10,6 @@ import (
 	"strings"
 
 	"forelay/plots"
-	"forelay/scenario"
 )
 
 // The JSON shape of compare.json (and "forelay compare --json"). Field
@@ -52,7 +52,7 @@ type compareOutJSON struct {
 func compareJSON(r *compareResult) compareOutJSON {
 	p, mc := r.Plan, r.Sim
 	o := compareOutJSON{Plan: p.File.Plan, Units: p.File.Units, Paths: mc.Paths, Seed: mc.Seed, Errors: mc.Errors.String(),
-		Service: num(r.Opts.Service), BaselineTotal: num(scenario.Total(p.Baseline)), Inputs: p.Digests,
+		Service: num(r.Opts.Service), BaselineTotal: num(plan.Total(p.Baseline)), Inputs: p.Digests,
 		Notes: r.Notes, Warnings: warningList(r.Plan.Warnings), Caution: report.Caution}
 	for _, c := range r.Rows {
 		cj := compareScenarioJSON{Name: c.Name, Events: eventIDs(c.Events), Total: num(c.Total), BaselineTotal: num(c.BaselineTotal),
@@ -132,7 +132,7 @@ func writeCompareText(w io.Writer, r *compareResult) {
 		fmt.Fprintln(w, "Capacity: none given (no breach probability or pre-build)")
 	}
 	fmt.Fprintln(w)
-	base := scenario.Total(p.Baseline)
+	base := plan.Total(p.Baseline)
 	head := []string{"scenario", "total", "vs baseline", "peak", "in", "P90 peak", "in"}
 	if hasCap {
 		head = append(head, "P(breach)", "pre-build", "before")

@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"forelay/scenario/plan"
 	"io"
 	"slices"
 	"strings"
@@ -11,7 +12,7 @@ import (
 
 // pickEvent returns the future event called id, nil for an empty id. An id
 // that is not a future event of the plan is a flag error that says why.
-func pickEvent(p *scenario.Plan, id string) (*scenario.Event, error) {
+func pickEvent(p *plan.Plan, id string) (*scenario.Event, error) {
 	if id == "" {
 		return nil, nil
 	}
@@ -32,7 +33,7 @@ func pickEvent(p *scenario.Plan, id string) (*scenario.Event, error) {
 // its share of full size, its contribution to the plan and the standard
 // deviation of that contribution (from its range), and which scenarios
 // hold it.
-func writeEventText(w io.Writer, p *scenario.Plan, e *scenario.Event) {
+func writeEventText(w io.Writer, p *plan.Plan, e *scenario.Event) {
 	first := p.Periods[0]
 	share := e.Profile(first, len(p.Periods))
 	sigma := e.Sigma(first, p.Baseline)

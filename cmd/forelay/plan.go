@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"forelay/scenario/plan"
 	"forelay/scenario/report"
 	"io"
 	"math"
@@ -63,12 +64,12 @@ the whole run succeeds.`,
 
 // buildPlan loads a scenario file and builds its plan; every failure is an
 // input error (exit code 2).
-func buildPlan(path string, shared *sharedFlags) (*scenario.Plan, error) {
+func buildPlan(path string, shared *sharedFlags) (*plan.Plan, error) {
 	f, err := scenario.LoadLimited(path, shared.limits().scenario())
 	if err != nil {
 		return nil, &inputError{err: err}
 	}
-	p, err := scenario.Build(f)
+	p, err := plan.Load(f)
 	if err != nil {
 		return nil, &inputError{err: err}
 	}
@@ -98,7 +99,7 @@ func planRun(opts *PlanOptions) error {
 }
 
 // writePlanText writes the human summary of a plan.
-func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
+func writePlanText(w io.Writer, p *plan.Plan, detail bool) {
 	f := p.File
 	d := decimalsFor(p.Baseline)
 	units := ""
@@ -155,26 +156,26 @@ func writePlanText(w io.Writer, p *scenario.Plan, detail bool) {
 			evs = "events: " + strings.Join(ids, ", ")
 		}
 		fmt.Fprintf(w, "Scenario %s (%s)\n", sp.Name, evs)
-		base := scenario.Total(p.Baseline)
+		base := plan.Total(p.Baseline)
 		t := newTable("", "total"+units, "vs baseline", "share")
 		t.add("baseline", fmtNum(base, d), "", "")
 		for i, e := range p.Future {
 			if !slices.Contains(sp.Events, e) {
 				continue
 			}
-			c := scenario.Total(sp.Contrib[i])
+			c := plan.Total(sp.Contrib[i])
 			label := e.ID
 			if e.Probability < 1 {
 				label += fmt.Sprintf(" (p=%.2g)", e.Probability)
 			}
 			t.add(label, "", signed(c, d), pct(c, base))
 		}
-		adj := scenario.Total(sp.Adjusted)
+		adj := plan.Total(sp.Adjusted)
 		t.add("adjusted plan", fmtNum(adj, d), signed(adj-base, d), pct(adj-base, base))
-		rw := scenario.Total(sp.RiskWeighted)
+		rw := plan.Total(sp.RiskWeighted)
 		t.add("risk-weighted", fmtNum(rw, d), signed(rw-base, d), pct(rw-base, base))
 		t.write(w)
-		i, v := scenario.Peak(sp.Adjusted)
+		i, v := plan.Peak(sp.Adjusted)
 		fmt.Fprintf(w, "Peak %s: %s%s (band %s to %s)\n", p.Periods[i], fmtNum(v, d), units, fmtNum(sp.Lower[i], d), fmtNum(sp.Upper[i], d))
 		if detail {
 			dt := newTable("period", "baseline", "adjusted", "risk-weighted", "lower", "upper")

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"forelay/scenario/plan"
 	"math"
 
 	"forelay/forecast"
@@ -29,7 +30,7 @@ func chartHistory(f forecast.Frequency) int {
 // planChart lays out the plan chart: the last years of history with the
 // past events cleaned out of it, the baseline with its band, each scenario
 // with events and its band, and the windows of the events ahead.
-func planChart(p *scenario.Plan) plots.PlanChart {
+func planChart(p *plan.Plan) plots.PlanChart {
 	n := p.History.Len()
 	show := min(n, chartHistory(p.History.Freq()))
 	off := n - show // first history index shown
@@ -70,7 +71,7 @@ func planChart(p *scenario.Plan) plots.PlanChart {
 // whole periods, on a chart whose first plan period is at x = show. A
 // step lasts; only its start and ramp are shaded, so the windows of later
 // events stay readable.
-func futureWindows(p *scenario.Plan, show int) []plots.Window {
+func futureWindows(p *plan.Plan, show int) []plots.Window {
 	hz := len(p.Periods)
 	first := p.Periods[0]
 	var ws []plots.Window
@@ -97,7 +98,7 @@ func futureWindows(p *scenario.Plan, show int) []plots.Window {
 // cleaned out of the history (one per estimate of p.Cleaning), in whole
 // periods, on a chart whose first label is history period off. Those
 // before the history shown are left out.
-func pastWindows(p *scenario.Plan, off int) []plots.Window {
+func pastWindows(p *plan.Plan, off int) []plots.Window {
 	shown := p.History.Period(off)
 	n := p.History.Len() - off
 	var ws []plots.Window
@@ -123,7 +124,7 @@ func pastWindows(p *scenario.Plan, off int) []plots.Window {
 // cleanedOccurrence returns the event, or the past occurrence of one,
 // that estimate est was made for: the event with est's ID whose start is
 // est.When. It returns nil when there is none.
-func cleanedOccurrence(f *scenario.File, est scenario.Estimate) *scenario.Event {
+func cleanedOccurrence(f *scenario.File, est plan.Estimate) *scenario.Event {
 	for _, e := range f.Events {
 		if e.ID != est.ID {
 			continue

@@ -2,9 +2,8 @@ package main
 
 import (
 	"encoding/json"
+	"forelay/scenario/plan"
 	"strconv"
-
-	"forelay/scenario"
 )
 
 // marshalIndent encodes v as indented JSON with a final newline.
@@ -23,7 +22,7 @@ func fmtCSV(v float64) string { return strconv.FormatFloat(v, 'f', 2, 64) }
 // planCSV renders plan.csv: one row per scenario and period with the
 // columns scenario, period, baseline, adjusted, risk_weighted, lower, upper
 // and then one column per future event holding its contribution.
-func planCSV(p *scenario.Plan) ([]byte, error) {
+func planCSV(p *plan.Plan) ([]byte, error) {
 	var rows [][]string
 	head := []string{"scenario", "period", "baseline", "adjusted", "risk_weighted", "lower", "upper"}
 	for _, e := range p.Future {

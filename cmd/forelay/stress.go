@@ -1,6 +1,7 @@
 package main
 
 import (
+	"forelay/scenario/plan"
 	"forelay/scenario/sim"
 	"forelay/scenario/supply"
 	"io"
@@ -93,7 +94,7 @@ func (o *StressOptions) check() error {
 
 // stressResult is everything "forelay stress" computes.
 type stressResult struct {
-	Plan   *scenario.Plan
+	Plan   *plan.Plan
 	Sim    *sim.Simulation
 	Opts   *StressOptions
 	Risks  []supply.Risk

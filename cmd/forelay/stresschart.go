@@ -2,14 +2,14 @@ package main
 
 import (
 	"forelay/plots"
-	"forelay/scenario"
+	"forelay/scenario/plan"
 	"forelay/scenario/supply"
 )
 
 // fanLabels returns the x labels of a chart that shows the last periods
 // of the history and then the plan, and the number of history periods
 // shown.
-func fanLabels(p *scenario.Plan) (labels []string, show int) {
+func fanLabels(p *plan.Plan) (labels []string, show int) {
 	n := p.History.Len()
 	show = min(n, chartHistory(p.History.Freq()))
 	labels = make([]string, 0, show+len(p.Periods))

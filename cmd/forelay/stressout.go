@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"forelay/scenario/plan"
 	"forelay/scenario/report"
 	"forelay/scenario/supply"
 	"io"
@@ -114,8 +115,8 @@ func stressJSON(r *stressResult) stressOutJSON {
 			fj := &frozenJSON{Source: r.Source, OpeningStock: num(fz.Opening), FirstShortfall: periodOrNull(p, fz.FirstShortfall),
 				Lowest:   report.PeakDoc{Period: p.Periods[fz.Low].String(), Value: num(fz.Stock[fz.Low])},
 				Highest:  report.PeakDoc{Period: p.Periods[fz.High].String(), Value: num(fz.Stock[fz.High])},
-				EndStock: num(fz.Stock[len(fz.Stock)-1]), IdleTotal: num(scenario.Total(fz.Idle)),
-				OverloadTotal: num(scenario.Total(fz.Overload))}
+				EndStock: num(fz.Stock[len(fz.Stock)-1]), IdleTotal: num(plan.Total(fz.Idle)),
+				OverloadTotal: num(plan.Total(fz.Overload))}
 			for t := range fz.Stock {
 				fj.Periods = append(fj.Periods, frozenPeriodJSON{Period: p.Periods[t].String(), Production: num(fz.Production[t]),
 					Demand: num(fz.Demand[t]), Stock: num(fz.Stock[t]), StockAtP50Demand: num(fz.StockP50[t]),
@@ -221,7 +222,7 @@ func writeStressText(w io.Writer, r *stressResult) {
 }
 
 // writeFrozenText writes the frozen-production projection of a scenario.
-func writeFrozenText(w io.Writer, p *scenario.Plan, fz supply.StockProjection, source, units string) {
+func writeFrozenText(w io.Writer, p *plan.Plan, fz supply.StockProjection, source, units string) {
 	from := "the baseline (the previous plan)"
 	if source != "baseline" {
 		from = source
@@ -243,11 +244,11 @@ func writeFrozenText(w io.Writer, p *scenario.Plan, fz supply.StockProjection, s
 	}
 	if hi := fz.Stock[fz.High]; hi > fz.Opening {
 		fmt.Fprintf(w, "Stock builds up to %s%s by %s", fmtNum(hi, 0), units, p.Periods[fz.High])
-		if idle := scenario.Total(fz.Idle); !math.IsNaN(idle) {
+		if idle := plan.Total(fz.Idle); !math.IsNaN(idle) {
 			fmt.Fprintf(w, "; idle capacity over the plan %s%s", fmtNum(idle, 0), units)
 		}
 		fmt.Fprintln(w)
-	} else if idle := scenario.Total(fz.Idle); !math.IsNaN(idle) {
+	} else if idle := plan.Total(fz.Idle); !math.IsNaN(idle) {
 		fmt.Fprintf(w, "Idle capacity over the plan: %s%s\n", fmtNum(idle, 0), units)
 	}
 	writeOverloadText(w, p, fz, units)
@@ -256,7 +257,7 @@ func writeFrozenText(w io.Writer, p *scenario.Plan, fz supply.StockProjection, s
 // writeOverloadText says in which periods the frozen plan asks for more
 // than the capacity, if any. The overload is counted period by period,
 // never netted against idle capacity elsewhere.
-func writeOverloadText(w io.Writer, p *scenario.Plan, fz supply.StockProjection, units string) {
+func writeOverloadText(w io.Writer, p *plan.Plan, fz supply.StockProjection, units string) {
 	var over []string
 	for i, v := range fz.Overload {
 		if v > 0 {
@@ -271,6 +272,6 @@ func writeOverloadText(w io.Writer, p *scenario.Plan, fz supply.StockProjection,
 		periods = "period"
 	}
 	fmt.Fprintf(w, "Overload: the frozen plan asks for more than capacity in %d %s (%s%s in all): %s\n",
-		len(over), periods, fmtNum(scenario.Total(fz.Overload), 0), units, strings.Join(over, ", "))
+		len(over), periods, fmtNum(plan.Total(fz.Overload), 0), units, strings.Join(over, ", "))
 	fmt.Fprintln(w, "Lower the frozen plan or raise capacity; the stock above counts the plan as made")
 }

@@ -3,14 +3,13 @@ package main
 import (
 	"errors"
 	"fmt"
+	"forelay/scenario/plan"
 	"forelay/scenario/sim"
 	"math"
 	"strconv"
 	"strings"
 
 	"github.com/spf13/pflag"
-
-	"forelay/scenario"
 )
 
 // simFlags are the Monte Carlo flags shared by stress, buffer and compare.
@@ -61,7 +60,7 @@ func (s *simFlags) options() sim.SimOptions {
 
 // simulate runs the Monte Carlo; a plan whose errors cannot be drawn is
 // an input error.
-func simulate(p *scenario.Plan, s *simFlags) (*sim.Simulation, error) {
+func simulate(p *plan.Plan, s *simFlags) (*sim.Simulation, error) {
 	mc, err := sim.Simulate(p, s.options())
 	if err != nil {
 		if errors.Is(err, sim.ErrTooFewPaths) {
@@ -101,7 +100,7 @@ func checkStock(flag string, v float64) error {
 // pickScenario returns the index of the scenario called name, or of the
 // last scenario when name is empty. An unknown name is a flag error that
 // lists the scenarios.
-func pickScenario(p *scenario.Plan, name string) (int, error) {
+func pickScenario(p *plan.Plan, name string) (int, error) {
 	if name == "" {
 		return len(p.Scenarios) - 1, nil
 	}
@@ -117,7 +116,7 @@ func pickScenario(p *scenario.Plan, name string) (int, error) {
 
 // capacityText describes the capacity schedule: "640,000 per month;
 // 680,000 from 2027-09".
-func capacityText(p *scenario.Plan) string {
+func capacityText(p *plan.Plan) string {
 	c := p.File.Capacity
 	if c == nil {
 		return "none given"
@@ -131,7 +130,7 @@ func capacityText(p *scenario.Plan) string {
 
 // simNotes are the remarks every Monte Carlo output carries besides the
 // plan's own notes.
-func simNotes(p *scenario.Plan) []string {
+func simNotes(p *plan.Plan) []string {
 	notes := append([]string{}, p.Notes...)
 	for _, e := range p.Future {
 		if e.Range != nil {
@@ -144,7 +143,7 @@ func simNotes(p *scenario.Plan) []string {
 
 // periodOrNull returns the label of period index i of the plan, or nil
 // when i < 0 (JSON null).
-func periodOrNull(p *scenario.Plan, i int) *string {
+func periodOrNull(p *plan.Plan, i int) *string {
 	if i < 0 {
 		return nil
 	}

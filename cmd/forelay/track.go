@@ -2,7 +2,9 @@ package main
 
 import (
 	"fmt"
+	"forelay/scenario"
 	"forelay/scenario/data"
+	"forelay/scenario/plan"
 	"forelay/scenario/report"
 	"io"
 	"math"
@@ -15,7 +17,6 @@ import (
 	"github.com/spf13/cobra"
 
 	"forelay/forecast"
-	"forelay/scenario"
 )
 
 // TrackOptions are the settings of "forelay track".
@@ -200,8 +201,8 @@ func trackRun(opts *TrackOptions) error {
 
 // trackReport is what the outputs of a tracking run are made from.
 type trackReport struct {
-	tp     scenario.TrackPlan
-	tr     *scenario.Tracking
+	tp     plan.TrackPlan
+	tr     *plan.Tracking
 	source string // "read from out/plan.json" or "recomputed from plan.yaml"
 	// defaultLimit is true when the tracking signal limit is the signal's
 	// default rather than --ts-limit.
@@ -213,21 +214,21 @@ type trackReport struct {
 // loadTrackPlan builds the plan from the scenario file or reads it from
 // plan.json, and says which; warns are the plan's warnings, or those about
 // the inputs plan.json was made from.
-func loadTrackPlan(opts *TrackOptions) (tp scenario.TrackPlan, source string, warns []string, err error) {
+func loadTrackPlan(opts *TrackOptions) (tp plan.TrackPlan, source string, warns []string, err error) {
 	if opts.PlanDir == "" {
 		p, err := buildPlan(opts.File, opts.Shared)
 		if err != nil {
-			return scenario.TrackPlan{}, "", nil, err
+			return plan.TrackPlan{}, "", nil, err
 		}
 		return p.TrackPlan(), "recomputed from " + opts.File, p.Warnings, nil
 	}
 	path := filepath.Join(opts.PlanDir, "plan.json")
 	tp, inputs, err := report.ReadPlan(path)
 	if err != nil {
-		return scenario.TrackPlan{}, "", nil, &inputError{err: err}
+		return plan.TrackPlan{}, "", nil, &inputError{err: err}
 	}
 	if warns, err = checkInputs(opts.File, path, inputs); err != nil {
-		return scenario.TrackPlan{}, "", nil, err
+		return plan.TrackPlan{}, "", nil, err
 	}
 	return tp, "read from " + path, warns, nil
 }

@@ -2,7 +2,7 @@ package report
 
 import (
 	"forelay/forecast"
-	"forelay/scenario"
+	"forelay/scenario/plan"
 )
 
 // PlanVersion is the form of plan.json this package writes: 1 since the
@@ -106,7 +106,7 @@ type PlanDoc struct {
 }
 
 // Plan returns plan.json's document of p.
-func Plan(p *scenario.Plan) PlanDoc {
+func Plan(p *plan.Plan) PlanDoc {
 	f := p.File
 	h := p.History
 	o := PlanDoc{Version: PlanVersion, Plan: f.Plan, Units: f.Units, Horizon: len(p.Periods),
@@ -144,23 +144,23 @@ func Plan(p *scenario.Plan) PlanDoc {
 			lo, hi := Num(e.Range.Low), Num(e.Range.High)
 			ej.Low, ej.High = &lo, &hi
 		}
-		ej.Total = Num(scenario.Total(e.Contribution(first, p.Baseline)))
+		ej.Total = Num(plan.Total(e.Contribution(first, p.Baseline)))
 		o.Events = append(o.Events, ej)
 	}
-	base := scenario.Total(p.Baseline)
+	base := plan.Total(p.Baseline)
 	for _, sp := range p.Scenarios {
 		sj := scenarioJSON{Name: sp.Name, Events: []string{}, BaselineTotal: Num(base), Contributions: map[string]Num{}}
 		for _, e := range sp.Events {
 			sj.Events = append(sj.Events, e.ID)
 		}
-		adj := scenario.Total(sp.Adjusted)
+		adj := plan.Total(sp.Adjusted)
 		sj.Total, sj.Change = Num(adj), Num(adj-base)
 		sj.ChangePct = Num(100 * (adj - base) / base)
-		sj.RiskWeighted = Num(scenario.Total(sp.RiskWeighted))
-		i, v := scenario.Peak(sp.Adjusted)
+		sj.RiskWeighted = Num(plan.Total(sp.RiskWeighted))
+		i, v := plan.Peak(sp.Adjusted)
 		sj.Peak = PeakDoc{Period: p.Periods[i].String(), Value: Num(v)}
 		for k, e := range p.Future {
-			sj.Contributions[e.ID] = Num(scenario.Total(sp.Contrib[k]))
+			sj.Contributions[e.ID] = Num(plan.Total(sp.Contrib[k]))
 		}
 		for t, per := range p.Periods {
 			pj := planPeriodJSON{Period: per.String(), Baseline: Num(p.Baseline[t]), Adjusted: Num(sp.Adjusted[t]),

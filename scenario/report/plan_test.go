@@ -3,12 +3,12 @@ package report
 import (
 	"encoding/json"
 	"errors"
+	"forelay/scenario"
+	"forelay/scenario/plan"
 	"math"
 	"os"
 	"path/filepath"
 	"testing"
-
-	"forelay/scenario"
 )
 
 // TestPlanRoundTrip writes plan.json for a plan and reads it back: the
@@ -19,7 +19,7 @@ func TestPlanRoundTrip(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	p, err := scenario.Build(f)
+	p, err := plan.Load(f)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -5,10 +5,10 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
+	"forelay/scenario/plan"
 	"os"
 
 	"forelay/forecast"
-	"forelay/scenario"
 	"forelay/scenario/data"
 )
 
@@ -47,8 +47,8 @@ type savedPlan struct {
 // returns the plan to track against and the input digests it records.
 // Errors are *data.ParseError naming the file (with the line and
 // column of a JSON syntax or type error) and the field at fault.
-func ReadPlan(path string) (scenario.TrackPlan, map[string]string, error) {
-	var tp scenario.TrackPlan
+func ReadPlan(path string) (plan.TrackPlan, map[string]string, error) {
+	var tp plan.TrackPlan
 	src, err := os.ReadFile(path)
 	if err != nil {
 		return tp, nil, err
@@ -92,7 +92,7 @@ func ReadPlan(path string) (scenario.TrackPlan, map[string]string, error) {
 	tp.Name, tp.Units, tp.Series = sp.Plan, sp.Units, sp.History.Series
 	tp.MAD, tp.MSE = *sp.Baseline.Accuracy.MAD, *sp.Baseline.Accuracy.MSE
 	for i, s := range sp.Scenarios {
-		line := scenario.PlanLine{Name: s.Name}
+		line := plan.PlanLine{Name: s.Name}
 		if i > 0 && len(s.Periods) != len(tp.Periods) {
 			return tp, nil, bad(fmt.Sprintf("scenarios[%d].periods", i), "%d periods; the first scenario has %d", len(s.Periods), len(tp.Periods))
 		}

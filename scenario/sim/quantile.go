@@ -1,7 +1,7 @@
 package sim
 
 import (
-	"forelay/scenario"
+	"forelay/scenario/plan"
 	"math"
 	"math/bits"
 	"slices"
@@ -247,7 +247,7 @@ func mean(x []float64) float64 {
 	if len(x) == 0 {
 		return math.NaN()
 	}
-	return scenario.Total(x) / float64(len(x))
+	return plan.Total(x) / float64(len(x))
 }
 
 // lomutoPartition splits x[lo:hi+1] (hi > lo) around the median of x[lo],

@@ -2,9 +2,10 @@ package sim
 
 import (
 	"fmt"
+	"forelay/scenario"
+	"forelay/scenario/plan"
 	"testing"
 
-	"forelay/scenario"
 	"forelay/scenario/internal/plantest"
 )
 
@@ -13,13 +14,13 @@ func testHistory(n int) []float64 { return plantest.History(n) }
 
 // buildTestPlan writes the history and the scenario file body (without
 // its history key) and builds the plan.
-func buildTestPlan(tb testing.TB, body string, hist []float64) *scenario.Plan {
+func buildTestPlan(tb testing.TB, body string, hist []float64) *plan.Plan {
 	tb.Helper()
 	f, err := scenario.Load(plantest.Write(tb, body, hist, nil))
 	if err != nil {
 		tb.Fatal(err)
 	}
-	p, err := scenario.Build(f)
+	p, err := plan.Load(f)
 	if err != nil {
 		tb.Fatal(err)
 	}

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"forelay/scenario"
+	"forelay/scenario/plan"
 	"math"
 	"slices"
 	"strings"
@@ -159,7 +160,7 @@ type SimOptions struct {
 // and put together.
 type Simulation struct {
 	// Plan is the plan simulated.
-	Plan *scenario.Plan
+	Plan *plan.Plan
 	// Paths, Seed and Errors are the settings used.
 	Paths  int
 	Seed   uint64
@@ -317,7 +318,7 @@ func matrix(rows, n int) [][]float64 {
 // horizon, and so does the memory: 8 × Paths × (H × (1 + scenarios) +
 // events) bytes for the error, demand and event draws of every path, and
 // 8 × (Paths + 32 H) bytes of scratch space per worker.
-func Simulate(p *scenario.Plan, opt SimOptions) (*Simulation, error) {
+func Simulate(p *plan.Plan, opt SimOptions) (*Simulation, error) {
 	n := opt.Paths
 	if n == 0 {
 		n = DefaultPaths

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"forelay/scenario"
 	"forelay/scenario/internal/plantest"
+	"forelay/scenario/plan"
 	"math"
 	"math/rand/v2"
 	"reflect"
@@ -367,7 +368,7 @@ var simModels = []struct {
 
 // simPlan builds the event plan with a naive baseline (every psi weight
 // 1), hiding the model's form when opaque.
-func simPlan(t *testing.T, opaque bool) *scenario.Plan {
+func simPlan(t *testing.T, opaque bool) *plan.Plan {
 	t.Helper()
 	p := buildTestPlan(t, strings.Replace(eventBody, "linear-trend, dummies: true", "naive", 1), testHistory(48))
 	if opaque {

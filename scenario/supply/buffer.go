@@ -1,7 +1,7 @@
 package supply
 
 import (
-	"forelay/scenario"
+	"forelay/scenario/plan"
 	"math"
 
 	"gonum.org/v1/gonum/stat/distuv"
@@ -158,7 +158,7 @@ func CycleServiceLevel(stock, sigma, lead float64) float64 {
 // BandDemand returns the demand of scenario sc at the service quantile
 // read off the plan's normal error model: Adjusted_t + z sqrt(Var_t) with
 // z = Φ⁻¹(service). It panics if sc is out of range.
-func BandDemand(p *scenario.Plan, sc int, service float64) []float64 {
+func BandDemand(p *plan.Plan, sc int, service float64) []float64 {
 	sp := p.Scenarios[sc]
 	z := ServiceZ(service)
 	out := make([]float64, len(sp.Adjusted))

@@ -1,8 +1,8 @@
 package supply
 
 import (
-	"forelay/scenario"
 	"forelay/scenario/internal/plantest"
+	"forelay/scenario/plan"
 	"math"
 	"testing"
 )
@@ -113,6 +113,6 @@ func TestSafetyStock(t *testing.T) {
 
 func TestBandDemand(t *testing.T) {
 	// Adjusted + z(0.95) sqrt(Var): with Var = 100, 1.644854 * 10 above.
-	p := &scenario.Plan{Scenarios: []scenario.ScenarioPlan{{Adjusted: []float64{500, 600}, Var: []float64{100, 400}}}}
+	p := &plan.Plan{Scenarios: []plan.ScenarioPlan{{Adjusted: []float64{500, 600}, Var: []float64{100, 400}}}}
 	plantest.EqualSlices(t, "demand", BandDemand(p, 0, 0.95), []float64{500 + 16.44854, 600 + 32.89707}, 1e-6)
 }

@@ -2,6 +2,7 @@ package supply
 
 import (
 	"forelay/scenario"
+	"forelay/scenario/plan"
 	"forelay/scenario/sim"
 	"math"
 	"slices"
@@ -55,18 +56,18 @@ type Contribution struct {
 func Compare(sim *sim.Simulation, service float64) []Comparison {
 	p := sim.Plan
 	capacity := CapacityPerPeriod(p)
-	base := scenario.Total(p.Baseline)
+	base := plan.Total(p.Baseline)
 	out := make([]Comparison, len(p.Scenarios))
 	for s, sp := range p.Scenarios {
 		ps := sim.Scenarios[s]
-		c := Comparison{Name: sp.Name, Events: slices.Clone(sp.Events), Total: scenario.Total(sp.Adjusted), BaselineTotal: base,
+		c := Comparison{Name: sp.Name, Events: slices.Clone(sp.Events), Total: plan.Total(sp.Adjusted), BaselineTotal: base,
 			PAnyBreach: math.NaN(), Prebuild: math.NaN(), PrebuildAt: -1}
-		c.Peak, c.PeakValue = scenario.Peak(sp.Adjusted)
+		c.Peak, c.PeakValue = plan.Peak(sp.Adjusted)
 		p90 := make([]float64, len(ps.Spread))
 		for t, sd := range ps.Spread {
 			p90[t] = sd.P90
 		}
-		c.P90Peak, c.P90PeakValue = scenario.Peak(p90)
+		c.P90Peak, c.P90PeakValue = plan.Peak(p90)
 		if capacity != nil {
 			c.PAnyBreach = CapacityRisk(ps, capacity, 1).PAnyBreach
 			b := PlanBuffer(ps.QuantileDemand(service), capacity, 0)
@@ -74,7 +75,7 @@ func Compare(sim *sim.Simulation, service float64) []Comparison {
 		}
 		for k, e := range p.Future {
 			if slices.Contains(sp.Events, e) {
-				c.Contributions = append(c.Contributions, Contribution{ID: e.ID, Total: scenario.Total(sp.Contrib[k])})
+				c.Contributions = append(c.Contributions, Contribution{ID: e.ID, Total: plan.Total(sp.Contrib[k])})
 			}
 		}
 		out[s] = c

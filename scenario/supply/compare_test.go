@@ -1,8 +1,8 @@
 package supply
 
 import (
-	"forelay/scenario"
 	"forelay/scenario/internal/plantest"
+	"forelay/scenario/plan"
 	"forelay/scenario/sim"
 	"math"
 	"testing"
@@ -47,13 +47,13 @@ func TestCompare(t *testing.T) {
 			sum += k.Total
 		}
 		plantest.Same(t, c.Name+": contributions", sum, c.Total-c.BaselineTotal, 1e-9)
-		plantest.Same(t, c.Name+": total", c.Total, scenario.Total(p.Scenarios[s].Adjusted), 0)
+		plantest.Same(t, c.Name+": total", c.Total, plan.Total(p.Scenarios[s].Adjusted), 0)
 		// The breach probability and pre-build are those of CapacityRisk
 		// and PlanBuffer on the same paths.
 		plantest.Same(t, c.Name+": P(any breach)", c.PAnyBreach, CapacityRisk(sim.Scenarios[s], capacity, 0.1).PAnyBreach, 0)
 		b := PlanBuffer(sim.Scenarios[s].QuantileDemand(0.95), capacity, 0)
 		plantest.Same(t, c.Name+": prebuild", c.Prebuild, b.Prebuild, 0)
-		_, v := scenario.Peak(sim.Scenarios[s].QuantileDemand(0.9))
+		_, v := plan.Peak(sim.Scenarios[s].QuantileDemand(0.9))
 		plantest.Same(t, c.Name+": P90 peak", c.P90PeakValue, v, 1e-9)
 	}
 	if len(cs[0].Contributions) != 0 || len(cs[1].Contributions) != 2 {

@@ -3,7 +3,7 @@ package supply
 import (
 	"fmt"
 	"forelay/forecast"
-	"forelay/scenario"
+	"forelay/scenario/plan"
 	"math"
 	"strconv"
 )
@@ -30,7 +30,7 @@ func splitCapacity(c, prod float64) (idle, overload float64) {
 // is never netted against the idle capacity of other periods. It returns
 // nil without a capacity or without overload, and panics if prod is not as
 // long as the plan.
-func OverloadWarnings(p *scenario.Plan, prod []float64, source string) []string {
+func OverloadWarnings(p *plan.Plan, prod []float64, source string) []string {
 	if len(prod) != len(p.Periods) {
 		panic("scenario: OverloadWarnings with production of the wrong length")
 	}

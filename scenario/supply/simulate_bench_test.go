@@ -2,7 +2,7 @@ package supply
 
 import (
 	"fmt"
-	"forelay/scenario"
+	"forelay/scenario/plan"
 	"forelay/scenario/sim"
 	"runtime"
 	"strings"
@@ -51,7 +51,7 @@ func horizonBody(h int) string {
 // runSimBench draws 10,000 paths of plan p per iteration and sets them
 // against capacity. Workers is left at zero, one per core: -cpu N runs
 // the benchmarks on N workers (the results are the same for any N).
-func runSimBench(b *testing.B, p *scenario.Plan) {
+func runSimBench(b *testing.B, p *plan.Plan) {
 	capacity := CapacityPerPeriod(p)
 	b.ReportAllocs()
 	b.ResetTimer()
@@ -101,7 +101,7 @@ func BenchmarkSimulateHorizon3000(b *testing.B) { benchHorizon(b, 3000) }
 func BenchmarkSimulateHorizonRatio(b *testing.B) {
 	short := buildTestPlan(b, horizonBody(36), testHistory(48))
 	long := buildTestPlan(b, horizonBody(360), testHistory(48))
-	timeOne := func(p *scenario.Plan) time.Duration {
+	timeOne := func(p *plan.Plan) time.Duration {
 		runtime.GC()
 		t0 := cpuTime()
 		if _, err := sim.Simulate(p, sim.SimOptions{Paths: 10000, Seed: 1}); err != nil {

@@ -1,8 +1,8 @@
 package supply
 
 import (
-	"forelay/scenario"
 	"forelay/scenario/data"
+	"forelay/scenario/plan"
 	"forelay/scenario/sim"
 	"math"
 	"os"
@@ -13,7 +13,7 @@ import (
 
 // CapacityPerPeriod returns the capacity in each of the plan's periods
 // (Capacity.At), or nil when the file sets no capacity.
-func CapacityPerPeriod(p *scenario.Plan) []float64 {
+func CapacityPerPeriod(p *plan.Plan) []float64 {
 	c := p.File.Capacity
 	if c == nil {
 		return nil
@@ -156,7 +156,7 @@ func CapacityRisk(ps *sim.PathSet, capacity []float64, threshold float64) Risk {
 // bad file, or naming the scenario file's production.plan key when the
 // CSV holds several series and none is named like the history's, or does
 // not cover every plan period.
-func FrozenProduction(p *scenario.Plan) (prod []float64, source string, err error) {
+func FrozenProduction(p *plan.Plan) (prod []float64, source string, err error) {
 	pr := p.File.Production
 	if pr == nil || pr.Plan == "" {
 		return slices.Clone(p.Baseline), "baseline", nil

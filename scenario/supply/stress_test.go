@@ -2,9 +2,9 @@ package supply
 
 import (
 	"errors"
-	"forelay/scenario"
 	"forelay/scenario/data"
 	"forelay/scenario/internal/plantest"
+	"forelay/scenario/plan"
 	"forelay/scenario/sim"
 	"math"
 	"strings"
@@ -208,7 +208,7 @@ func TestOverload(t *testing.T) {
 	sp := ProjectStock(prod, p.Scenarios[0].Adjusted, CapacityPerPeriod(p), 0, nil)
 	plantest.EqualSlices(t, "idle", sp.Idle, []float64{30000, 0, 10000, 0}, 0)
 	plantest.EqualSlices(t, "overload", sp.Overload, []float64{0, 20000, 0, 20000}, 0)
-	plantest.Same(t, "total idle", scenario.Total(sp.Idle), 40000, 0)
+	plantest.Same(t, "total idle", plan.Total(sp.Idle), 40000, 0)
 
 	got := OverloadWarnings(p, prod, src)
 	want := []string{

@@ -1,6 +1,7 @@
-package scenario
+package plan
 
 import (
+	"forelay/scenario"
 	"math"
 	"path/filepath"
 	"strings"
@@ -167,11 +168,11 @@ func TestFloorTestdataOverLargeLoss(t *testing.T) {
 	// month on an invented baseline of about 500,000 from 2027-05; the
 	// horizon ends 2028-04, so 12 periods are clipped, in the scenario
 	// with the loss only.
-	f, err := Load(filepath.Join("..", "testdata", "scenario", "overlarge-loss.yaml"))
+	f, err := scenario.Load(filepath.Join("..", "..", "testdata", "scenario", "overlarge-loss.yaml"))
 	if err != nil {
 		t.Fatal(err)
 	}
-	p, err := Build(f)
+	p, err := Load(f)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -194,7 +195,7 @@ func TestFloorTestdataOverLargeLoss(t *testing.T) {
 
 	// With floor: none the same plan goes below zero and nothing is said.
 	f.Bands.Floor = nil
-	if p, err = Build(f); err != nil {
+	if p, err = Load(f); err != nil {
 		t.Fatal(err)
 	}
 	checkRows(t, p)

@@ -1,7 +1,8 @@
-package scenario
+package plan
 
 import (
 	"errors"
+	"forelay/scenario"
 	"forelay/scenario/data"
 	"math"
 	"os"
@@ -378,11 +379,11 @@ scenarios:
   - {name: base, events: []}
   - {name: more, events: [extra]}
 `)
-	f, err := Load(filepath.Join(dir, "plan.yaml"))
+	f, err := scenario.Load(filepath.Join(dir, "plan.yaml"))
 	if err != nil {
 		t.Fatal(err)
 	}
-	pl, err := Build(f)
+	pl, err := Load(f)
 	if err != nil {
 		t.Fatal(err)
 	}

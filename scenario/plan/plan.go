@@ -1,11 +1,12 @@
-package scenario
+package plan
 
 import (
 	"errors"
 	"fmt"
+	"forelay/scenario"
 	"forelay/scenario/data"
+	"maps"
 	"math"
-	"os"
 
 	"forelay/forecast"
 )
@@ -15,7 +16,7 @@ import (
 // its events, with bands.
 type Plan struct {
 	// File is the scenario the plan was built from.
-	File *File
+	File *scenario.File
 	// History is the series as read; Cleaned is it with the past events
 	// taken out (what the baseline was fitted to).
 	History forecast.Series
@@ -46,8 +47,11 @@ type Plan struct {
 	// Scenarios are the plans of each scenario, in file order.
 	Scenarios []ScenarioPlan
 	// Future lists the events that act on the plan's periods, in file
-	// order; past events (cleaned out of the history) are not in it.
-	Future []*Event
+	// order; past events (cleaned out of the history) are not in it. An
+	// event whose effect is learnt from its past occurrences is a copy of
+	// the file's event carrying the learnt effect and range; the file's
+	// events are never changed. Scenarios match events by id.
+	Future []*scenario.Event
 	// Notes are plain-language remarks for the planner (prorated dates,
 	// floored bands, filled history cells, learnt effects).
 	Notes []string
@@ -70,7 +74,7 @@ type Estimate struct {
 	When string
 	// Kind is the event's kind: for a pulse Effect is the effect per
 	// period at full size, for a step the level shift.
-	Kind   Kind
+	Kind   scenario.Kind
 	Effect float64
 	StdErr float64
 }
@@ -79,7 +83,7 @@ type Estimate struct {
 type ScenarioPlan struct {
 	Name string
 	// Events are the scenario's future events, in file order.
-	Events []*Event
+	Events []*scenario.Event
 	// Adjusted = baseline + sum of the included events' contributions;
 	// RiskWeighted = baseline + sum of probability * contribution.
 	Adjusted, RiskWeighted []float64
@@ -123,61 +127,14 @@ func Peak(v []float64) (int, float64) {
 	return best, bv
 }
 
-// Spec returns the forecast settings of the file's baseline block.
-func (f *File) Spec() forecast.Spec {
-	b := f.Baseline
-	return forecast.Spec{Method: b.Method, Config: b.Config, Holdout: b.Holdout, Refit: b.Refit, Horizon: f.Horizon,
-		Metric: b.Metric, Select: b.Select, Divisor: b.MSEDivisor}
-}
-
-// LoadHistory reads the series the file's history block names. Errors
-// name the history file and line, or the scenario file's history key.
-func (f *File) LoadHistory() (*data.History, forecast.Series, error) {
-	fh, err := os.Open(f.History.File)
-	if err != nil {
-		return nil, forecast.Series{}, f.errAt(f.History.Pos, "history.file", err)
-	}
-	defer fh.Close()
-	in := data.BoundedReader(fh, f.History.File, f.Limits.orDefaults().Input)
-	h, err := data.ReadHistory(in, f.History.File, data.ReadOptions{Freq: f.History.Period, Fill: f.History.Fill})
-	if err != nil {
-		return nil, forecast.Series{}, err
-	}
-	if err := f.checkSeriesNames(h); err != nil {
-		return nil, forecast.Series{}, err
-	}
-	name := f.History.Series
-	if name == "" {
-		if len(h.Series) != 1 {
-			names := make([]string, len(h.Series))
-			for i, s := range h.Series {
-				names[i] = s.Name
-			}
-			return nil, forecast.Series{}, f.errAt(f.History.Pos, "history.series",
-				fmt.Errorf("%s holds %d series (%v); name one", f.History.File, len(h.Series), names))
-		}
-		return h, h.Series[0], nil
-	}
-	s, err := h.Lookup(name)
-	if err != nil {
-		return nil, forecast.Series{}, f.errAt(f.History.Pos, "history.series", err)
-	}
-	return h, s, nil
-}
-
-func (f *File) errAt(p Pos, field string, err error) error {
-	return &data.ParseError{File: f.Path, Line: p.Line, Column: p.Column, Field: field, Err: err}
-}
-
-// Build fits the baseline and lays the events on it. The history is read
-// from the file the scenario names. It returns input errors (*ParseError,
-// *TooShortError) for bad files and data. Input that is legal but almost
-// certainly not meant gives Plan.Warnings (File.Lint's, then the floor's).
-func Build(f *File) (*Plan, error) {
-	p, spec, err := newPlan(f)
-	if err != nil {
-		return nil, err
-	}
+// Build fits the baseline to the history of in and lays the events of f
+// on it. It reads no file, and changes neither f nor in: an effect learnt
+// from the past is the plan's (see Plan.Future). It returns input errors
+// (*data.ParseError, *forecast.TooShortError) for data the plan cannot be
+// built from. Input that is legal but almost certainly not meant gives
+// Plan.Warnings (File.Lint's, the fit's, then the floor's).
+func Build(f *scenario.File, in *Inputs) (*Plan, error) {
+	p, spec := newPlan(f, in)
 	if err := p.clean(spec); err != nil {
 		return nil, err
 	}
@@ -185,19 +142,12 @@ func Build(f *File) (*Plan, error) {
 	return p, nil
 }
 
-// newPlan reads the history, makes the checks that need it and starts the
-// plan: settings, filled cells, input digests and File.Lint's warnings.
-func newPlan(f *File) (*Plan, forecast.Spec, error) {
-	h, ser, err := f.LoadHistory()
-	if err != nil {
-		return nil, forecast.Spec{}, err
-	}
-	if err := f.Resolve(ser.Next()); err != nil {
-		return nil, forecast.Spec{}, err
-	}
-	spec := f.Spec()
-	p := &Plan{File: f, History: ser, Z: f.Bands.Z, Floor: f.Bands.Floor, Digests: map[string]string{}, Warnings: f.Lint(ser)}
-	for _, fl := range h.Filled {
+// newPlan starts the plan: settings, filled cells, input digests and
+// File.Lint's warnings.
+func newPlan(f *scenario.File, in *Inputs) (*Plan, forecast.Spec) {
+	ser := in.Series
+	p := &Plan{File: f, History: ser, Z: f.Bands.Z, Floor: f.Bands.Floor, Digests: maps.Clone(in.Digests), Warnings: f.Lint(ser)}
+	for _, fl := range in.History.Filled {
 		if fl.Series == ser.Name {
 			p.Filled = append(p.Filled, fl)
 			p.Notes = append(p.Notes, fmt.Sprintf("%s: no value for %s; filled with %s (history.fill %s)",
@@ -205,12 +155,7 @@ func newPlan(f *File) (*Plan, forecast.Spec, error) {
 		}
 	}
 	p.Mode, p.From = f.Bands.Widen, f.Bands.From
-	for role, path := range map[string]string{"scenario": f.Path, "history": f.History.File} {
-		if d, err := data.Digest(path); err == nil {
-			p.Digests[role] = d
-		}
-	}
-	return p, spec, nil
+	return p, f.Spec()
 }
 
 // cleaning is what clean takes out of the history: the interventions,
@@ -218,7 +163,7 @@ func newPlan(f *File) (*Plan, forecast.Spec, error) {
 // the planned effect of future events that start inside it taken out.
 type cleaning struct {
 	ivs   []forecast.Intervention
-	event []*Event
+	event []*scenario.Event
 	when  []string
 	y     []float64
 }
@@ -232,7 +177,7 @@ func (p *Plan) interventions() cleaning {
 	ser := p.History
 	first, n := ser.Next(), ser.Len()
 	c := cleaning{y: append([]float64(nil), ser.Values...)}
-	add := func(e *Event, when string, shape []float64) {
+	add := func(e *scenario.Event, when string, shape []float64) {
 		if !nonZero(shape) {
 			return // wholly before the history: File.Lint warns of it
 		}
@@ -242,7 +187,7 @@ func (p *Plan) interventions() cleaning {
 	for _, e := range p.File.Events {
 		if e.IsPast(first) {
 			shape := e.Profile(ser.Start, n)
-			if e.Kind == Step && !e.HasEnd {
+			if e.Kind == scenario.Step && !e.HasEnd {
 				// An ongoing step is already in today's level: lift the
 				// history before it instead of lowering the history after.
 				last := shape[n-1]
@@ -288,7 +233,7 @@ func (p *Plan) clean(spec forecast.Spec) error {
 		season = ser.Freq().SeasonLength()
 	}
 	if e := seasonalConfounding(f, ser, season); e != nil {
-		return f.errAt(e.Pos, fmt.Sprintf("event %q: past", e.ID), fmt.Errorf(
+		return f.ErrorAt(e.Pos, fmt.Sprintf("event %q: past", e.ID), fmt.Errorf(
 			"every occurrence falls on the same %s of the season, in every cycle of the history, so the seasonal pattern already carries the event and its size cannot be told apart from it; leave out past (the baseline then plans it as part of the season) or list only some occurrences", ser.Freq()))
 	}
 	work := ser
@@ -300,7 +245,7 @@ func (p *Plan) clean(spec forecast.Spec) error {
 			ts.Series = ser.Name
 			return &data.ParseError{File: f.History.File, Err: err}
 		}
-		return f.errAt(Pos{}, "events", err)
+		return f.ErrorAt(scenario.Pos{}, "events", err)
 	}
 	p.Fit, p.Cleaned = ifit.Fit, ifit.Cleaned
 	for j, e := range c.event {
@@ -338,19 +283,19 @@ func (p *Plan) lay() {
 }
 
 // layer adds the future events of case c to the baseline.
-func (p *Plan) layer(c Case) ScenarioPlan {
+func (p *Plan) layer(c scenario.Case) ScenarioPlan {
 	hz := len(p.Baseline)
 	sp := ScenarioPlan{Name: c.Name,
 		Adjusted: append([]float64(nil), p.Baseline...), RiskWeighted: append([]float64(nil), p.Baseline...),
 		Var: append([]float64(nil), p.BaselineVar...), Lower: make([]float64, hz), Upper: make([]float64, hz),
 		Contrib: make([][]float64, len(p.Future))}
-	in := map[*Event]bool{}
+	in := map[string]bool{}
 	for _, e := range c.Events {
-		in[e] = true
+		in[e.ID] = true
 	}
 	first := p.Periods[0]
 	for i, e := range p.Future {
-		if !in[e] {
+		if !in[e.ID] {
 			sp.Contrib[i] = make([]float64, hz)
 			continue
 		}
@@ -377,8 +322,11 @@ func (p *Plan) layer(c Case) ScenarioPlan {
 // its range to a 90% interval around that mean: mean -/+ 1.645 s, where s is
 // the standard deviation of the estimates when there are two or more and
 // the standard error of the single estimate otherwise.
+//
+// The file's event is left as it is: the plan's Future holds a copy with
+// the learnt effect and range.
 func learnFromPast(p *Plan) {
-	for _, e := range p.Future {
+	for i, e := range p.Future {
 		if !e.Effect.FromPast {
 			continue
 		}
@@ -400,8 +348,10 @@ func learnFromPast(p *Plan) {
 			}
 			s = math.Sqrt(ss / float64(len(est)-1))
 		}
-		e.Effect = Effect{Units: mean, FromPast: true}
-		e.Range = &Range{Low: mean - 1.645*s, High: mean + 1.645*s}
+		learnt := *e
+		learnt.Effect = scenario.Effect{Units: mean, FromPast: true}
+		learnt.Range = &scenario.Range{Low: mean - 1.645*s, High: mean + 1.645*s}
+		p.Future[i], e = &learnt, &learnt
 		d := forecast.Decimals([]float64{mean, e.Range.Low, e.Range.High})
 		p.Notes = append(p.Notes, fmt.Sprintf("event %q: effect learnt from %d past occurrence(s): %s per period, 90%% range %s to %s",
 			e.ID, len(est), forecast.FormatNumber(mean, d), forecast.FormatNumber(e.Range.Low, d), forecast.FormatNumber(e.Range.High, d)))
@@ -412,7 +362,7 @@ func learnFromPast(p *Plan) {
 // on the same position of the season in every cycle of the history (so the
 // seasonal pattern carries the event and its size cannot be estimated apart
 // from it), or nil.
-func seasonalConfounding(f *File, ser forecast.Series, m int) *Event {
+func seasonalConfounding(f *scenario.File, ser forecast.Series, m int) *scenario.Event {
 	if m < 2 {
 		return nil
 	}

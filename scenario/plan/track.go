@@ -1,10 +1,11 @@
-package scenario
+package plan
 
 import (
 	"bytes"
 	"encoding/csv"
 	"errors"
 	"fmt"
+	"forelay/scenario"
 	"forelay/scenario/data"
 	"io"
 	"math"
@@ -146,12 +147,12 @@ func (tp TrackPlan) Choose(name string) (PlanLine, error) {
 		return PlanLine{}, fmt.Errorf("%w %q; the plan has %s", ErrScenarioChoice, name, list)
 	}
 	for _, s := range tp.Scenarios {
-		if s.Name == DefaultCase {
+		if s.Name == scenario.DefaultCase {
 			return s, nil
 		}
 	}
 	return PlanLine{}, fmt.Errorf("%w chosen: the plan has %d scenarios (%s) and none is called %q; name one",
-		ErrScenarioChoice, len(tp.Scenarios), list, DefaultCase)
+		ErrScenarioChoice, len(tp.Scenarios), list, scenario.DefaultCase)
 }
 
 // ReadActuals reads new actuals of the planned series from r, a CSV file

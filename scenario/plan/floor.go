@@ -1,8 +1,9 @@
-package scenario
+package plan
 
 import (
 	"fmt"
 	"forelay/forecast"
+	"forelay/scenario"
 	"strings"
 )
 
@@ -13,7 +14,7 @@ import (
 // contribution there is negative.
 type Clip struct {
 	// Event is the event; it is one of the scenario's events.
-	Event *Event
+	Event *scenario.Event
 	// Periods are the indexes into Plan.Periods of the periods it pushed
 	// below the floor, in order.
 	Periods []int
@@ -41,7 +42,7 @@ func (p *Plan) clip(sp *ScenarioPlan) {
 		return
 	}
 	f := *p.Floor
-	pushed := map[*Event][]int{}
+	pushed := map[*scenario.Event][]int{}
 	for t := range sp.Adjusted {
 		adj, rw := sp.Adjusted[t], sp.RiskWeighted[t]
 		below := adj < f || rw < f
@@ -79,7 +80,7 @@ func (p *Plan) clip(sp *ScenarioPlan) {
 
 // newClip sums up how event e (the i-th future event) pushed sp below the
 // floor in periods ts.
-func (p *Plan) newClip(e *Event, i int, sp *ScenarioPlan, ts []int) Clip {
+func (p *Plan) newClip(e *scenario.Event, i int, sp *ScenarioPlan, ts []int) Clip {
 	c := Clip{Event: e, Periods: ts}
 	for k, t := range ts {
 		fall := -sp.Contrib[i][t]
