@@ -3,9 +3,9 @@ package main
 import (
 	"fmt"
 	"forelay/scenario/plan"
+	"forelay/scenario/report"
 	"forelay/scenario/sim"
 	"forelay/scenario/supply"
-	"io"
 	"math"
 
 	"github.com/spf13/cobra"
@@ -166,10 +166,8 @@ func bufferRun(opts *BufferOptions) error {
 	if err != nil {
 		return err
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, runOutput{
-		name: "buffer", warnings: r.Plan.Warnings, doc: bufferJSON(r),
-		csv:    func() ([]byte, error) { return bufferCSV(r) },
-		charts: func() []namedChart { return []namedChart{{"buffer", bufferChart(r)}} },
-		text:   func(w io.Writer) { writeBufferText(w, r) },
-	})
+	rep := &report.Report{Name: "buffer", Warnings: r.Plan.Warnings, Doc: bufferJSON(r), CSV: bufferCSV(r),
+		Charts: []report.Chart{{Name: "buffer", Plot: bufferChart(r)}}}
+	writeBufferText(&rep.Text, r)
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, rep)
 }

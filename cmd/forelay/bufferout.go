@@ -80,14 +80,14 @@ func bufferJSON(r *bufferResult) bufferOutJSON {
 }
 
 // bufferCSV renders buffer.csv: one row per period.
-func bufferCSV(r *bufferResult) ([]byte, error) {
+func bufferCSV(r *bufferResult) *report.Table {
 	rows := [][]string{{"period", "demand", "capacity", "build", "stock", "required_start"}}
 	b := r.Buffer
 	for t, per := range r.Plan.Periods {
 		rows = append(rows, []string{per.String(), csvNum(b.Demand[t], 2), csvNum(b.Capacity[t], 2), csvNum(b.Build[t], 2),
 			csvNum(b.Stock[t], 2), csvNum(b.Required[t], 2)})
 	}
-	return encodeCSV(rows)
+	return csvTable(rows)
 }
 
 // writeBufferText writes the human report of a buffer run.
@@ -110,10 +110,10 @@ func writeBufferText(w io.Writer, r *bufferResult) {
 	fmt.Fprintf(w, "Service: %s %s (%s)\n\n", svc, serviceDefinition, "the chance that a period's demand is met from what is made and held")
 	t := newTable("period", "demand", "capacity", "build", "stock (end)", "needed at start")
 	for i, per := range p.Periods {
-		t.add(per.String(), fmtNum(b.Demand[i], 0), fmtNum(b.Capacity[i], 0), fmtNum(b.Build[i], 0),
+		t.AddRow(per.String(), fmtNum(b.Demand[i], 0), fmtNum(b.Capacity[i], 0), fmtNum(b.Build[i], 0),
 			fmtNum(b.Stock[i], 0), fmtNum(b.Required[i], 0))
 	}
-	t.write(w)
+	writeTable(w, t)
 	fmt.Fprintln(w)
 	if b.PrebuildAt < 0 {
 		fmt.Fprintf(w, "No period's demand at the %s quantile exceeds capacity: nothing needs building ahead.\n", svc)

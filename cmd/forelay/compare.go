@@ -2,9 +2,9 @@ package main
 
 import (
 	"forelay/scenario/plan"
+	"forelay/scenario/report"
 	"forelay/scenario/sim"
 	"forelay/scenario/supply"
-	"io"
 
 	"github.com/spf13/cobra"
 )
@@ -100,18 +100,13 @@ func compareRun(opts *CompareOptions) error {
 	if err != nil {
 		return err
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, runOutput{
-		name: "compare", warnings: r.Plan.Warnings, doc: compareJSON(r),
-		csv: func() ([]byte, error) { return compareCSV(r) },
-		charts: func() []namedChart {
-			charts := []namedChart{{"compare", compareChart(r)}}
-			for _, c := range r.Rows {
-				if len(c.Contributions) > 0 {
-					charts = append(charts, namedChart{"waterfall-" + c.Name, waterfallChart(r, c)})
-				}
-			}
-			return charts
-		},
-		text: func(w io.Writer) { writeCompareText(w, r) },
-	})
+	rep := &report.Report{Name: "compare", Warnings: r.Plan.Warnings, Doc: compareJSON(r), CSV: compareCSV(r),
+		Charts: []report.Chart{{Name: "compare", Plot: compareChart(r)}}}
+	for _, c := range r.Rows {
+		if len(c.Contributions) > 0 {
+			rep.Charts = append(rep.Charts, report.Chart{Name: "waterfall-" + c.Name, Plot: waterfallChart(r, c)})
+		}
+	}
+	writeCompareText(&rep.Text, r)
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, rep)
 }

@@ -75,7 +75,7 @@ func compareJSON(r *compareResult) compareOutJSON {
 // contributes 0, and without a capacity nothing can be breached or needs
 // building ahead, so breach_probability and prebuild are 0. Only
 // prebuild_before, a period, is empty when there is none.
-func compareCSV(r *compareResult) ([]byte, error) {
+func compareCSV(r *compareResult) *report.Table {
 	p := r.Plan
 	head := []string{"scenario", "total", "change", "peak_period", "peak", "p90_peak_period", "p90_peak",
 		"breach_probability", "prebuild", "prebuild_before"}
@@ -96,7 +96,7 @@ func compareCSV(r *compareResult) ([]byte, error) {
 		}
 		rows = append(rows, row)
 	}
-	return encodeCSV(rows)
+	return csvTable(rows)
 }
 
 // zeroIfNaN returns v, or 0 when v is NaN.
@@ -137,8 +137,8 @@ func writeCompareText(w io.Writer, r *compareResult) {
 	if hasCap {
 		head = append(head, "P(breach)", "pre-build", "before")
 	}
-	t := newTable(head...).left(4, 6, 9)
-	t.add(append([]string{"(baseline)", fmtNum(base, 0), "", "", "", "", ""}, make([]string, len(head)-7)...)...)
+	t := newTable(head...).Left(4, 6, 9)
+	t.AddRow(append([]string{"(baseline)", fmtNum(base, 0), "", "", "", "", ""}, make([]string, len(head)-7)...)...)
 	for _, c := range r.Rows {
 		row := []string{c.Name, fmtNum(c.Total, 0), pct(c.Total-c.BaselineTotal, base), fmtNum(c.PeakValue, 0),
 			p.Periods[c.Peak].String(), fmtNum(c.P90PeakValue, 0), p.Periods[c.P90Peak].String()}
@@ -149,9 +149,9 @@ func writeCompareText(w io.Writer, r *compareResult) {
 			}
 			row = append(row, pctText(c.PAnyBreach), fmtNum(c.Prebuild, 0), before)
 		}
-		t.add(row...)
+		t.AddRow(row...)
 	}
-	t.write(w)
+	writeTable(w, t)
 	if hasCap {
 		fmt.Fprintln(w, "(P(breach): chance that demand exceeds capacity in at least one period)")
 	}
@@ -168,9 +168,9 @@ func writeCompareText(w io.Writer, r *compareResult) {
 			for _, c := range r.Rows {
 				row = append(row, contributionOf(c, e.ID, func(v float64, _ int) string { return signed(v, 0) }, "-"))
 			}
-			ct.add(row...)
+			ct.AddRow(row...)
 		}
-		ct.write(w)
+		writeTable(w, ct)
 	}
 	if len(r.Notes) > 0 {
 		fmt.Fprintln(w)

@@ -52,13 +52,13 @@ func writeEventText(w io.Writer, p *plan.Plan, e *scenario.Event) {
 		if share[i] == 0 {
 			continue
 		}
-		t.add(per.String(), fmtNum(share[i], 3), fmtNum(p.Baseline[i], d), signed(contrib[i], d), fmtNum(sigma[i], d))
+		t.AddRow(per.String(), fmtNum(share[i], 3), fmtNum(p.Baseline[i], d), signed(contrib[i], d), fmtNum(sigma[i], d))
 	}
-	if len(t.rows) == 0 {
+	if len(t.Rows) == 0 {
 		fmt.Fprintln(w, "The event touches none of the plan's periods.")
 		return
 	}
-	t.write(w)
+	writeTable(w, t)
 	if e.Probability < 1 {
 		fmt.Fprintf(w, "Probability %s: the risk-weighted plan counts %s of each contribution.\n", fmtNum(e.Probability, 2), fmtNum(e.Probability, 2))
 	}

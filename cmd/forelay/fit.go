@@ -216,14 +216,14 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 	}
 	if len(r.Candidates) > 0 {
 		fmt.Fprintln(w)
-		ct := newTable("candidate", "settings", "MAD", "MSE", "MAPE %", "MASE", "AICc").left(1)
+		ct := newTable("candidate", "settings", "MAD", "MSE", "MAPE %", "MASE", "AICc").Left(1)
 		for _, c := range r.Candidates {
 			mark := "  "
 			if c.Chosen {
 				mark = "* "
 			}
 			if c.Skipped != "" {
-				ct.add(mark+c.Method.String(), "skipped: "+c.Skipped)
+				ct.AddRow(mark+c.Method.String(), "skipped: "+c.Skipped)
 				continue
 			}
 			p := paramText(c.Params)
@@ -234,9 +234,9 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 			if a := c.Backtest; a != nil {
 				mad, mse, mape, mase = fmtNum(a.MAD, 1), fmtNum(a.MSE, 0), fmtNum(a.MAPE, 2), fmtNum(a.MASE, 3)
 			}
-			ct.add(mark+c.Method.String(), p, mad, mse, mape, mase, fmtNum(c.AICc, 1))
+			ct.AddRow(mark+c.Method.String(), p, mad, mse, mape, mase, fmtNum(c.AICc, 1))
 		}
-		if err := ct.write(w); err != nil {
+		if err := writeTable(w, ct); err != nil {
 			return err
 		}
 		switch {
@@ -262,9 +262,9 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 		unit, b.Z, bandSourceText(src, r.Calibration()), 100*forecast.Coverage(b.Z))
 	ft := newTable("period", "forecast", "lower", "upper")
 	for _, p := range pts {
-		ft.add(p.Period.String(), fmtNum(p.Value, 1), fmtNum(p.Lower, 1), fmtNum(p.Upper, 1))
+		ft.AddRow(p.Period.String(), fmtNum(p.Value, 1), fmtNum(p.Lower, 1), fmtNum(p.Upper, 1))
 	}
-	return ft.write(w)
+	return writeTable(w, ft)
 }
 
 // writeAccuracy writes the accuracy table with its bias tests, its notes
@@ -275,7 +275,7 @@ func writeAccuracy(w io.Writer, r *forecast.Result, unit string) error {
 	if bt := r.Backtest; bt != nil {
 		accRow(acc, fmt.Sprintf("backtest, %d origins", bt.Origins), bt.Accuracy, bt.Bias)
 	}
-	if err := acc.write(w); err != nil {
+	if err := writeTable(w, acc); err != nil {
 		return err
 	}
 	fmt.Fprintln(w, "bias: mean error (actual - forecast), over every lead time in the backtest. Bias test: t = one-step bias / its")
@@ -296,7 +296,7 @@ func accRow(t *table, label string, a forecast.Accuracy, b forecast.BiasTest) {
 	default:
 		p = fmt.Sprintf("%.3f", b.P)
 	}
-	t.add(label, fmt.Sprint(a.N), fmtNum(a.MAD, 1), fmtNum(a.MSE, 0),
+	t.AddRow(label, fmt.Sprint(a.N), fmtNum(a.MAD, 1), fmtNum(a.MSE, 0),
 		fmtNum(a.RMSE, 1), fmtNum(a.MAPE, 2), fmtNum(a.MASE, 3), fmtNum(a.Bias, 1), fmtNum(b.Mean, 1), signedT(b.T), p)
 }
 

@@ -249,61 +249,38 @@ func finish(ios *IOStreams, set *outputSet, js []byte, asJSON bool, text func(io
 	return err
 }
 
-// runOutput is what one command run produces, for emit: its warnings, its
-// JSON document, the CSV table and the charts of --out, and the text
-// report.
-type runOutput struct {
-	// name is the base name of the files written to --out: name.csv and,
-	// unless noJSONFile, name.json.
-	name       string
-	noJSONFile bool
-	warnings   []string
-	doc        any
-	csv        func() ([]byte, error)
-	// charts lists the charts to draw into --out (unless --no-chart),
-	// each as base name and chart.
-	charts func() []namedChart
-	text   func(io.Writer)
-}
-
-// namedChart is a chart with the base name of its files.
-type namedChart struct {
-	base string
-	c    chart
-}
-
 // emit ends a command run the same way for every command: the warnings
 // first (under --strict they stop the run before anything is written),
 // then, with --out, the CSV, the JSON document and the charts, written all
 // together, then the JSON document or the text report on standard output.
-func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart bool, r runOutput) error {
-	if err := warnings(ios, shared, r.warnings); err != nil {
+func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart bool, r *report.Report) error {
+	if err := warnings(ios, shared, r.Warnings); err != nil {
 		return err
 	}
-	js, err := marshalIndent(r.doc)
+	js, err := r.JSON()
 	if err != nil {
 		return err
 	}
 	var set *outputSet
 	if out != "" {
 		set = newOutputSet(out)
-		if r.csv != nil {
-			csv, err := r.csv()
+		if r.CSV != nil {
+			csv, err := r.CSVBytes()
 			if err != nil {
 				return err
 			}
-			set.add(r.name+".csv", csv)
+			set.add(r.Name+".csv", csv)
 		}
-		if !r.noJSONFile {
-			set.add(r.name+".json", js)
+		if !r.NoJSONFile {
+			set.add(r.Name+".json", js)
 		}
-		if !noChart && r.charts != nil {
-			for _, c := range r.charts() {
-				if err := set.addChart(c.base, c.c); err != nil {
+		if !noChart {
+			for _, c := range r.Charts {
+				if err := set.addChart(c.Name, c.Plot); err != nil {
 					return err
 				}
 			}
 		}
 	}
-	return finish(ios, set, js, asJSON, r.text)
+	return finish(ios, set, js, asJSON, func(w io.Writer) { r.WriteText(w) })
 }

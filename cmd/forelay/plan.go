@@ -85,17 +85,13 @@ func planRun(opts *PlanOptions) error {
 	if err != nil {
 		return err
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, runOutput{
-		name: "plan", warnings: p.Warnings, doc: report.Plan(p),
-		csv:    func() ([]byte, error) { return planCSV(p) },
-		charts: func() []namedChart { return []namedChart{{"plan", planChart(p)}} },
-		text: func(w io.Writer) {
-			writePlanText(w, p, opts.Detail)
-			if ev != nil {
-				writeEventText(w, p, ev)
-			}
-		},
-	})
+	rep := &report.Report{Name: "plan", Warnings: p.Warnings, Doc: report.Plan(p), CSV: planCSV(p),
+		Charts: []report.Chart{{Name: "plan", Plot: planChart(p)}}}
+	writePlanText(&rep.Text, p, opts.Detail)
+	if ev != nil {
+		writeEventText(&rep.Text, p, ev)
+	}
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, rep)
 }
 
 // writePlanText writes the human summary of a plan.
@@ -158,7 +154,7 @@ func writePlanText(w io.Writer, p *plan.Plan, detail bool) {
 		fmt.Fprintf(w, "Scenario %s (%s)\n", sp.Name, evs)
 		base := plan.Total(p.Baseline)
 		t := newTable("", "total"+units, "vs baseline", "share")
-		t.add("baseline", fmtNum(base, d), "", "")
+		t.AddRow("baseline", fmtNum(base, d), "", "")
 		for i, e := range p.Future {
 			if !slices.Contains(sp.Events, e) {
 				continue
@@ -168,23 +164,23 @@ func writePlanText(w io.Writer, p *plan.Plan, detail bool) {
 			if e.Probability < 1 {
 				label += fmt.Sprintf(" (p=%.2g)", e.Probability)
 			}
-			t.add(label, "", signed(c, d), pct(c, base))
+			t.AddRow(label, "", signed(c, d), pct(c, base))
 		}
 		adj := plan.Total(sp.Adjusted)
-		t.add("adjusted plan", fmtNum(adj, d), signed(adj-base, d), pct(adj-base, base))
+		t.AddRow("adjusted plan", fmtNum(adj, d), signed(adj-base, d), pct(adj-base, base))
 		rw := plan.Total(sp.RiskWeighted)
-		t.add("risk-weighted", fmtNum(rw, d), signed(rw-base, d), pct(rw-base, base))
-		t.write(w)
+		t.AddRow("risk-weighted", fmtNum(rw, d), signed(rw-base, d), pct(rw-base, base))
+		writeTable(w, t)
 		i, v := plan.Peak(sp.Adjusted)
 		fmt.Fprintf(w, "Peak %s: %s%s (band %s to %s)\n", p.Periods[i], fmtNum(v, d), units, fmtNum(sp.Lower[i], d), fmtNum(sp.Upper[i], d))
 		if detail {
 			dt := newTable("period", "baseline", "adjusted", "risk-weighted", "lower", "upper")
 			for k, per := range p.Periods {
-				dt.add(per.String(), fmtNum(p.Baseline[k], d), fmtNum(sp.Adjusted[k], d), fmtNum(sp.RiskWeighted[k], d),
+				dt.AddRow(per.String(), fmtNum(p.Baseline[k], d), fmtNum(sp.Adjusted[k], d), fmtNum(sp.RiskWeighted[k], d),
 					fmtNum(sp.Lower[k], d), fmtNum(sp.Upper[k], d))
 			}
 			fmt.Fprintln(w)
-			dt.write(w)
+			writeTable(w, dt)
 		}
 	}
 	if len(p.Notes) > 0 {

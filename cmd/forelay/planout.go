@@ -3,6 +3,7 @@ package main
 import (
 	"encoding/json"
 	"forelay/scenario/plan"
+	"forelay/scenario/report"
 	"strconv"
 )
 
@@ -22,7 +23,7 @@ func fmtCSV(v float64) string { return strconv.FormatFloat(v, 'f', 2, 64) }
 // planCSV renders plan.csv: one row per scenario and period with the
 // columns scenario, period, baseline, adjusted, risk_weighted, lower, upper
 // and then one column per future event holding its contribution.
-func planCSV(p *plan.Plan) ([]byte, error) {
+func planCSV(p *plan.Plan) *report.Table {
 	var rows [][]string
 	head := []string{"scenario", "period", "baseline", "adjusted", "risk_weighted", "lower", "upper"}
 	for _, e := range p.Future {
@@ -39,5 +40,5 @@ func planCSV(p *plan.Plan) ([]byte, error) {
 			rows = append(rows, row)
 		}
 	}
-	return encodeCSV(rows)
+	return csvTable(rows)
 }

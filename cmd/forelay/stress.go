@@ -2,9 +2,9 @@ package main
 
 import (
 	"forelay/scenario/plan"
+	"forelay/scenario/report"
 	"forelay/scenario/sim"
 	"forelay/scenario/supply"
-	"io"
 	"slices"
 
 	"github.com/spf13/cobra"
@@ -148,16 +148,11 @@ func stressRun(opts *StressOptions) error {
 	if err != nil {
 		return err
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, runOutput{
-		name: "stress", warnings: r.Warnings, doc: stressJSON(r),
-		csv: func() ([]byte, error) { return stressCSV(r) },
-		charts: func() []namedChart {
-			charts := []namedChart{{"fan", fanChart(r)}}
-			if r.Frozen != nil {
-				charts = append(charts, namedChart{"stock", stockChart(r)})
-			}
-			return charts
-		},
-		text: func(w io.Writer) { writeStressText(w, r) },
-	})
+	rep := &report.Report{Name: "stress", Warnings: r.Warnings, Doc: stressJSON(r), CSV: stressCSV(r),
+		Charts: []report.Chart{{Name: "fan", Plot: fanChart(r)}}}
+	if r.Frozen != nil {
+		rep.Charts = append(rep.Charts, report.Chart{Name: "stock", Plot: stockChart(r)})
+	}
+	writeStressText(&rep.Text, r)
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, rep)
 }

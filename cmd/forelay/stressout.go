@@ -134,7 +134,7 @@ func stressJSON(r *stressResult) stressOutJSON {
 // frozen-production columns are there only when production is frozen.
 // Quantities have two decimals, probabilities and utilisations four; a
 // value that does not apply (no capacity) is an empty cell.
-func stressCSV(r *stressResult) ([]byte, error) {
+func stressCSV(r *stressResult) *report.Table {
 	var rows [][]string
 	head := []string{"scenario", "period", "mean", "p5", "p10", "p50", "p90", "p95", "capacity", "p_breach",
 		"expected_shortfall", "shortfall_if_breach", "util_p50", "util_p90"}
@@ -155,7 +155,7 @@ func stressCSV(r *stressResult) ([]byte, error) {
 			rows = append(rows, row)
 		}
 	}
-	return encodeCSV(rows)
+	return csvTable(rows)
 }
 
 // writeStressText writes the human report of a stress run.
@@ -194,9 +194,9 @@ func writeStressText(w io.Writer, r *stressResult) {
 				row = append(row, fmtNum(pr.Capacity, 0), pctText(pr.PBreach), fmtNum(pr.ExpectedShortfall, 0),
 					pctText(pr.UtilP50), pctText(pr.UtilP90))
 			}
-			t.add(row...)
+			t.AddRow(row...)
 		}
-		t.write(w)
+		writeTable(w, t)
 		if hasCap {
 			if rk.FirstBreach >= 0 {
 				fmt.Fprintf(w, "First period with P(breach) above %s: %s (%s)\n", pctText(r.Opts.Breach),
@@ -230,11 +230,11 @@ func writeFrozenText(w io.Writer, p *plan.Plan, fz supply.StockProjection, sourc
 	fmt.Fprintf(w, "\nFrozen production held at %s, opening stock %s%s:\n", from, fmtNum(fz.Opening, 0), units)
 	t := newTable("period", "production", "demand", "stock", "stock @P50", "stock @P90", "P(short)", "idle capacity", "overload")
 	for i := range fz.Stock {
-		t.add(p.Periods[i].String(), fmtNum(fz.Production[i], 0), fmtNum(fz.Demand[i], 0), fmtNum(fz.Stock[i], 0),
+		t.AddRow(p.Periods[i].String(), fmtNum(fz.Production[i], 0), fmtNum(fz.Demand[i], 0), fmtNum(fz.Stock[i], 0),
 			fmtNum(fz.StockP50[i], 0), fmtNum(fz.StockP90[i], 0), pctText(fz.PShort[i]), fmtNum(fz.Idle[i], 0),
 			fmtNum(fz.Overload[i], 0))
 	}
-	t.write(w)
+	writeTable(w, t)
 	fmt.Fprintln(w, "(stock at the end of each period under the adjusted plan; @P50 and @P90: when cumulative demand runs at its P50 or P90)")
 	if fz.FirstShortfall >= 0 {
 		fmt.Fprintf(w, "Stock runs short first in %s (%s%s); lowest %s%s in %s\n", p.Periods[fz.FirstShortfall],

@@ -2,65 +2,25 @@ package main
 
 import (
 	"io"
-	"strings"
-	"unicode/utf8"
+
+	"forelay/scenario/report"
 )
 
-// table is a plain-text table: the first column left-aligned (labels), the
-// others right-aligned (numbers) unless leftCols says otherwise. Columns
-// are separated by two spaces; trailing spaces are trimmed.
-type table struct {
-	head     []string
-	rows     [][]string
-	leftCols map[int]bool
-}
+// table is a text table (see report.Table).
+type table = report.Table
 
-func newTable(head ...string) *table {
-	return &table{head: head, leftCols: map[int]bool{0: true}}
-}
+func newTable(head ...string) *table { return report.NewTable(head...) }
 
-// left marks columns to align left.
-func (t *table) left(cols ...int) *table {
-	for _, c := range cols {
-		t.leftCols[c] = true
+// writeTable adds t to w when w is a report's text, and writes it laid out
+// otherwise.
+func writeTable(w io.Writer, t *table) error {
+	if tw, ok := w.(*report.Text); ok {
+		tw.Add(t)
+		return nil
 	}
-	return t
-}
-
-func (t *table) add(cells ...string) { t.rows = append(t.rows, cells) }
-
-func (t *table) write(w io.Writer) error {
-	width := make([]int, len(t.head))
-	all := append([][]string{t.head}, t.rows...)
-	for _, r := range all {
-		for i, c := range r {
-			if i < len(width) {
-				width[i] = max(width[i], utf8.RuneCountInString(c))
-			}
-		}
-	}
-	var b strings.Builder
-	for _, r := range all {
-		var line strings.Builder
-		for i := range width {
-			c := ""
-			if i < len(r) {
-				c = r[i]
-			}
-			pad := strings.Repeat(" ", width[i]-utf8.RuneCountInString(c))
-			if i > 0 {
-				line.WriteString("  ")
-			}
-			if t.leftCols[i] {
-				line.WriteString(c + pad)
-			} else {
-				line.WriteString(pad + c)
-			}
-		}
-		b.WriteString(strings.TrimRight(line.String(), " "))
-		b.WriteByte('\n')
-	}
-	_, err := io.WriteString(w, b.String())
+	var tw report.Text
+	tw.Add(t)
+	_, err := io.WriteString(w, tw.String())
 	return err
 }
 

@@ -178,15 +178,11 @@ func trackRun(opts *TrackOptions) error {
 		return &inputError{err: err}
 	}
 	rep := trackReport{tp: tp, tr: tr, source: source, defaultLimit: opts.TSLimit == 0, warnings: warns}
-	err = emit(opts.IO, opts.Shared, opts.Out, opts.JSON, false, runOutput{
-		name: "track", noJSONFile: true, warnings: warns, doc: trackJSON(rep),
-		csv: func() ([]byte, error) { return trackCSV(rep) },
-		charts: func() []namedChart {
-			control, signal := trackCharts(rep)
-			return []namedChart{{"control", control}, {"signal", signal}}
-		},
-		text: func(w io.Writer) { writeTrackText(w, rep) },
-	})
+	control, signal := trackCharts(rep)
+	out := &report.Report{Name: "track", NoJSONFile: true, Warnings: warns, Doc: trackJSON(rep), CSV: trackCSV(rep),
+		Charts: []report.Chart{{Name: "control", Plot: control}, {Name: "signal", Plot: signal}}}
+	writeTrackText(&out.Text, rep)
+	err = emit(opts.IO, opts.Shared, opts.Out, opts.JSON, false, out)
 	if err != nil {
 		return err
 	}
@@ -291,20 +287,20 @@ func writeTrackText(w io.Writer, r trackReport) {
 		sdec = 3
 	}
 	t := newTable("period", "actual", "plan", "error", "cum. error", "MAD", "tracking signal", "sigmas", "verdict", "rules")
-	t.left(8, 9)
+	t.Left(8, 9)
 	for i, p := range tr.Points {
-		t.add(tr.Periods[i].String(), fmtNum(p.Actual, dec), fmtNum(p.Plan, dec), signed(p.Error, dec), signed(p.CumError, dec),
+		t.AddRow(tr.Periods[i].String(), fmtNum(p.Actual, dec), fmtNum(p.Plan, dec), signed(p.Error, dec), signed(p.CumError, dec),
 			fmtNum(p.MAD, dec), signed(p.TrackingSignal, sdec), signed(p.Sigmas, 2), p.Verdict.String(), rulesText(p.Rules))
 	}
-	t.write(w)
+	writeTable(w, t)
 	fmt.Fprintln(w)
 
 	va := tr.ValueAdded
 	fmt.Fprintf(w, "Forecast value added over %d period(s) (error = actual - forecast):\n", va.N)
 	ft := newTable("", "MAD", "bias")
-	ft.add("  adjusted plan", fmtNum(va.PlanMAD, dec), signed(va.PlanBias, dec))
-	ft.add("  baseline", fmtNum(va.BaselineMAD, dec), signed(va.BaselineBias, dec))
-	ft.write(w)
+	ft.AddRow("  adjusted plan", fmtNum(va.PlanMAD, dec), signed(va.PlanBias, dec))
+	ft.AddRow("  baseline", fmtNum(va.BaselineMAD, dec), signed(va.BaselineBias, dec))
+	writeTable(w, ft)
 	fmt.Fprintln(w, fvaText(r, dec))
 	fmt.Fprintln(w)
 	fmt.Fprintln(w, latestText(r))

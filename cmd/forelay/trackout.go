@@ -1,6 +1,7 @@
 package main
 
 import (
+	"forelay/scenario/report"
 	"strconv"
 	"strings"
 
@@ -92,7 +93,7 @@ func trackJSON(r trackReport) trackOutJSON {
 // period, actual, plan, baseline, error, cum_error, mad, tracking_signal,
 // sigmas, verdict and rules (rule names separated by spaces). Values have
 // two decimals, the signal and the sigmas four.
-func trackCSV(r trackReport) ([]byte, error) {
+func trackCSV(r trackReport) *report.Table {
 	tr := r.tr
 	var rows [][]string
 	rows = append(rows, []string{"period", "actual", "plan", "baseline", "error", "cum_error", "mad", "tracking_signal", "sigmas", "verdict", "rules"})
@@ -104,7 +105,7 @@ func trackCSV(r trackReport) ([]byte, error) {
 		rows = append(rows, []string{tr.Periods[i].String(), fmtCSV(p.Actual), fmtCSV(p.Plan), fmtCSV(tr.Baseline[i]), fmtCSV(p.Error),
 			fmtCSV(p.CumError), fmtCSV(p.MAD), fmt4(p.TrackingSignal), fmt4(p.Sigmas), p.Verdict.String(), strings.Join(rules, " ")})
 	}
-	return encodeCSV(rows)
+	return csvTable(rows)
 }
 
 func fmt4(v float64) string { return strconv.FormatFloat(v, 'f', 4, 64) }

@@ -5,6 +5,10 @@
 // newer one. Numbers are written with 10 significant digits, and NaN and
 // the infinities as null (Num).
 //
-// It is the first part of the report model every command will share;
-// the commands' other documents still live in cmd/forelay.
+// Report is the one model every command's run produces: the text for a
+// person as blocks (lines and tables), the JSON document, the CSV table,
+// the charts and the warnings; WriteText, JSON and CSVBytes are its
+// writers, and a new output format (HTML, XLSX) is one more writer of
+// Report. The builders of most commands' reports still live in
+// cmd/forelay.
 package report
