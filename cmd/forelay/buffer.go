@@ -149,7 +149,7 @@ func computeBuffer(opts *BufferOptions) (*bufferResult, error) {
 		if r.Sim, err = simulate(p, &opts.Sim); err != nil {
 			return nil, err
 		}
-		r.Notes = simNotes(p)
+		r.Notes = report.SimNotes(p)
 		demand = r.Sim.Scenarios[sc].QuantileDemand(opts.Service)
 	}
 	r.Buffer = supply.PlanBuffer(demand, capacity, opts.OpeningStock)

@@ -64,8 +64,8 @@ func bufferJSON(r *bufferResult) bufferOutJSON {
 	p, b := r.Plan, r.Buffer
 	o := bufferOutJSON{Plan: p.File.Plan, Units: p.File.Units, Scenario: p.Scenarios[r.Scenario].Name,
 		Service: num(r.Opts.Service), ServiceDefinition: serviceDefinition, DemandSource: demandSourceName(r),
-		OpeningStock: num(b.Opening), Prebuild: num(b.Prebuild), PrebuildBefore: periodOrNull(p, b.PrebuildAt),
-		BuildStart: periodOrNull(p, b.BuildStart), OpeningGap: num(b.Gap), SafetyStock: num(r.Safety),
+		OpeningStock: num(b.Opening), Prebuild: num(b.Prebuild), PrebuildBefore: report.PeriodOrNull(p, b.PrebuildAt),
+		BuildStart: report.PeriodOrNull(p, b.BuildStart), OpeningGap: num(b.Gap), SafetyStock: num(r.Safety),
 		LeadTime: num(r.Opts.LeadTime), Sigma: num(r.Sigma), LeadTimeSpread: num(r.Spread), Z: num(r.Z), CycleServiceLevel: num(r.CSL),
 		Inputs: p.Digests, Notes: r.Notes, Warnings: warningList(r.Plan.Warnings), Caution: report.Caution}
 	if r.Sim != nil {
@@ -84,8 +84,8 @@ func bufferCSV(r *bufferResult) *report.Table {
 	rows := [][]string{{"period", "demand", "capacity", "build", "stock", "required_start"}}
 	b := r.Buffer
 	for t, per := range r.Plan.Periods {
-		rows = append(rows, []string{per.String(), csvNum(b.Demand[t], 2), csvNum(b.Capacity[t], 2), csvNum(b.Build[t], 2),
-			csvNum(b.Stock[t], 2), csvNum(b.Required[t], 2)})
+		rows = append(rows, []string{per.String(), report.CSVNum(b.Demand[t], 2), report.CSVNum(b.Capacity[t], 2), report.CSVNum(b.Build[t], 2),
+			report.CSVNum(b.Stock[t], 2), report.CSVNum(b.Required[t], 2)})
 	}
 	return csvTable(rows)
 }
@@ -99,14 +99,14 @@ func writeBufferText(w io.Writer, r *bufferResult) {
 		units = " " + f.Units
 	}
 	sc := p.Scenarios[r.Scenario]
-	fmt.Fprintf(w, "Buffer for scenario %s of plan %s%s\n", sc.Name, f.Plan, inUnits(f.Units))
-	svc := pctText(r.Opts.Service)
+	fmt.Fprintf(w, "Buffer for scenario %s of plan %s%s\n", sc.Name, f.Plan, report.InUnits(f.Units))
+	svc := report.PctText(r.Opts.Service)
 	if r.Sim != nil {
-		fmt.Fprintf(w, "Demand: the %s quantile of each period's simulated demand (%s)\n", svc, simText(r.Sim))
+		fmt.Fprintf(w, "Demand: the %s quantile of each period's simulated demand (%s)\n", svc, report.SimText(r.Sim))
 	} else {
 		fmt.Fprintf(w, "Demand: adjusted plan + %.3f x standard error (the %s normal quantile)\n", r.Z, svc)
 	}
-	fmt.Fprintf(w, "Capacity: %s\n", capacityText(p))
+	fmt.Fprintf(w, "Capacity: %s\n", report.CapacityText(p))
 	fmt.Fprintf(w, "Service: %s %s (%s)\n\n", svc, serviceDefinition, "the chance that a period's demand is met from what is made and held")
 	t := newTable("period", "demand", "capacity", "build", "stock (end)", "needed at start")
 	for i, per := range p.Periods {
@@ -137,7 +137,7 @@ func writeBufferText(w io.Writer, r *bufferResult) {
 		period += "s"
 	}
 	fmt.Fprintf(w, "Safety stock for a lead time of %s %s: z %.3f x spread %s = %s%s, a %s %s.\n",
-		lead, period, r.Z, fmtNum(r.Spread, 0), fmtNum(r.Safety, 0), units, pctText(r.CSL), serviceDefinition)
+		lead, period, r.Z, fmtNum(r.Spread, 0), fmtNum(r.Safety, 0), units, report.PctText(r.CSL), serviceDefinition)
 	fmt.Fprintf(w, "(spread: standard deviation of the summed forecast errors over the lead time, from the baseline's %s band variance\n"+
 		"and the model's carry-over of errors from one period to the next; one period alone: %s.)\n", p.From, fmtNum(r.Sigma, 0))
 	if len(r.Notes) > 0 {
@@ -159,9 +159,9 @@ func bufferChart(r *bufferResult) plots.StockChart {
 		labels[t] = per.String()
 	}
 	return plots.StockChart{
-		Title:      fmt.Sprintf("Build ahead, %s: %s at %s service", p.File.Plan, p.Scenarios[r.Scenario].Name, pctText(r.Opts.Service)),
-		Units:      unitsLabel(p.File.Units, p.History.Freq().String()),
-		StockUnits: stockLabel(p.File.Units),
+		Title:      fmt.Sprintf("Build ahead, %s: %s at %s service", p.File.Plan, p.Scenarios[r.Scenario].Name, report.PctText(r.Opts.Service)),
+		Units:      report.UnitsLabel(p.File.Units, p.History.Freq().String()),
+		StockUnits: report.StockLabel(p.File.Units),
 		Labels:     labels,
 		Demand:     b.Demand,
 		Capacity:   b.Capacity,

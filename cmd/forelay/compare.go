@@ -92,7 +92,7 @@ func computeCompare(opts *CompareOptions) (*compareResult, error) {
 	if err != nil {
 		return nil, err
 	}
-	return &compareResult{Plan: p, Sim: mc, Opts: opts, Rows: supply.Compare(mc, opts.Service), Notes: simNotes(p)}, nil
+	return &compareResult{Plan: p, Sim: mc, Opts: opts, Rows: supply.Compare(mc, opts.Service), Notes: report.SimNotes(p)}, nil
 }
 
 func compareRun(opts *CompareOptions) error {

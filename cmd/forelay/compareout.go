@@ -59,7 +59,7 @@ func compareJSON(r *compareResult) compareOutJSON {
 			Change:            num(c.Total - c.BaselineTotal),
 			Peak:              report.PeakDoc{Period: p.Periods[c.Peak].String(), Value: num(c.PeakValue)},
 			P90Peak:           report.PeakDoc{Period: p.Periods[c.P90Peak].String(), Value: num(c.P90PeakValue)},
-			BreachProbability: num(c.PAnyBreach), Prebuild: num(c.Prebuild), PrebuildBefore: periodOrNull(p, c.PrebuildAt),
+			BreachProbability: num(c.PAnyBreach), Prebuild: num(c.Prebuild), PrebuildBefore: report.PeriodOrNull(p, c.PrebuildAt),
 			Contributions: []contributionJSON{}}
 		for _, k := range c.Contributions {
 			cj.Contributions = append(cj.Contributions, contributionJSON{Event: k.ID, Total: num(k.Total)})
@@ -88,11 +88,11 @@ func compareCSV(r *compareResult) *report.Table {
 		if c.PrebuildAt >= 0 {
 			before = p.Periods[c.PrebuildAt].String()
 		}
-		row := []string{c.Name, csvNum(c.Total, 2), csvNum(c.Total-c.BaselineTotal, 2), p.Periods[c.Peak].String(),
-			csvNum(c.PeakValue, 2), p.Periods[c.P90Peak].String(), csvNum(c.P90PeakValue, 2), csvNum(zeroIfNaN(c.PAnyBreach), 4),
-			csvNum(zeroIfNaN(c.Prebuild), 2), before}
+		row := []string{c.Name, report.CSVNum(c.Total, 2), report.CSVNum(c.Total-c.BaselineTotal, 2), p.Periods[c.Peak].String(),
+			report.CSVNum(c.PeakValue, 2), p.Periods[c.P90Peak].String(), report.CSVNum(c.P90PeakValue, 2), report.CSVNum(zeroIfNaN(c.PAnyBreach), 4),
+			report.CSVNum(zeroIfNaN(c.Prebuild), 2), before}
 		for _, e := range p.Future {
-			row = append(row, contributionOf(c, e.ID, csvNum, csvNum(0, 2)))
+			row = append(row, contributionOf(c, e.ID, report.CSVNum, report.CSVNum(0, 2)))
 		}
 		rows = append(rows, row)
 	}
@@ -123,11 +123,11 @@ func writeCompareText(w io.Writer, r *compareResult) {
 	p := r.Plan
 	f := p.File
 	fmt.Fprintf(w, "Scenarios of plan %s: series %s, %d %s periods %s to %s%s\n", f.Plan, p.History.Name, len(p.Periods),
-		p.History.Freq(), p.Periods[0], p.Periods[len(p.Periods)-1], inUnits(f.Units))
-	fmt.Fprintf(w, "Monte Carlo: %s\n", simText(r.Sim))
+		p.History.Freq(), p.Periods[0], p.Periods[len(p.Periods)-1], report.InUnits(f.Units))
+	fmt.Fprintf(w, "Monte Carlo: %s\n", report.SimText(r.Sim))
 	hasCap := f.Capacity != nil
 	if hasCap {
-		fmt.Fprintf(w, "Capacity: %s; pre-build sized at the %s quantile of demand (%s)\n", capacityText(p), pctText(r.Opts.Service), serviceDefinition)
+		fmt.Fprintf(w, "Capacity: %s; pre-build sized at the %s quantile of demand (%s)\n", report.CapacityText(p), report.PctText(r.Opts.Service), serviceDefinition)
 	} else {
 		fmt.Fprintln(w, "Capacity: none given (no breach probability or pre-build)")
 	}
@@ -140,14 +140,14 @@ func writeCompareText(w io.Writer, r *compareResult) {
 	t := newTable(head...).Left(4, 6, 9)
 	t.AddRow(append([]string{"(baseline)", fmtNum(base, 0), "", "", "", "", ""}, make([]string, len(head)-7)...)...)
 	for _, c := range r.Rows {
-		row := []string{c.Name, fmtNum(c.Total, 0), pct(c.Total-c.BaselineTotal, base), fmtNum(c.PeakValue, 0),
+		row := []string{c.Name, fmtNum(c.Total, 0), report.Pct(c.Total-c.BaselineTotal, base), fmtNum(c.PeakValue, 0),
 			p.Periods[c.Peak].String(), fmtNum(c.P90PeakValue, 0), p.Periods[c.P90Peak].String()}
 		if hasCap {
 			before := "-"
 			if c.PrebuildAt >= 0 {
 				before = p.Periods[c.PrebuildAt].String()
 			}
-			row = append(row, pctText(c.PAnyBreach), fmtNum(c.Prebuild, 0), before)
+			row = append(row, report.PctText(c.PAnyBreach), fmtNum(c.Prebuild, 0), before)
 		}
 		t.AddRow(row...)
 	}
@@ -166,7 +166,7 @@ func writeCompareText(w io.Writer, r *compareResult) {
 		for _, e := range p.Future {
 			row := []string{e.ID}
 			for _, c := range r.Rows {
-				row = append(row, contributionOf(c, e.ID, func(v float64, _ int) string { return signed(v, 0) }, "-"))
+				row = append(row, contributionOf(c, e.ID, func(v float64, _ int) string { return report.Signed(v, 0) }, "-"))
 			}
 			ct.AddRow(row...)
 		}
@@ -218,7 +218,7 @@ func compareChart(r *compareResult) plots.ComparisonChart {
 	}
 	c := plots.ComparisonChart{
 		Title:       "Scenarios of plan " + p.File.Plan + ": " + p.History.Name,
-		Units:       unitsLabel(p.File.Units, p.History.Freq().String()),
+		Units:       report.UnitsLabel(p.File.Units, p.History.Freq().String()),
 		ChangeUnits: "change from baseline",
 		Labels:      labels,
 		Baseline:    p.Baseline,

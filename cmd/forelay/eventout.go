@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"forelay/scenario/plan"
+	"forelay/scenario/report"
 	"io"
 	"slices"
 	"strings"
@@ -46,13 +47,13 @@ func writeEventText(w io.Writer, p *plan.Plan, e *scenario.Event) {
 		}
 	}
 	fmt.Fprintln(w)
-	fmt.Fprintf(w, "Event %s, period by period (in scenarios: %s)\n", e.ID, orNone(in))
-	t := newTable("period", "share", "baseline", "contribution"+inUnits(p.File.Units), "std dev")
+	fmt.Fprintf(w, "Event %s, period by period (in scenarios: %s)\n", e.ID, report.OrNone(in))
+	t := newTable("period", "share", "baseline", "contribution"+report.InUnits(p.File.Units), "std dev")
 	for i, per := range p.Periods {
 		if share[i] == 0 {
 			continue
 		}
-		t.AddRow(per.String(), fmtNum(share[i], 3), fmtNum(p.Baseline[i], d), signed(contrib[i], d), fmtNum(sigma[i], d))
+		t.AddRow(per.String(), fmtNum(share[i], 3), fmtNum(p.Baseline[i], d), report.Signed(contrib[i], d), fmtNum(sigma[i], d))
 	}
 	if len(t.Rows) == 0 {
 		fmt.Fprintln(w, "The event touches none of the plan's periods.")
@@ -62,11 +63,4 @@ func writeEventText(w io.Writer, p *plan.Plan, e *scenario.Event) {
 	if e.Probability < 1 {
 		fmt.Fprintf(w, "Probability %s: the risk-weighted plan counts %s of each contribution.\n", fmtNum(e.Probability, 2), fmtNum(e.Probability, 2))
 	}
-}
-
-func orNone(s []string) string {
-	if len(s) == 0 {
-		return "none"
-	}
-	return strings.Join(s, ", ")
 }

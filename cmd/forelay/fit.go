@@ -203,7 +203,7 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 		fmt.Fprintf(w, ", %s", d)
 	}
 	fmt.Fprintln(w)
-	if p := paramText(r.Model.Params()); p != "" {
+	if p := report.ParamText(r.Model.Params()); p != "" {
 		fmt.Fprintf(w, "Parameters %s (final fit on all %d periods)\n", p, s.Len())
 	}
 	if err := writeMembers(w, r); err != nil {
@@ -226,7 +226,7 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 				ct.AddRow(mark+c.Method.String(), "skipped: "+c.Skipped)
 				continue
 			}
-			p := paramText(c.Params)
+			p := report.ParamText(c.Params)
 			if c.Describe != "" {
 				p = strings.TrimSpace(p + " " + c.Describe)
 			}
@@ -259,7 +259,7 @@ func writeFitText(w io.Writer, r *forecast.Result, horizon int, b bandSettings, 
 	pts := r.ForecastFrom(horizon, b.Z, b.Mode, b.From)
 	_, src := r.VarianceFrom(horizon, b.Mode, b.From)
 	fmt.Fprintf(w, "Forecast%s; band = forecast +- %.3g x standard error (%s; %.1f%% if errors are normal)\n",
-		unit, b.Z, bandSourceText(src, r.Calibration()), 100*forecast.Coverage(b.Z))
+		unit, b.Z, report.BandSourceText(src, r.Calibration()), 100*forecast.Coverage(b.Z))
 	ft := newTable("period", "forecast", "lower", "upper")
 	for _, p := range pts {
 		ft.AddRow(p.Period.String(), fmtNum(p.Value, 1), fmtNum(p.Lower, 1), fmtNum(p.Upper, 1))
@@ -305,7 +305,7 @@ func signedT(t float64) string {
 	if math.IsNaN(t) {
 		return "-"
 	}
-	return signed(t, 2)
+	return report.Signed(t, 2)
 }
 
 // writeMembers lists the members of a combination with their settings and
@@ -331,7 +331,7 @@ func writeMembers(w io.Writer, r *forecast.Result) error {
 
 // memberSettings joins a model's parameters and settings.
 func memberSettings(md forecast.Model) string {
-	return strings.TrimSpace(paramText(md.Params()) + " " + md.Describe())
+	return strings.TrimSpace(report.ParamText(md.Params()) + " " + md.Describe())
 }
 
 // penaltyNote says by how much a single method's backtest error counted
@@ -361,47 +361,6 @@ func candidateNote(r *forecast.Result) string {
 	}
 	return fmt.Sprintf("Candidate settings and parameters are fitted on the backtest's first training window; "+
 		"the parameters at the top are the final fit on all %d periods.", n)
-}
-
-func bandSourceText(src forecast.VarianceSource, cal forecast.Calibration) string {
-	switch src {
-	case forecast.VarCalibrated, forecast.VarFlatCalibrated:
-		how := "widening with lead time"
-		if src == forecast.VarFlatCalibrated {
-			how = "flat: the one-step spread at every lead time"
-		}
-		whose := ""
-		if cal.Selection {
-			whose = " of the selection's own choices"
-		}
-		ratio := fmtNum(cal.Ratio, 2) + " x the model's variance"
-		if !cal.Shaped {
-			ratio = "shaped by the errors themselves"
-		}
-		return fmt.Sprintf("%s, calibrated on %s out-of-sample %s%s from %d %s at lead times 1 to %d, %s",
-			how, fmtNum(float64(cal.Errors), 0), plural(cal.Errors, "error", "errors"), whose, cal.Origins,
-			plural(cal.Origins, "origin", "origins"), cal.Leads, ratio)
-	case forecast.VarFlat:
-		return "flat: sqrt(MSE) at every lead time"
-	case forecast.VarAnalytic:
-		return "widening with lead time: analytic variance of the model class"
-	case forecast.VarBacktest:
-		return "widening with lead time: backtest RMSE per lead time"
-	}
-	return "widening with lead time: MSE x lead time (no backtest available)"
-}
-
-func paramText(p forecast.Params) string {
-	var parts []string
-	for _, kv := range []struct {
-		k string
-		v float64
-	}{{"alpha", p.Alpha}, {"beta", p.Beta}, {"gamma", p.Gamma}, {"phi", p.Phi}} {
-		if kv.v == kv.v { // not NaN
-			parts = append(parts, kv.k+" "+fmtParam(kv.v))
-		}
-	}
-	return strings.Join(parts, " ")
 }
 
 // fileLine formats "file:line", or just the file when line is 0.

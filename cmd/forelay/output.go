@@ -8,10 +8,8 @@ import (
 	"forelay/forecast"
 	"io"
 	"io/fs"
-	"math"
 	"os"
 	"path/filepath"
-	"strconv"
 
 	"gonum.org/v1/plot"
 
@@ -166,14 +164,6 @@ func marshalLine(v any) ([]byte, error) {
 // fmtNum formats a value for tables: thousands separators, the given
 // decimals, "-" for NaN (see scenario.FormatNumber).
 func fmtNum(v float64, decimals int) string { return forecast.FormatNumber(v, decimals) }
-
-// fmtParam formats a smoothing parameter, "-" when it does not apply.
-func fmtParam(v float64) string {
-	if math.IsNaN(v) {
-		return "-"
-	}
-	return strconv.FormatFloat(v, 'f', 4, 64)
-}
 
 // chart is anything that builds a gonum plot: the chart types of package
 // plots.

@@ -104,7 +104,7 @@ func writePlanText(w io.Writer, p *plan.Plan, detail bool) {
 	}
 	freq := p.History.Freq()
 	last := p.Periods[len(p.Periods)-1]
-	fmt.Fprintf(w, "Plan %s: series %s, %d %s periods %s to %s%s\n", f.Plan, p.History.Name, len(p.Periods), freq, p.Periods[0], last, inUnits(f.Units))
+	fmt.Fprintf(w, "Plan %s: series %s, %d %s periods %s to %s%s\n", f.Plan, p.History.Name, len(p.Periods), freq, p.Periods[0], last, report.InUnits(f.Units))
 	r := p.Fit
 	how := "as asked"
 	if r.Auto {
@@ -114,7 +114,7 @@ func writePlanText(w io.Writer, p *plan.Plan, detail bool) {
 		}
 	}
 	fmt.Fprintf(w, "Baseline %s (%s)", r.Method, how)
-	if pt := paramText(r.Model.Params()); pt != "" {
+	if pt := report.ParamText(r.Model.Params()); pt != "" {
 		fmt.Fprintf(w, ", %s", pt)
 	} else if r.Method == forecast.Combination {
 		fmt.Fprintf(w, ", %s", r.Model.Describe())
@@ -123,7 +123,7 @@ func writePlanText(w io.Writer, p *plan.Plan, detail bool) {
 	fmt.Fprintf(w, "Baseline accuracy (one step, in-sample): MAD %s, MSE %s (/%s), MAPE %s%%\n",
 		fmtNum(r.Accuracy.MAD, d), fmtNum(r.Accuracy.MSE, d), r.Accuracy.Divisor, fmtNum(r.Accuracy.MAPE, 2))
 	writeFlags(w, r)
-	fmt.Fprintf(w, "Bands: adjusted +- %.3g x standard error (%s; event ranges count as 90%% intervals)\n", p.Z, bandSourceText(p.VarSource, p.Fit.Calibration()))
+	fmt.Fprintf(w, "Bands: adjusted +- %.3g x standard error (%s; event ranges count as 90%% intervals)\n", p.Z, report.BandSourceText(p.VarSource, p.Fit.Calibration()))
 
 	if len(p.Cleaning) > 0 {
 		fmt.Fprintln(w)
@@ -164,12 +164,12 @@ func writePlanText(w io.Writer, p *plan.Plan, detail bool) {
 			if e.Probability < 1 {
 				label += fmt.Sprintf(" (p=%.2g)", e.Probability)
 			}
-			t.AddRow(label, "", signed(c, d), pct(c, base))
+			t.AddRow(label, "", report.Signed(c, d), report.Pct(c, base))
 		}
 		adj := plan.Total(sp.Adjusted)
-		t.AddRow("adjusted plan", fmtNum(adj, d), signed(adj-base, d), pct(adj-base, base))
+		t.AddRow("adjusted plan", fmtNum(adj, d), report.Signed(adj-base, d), report.Pct(adj-base, base))
 		rw := plan.Total(sp.RiskWeighted)
-		t.AddRow("risk-weighted", fmtNum(rw, d), signed(rw-base, d), pct(rw-base, base))
+		t.AddRow("risk-weighted", fmtNum(rw, d), report.Signed(rw-base, d), report.Pct(rw-base, base))
 		writeTable(w, t)
 		i, v := plan.Peak(sp.Adjusted)
 		fmt.Fprintf(w, "Peak %s: %s%s (band %s to %s)\n", p.Periods[i], fmtNum(v, d), units, fmtNum(sp.Lower[i], d), fmtNum(sp.Upper[i], d))
@@ -191,30 +191,6 @@ func writePlanText(w io.Writer, p *plan.Plan, detail bool) {
 	}
 	fmt.Fprintln(w)
 	fmt.Fprintln(w, report.Caution)
-}
-
-func inUnits(u string) string {
-	if u == "" {
-		return ""
-	}
-	return " (" + u + ")"
-}
-
-// signed formats v with an explicit sign.
-func signed(v float64, decimals int) string {
-	s := fmtNum(v, decimals)
-	if v > 0 || (v == 0 && !math.Signbit(v)) {
-		return "+" + s
-	}
-	return s
-}
-
-// pct formats v as a signed percentage of base.
-func pct(v, base float64) string {
-	if base == 0 {
-		return "-"
-	}
-	return signed(100*v/base, 1) + "%"
 }
 
 // decimalsFor picks the decimals for a table of values like v (see

@@ -2,37 +2,19 @@ package main
 
 import (
 	"forelay/scenario/plan"
+	"forelay/scenario/report"
 	"math"
 
-	"forelay/forecast"
 	"forelay/plots"
 	"forelay/scenario"
 )
-
-// chartHistory is how many periods of history the plan and fan charts show
-// before the forecast: enough seasons to read the pattern, few enough that
-// the plan is not squeezed into a sliver at the right. Three years of
-// months or quarters, two years of weeks, twelve weeks of days, 24 years.
-func chartHistory(f forecast.Frequency) int {
-	switch f {
-	case forecast.Daily:
-		return 84
-	case forecast.Weekly:
-		return 104
-	case forecast.Monthly:
-		return 36
-	case forecast.Quarterly:
-		return 12
-	}
-	return 24
-}
 
 // planChart lays out the plan chart: the last years of history with the
 // past events cleaned out of it, the baseline with its band, each scenario
 // with events and its band, and the windows of the events ahead.
 func planChart(p *plan.Plan) plots.PlanChart {
 	n := p.History.Len()
-	show := min(n, chartHistory(p.History.Freq()))
+	show := min(n, report.ChartHistory(p.History.Freq()))
 	off := n - show // first history index shown
 	hz := len(p.Periods)
 	labels := make([]string, show+hz)
@@ -50,7 +32,7 @@ func planChart(p *plan.Plan) plots.PlanChart {
 	}
 	c := plots.PlanChart{
 		Title:         "Plan " + p.File.Plan + ": " + p.History.Name,
-		Units:         unitsLabel(p.File.Units, p.History.Freq().String()),
+		Units:         report.UnitsLabel(p.File.Units, p.History.Freq().String()),
 		Labels:        labels,
 		History:       plots.Curve{Name: "History", Values: p.History.Values[off:]},
 		Baseline:      base,
@@ -139,20 +121,4 @@ func cleanedOccurrence(f *scenario.File, est plan.Estimate) *scenario.Event {
 		}
 	}
 	return nil
-}
-
-// unitsLabel is the value-axis label: "litres per month", or "per month".
-func unitsLabel(units, period string) string {
-	if units == "" {
-		return "units per " + period
-	}
-	return units + " per " + period
-}
-
-// stockLabel is the value-axis label of a stock panel: "litres in stock".
-func stockLabel(units string) string {
-	if units == "" {
-		return "units in stock"
-	}
-	return units + " in stock"
 }

@@ -4,7 +4,6 @@ import (
 	"encoding/json"
 	"forelay/scenario/plan"
 	"forelay/scenario/report"
-	"strconv"
 )
 
 // marshalIndent encodes v as indented JSON with a final newline.
@@ -15,10 +14,6 @@ func marshalIndent(v any) ([]byte, error) {
 	}
 	return append(b, '\n'), nil
 }
-
-// fmtCSV formats a value for CSV files: two decimals, fixed notation, so
-// files are stable and easy to read in a spreadsheet.
-func fmtCSV(v float64) string { return strconv.FormatFloat(v, 'f', 2, 64) }
 
 // planCSV renders plan.csv: one row per scenario and period with the
 // columns scenario, period, baseline, adjusted, risk_weighted, lower, upper
@@ -32,10 +27,10 @@ func planCSV(p *plan.Plan) *report.Table {
 	rows = append(rows, head)
 	for _, sp := range p.Scenarios {
 		for t, per := range p.Periods {
-			row := []string{sp.Name, per.String(), fmtCSV(p.Baseline[t]), fmtCSV(sp.Adjusted[t]),
-				fmtCSV(sp.RiskWeighted[t]), fmtCSV(sp.Lower[t]), fmtCSV(sp.Upper[t])}
+			row := []string{sp.Name, per.String(), report.CSV2(p.Baseline[t]), report.CSV2(sp.Adjusted[t]),
+				report.CSV2(sp.RiskWeighted[t]), report.CSV2(sp.Lower[t]), report.CSV2(sp.Upper[t])}
 			for i := range p.Future {
-				row = append(row, fmtCSV(sp.Contrib[i][t]))
+				row = append(row, report.CSV2(sp.Contrib[i][t]))
 			}
 			rows = append(rows, row)
 		}

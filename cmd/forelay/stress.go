@@ -122,7 +122,7 @@ func computeStress(opts *StressOptions) (*stressResult, error) {
 	if err != nil {
 		return nil, err
 	}
-	r := &stressResult{Plan: p, Sim: mc, Opts: opts, Chart: chart, Notes: simNotes(p), Warnings: p.Warnings}
+	r := &stressResult{Plan: p, Sim: mc, Opts: opts, Chart: chart, Notes: report.SimNotes(p), Warnings: p.Warnings}
 	capacity := supply.CapacityPerPeriod(p)
 	for _, ps := range mc.Scenarios {
 		r.Risks = append(r.Risks, supply.CapacityRisk(ps, capacity, opts.Breach))

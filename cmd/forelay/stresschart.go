@@ -3,6 +3,7 @@ package main
 import (
 	"forelay/plots"
 	"forelay/scenario/plan"
+	"forelay/scenario/report"
 	"forelay/scenario/supply"
 )
 
@@ -11,7 +12,7 @@ import (
 // shown.
 func fanLabels(p *plan.Plan) (labels []string, show int) {
 	n := p.History.Len()
-	show = min(n, chartHistory(p.History.Freq()))
+	show = min(n, report.ChartHistory(p.History.Freq()))
 	labels = make([]string, 0, show+len(p.Periods))
 	for i := n - show; i < n; i++ {
 		labels = append(labels, p.History.Period(i).String())
@@ -31,7 +32,7 @@ func fanChart(r *stressResult) plots.FanChart {
 	H := len(rk.Periods)
 	c := plots.FanChart{
 		Title:   "Stress test " + p.File.Plan + ": " + rk.Name,
-		Units:   unitsLabel(p.File.Units, p.History.Freq().String()),
+		Units:   report.UnitsLabel(p.File.Units, p.History.Freq().String()),
 		Labels:  labels,
 		History: plots.Curve{Name: "History", Values: p.History.Values[p.History.Len()-show:]},
 		Start:   show,
@@ -58,8 +59,8 @@ func stockChart(r *stressResult) plots.StockChart {
 	}
 	c := plots.StockChart{
 		Title:      "Frozen production, " + p.File.Plan + ": " + r.Risks[r.Chart].Name,
-		Units:      unitsLabel(p.File.Units, p.History.Freq().String()),
-		StockUnits: stockLabel(p.File.Units),
+		Units:      report.UnitsLabel(p.File.Units, p.History.Freq().String()),
+		StockUnits: report.StockLabel(p.File.Units),
 		Labels:     labels,
 		Demand:     fz.Demand,
 		Build:      fz.Production,

@@ -102,7 +102,7 @@ func stressJSON(r *stressResult) stressOutJSON {
 		BreachThreshold: num(r.Opts.Breach), Inputs: p.Digests, Notes: r.Notes, Warnings: warningList(r.Warnings), Caution: report.Caution}
 	for s, rk := range r.Risks {
 		sj := stressScenarioJSON{Name: rk.Name, Events: eventIDs(p.Scenarios[s].Events),
-			FirstBreach: periodOrNull(p, rk.FirstBreach), TotalExpectedShortfall: num(rk.TotalExpectedShortfall),
+			FirstBreach: report.PeriodOrNull(p, rk.FirstBreach), TotalExpectedShortfall: num(rk.TotalExpectedShortfall),
 			PAnyBreach: num(rk.PAnyBreach)}
 		for t, pr := range rk.Periods {
 			sj.Periods = append(sj.Periods, stressPeriodJSON{Period: p.Periods[t].String(), Mean: num(pr.Mean),
@@ -112,7 +112,7 @@ func stressJSON(r *stressResult) stressOutJSON {
 		}
 		if r.Frozen != nil {
 			fz := r.Frozen[s]
-			fj := &frozenJSON{Source: r.Source, OpeningStock: num(fz.Opening), FirstShortfall: periodOrNull(p, fz.FirstShortfall),
+			fj := &frozenJSON{Source: r.Source, OpeningStock: num(fz.Opening), FirstShortfall: report.PeriodOrNull(p, fz.FirstShortfall),
 				Lowest:   report.PeakDoc{Period: p.Periods[fz.Low].String(), Value: num(fz.Stock[fz.Low])},
 				Highest:  report.PeakDoc{Period: p.Periods[fz.High].String(), Value: num(fz.Stock[fz.High])},
 				EndStock: num(fz.Stock[len(fz.Stock)-1]), IdleTotal: num(plan.Total(fz.Idle)),
@@ -144,13 +144,13 @@ func stressCSV(r *stressResult) *report.Table {
 	rows = append(rows, head)
 	for s, rk := range r.Risks {
 		for t, pr := range rk.Periods {
-			row := []string{rk.Name, r.Plan.Periods[t].String(), csvNum(pr.Mean, 2), csvNum(pr.P5, 2), csvNum(pr.P10, 2),
-				csvNum(pr.P50, 2), csvNum(pr.P90, 2), csvNum(pr.P95, 2), csvNum(pr.Capacity, 2), csvNum(pr.PBreach, 4),
-				csvNum(pr.ExpectedShortfall, 2), csvNum(pr.ShortfallIfBreach, 2), csvNum(pr.UtilP50, 4), csvNum(pr.UtilP90, 4)}
+			row := []string{rk.Name, r.Plan.Periods[t].String(), report.CSVNum(pr.Mean, 2), report.CSVNum(pr.P5, 2), report.CSVNum(pr.P10, 2),
+				report.CSVNum(pr.P50, 2), report.CSVNum(pr.P90, 2), report.CSVNum(pr.P95, 2), report.CSVNum(pr.Capacity, 2), report.CSVNum(pr.PBreach, 4),
+				report.CSVNum(pr.ExpectedShortfall, 2), report.CSVNum(pr.ShortfallIfBreach, 2), report.CSVNum(pr.UtilP50, 4), report.CSVNum(pr.UtilP90, 4)}
 			if r.Frozen != nil {
 				fz := r.Frozen[s]
-				row = append(row, csvNum(fz.Production[t], 2), csvNum(fz.Stock[t], 2), csvNum(fz.StockP50[t], 2),
-					csvNum(fz.StockP90[t], 2), csvNum(fz.PShort[t], 4), csvNum(fz.Idle[t], 2), csvNum(fz.Overload[t], 2))
+				row = append(row, report.CSVNum(fz.Production[t], 2), report.CSVNum(fz.Stock[t], 2), report.CSVNum(fz.StockP50[t], 2),
+					report.CSVNum(fz.StockP90[t], 2), report.CSVNum(fz.PShort[t], 4), report.CSVNum(fz.Idle[t], 2), report.CSVNum(fz.Overload[t], 2))
 			}
 			rows = append(rows, row)
 		}
@@ -167,11 +167,11 @@ func writeStressText(w io.Writer, r *stressResult) {
 		units = " " + f.Units
 	}
 	fmt.Fprintf(w, "Stress test %s: series %s, %d %s periods %s to %s%s\n", f.Plan, p.History.Name, len(p.Periods),
-		p.History.Freq(), p.Periods[0], p.Periods[len(p.Periods)-1], inUnits(f.Units))
-	fmt.Fprintf(w, "Monte Carlo: %s; quantiles by Hyndman-Fan type 7\n", simText(mc))
+		p.History.Freq(), p.Periods[0], p.Periods[len(p.Periods)-1], report.InUnits(f.Units))
+	fmt.Fprintf(w, "Monte Carlo: %s; quantiles by Hyndman-Fan type 7\n", report.SimText(mc))
 	hasCap := f.Capacity != nil
 	if hasCap {
-		fmt.Fprintf(w, "Capacity: %s; breach threshold %s\n", capacityText(p), pctText(r.Opts.Breach))
+		fmt.Fprintf(w, "Capacity: %s; breach threshold %s\n", report.CapacityText(p), report.PctText(r.Opts.Breach))
 	} else {
 		fmt.Fprintln(w, "Capacity: none given (add a capacity block to the scenario file to see breaches)")
 	}
@@ -191,21 +191,21 @@ func writeStressText(w io.Writer, r *stressResult) {
 			row := []string{p.Periods[i].String(), fmtNum(pr.Mean, 0), fmtNum(pr.P5, 0), fmtNum(pr.P10, 0),
 				fmtNum(pr.P50, 0), fmtNum(pr.P90, 0), fmtNum(pr.P95, 0)}
 			if hasCap {
-				row = append(row, fmtNum(pr.Capacity, 0), pctText(pr.PBreach), fmtNum(pr.ExpectedShortfall, 0),
-					pctText(pr.UtilP50), pctText(pr.UtilP90))
+				row = append(row, fmtNum(pr.Capacity, 0), report.PctText(pr.PBreach), fmtNum(pr.ExpectedShortfall, 0),
+					report.PctText(pr.UtilP50), report.PctText(pr.UtilP90))
 			}
 			t.AddRow(row...)
 		}
 		writeTable(w, t)
 		if hasCap {
 			if rk.FirstBreach >= 0 {
-				fmt.Fprintf(w, "First period with P(breach) above %s: %s (%s)\n", pctText(r.Opts.Breach),
-					p.Periods[rk.FirstBreach], pctText(rk.Periods[rk.FirstBreach].PBreach))
+				fmt.Fprintf(w, "First period with P(breach) above %s: %s (%s)\n", report.PctText(r.Opts.Breach),
+					p.Periods[rk.FirstBreach], report.PctText(rk.Periods[rk.FirstBreach].PBreach))
 			} else {
-				fmt.Fprintf(w, "No period has P(breach) above %s\n", pctText(r.Opts.Breach))
+				fmt.Fprintf(w, "No period has P(breach) above %s\n", report.PctText(r.Opts.Breach))
 			}
 			fmt.Fprintf(w, "Expected shortfall over the plan: %s%s; P(demand above capacity in at least one period): %s\n",
-				fmtNum(rk.TotalExpectedShortfall, 0), units, pctText(rk.PAnyBreach))
+				fmtNum(rk.TotalExpectedShortfall, 0), units, report.PctText(rk.PAnyBreach))
 		}
 		if r.Frozen != nil {
 			writeFrozenText(w, p, r.Frozen[s], r.Source, units)
@@ -231,7 +231,7 @@ func writeFrozenText(w io.Writer, p *plan.Plan, fz supply.StockProjection, sourc
 	t := newTable("period", "production", "demand", "stock", "stock @P50", "stock @P90", "P(short)", "idle capacity", "overload")
 	for i := range fz.Stock {
 		t.AddRow(p.Periods[i].String(), fmtNum(fz.Production[i], 0), fmtNum(fz.Demand[i], 0), fmtNum(fz.Stock[i], 0),
-			fmtNum(fz.StockP50[i], 0), fmtNum(fz.StockP90[i], 0), pctText(fz.PShort[i]), fmtNum(fz.Idle[i], 0),
+			fmtNum(fz.StockP50[i], 0), fmtNum(fz.StockP90[i], 0), report.PctText(fz.PShort[i]), fmtNum(fz.Idle[i], 0),
 			fmtNum(fz.Overload[i], 0))
 	}
 	writeTable(w, t)

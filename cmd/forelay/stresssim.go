@@ -71,16 +71,6 @@ func simulate(p *plan.Plan, s *simFlags) (*sim.Simulation, error) {
 	return mc, nil
 }
 
-// simText describes a simulation in one line: "10,000 paths, seed 1,
-// errors resampled from 94 in-sample one-step errors".
-func simText(mc *sim.Simulation) string {
-	how := fmt.Sprintf("errors resampled from %d in-sample one-step errors", mc.Pool)
-	if mc.Errors == sim.Normal {
-		how = "normal errors with the band variance"
-	}
-	return fmt.Sprintf("%s paths, seed %d, %s", fmtNum(float64(mc.Paths), 0), mc.Seed, how)
-}
-
 // checkUnit reports a flag value outside the open interval (0, 1).
 func checkUnit(flag string, v float64) error {
 	if !(v > 0 && v < 1) {
@@ -112,58 +102,4 @@ func pickScenario(p *plan.Plan, name string) (int, error) {
 		names[i] = sp.Name
 	}
 	return 0, flagErrorf("--scenario %q: %s has no such scenario (it has %s)", name, p.File.Path, strings.Join(names, ", "))
-}
-
-// capacityText describes the capacity schedule: "640,000 per month;
-// 680,000 from 2027-09".
-func capacityText(p *plan.Plan) string {
-	c := p.File.Capacity
-	if c == nil {
-		return "none given"
-	}
-	s := fmt.Sprintf("%s per %s", fmtNum(c.Units, 0), p.History.Freq())
-	for _, ch := range c.Changes {
-		s += fmt.Sprintf("; %s from %s", fmtNum(ch.Units, 0), ch.From.Label)
-	}
-	return s
-}
-
-// simNotes are the remarks every Monte Carlo output carries besides the
-// plan's own notes.
-func simNotes(p *plan.Plan) []string {
-	notes := append([]string{}, p.Notes...)
-	for _, e := range p.Future {
-		if e.Range != nil {
-			notes = append(notes, "the simulation draws each event's size from a triangular distribution between its range's low and high, peaked at the effect; the plan's bands read the same range as a 90% normal interval")
-			break
-		}
-	}
-	return notes
-}
-
-// periodOrNull returns the label of period index i of the plan, or nil
-// when i < 0 (JSON null).
-func periodOrNull(p *plan.Plan, i int) *string {
-	if i < 0 {
-		return nil
-	}
-	s := p.Periods[i].String()
-	return &s
-}
-
-// csvNum formats v for CSV with the given decimals; NaN is an empty cell.
-func csvNum(v float64, decimals int) string {
-	if math.IsNaN(v) {
-		return ""
-	}
-	return strconv.FormatFloat(v, 'f', decimals, 64)
-}
-
-// pctText formats a probability as a percentage with one decimal, "-" for
-// NaN.
-func pctText(v float64) string {
-	if math.IsNaN(v) {
-		return "-"
-	}
-	return strconv.FormatFloat(100*v, 'f', 1, 64) + "%"
 }

@@ -23,11 +23,3 @@ func writeTable(w io.Writer, t *table) error {
 	_, err := io.WriteString(w, tw.String())
 	return err
 }
-
-// plural returns one when n is 1 and many otherwise.
-func plural(n int, one, many string) string {
-	if n == 1 {
-		return one
-	}
-	return many
-}

@@ -11,7 +11,6 @@ import (
 	"os"
 	"path/filepath"
 	"slices"
-	"strconv"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -268,15 +267,15 @@ func writeTrackText(w io.Writer, r trackReport) {
 	dec := forecast.SpreadDecimals(tp.MAD)
 	n := len(tr.Points)
 	fmt.Fprintf(w, "Tracking %s against scenario %s of plan %s: %d %s period(s) %s to %s%s\n",
-		tp.Series, tr.Scenario, tp.Name, n, tr.Periods[0].Freq, tr.Periods[0], tr.Periods[n-1], inUnits(tp.Units))
+		tp.Series, tr.Scenario, tp.Name, n, tr.Periods[0].Freq, tr.Periods[0], tr.Periods[n-1], report.InUnits(tp.Units))
 	fmt.Fprintf(w, "plan: %s\n", r.source)
 	fmt.Fprintln(w, "Limits in force:")
 	for _, l := range [...][2]string{
 		{"tracking signal", signalText(r)},
 		{"MAD", fmt.Sprintf("starts at %s%s (the baseline's in-sample MAD), then MAD_t = %s |error_t| + %s MAD_t-1",
-			fmtNum(tp.MAD, dec), units, fmtG(c.MADSmoothing), fmtG(1-c.MADSmoothing))},
+			fmtNum(tp.MAD, dec), units, report.G3(c.MADSmoothing), report.G3(1-c.MADSmoothing))},
 		{"control chart", fmt.Sprintf("sigma = sqrt(MSE) = %s%s; UCL %s, LCL %s%s (z = %s)",
-			fmtNum(tr.Limits.Sigma, dec), units, signed(tr.Limits.UCL, dec), signed(tr.Limits.LCL, dec), units, fmtG(c.Z))},
+			fmtNum(tr.Limits.Sigma, dec), units, report.Signed(tr.Limits.UCL, dec), report.Signed(tr.Limits.LCL, dec), units, report.G3(c.Z))},
 	} {
 		fmt.Fprintf(w, "  %-15s  %s\n", l[0], l[1])
 	}
@@ -289,8 +288,8 @@ func writeTrackText(w io.Writer, r trackReport) {
 	t := newTable("period", "actual", "plan", "error", "cum. error", "MAD", "tracking signal", "sigmas", "verdict", "rules")
 	t.Left(8, 9)
 	for i, p := range tr.Points {
-		t.AddRow(tr.Periods[i].String(), fmtNum(p.Actual, dec), fmtNum(p.Plan, dec), signed(p.Error, dec), signed(p.CumError, dec),
-			fmtNum(p.MAD, dec), signed(p.TrackingSignal, sdec), signed(p.Sigmas, 2), p.Verdict.String(), rulesText(p.Rules))
+		t.AddRow(tr.Periods[i].String(), fmtNum(p.Actual, dec), fmtNum(p.Plan, dec), report.Signed(p.Error, dec), report.Signed(p.CumError, dec),
+			fmtNum(p.MAD, dec), report.Signed(p.TrackingSignal, sdec), report.Signed(p.Sigmas, 2), p.Verdict.String(), rulesText(p.Rules))
 	}
 	writeTable(w, t)
 	fmt.Fprintln(w)
@@ -298,8 +297,8 @@ func writeTrackText(w io.Writer, r trackReport) {
 	va := tr.ValueAdded
 	fmt.Fprintf(w, "Forecast value added over %d period(s) (error = actual - forecast):\n", va.N)
 	ft := newTable("", "MAD", "bias")
-	ft.AddRow("  adjusted plan", fmtNum(va.PlanMAD, dec), signed(va.PlanBias, dec))
-	ft.AddRow("  baseline", fmtNum(va.BaselineMAD, dec), signed(va.BaselineBias, dec))
+	ft.AddRow("  adjusted plan", fmtNum(va.PlanMAD, dec), report.Signed(va.PlanBias, dec))
+	ft.AddRow("  baseline", fmtNum(va.BaselineMAD, dec), report.Signed(va.BaselineBias, dec))
 	writeTable(w, ft)
 	fmt.Fprintln(w, fvaText(r, dec))
 	fmt.Fprintln(w)
@@ -310,13 +309,13 @@ func writeTrackText(w io.Writer, r trackReport) {
 func signalText(r trackReport) string {
 	c := r.tr.Config
 	if c.Signal == forecast.SignalSmoothed {
-		s := fmt.Sprintf("Trigg's smoothed error / MAD (smoothing %s); alarm beyond +-%s", fmtG(c.MADSmoothing), fmtG(c.TSLimit))
+		s := fmt.Sprintf("Trigg's smoothed error / MAD (smoothing %s); alarm beyond +-%s", report.G3(c.MADSmoothing), report.G3(c.TSLimit))
 		if r.defaultLimit {
 			s += " (the 95% limit for this smoothing)"
 		}
 		return s
 	}
-	return fmt.Sprintf("cumulative error / MAD; alarm beyond +-%s", fmtG(c.TSLimit))
+	return fmt.Sprintf("cumulative error / MAD; alarm beyond +-%s", report.G3(c.TSLimit))
 }
 
 // fvaText says whether the events helped.
@@ -362,14 +361,14 @@ func latestText(r trackReport) string {
 	for _, rule := range p.Rules {
 		switch rule {
 		case forecast.RuleTrackingSignal:
-			w := fmt.Sprintf("tracking signal %s beyond +-%s", signed(p.TrackingSignal, sdec), fmtG(c.TSLimit))
+			w := fmt.Sprintf("tracking signal %s beyond +-%s", report.Signed(p.TrackingSignal, sdec), report.G3(c.TSLimit))
 			if p.Verdict == forecast.Outlier {
-				w += fmt.Sprintf(", but %s without the %s", signed(p.SignalWithoutOutliers, sdec), outlierPeriods(r))
+				w += fmt.Sprintf(", but %s without the %s", report.Signed(p.SignalWithoutOutliers, sdec), outlierPeriods(r))
 			}
 			why = append(why, w)
 			side = p.TrackingSignal
 		case forecast.RuleBeyondLimit:
-			why = append(why, fmt.Sprintf("error %s sigma, beyond the %s-sigma limit", signed(p.Sigmas, 2), fmtG(c.Z)))
+			why = append(why, fmt.Sprintf("error %s sigma, beyond the %s-sigma limit", report.Signed(p.Sigmas, 2), report.G3(c.Z)))
 		case forecast.RuleTwoOfThree:
 			why = append(why, "two of the last three errors beyond 2 sigma on one side (we2)")
 		case forecast.RuleFourOfFive:
@@ -389,7 +388,7 @@ func latestText(r trackReport) string {
 		return fmt.Sprintf("%s: outlier: %s (%s) with no sign of drift; check for an unplanned event.", per, strings.Join(why, "; "), dir)
 	}
 	return fmt.Sprintf("%s: in-control: tracking signal %s within +-%s, error %s sigma; no action needed.",
-		per, signed(p.TrackingSignal, sdec), fmtG(c.TSLimit), signed(p.Sigmas, 2))
+		per, report.Signed(p.TrackingSignal, sdec), report.G3(c.TSLimit), report.Signed(p.Sigmas, 2))
 }
 
 // outlierPeriods names the tracked periods whose error lies beyond the
@@ -419,7 +418,3 @@ func rulesText(rules []forecast.Rule) string {
 	}
 	return strings.Join(s, ", ")
 }
-
-// fmtG formats a setting with up to three significant digits: 4, 0.1,
-// 0.538.
-func fmtG(v float64) string { return strconv.FormatFloat(v, 'g', 3, 64) }

@@ -2,7 +2,6 @@ package main
 
 import (
 	"forelay/scenario/report"
-	"strconv"
 	"strings"
 
 	"forelay/forecast"
@@ -102,13 +101,11 @@ func trackCSV(r trackReport) *report.Table {
 		for k, ru := range p.Rules {
 			rules[k] = ru.String()
 		}
-		rows = append(rows, []string{tr.Periods[i].String(), fmtCSV(p.Actual), fmtCSV(p.Plan), fmtCSV(tr.Baseline[i]), fmtCSV(p.Error),
-			fmtCSV(p.CumError), fmtCSV(p.MAD), fmt4(p.TrackingSignal), fmt4(p.Sigmas), p.Verdict.String(), strings.Join(rules, " ")})
+		rows = append(rows, []string{tr.Periods[i].String(), report.CSV2(p.Actual), report.CSV2(p.Plan), report.CSV2(tr.Baseline[i]), report.CSV2(p.Error),
+			report.CSV2(p.CumError), report.CSV2(p.MAD), report.F4(p.TrackingSignal), report.F4(p.Sigmas), p.Verdict.String(), strings.Join(rules, " ")})
 	}
 	return csvTable(rows)
 }
-
-func fmt4(v float64) string { return strconv.FormatFloat(v, 'f', 4, 64) }
 
 // ruleMark is the short note the control chart writes by a point where a
 // run rule fired: WE1 to WE4. The tracking signal's rule is shown on the
