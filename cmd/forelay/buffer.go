@@ -1,8 +1,6 @@
 package main
 
 import (
-	"fmt"
-	"forelay/scenario/plan"
 	"forelay/scenario/report"
 	"forelay/scenario/sim"
 	"forelay/scenario/supply"
@@ -113,61 +111,30 @@ func (o *BufferOptions) check() error {
 	return nil
 }
 
-// bufferResult is everything "forelay buffer" computes.
-type bufferResult struct {
-	Plan     *plan.Plan
-	Opts     *BufferOptions
-	Sim      *sim.Simulation // nil with --demand bands
-	Scenario int
-	Buffer   supply.Buffer
-	Sigma    float64 // spread of one period's forecast error (lead time 1)
-	Spread   float64 // spread of demand over the lead time
-	Z        float64
-	Safety   float64
-	CSL      float64
-	Notes    []string
-}
-
-func computeBuffer(opts *BufferOptions) (*bufferResult, error) {
-	p, err := buildPlan(opts.File, opts.Shared)
-	if err != nil {
-		return nil, err
-	}
-	sc, err := pickScenario(p, opts.Scenario)
-	if err != nil {
-		return nil, err
-	}
-	capacity := supply.CapacityPerPeriod(p)
-	if capacity == nil {
-		return nil, &inputError{err: fmt.Errorf("%s: capacity: buffer sizing needs a capacity block (capacity: {units: ...})", p.File.Path)}
-	}
-	r := &bufferResult{Plan: p, Opts: opts, Scenario: sc, Notes: append([]string{}, p.Notes...)}
-	var demand []float64
-	if opts.Demand == demandBands {
-		demand = supply.BandDemand(p, sc, opts.Service)
-	} else {
-		if r.Sim, err = simulate(p, &opts.Sim); err != nil {
-			return nil, err
-		}
-		r.Notes = report.SimNotes(p)
-		demand = r.Sim.Scenarios[sc].QuantileDemand(opts.Service)
-	}
-	r.Buffer = supply.PlanBuffer(demand, capacity, opts.OpeningStock)
-	r.Sigma = math.Sqrt(p.BaselineVar[0])
-	r.Spread = math.Sqrt(p.Fit.LeadTimeVariance(opts.LeadTime, p.Mode, p.From))
-	r.Z = supply.ServiceZ(opts.Service)
-	r.Safety = supply.SafetyStock(opts.Service, r.Spread, 1)
-	r.CSL = supply.CycleServiceLevel(r.Safety, r.Spread, 1)
-	return r, nil
-}
-
+// bufferRun loads the plan, checks it has a capacity, simulates it (with
+// --demand mc), sizes the buffer and emits the report.
 func bufferRun(opts *BufferOptions) error {
-	r, err := computeBuffer(opts)
+	p, err := buildPlan(opts.File, opts.Shared)
 	if err != nil {
 		return err
 	}
-	rep := &report.Report{Name: "buffer", Warnings: r.Plan.Warnings, Doc: bufferJSON(r), CSV: bufferCSV(r),
-		Charts: []report.Chart{{Name: "buffer", Plot: bufferChart(r)}}}
-	writeBufferText(&rep.Text, r)
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, rep)
+	sc, err := pickScenario(p, opts.Scenario)
+	if err != nil {
+		return err
+	}
+	if _, err := supply.BufferCapacity(p); err != nil {
+		return &inputError{err: err}
+	}
+	var mc *sim.Simulation
+	if opts.Demand == demandMC {
+		if mc, err = simulate(p, &opts.Sim); err != nil {
+			return err
+		}
+	}
+	run, err := supply.SizeBuffer(p, mc, supply.BufferSettings{Scenario: sc, Service: opts.Service,
+		LeadTime: opts.LeadTime, Opening: opts.OpeningStock})
+	if err != nil {
+		return &inputError{err: err}
+	}
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.Buffer(run))
 }

@@ -1,9 +1,7 @@
 package main
 
 import (
-	"forelay/scenario/plan"
 	"forelay/scenario/report"
-	"forelay/scenario/sim"
 	"forelay/scenario/supply"
 
 	"github.com/spf13/cobra"
@@ -74,39 +72,16 @@ func (o *CompareOptions) check() error {
 	return checkUnit("service", o.Service)
 }
 
-// compareResult is everything "forelay compare" computes.
-type compareResult struct {
-	Plan  *plan.Plan
-	Sim   *sim.Simulation
-	Opts  *CompareOptions
-	Rows  []supply.Comparison
-	Notes []string
-}
-
-func computeCompare(opts *CompareOptions) (*compareResult, error) {
-	p, err := buildPlan(opts.File, opts.Shared)
-	if err != nil {
-		return nil, err
-	}
-	mc, err := simulate(p, &opts.Sim)
-	if err != nil {
-		return nil, err
-	}
-	return &compareResult{Plan: p, Sim: mc, Opts: opts, Rows: supply.Compare(mc, opts.Service), Notes: report.SimNotes(p)}, nil
-}
-
+// compareRun loads the plan, simulates it, compares its scenarios and
+// emits the report.
 func compareRun(opts *CompareOptions) error {
-	r, err := computeCompare(opts)
+	p, err := buildPlan(opts.File, opts.Shared)
 	if err != nil {
 		return err
 	}
-	rep := &report.Report{Name: "compare", Warnings: r.Plan.Warnings, Doc: compareJSON(r), CSV: compareCSV(r),
-		Charts: []report.Chart{{Name: "compare", Plot: compareChart(r)}}}
-	for _, c := range r.Rows {
-		if len(c.Contributions) > 0 {
-			rep.Charts = append(rep.Charts, report.Chart{Name: "waterfall-" + c.Name, Plot: waterfallChart(r, c)})
-		}
+	mc, err := simulate(p, &opts.Sim)
+	if err != nil {
+		return err
 	}
-	writeCompareText(&rep.Text, r)
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, rep)
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.Compare(supply.CompareScenarios(mc, opts.Service)))
 }

@@ -149,9 +149,6 @@ func (o *outputSet) paths() []string {
 // num is a JSON number: null for NaN and the infinities (see report.Num).
 type num = report.Num
 
-// nums converts v to JSON numbers.
-func nums(v []float64) []num { return report.Nums(v) }
-
 // marshalLine encodes v as one line of JSON.
 func marshalLine(v any) ([]byte, error) {
 	b, err := json.Marshal(v)

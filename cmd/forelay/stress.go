@@ -1,15 +1,10 @@
 package main
 
 import (
-	"forelay/scenario/plan"
 	"forelay/scenario/report"
-	"forelay/scenario/sim"
 	"forelay/scenario/supply"
-	"slices"
 
 	"github.com/spf13/cobra"
-
-	"forelay/scenario"
 )
 
 // StressOptions are the settings of "forelay stress".
@@ -92,67 +87,24 @@ func (o *StressOptions) check() error {
 	return checkStock("opening-stock", o.OpeningStock)
 }
 
-// stressResult is everything "forelay stress" computes.
-type stressResult struct {
-	Plan   *plan.Plan
-	Sim    *sim.Simulation
-	Opts   *StressOptions
-	Risks  []supply.Risk
-	Frozen []supply.StockProjection // nil unless production is frozen
-	Source string                   // where frozen production comes from
-	Chart  int                      // the scenario charted
-	Notes  []string
-	// Warnings are the plan's warnings and, under frozen production, one
-	// per period where the plan asks for more than capacity.
-	Warnings []string
-}
-
-// computeStress loads the plan and runs the simulation and the capacity
-// and production checks.
-func computeStress(opts *StressOptions) (*stressResult, error) {
-	p, err := buildPlan(opts.File, opts.Shared)
-	if err != nil {
-		return nil, err
-	}
-	chart, err := pickScenario(p, opts.Scenario)
-	if err != nil {
-		return nil, err
-	}
-	mc, err := simulate(p, &opts.Sim)
-	if err != nil {
-		return nil, err
-	}
-	r := &stressResult{Plan: p, Sim: mc, Opts: opts, Chart: chart, Notes: report.SimNotes(p), Warnings: p.Warnings}
-	capacity := supply.CapacityPerPeriod(p)
-	for _, ps := range mc.Scenarios {
-		r.Risks = append(r.Risks, supply.CapacityRisk(ps, capacity, opts.Breach))
-	}
-	if pr := p.File.Production; pr != nil && pr.Mode == scenario.Frozen {
-		prod, src, err := supply.FrozenProduction(p)
-		if err != nil {
-			return nil, &inputError{err: err}
-		}
-		r.Source = src
-		r.Warnings = append(slices.Clip(r.Warnings), supply.OverloadWarnings(p, prod, src)...)
-		for s, sp := range p.Scenarios {
-			r.Frozen = append(r.Frozen, supply.ProjectStock(prod, sp.Adjusted, capacity, opts.OpeningStock, mc.Scenarios[s]))
-		}
-	} else if pr != nil && pr.Plan != "" {
-		r.Notes = append(r.Notes, "production.plan is read only with production mode frozen")
-	}
-	return r, nil
-}
-
+// stressRun loads the plan, simulates it, sets it against capacity and
+// frozen production, and emits the report.
 func stressRun(opts *StressOptions) error {
-	r, err := computeStress(opts)
+	p, err := buildPlan(opts.File, opts.Shared)
 	if err != nil {
 		return err
 	}
-	rep := &report.Report{Name: "stress", Warnings: r.Warnings, Doc: stressJSON(r), CSV: stressCSV(r),
-		Charts: []report.Chart{{Name: "fan", Plot: fanChart(r)}}}
-	if r.Frozen != nil {
-		rep.Charts = append(rep.Charts, report.Chart{Name: "stock", Plot: stockChart(r)})
+	chart, err := pickScenario(p, opts.Scenario)
+	if err != nil {
+		return err
 	}
-	writeStressText(&rep.Text, r)
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, rep)
+	mc, err := simulate(p, &opts.Sim)
+	if err != nil {
+		return err
+	}
+	run, err := supply.Stress(mc, supply.StressSettings{Breach: opts.Breach, Opening: opts.OpeningStock})
+	if err != nil {
+		return &inputError{err: err}
+	}
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.Stress(run, chart))
 }
