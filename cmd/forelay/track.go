@@ -2,10 +2,6 @@ package main
 
 import (
 	"fmt"
-	"forelay/scenario"
-	"forelay/scenario/data"
-	"forelay/scenario/plan"
-	"forelay/scenario/report"
 	"math"
 	"os"
 	"path/filepath"
@@ -14,6 +10,10 @@ import (
 	"github.com/spf13/cobra"
 
 	"forelay/forecast"
+	"forelay/scenario"
+	"forelay/scenario/data"
+	"forelay/scenario/plan"
+	"forelay/scenario/report"
 )
 
 // TrackOptions are the settings of "forelay track".
@@ -161,14 +161,9 @@ func trackRun(opts *TrackOptions) error {
 		}
 		return flagErrorf("%v (with --scenario)", err)
 	}
-	fh, err := os.Open(opts.Actuals)
+	actual, err := readActuals(opts, tp)
 	if err != nil {
-		return &inputError{err: err}
-	}
-	actual, err := tp.ReadActuals(data.BoundedReader(fh, opts.Actuals, opts.Shared.limits().input()), opts.Actuals)
-	fh.Close()
-	if err != nil {
-		return &inputError{err: err}
+		return err
 	}
 	tr, err := tp.Track(line.Name, actual, cfg)
 	if err != nil {
@@ -207,6 +202,21 @@ func loadTrackPlan(opts *TrackOptions) (tp plan.TrackPlan, source string, warns 
 		return plan.TrackPlan{}, "", nil, err
 	}
 	return tp, "read from " + path, warns, nil
+}
+
+// readActuals reads the actuals file under the size limits, aligned with
+// the plan's periods (see plan.TrackPlan.ReadActuals).
+func readActuals(opts *TrackOptions, tp plan.TrackPlan) ([]float64, error) {
+	fh, err := os.Open(opts.Actuals)
+	if err != nil {
+		return nil, &inputError{err: err}
+	}
+	defer fh.Close()
+	actual, err := tp.ReadActuals(data.BoundedReader(fh, opts.Actuals, opts.Shared.limits().input()), opts.Actuals)
+	if err != nil {
+		return nil, &inputError{err: err}
+	}
+	return actual, nil
 }
 
 // checkInputs compares the digests plan.json records of the scenario and
