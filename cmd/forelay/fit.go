@@ -134,35 +134,9 @@ func fitRun(opts *FitOptions) error {
 	if err := warnings(opts.IO, opts.Shared, warns); err != nil {
 		return err
 	}
-	var out report.Text
-	var failed []error
-	for i, oc := range outcomes {
-		horizon := spec.Horizon
-		if horizon == 0 {
-			horizon = series[i].Freq().DefaultHorizon()
-		}
-		var line any
-		switch {
-		case oc.Err != nil:
-			err := fmt.Errorf("%s: %w", opts.History, oc.Err)
-			failed = append(failed, err)
-			line = map[string]string{"series": series[i].Name, "error": err.Error()}
-		case opts.JSON:
-			line = report.Fit(oc.Result, horizon, bands)
-		default:
-			if i > 0 {
-				fmt.Fprintln(&out)
-			}
-			report.FitText(&out, oc.Result, horizon, bands, opts.Units)
-			continue
-		}
-		if opts.JSON {
-			b, err := marshalLine(line)
-			if err != nil {
-				return err
-			}
-			out.Write(b)
-		}
+	out, failed, err := fitOutput(opts, series, outcomes, spec.Horizon, bands)
+	if err != nil {
+		return err
 	}
 	if _, err := io.WriteString(opts.IO.Out, out.String()); err != nil {
 		return err
@@ -175,4 +149,41 @@ func fitRun(opts *FitOptions) error {
 		return &inputError{err: joined}
 	}
 	return nil
+}
+
+// fitOutput lays out the fits, in input order: one JSON line per series
+// (a series that failed gives {"series", "error"}), or the text reports
+// separated by blank lines (a series that failed gives none). failed
+// holds the error of each series that failed, naming the history file.
+func fitOutput(opts *FitOptions, series []forecast.Series, outcomes []forecast.Outcome, horizon int, bands report.Bands) (out *report.Text, failed []error, err error) {
+	out = &report.Text{}
+	for i, oc := range outcomes {
+		h := horizon
+		if h == 0 {
+			h = series[i].Freq().DefaultHorizon()
+		}
+		var line any
+		switch {
+		case oc.Err != nil:
+			err := fmt.Errorf("%s: %w", opts.History, oc.Err)
+			failed = append(failed, err)
+			line = map[string]string{"series": series[i].Name, "error": err.Error()}
+		case opts.JSON:
+			line = report.Fit(oc.Result, h, bands)
+		default:
+			if i > 0 {
+				fmt.Fprintln(out)
+			}
+			report.FitText(out, oc.Result, h, bands, opts.Units)
+			continue
+		}
+		if opts.JSON {
+			b, err := marshalLine(line)
+			if err != nil {
+				return out, nil, err
+			}
+			out.Write(b)
+		}
+	}
+	return out, failed, nil
 }
