@@ -2,7 +2,6 @@ package main
 
 import (
 	"fmt"
-	"forelay/scenario/report"
 	"math"
 	"strings"
 
@@ -10,6 +9,7 @@ import (
 	"github.com/spf13/pflag"
 
 	"forelay/forecast"
+	"forelay/scenario/report"
 )
 
 // baselineFlags are the model settings shared by the commands that fit a
@@ -72,14 +72,11 @@ func (b *baselineFlags) record(cmd *cobra.Command) {
 	}
 }
 
-// bandSettings are the resolved band flags.
-type bandSettings = report.Bands
-
-// spec turns the flags into a forecast.Spec and band settings; every error
-// is a flag error.
-func (b *baselineFlags) spec() (forecast.Spec, bandSettings, error) {
+// spec turns the flags into a forecast.Spec and the band settings; every
+// error is a flag error.
+func (b *baselineFlags) spec() (forecast.Spec, report.Bands, error) {
 	var s forecast.Spec
-	var bs bandSettings
+	var bs report.Bands
 	var err error
 	if s.Method, err = forecast.ParseMethod(b.Method); err != nil {
 		return s, bs, &flagError{err: fmt.Errorf("--method: %w", err)}

@@ -3,8 +3,6 @@ package main
 import (
 	"bytes"
 	"encoding/csv"
-	"encoding/json"
-	"forelay/scenario/report"
 	"image/png"
 	"os"
 	"path/filepath"
@@ -183,39 +181,6 @@ func checkCSVClose(t *testing.T, got, want []byte, tol float64) {
 				t.Errorf("row %d col %d: %q, want %q", i+1, j+1, g[i][j], w[i][j])
 			}
 		}
-	}
-}
-
-// TestPlanJSONWarnings checks that plan.json always has a warnings list:
-// the plan's warnings (the over-large loss of the invented test scenario
-// is clipped in 12 periods, one warning), or [] when there are none, and
-// that the text summary leaves them to the caller.
-func TestPlanJSONWarnings(t *testing.T) {
-	p, err := buildPlan("../../testdata/scenario/overlarge-loss.yaml", nil)
-	if err != nil {
-		t.Fatal(err)
-	}
-	js, err := marshalIndent(report.Plan(p))
-	if err != nil {
-		t.Fatal(err)
-	}
-	var got struct {
-		Warnings []string `json:"warnings"`
-	}
-	if err := json.Unmarshal(js, &got); err != nil {
-		t.Fatal(err)
-	}
-	if len(got.Warnings) != 1 || !strings.Contains(got.Warnings[0], "event grocer-exit takes 900,000 litres a month") {
-		t.Errorf("warnings %q", got.Warnings)
-	}
-	var text bytes.Buffer
-	writePlanText(&text, p, true)
-	if strings.Contains(text.String(), "grocer-exit takes") {
-		t.Error("the text summary prints the warnings")
-	}
-	p.Warnings = nil
-	if js, _ = marshalIndent(report.Plan(p)); !bytes.Contains(js, []byte(`"warnings": []`)) {
-		t.Errorf("no empty warnings list in\n%s", js)
 	}
 }
 

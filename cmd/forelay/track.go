@@ -2,20 +2,18 @@ package main
 
 import (
 	"fmt"
-	"forelay/scenario"
-	"forelay/scenario/data"
-	"forelay/scenario/plan"
-	"forelay/scenario/report"
-	"io"
 	"math"
 	"os"
 	"path/filepath"
-	"slices"
 	"strings"
 
 	"github.com/spf13/cobra"
 
 	"forelay/forecast"
+	"forelay/scenario"
+	"forelay/scenario/data"
+	"forelay/scenario/plan"
+	"forelay/scenario/report"
 )
 
 // TrackOptions are the settings of "forelay track".
@@ -163,26 +161,16 @@ func trackRun(opts *TrackOptions) error {
 		}
 		return flagErrorf("%v (with --scenario)", err)
 	}
-	fh, err := os.Open(opts.Actuals)
+	actual, err := readActuals(opts, tp)
 	if err != nil {
-		return &inputError{err: err}
-	}
-	actual, err := tp.ReadActuals(data.BoundedReader(fh, opts.Actuals, opts.Shared.limits().input()), opts.Actuals)
-	fh.Close()
-	if err != nil {
-		return &inputError{err: err}
+		return err
 	}
 	tr, err := tp.Track(line.Name, actual, cfg)
 	if err != nil {
 		return &inputError{err: err}
 	}
-	rep := trackReport{tp: tp, tr: tr, source: source, defaultLimit: opts.TSLimit == 0, warnings: warns}
-	control, signal := trackCharts(rep)
-	out := &report.Report{Name: "track", NoJSONFile: true, Warnings: warns, Doc: trackJSON(rep), CSV: trackCSV(rep),
-		Charts: []report.Chart{{Name: "control", Plot: control}, {Name: "signal", Plot: signal}}}
-	writeTrackText(&out.Text, rep)
-	err = emit(opts.IO, opts.Shared, opts.Out, opts.JSON, false, out)
-	if err != nil {
+	rep := report.ForTrack(report.Track{Plan: tp, Tracking: tr, Source: source, DefaultLimit: opts.TSLimit == 0, Warnings: warns})
+	if err := emit(opts.IO, opts.Shared, opts.Out, opts.JSON, false, rep); err != nil {
 		return err
 	}
 	per, last := tr.Latest()
@@ -192,18 +180,6 @@ func trackRun(opts *TrackOptions) error {
 		}
 	}
 	return nil
-}
-
-// trackReport is what the outputs of a tracking run are made from.
-type trackReport struct {
-	tp     plan.TrackPlan
-	tr     *plan.Tracking
-	source string // "read from out/plan.json" or "recomputed from plan.yaml"
-	// defaultLimit is true when the tracking signal limit is the signal's
-	// default rather than --ts-limit.
-	defaultLimit bool
-	// warnings are the plan's warnings, or those about plan.json's inputs.
-	warnings []string
 }
 
 // loadTrackPlan builds the plan from the scenario file or reads it from
@@ -228,193 +204,28 @@ func loadTrackPlan(opts *TrackOptions) (tp plan.TrackPlan, source string, warns 
 	return tp, "read from " + path, warns, nil
 }
 
+// readActuals reads the actuals file under the size limits, aligned with
+// the plan's periods (see plan.TrackPlan.ReadActuals).
+func readActuals(opts *TrackOptions, tp plan.TrackPlan) ([]float64, error) {
+	fh, err := os.Open(opts.Actuals)
+	if err != nil {
+		return nil, &inputError{err: err}
+	}
+	defer fh.Close()
+	actual, err := tp.ReadActuals(data.BoundedReader(fh, opts.Actuals, opts.Shared.limits().input()), opts.Actuals)
+	if err != nil {
+		return nil, &inputError{err: err}
+	}
+	return actual, nil
+}
+
 // checkInputs compares the digests plan.json records of the scenario and
-// history files with the files as they are now, and returns a warning
-// for each that differs or cannot be checked. A scenario file that does
-// not load is an input error.
+// history files with the files as they are now (see plan.InputChanges).
+// A scenario file that does not load is an input error.
 func checkInputs(file, planPath string, inputs map[string]string) ([]string, error) {
 	f, err := scenario.Load(file)
 	if err != nil {
 		return nil, &inputError{err: err}
 	}
-	var warns []string
-	for _, in := range []struct{ role, path string }{{"scenario", file}, {"history", f.History.File}} {
-		want, ok := inputs[in.role]
-		if !ok {
-			warns = append(warns, fmt.Sprintf("%s records no digest of the %s file; cannot tell whether %s changed since", planPath, in.role, in.path))
-			continue
-		}
-		got, err := data.Digest(in.path)
-		if err != nil {
-			warns = append(warns, fmt.Sprintf("cannot compare %s with the plan: %v", in.path, err))
-			continue
-		}
-		if got != want {
-			warns = append(warns, fmt.Sprintf("%s has changed since %s was written; the plan read may not match it (run forelay plan again, or leave out --plan)", in.path, planPath))
-		}
-	}
-	return warns, nil
-}
-
-// writeTrackText writes the human report of a tracking run.
-func writeTrackText(w io.Writer, r trackReport) {
-	tp, tr := r.tp, r.tr
-	c := tr.Config
-	units := ""
-	if tp.Units != "" {
-		units = " " + tp.Units
-	}
-	dec := forecast.SpreadDecimals(tp.MAD)
-	n := len(tr.Points)
-	fmt.Fprintf(w, "Tracking %s against scenario %s of plan %s: %d %s period(s) %s to %s%s\n",
-		tp.Series, tr.Scenario, tp.Name, n, tr.Periods[0].Freq, tr.Periods[0], tr.Periods[n-1], report.InUnits(tp.Units))
-	fmt.Fprintf(w, "plan: %s\n", r.source)
-	fmt.Fprintln(w, "Limits in force:")
-	for _, l := range [...][2]string{
-		{"tracking signal", signalText(r)},
-		{"MAD", fmt.Sprintf("starts at %s%s (the baseline's in-sample MAD), then MAD_t = %s |error_t| + %s MAD_t-1",
-			fmtNum(tp.MAD, dec), units, report.G3(c.MADSmoothing), report.G3(1-c.MADSmoothing))},
-		{"control chart", fmt.Sprintf("sigma = sqrt(MSE) = %s%s; UCL %s, LCL %s%s (z = %s)",
-			fmtNum(tr.Limits.Sigma, dec), units, report.Signed(tr.Limits.UCL, dec), report.Signed(tr.Limits.LCL, dec), units, report.G3(c.Z))},
-	} {
-		fmt.Fprintf(w, "  %-15s  %s\n", l[0], l[1])
-	}
-	fmt.Fprintln(w)
-
-	sdec := 2
-	if c.Signal == forecast.SignalSmoothed {
-		sdec = 3
-	}
-	t := newTable("period", "actual", "plan", "error", "cum. error", "MAD", "tracking signal", "sigmas", "verdict", "rules")
-	t.Left(8, 9)
-	for i, p := range tr.Points {
-		t.AddRow(tr.Periods[i].String(), fmtNum(p.Actual, dec), fmtNum(p.Plan, dec), report.Signed(p.Error, dec), report.Signed(p.CumError, dec),
-			fmtNum(p.MAD, dec), report.Signed(p.TrackingSignal, sdec), report.Signed(p.Sigmas, 2), p.Verdict.String(), rulesText(p.Rules))
-	}
-	writeTable(w, t)
-	fmt.Fprintln(w)
-
-	va := tr.ValueAdded
-	fmt.Fprintf(w, "Forecast value added over %d period(s) (error = actual - forecast):\n", va.N)
-	ft := newTable("", "MAD", "bias")
-	ft.AddRow("  adjusted plan", fmtNum(va.PlanMAD, dec), report.Signed(va.PlanBias, dec))
-	ft.AddRow("  baseline", fmtNum(va.BaselineMAD, dec), report.Signed(va.BaselineBias, dec))
-	writeTable(w, ft)
-	fmt.Fprintln(w, fvaText(r, dec))
-	fmt.Fprintln(w)
-	fmt.Fprintln(w, latestText(r))
-}
-
-// signalText describes the tracking signal and its limit.
-func signalText(r trackReport) string {
-	c := r.tr.Config
-	if c.Signal == forecast.SignalSmoothed {
-		s := fmt.Sprintf("Trigg's smoothed error / MAD (smoothing %s); alarm beyond +-%s", report.G3(c.MADSmoothing), report.G3(c.TSLimit))
-		if r.defaultLimit {
-			s += " (the 95% limit for this smoothing)"
-		}
-		return s
-	}
-	return fmt.Sprintf("cumulative error / MAD; alarm beyond +-%s", report.G3(c.TSLimit))
-}
-
-// fvaText says whether the events helped.
-func fvaText(r trackReport, dec int) string {
-	tr := r.tr
-	line, _ := r.tp.Choose(tr.Scenario)
-	same := true
-	for i := range tr.Points {
-		if line.Adjusted[i] != tr.Baseline[i] {
-			same = false
-		}
-	}
-	va := tr.ValueAdded
-	units := ""
-	if r.tp.Units != "" {
-		units = " " + r.tp.Units
-	}
-	share := ""
-	if !math.IsNaN(va.ImprovementShare) {
-		share = fmt.Sprintf(" (%s%% of the baseline's)", fmtNum(100*math.Abs(va.ImprovementShare), 1))
-	}
-	switch {
-	case same:
-		return fmt.Sprintf("Scenario %s changes nothing on these periods: the adjusted plan is the baseline.", tr.Scenario)
-	case va.Improvement > 0:
-		return fmt.Sprintf("The events helped: they cut the MAD by %s%s%s.", fmtNum(va.Improvement, dec), units, share)
-	case va.Improvement < 0:
-		return fmt.Sprintf("The events did not help: they raised the MAD by %s%s%s.", fmtNum(-va.Improvement, dec), units, share)
-	}
-	return "The events made no difference to the MAD on these periods."
-}
-
-// latestText is the verdict on the latest period in plain words.
-func latestText(r trackReport) string {
-	per, p := r.tr.Latest()
-	c := r.tr.Config
-	sdec := 2
-	if c.Signal == forecast.SignalSmoothed {
-		sdec = 3
-	}
-	var why []string
-	side := p.Sigmas
-	for _, rule := range p.Rules {
-		switch rule {
-		case forecast.RuleTrackingSignal:
-			w := fmt.Sprintf("tracking signal %s beyond +-%s", report.Signed(p.TrackingSignal, sdec), report.G3(c.TSLimit))
-			if p.Verdict == forecast.Outlier {
-				w += fmt.Sprintf(", but %s without the %s", report.Signed(p.SignalWithoutOutliers, sdec), outlierPeriods(r))
-			}
-			why = append(why, w)
-			side = p.TrackingSignal
-		case forecast.RuleBeyondLimit:
-			why = append(why, fmt.Sprintf("error %s sigma, beyond the %s-sigma limit", report.Signed(p.Sigmas, 2), report.G3(c.Z)))
-		case forecast.RuleTwoOfThree:
-			why = append(why, "two of the last three errors beyond 2 sigma on one side (we2)")
-		case forecast.RuleFourOfFive:
-			why = append(why, "four of the last five errors beyond 1 sigma on one side (we3)")
-		case forecast.RuleEightInARow:
-			why = append(why, "eight errors in a row on one side (we4)")
-		}
-	}
-	dir := "actuals above the plan"
-	if side < 0 {
-		dir = "actuals below the plan"
-	}
-	switch p.Verdict {
-	case forecast.Bias:
-		return fmt.Sprintf("%s: bias: %s (%s); re-forecast.", per, strings.Join(why, "; "), dir)
-	case forecast.Outlier:
-		return fmt.Sprintf("%s: outlier: %s (%s) with no sign of drift; check for an unplanned event.", per, strings.Join(why, "; "), dir)
-	}
-	return fmt.Sprintf("%s: in-control: tracking signal %s within +-%s, error %s sigma; no action needed.",
-		per, report.Signed(p.TrackingSignal, sdec), report.G3(c.TSLimit), report.Signed(p.Sigmas, 2))
-}
-
-// outlierPeriods names the tracked periods whose error lies beyond the
-// control limits: "error beyond the limits in 2027-01" or "errors beyond
-// the limits in 2027-01, 2027-03".
-func outlierPeriods(r trackReport) string {
-	var per []string
-	for i, p := range r.tr.Points {
-		if slices.Contains(p.Rules, forecast.RuleBeyondLimit) {
-			per = append(per, r.tr.Periods[i].String())
-		}
-	}
-	if len(per) == 1 {
-		return "error beyond the limits in " + per[0]
-	}
-	return "errors beyond the limits in " + strings.Join(per, ", ")
-}
-
-// rulesText lists rule names, "-" for none.
-func rulesText(rules []forecast.Rule) string {
-	if len(rules) == 0 {
-		return "-"
-	}
-	s := make([]string, len(rules))
-	for i, r := range rules {
-		s[i] = r.String()
-	}
-	return strings.Join(s, ", ")
+	return plan.InputChanges(planPath, inputs, plan.InputFiles(f)), nil
 }

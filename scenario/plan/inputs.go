@@ -30,12 +30,46 @@ func Read(f *scenario.File) (*Inputs, error) {
 		return nil, err
 	}
 	in := &Inputs{History: h, Series: ser, Digests: map[string]string{}}
-	for role, path := range map[string]string{"scenario": f.Path, "history": f.History.File} {
-		if d, err := data.Digest(path); err == nil {
-			in.Digests[role] = d
+	for _, file := range InputFiles(f) {
+		if d, err := data.Digest(file.Path); err == nil {
+			in.Digests[file.Role] = d
 		}
 	}
 	return in, nil
+}
+
+// An InputFile is a file a plan is built from and its role: "scenario"
+// or "history" (the keys of Plan.Digests).
+type InputFile struct{ Role, Path string }
+
+// InputFiles returns the files a plan of f is built from: the scenario
+// file, then the history.
+func InputFiles(f *scenario.File) []InputFile {
+	return []InputFile{{"scenario", f.Path}, {"history", f.History.File}}
+}
+
+// InputChanges compares the digests a saved plan records (keyed by role,
+// as Plan.Digests) with the files as they are now, and returns a warning
+// for each file that differs or cannot be checked, in the order of files.
+// saved names the saved plan in the warnings.
+func InputChanges(saved string, recorded map[string]string, files []InputFile) []string {
+	var warns []string
+	for _, in := range files {
+		want, ok := recorded[in.Role]
+		if !ok {
+			warns = append(warns, fmt.Sprintf("%s records no digest of the %s file; cannot tell whether %s changed since", saved, in.Role, in.Path))
+			continue
+		}
+		got, err := data.Digest(in.Path)
+		if err != nil {
+			warns = append(warns, fmt.Sprintf("cannot compare %s with the plan: %v", in.Path, err))
+			continue
+		}
+		if got != want {
+			warns = append(warns, fmt.Sprintf("%s has changed since %s was written; the plan read may not match it (run forelay plan again, or leave out --plan)", in.Path, saved))
+		}
+	}
+	return warns
 }
 
 // Load reads the inputs of f and builds its plan: Read, then Build.

@@ -42,3 +42,39 @@ func TestReadLimits(t *testing.T) {
 		}
 	}
 }
+
+// TestInputChanges compares recorded digests with the files: the same
+// file gives no warning; a changed file, a role with no digest and a file
+// that cannot be read give one each, in the order of the files.
+func TestInputChanges(t *testing.T) {
+	dir := t.TempDir()
+	same, changed := filepath.Join(dir, "plan.yaml"), filepath.Join(dir, "history.csv")
+	for _, p := range []string{same, changed} {
+		if err := os.WriteFile(p, []byte("a\n"), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	digest, err := data.Digest(same)
+	if err != nil {
+		t.Fatal(err)
+	}
+	recorded := map[string]string{"scenario": digest, "history": digest, "extra": digest}
+	if err := os.WriteFile(changed, []byte("b\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	got := InputChanges("out/plan.json", recorded, []InputFile{
+		{"scenario", same}, {"history", changed}, {"actuals", same}, {"extra", filepath.Join(dir, "none.csv")}})
+	want := []string{
+		changed + " has changed since out/plan.json was written",
+		"out/plan.json records no digest of the actuals file; cannot tell whether " + same + " changed since",
+		"cannot compare " + filepath.Join(dir, "none.csv") + " with the plan: ",
+	}
+	if len(got) != len(want) {
+		t.Fatalf("warnings %q, want %d", got, len(want))
+	}
+	for i := range want {
+		if !strings.HasPrefix(got[i], want[i]) {
+			t.Errorf("warning %d: %q, want it to start %q", i, got[i], want[i])
+		}
+	}
+}

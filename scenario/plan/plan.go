@@ -7,6 +7,7 @@ import (
 	"forelay/scenario/data"
 	"maps"
 	"math"
+	"slices"
 
 	"forelay/forecast"
 )
@@ -36,6 +37,9 @@ type Plan struct {
 	Baseline    []float64
 	BaselineVar []float64
 	VarSource   forecast.VarianceSource
+	// BaselineLower and BaselineUpper are the baseline's band,
+	// Baseline -/+ Z sqrt(BaselineVar), not clipped at the floor.
+	BaselineLower, BaselineUpper []float64
 	// Z is the band half-width in standard errors, Mode how the baseline
 	// variance grows, and Floor the least demand can be (nil: no floor):
 	// each scenario's plans and bands are clipped at it.
@@ -52,6 +56,10 @@ type Plan struct {
 	// the file's event carrying the learnt effect and range; the file's
 	// events are never changed. Scenarios match events by id.
 	Future []*scenario.Event
+	// Effects holds what each future event does to the plan's periods,
+	// keyed by event id: computed once, for every future event whether
+	// or not a scenario holds it.
+	Effects map[string]EventEffect
 	// Notes are plain-language remarks for the planner (prorated dates,
 	// floored bands, filled history cells, learnt effects).
 	Notes []string
@@ -77,6 +85,19 @@ type Estimate struct {
 	Kind   scenario.Kind
 	Effect float64
 	StdErr float64
+}
+
+// An EventEffect is what one future event does in each of the plan's
+// periods, at full probability.
+type EventEffect struct {
+	// Share is the event's share of its full size (Event.Profile).
+	Share []float64
+	// Contrib is its contribution, the change of demand
+	// (Event.Contribution on the baseline).
+	Contrib []float64
+	// Sigma is the standard deviation of the contribution, from the
+	// event's range (Event.Sigma); zeros without a range.
+	Sigma []float64
 }
 
 // ScenarioPlan is one scenario's adjusted plan.
@@ -265,7 +286,14 @@ func (p *Plan) lay() {
 	}
 	p.Baseline = p.Fit.Model.Forecast(hz)
 	p.BaselineVar, p.VarSource = p.Fit.VarianceFrom(hz, p.Mode, p.From)
+	p.BaselineLower, p.BaselineUpper = make([]float64, hz), make([]float64, hz)
+	for t := range p.Baseline {
+		w := p.Z * math.Sqrt(p.BaselineVar[t])
+		p.BaselineLower[t], p.BaselineUpper[t] = p.Baseline[t]-w, p.Baseline[t]+w
+	}
+	p.Effects = make(map[string]EventEffect, len(p.Future))
 	for _, e := range p.Future {
+		p.Effects[e.ID] = EventEffect{Share: e.Profile(first, hz), Contrib: e.Contribution(first, p.Baseline), Sigma: e.Sigma(first, p.Baseline)}
 		if e.Prorated(first) {
 			p.Notes = append(p.Notes, fmt.Sprintf("event %q has dates finer than the %s periods; its effect is prorated by the share of days in each period", e.ID, first.Freq))
 		}
@@ -293,15 +321,14 @@ func (p *Plan) layer(c scenario.Case) ScenarioPlan {
 	for _, e := range c.Events {
 		in[e.ID] = true
 	}
-	first := p.Periods[0]
 	for i, e := range p.Future {
 		if !in[e.ID] {
 			sp.Contrib[i] = make([]float64, hz)
 			continue
 		}
 		sp.Events = append(sp.Events, e)
-		contrib := e.Contribution(first, p.Baseline)
-		sigma := e.Sigma(first, p.Baseline)
+		eff := p.Effects[e.ID]
+		contrib, sigma := slices.Clone(eff.Contrib), eff.Sigma
 		for t := range contrib {
 			sp.Adjusted[t] += contrib[t]
 			sp.RiskWeighted[t] += e.Probability * contrib[t]

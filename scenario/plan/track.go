@@ -442,6 +442,17 @@ func (tp TrackPlan) Track(name string, actual []float64, cfg forecast.TrackConfi
 	}, nil
 }
 
+// Unchanged reports whether the scenario's adjusted plan is the baseline
+// on every tracked period (its events change nothing there).
+func (t *Tracking) Unchanged() bool {
+	for i, p := range t.Points {
+		if p.Plan != t.Baseline[i] {
+			return false
+		}
+	}
+	return true
+}
+
 // Latest returns the last tracked period and its point.
 func (t *Tracking) Latest() (forecast.Period, forecast.TrackPoint) {
 	n := len(t.Points) - 1

@@ -402,3 +402,27 @@ scenarios:
 		t.Errorf("adjusted - baseline in 2026-02 = %v, want 10", d)
 	}
 }
+
+// TestUnchanged: scenario "flat" of monthPlan is the baseline; "lift"
+// differs from 2027-03 on, so it is unchanged over the first two months
+// only.
+func TestUnchanged(t *testing.T) {
+	tp := monthPlan(t)
+	for _, c := range []struct {
+		scenario string
+		actual   []float64
+		want     bool
+	}{
+		{"flat", []float64{104, 97, 118}, true},
+		{"lift", []float64{104, 97}, true},
+		{"lift", []float64{104, 97, 118}, false},
+	} {
+		tr, err := tp.Track(c.scenario, c.actual, forecast.TrackConfig{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := tr.Unchanged(); got != c.want {
+			t.Errorf("%s over %d periods: Unchanged %v, want %v", c.scenario, len(c.actual), got, c.want)
+		}
+	}
+}

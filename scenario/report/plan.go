@@ -144,7 +144,7 @@ func Plan(p *plan.Plan) PlanDoc {
 			lo, hi := Num(e.Range.Low), Num(e.Range.High)
 			ej.Low, ej.High = &lo, &hi
 		}
-		ej.Total = Num(plan.Total(e.Contribution(first, p.Baseline)))
+		ej.Total = Num(plan.Total(p.Effects[e.ID].Contrib))
 		o.Events = append(o.Events, ej)
 	}
 	base := plan.Total(p.Baseline)

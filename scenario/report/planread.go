@@ -5,11 +5,11 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
-	"forelay/scenario/plan"
 	"os"
 
 	"forelay/forecast"
 	"forelay/scenario/data"
+	"forelay/scenario/plan"
 )
 
 // ErrNotAPlan marks a plan.json that lacks what tracking needs.

@@ -1,41 +1,33 @@
-package main
+package report
 
 import (
-	"forelay/scenario/plan"
-	"forelay/scenario/report"
-	"math"
-
 	"forelay/plots"
 	"forelay/scenario"
+	"forelay/scenario/plan"
 )
 
-// planChart lays out the plan chart: the last years of history with the
-// past events cleaned out of it, the baseline with its band, each scenario
-// with events and its band, and the windows of the events ahead.
-func planChart(p *plan.Plan) plots.PlanChart {
+// PlanChart lays out the plan chart: the last years of history (see
+// ChartHistory) with the past events cleaned out of it marked, the
+// baseline with its band, each scenario with events and its band, and the
+// windows of the events ahead.
+func PlanChart(p *plan.Plan) plots.PlanChart {
 	n := p.History.Len()
-	show := min(n, report.ChartHistory(p.History.Freq()))
+	show := min(n, ChartHistory(p.History.Freq()))
 	off := n - show // first history index shown
-	hz := len(p.Periods)
-	labels := make([]string, show+hz)
-	for i := 0; i < show; i++ {
-		labels[i] = p.History.Period(off + i).String()
+	labels := make([]string, 0, show+len(p.Periods))
+	for i := range show {
+		labels = append(labels, p.History.Period(off+i).String())
 	}
-	for i, per := range p.Periods {
-		labels[show+i] = per.String()
-	}
-	base := plots.Curve{Name: "Baseline", Start: show, Values: p.Baseline,
-		Lower: make([]float64, hz), Upper: make([]float64, hz)}
-	for t := range p.Baseline {
-		w := p.Z * math.Sqrt(p.BaselineVar[t])
-		base.Lower[t], base.Upper[t] = p.Baseline[t]-w, p.Baseline[t]+w
+	for _, per := range p.Periods {
+		labels = append(labels, per.String())
 	}
 	c := plots.PlanChart{
-		Title:         "Plan " + p.File.Plan + ": " + p.History.Name,
-		Units:         report.UnitsLabel(p.File.Units, p.History.Freq().String()),
-		Labels:        labels,
-		History:       plots.Curve{Name: "History", Values: p.History.Values[off:]},
-		Baseline:      base,
+		Title:   "Plan " + p.File.Plan + ": " + p.History.Name,
+		Units:   UnitsLabel(p.File.Units, p.History.Freq().String()),
+		Labels:  labels,
+		History: plots.Curve{Name: "History", Values: p.History.Values[off:]},
+		Baseline: plots.Curve{Name: "Baseline", Start: show, Values: p.Baseline,
+			Lower: p.BaselineLower, Upper: p.BaselineUpper},
 		Windows:       futureWindows(p, show),
 		Past:          pastWindows(p, off),
 		ForecastStart: show,

@@ -1,4 +1,4 @@
-package main
+package report
 
 import (
 	"fmt"
@@ -12,17 +12,15 @@ import (
 
 	"forelay/forecast"
 	"forelay/plots"
+	"forelay/scenario"
+	"forelay/scenario/plan"
 )
 
 // TestPlanChartWindows checks the windows of the demo plan's chart: each
 // event shaded over whole periods, and the past events cleaned out of the
 // history marked on the history shown.
 func TestPlanChartWindows(t *testing.T) {
-	p, err := buildPlan(filepath.Join(examplesDir(), "dairy", "plan.yaml"), nil)
-	if err != nil {
-		t.Fatal(err)
-	}
-	c := planChart(p)
+	c := PlanChart(loadPlan(t, "../../examples/dairy/plan.yaml"))
 	at := func(label string) float64 {
 		i := slices.Index(c.Labels, label)
 		if i < 0 {
@@ -94,11 +92,7 @@ func TestChartHistoryWindow(t *testing.T) {
 			write(t, filepath.Join(dir, "history.csv"), b.String())
 			write(t, filepath.Join(dir, "plan.yaml"), fmt.Sprintf(
 				"plan: w\nhistory: {file: history.csv, period: %s}\nhorizon: 26\nbaseline: {method: seasonal-naive}\n", tc.period))
-			p, err := buildPlan(filepath.Join(dir, "plan.yaml"), nil)
-			if err != nil {
-				t.Fatal(err)
-			}
-			c := planChart(p)
+			c := PlanChart(loadPlan(t, filepath.Join(dir, "plan.yaml")))
 			if c.ForecastStart != tc.want || len(c.Labels) != tc.want+26 {
 				t.Errorf("%d periods of history and %d labels, want %d and %d", c.ForecastStart, len(c.Labels), tc.want, tc.want+26)
 			}
@@ -114,4 +108,18 @@ func write(t *testing.T, path, s string) {
 	if err := os.WriteFile(path, []byte(s), 0o644); err != nil {
 		t.Fatal(err)
 	}
+}
+
+// loadPlan loads the scenario file at path and builds its plan.
+func loadPlan(t *testing.T, path string) *plan.Plan {
+	t.Helper()
+	f, err := scenario.Load(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, err := plan.Load(f)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return p
 }
