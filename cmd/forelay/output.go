@@ -146,9 +146,6 @@ func (o *outputSet) paths() []string {
 	return out
 }
 
-// num is a JSON number: null for NaN and the infinities (see report.Num).
-type num = report.Num
-
 // marshalLine encodes v as one line of JSON.
 func marshalLine(v any) ([]byte, error) {
 	b, err := json.Marshal(v)

@@ -30,14 +30,6 @@ func writeChecks(w io.Writer, r *forecast.Result) {
 	}
 }
 
-// unitsSuffix is " litres" for units "litres", "" for none.
-func unitsSuffix(units string) string {
-	if units == "" {
-		return ""
-	}
-	return " " + units
-}
-
 // num formats a value for tables: thousands separators, the given
 // decimals, "-" for NaN (see forecast.FormatNumber).
 func num(v float64, decimals int) string { return forecast.FormatNumber(v, decimals) }
