@@ -4,6 +4,7 @@ import (
 	"embed"
 	"errors"
 	"fmt"
+	"forelay/scenario/report"
 	"io/fs"
 	"os"
 	"path/filepath"
@@ -58,15 +59,15 @@ func initRun(opts *InitOptions) error {
 			}
 		}
 	}
-	set := newOutputSet(opts.Dir)
+	set := report.NewFiles(opts.Dir)
 	for _, n := range names {
 		b, err := starterFiles.ReadFile("starter/" + n)
 		if err != nil {
 			return err
 		}
-		set.add(n, b)
+		set.Add(n, b)
 	}
-	paths, err := set.commit()
+	paths, err := set.Commit()
 	if err != nil {
 		return err
 	}

@@ -1,0 +1,168 @@
+package report
+
+import (
+	"errors"
+	"fmt"
+	"io/fs"
+	"os"
+	"path/filepath"
+
+	"forelay/plots"
+)
+
+// Files collects a run's output files in memory and writes them all at
+// the end, each atomically, so a run that fails part-way writes nothing.
+type Files struct {
+	dir   string
+	names []string
+	data  map[string][]byte
+}
+
+// NewFiles returns an empty set of files to write into dir.
+func NewFiles(dir string) *Files {
+	return &Files{dir: dir, data: map[string][]byte{}}
+}
+
+// Add adds a file; a second file of the same name replaces the first.
+func (o *Files) Add(name string, data []byte) {
+	if _, ok := o.data[name]; !ok {
+		o.names = append(o.names, name)
+	}
+	o.data[name] = data
+}
+
+// Commit writes every file into the directory, all or nothing. The files
+// are first written into a staging directory beside it; only when all are
+// written are they moved into place. When a move fails, the files already
+// moved are put back as they were, so a failed run leaves the directory as
+// it found it. It returns the paths written, in the order they were added.
+func (o *Files) Commit() ([]string, error) {
+	parent := filepath.Dir(filepath.Clean(o.dir))
+	if err := os.MkdirAll(parent, 0o755); err != nil {
+		return nil, err
+	}
+	stage, err := os.MkdirTemp(parent, "."+filepath.Base(filepath.Clean(o.dir))+".stage-*")
+	if err != nil {
+		return nil, err
+	}
+	defer os.RemoveAll(stage)
+	for _, n := range o.names {
+		if err := os.WriteFile(filepath.Join(stage, n), o.data[n], 0o644); err != nil {
+			return nil, fmt.Errorf("writing %s: %w", filepath.Join(o.dir, n), err)
+		}
+	}
+	if err := o.checkTargets(); err != nil {
+		return nil, err
+	}
+	if _, err := os.Stat(o.dir); errors.Is(err, fs.ErrNotExist) {
+		// A new directory: the staged one becomes it in one rename.
+		if err := os.Chmod(stage, 0o755); err != nil {
+			return nil, err
+		}
+		if err := os.Rename(stage, o.dir); err != nil {
+			return nil, fmt.Errorf("writing %s: %w", o.dir, err)
+		}
+		return o.paths(), nil
+	}
+	if err := o.swapIn(stage); err != nil {
+		return nil, err
+	}
+	return o.paths(), nil
+}
+
+// checkTargets refuses, before anything moves, a target that is not a
+// regular file or an output directory that is not a directory.
+func (o *Files) checkTargets() error {
+	if fi, err := os.Stat(o.dir); err == nil && !fi.IsDir() {
+		return fmt.Errorf("--out %s: not a directory; name a directory (it is created when missing)", o.dir)
+	}
+	for _, n := range o.names {
+		p := filepath.Join(o.dir, n)
+		if fi, err := os.Lstat(p); err == nil && !fi.Mode().IsRegular() {
+			return fmt.Errorf("writing %s: a %s is in the way; move it aside and run again (nothing was written)", p, kindOf(fi))
+		}
+	}
+	return nil
+}
+
+func kindOf(fi fs.FileInfo) string {
+	switch {
+	case fi.IsDir():
+		return "directory"
+	case fi.Mode()&fs.ModeSymlink != 0:
+		return "symbolic link"
+	}
+	return "special file"
+}
+
+// swapIn moves the staged files into the existing output directory. Each
+// file it replaces is first moved into the staging directory, so that a
+// failure part-way can put every earlier file back.
+func (o *Files) swapIn(stage string) error {
+	type moved struct{ target, backup string }
+	var done []moved
+	undo := func() {
+		for i := len(done) - 1; i >= 0; i-- {
+			m := done[i]
+			os.Remove(m.target)
+			if m.backup != "" {
+				os.Rename(m.backup, m.target)
+			}
+		}
+	}
+	for _, n := range o.names {
+		target := filepath.Join(o.dir, n)
+		m := moved{target: target}
+		if _, err := os.Lstat(target); err == nil {
+			m.backup = filepath.Join(stage, ".old-"+n)
+			if err := os.Rename(target, m.backup); err != nil {
+				undo()
+				return fmt.Errorf("writing %s: %w (nothing was written)", target, err)
+			}
+		}
+		if err := os.Rename(filepath.Join(stage, n), target); err != nil {
+			if m.backup != "" {
+				os.Rename(m.backup, target)
+			}
+			undo()
+			return fmt.Errorf("writing %s: %w (nothing was written)", target, err)
+		}
+		done = append(done, m)
+	}
+	return nil
+}
+
+// paths returns the output paths in the order they were added.
+func (o *Files) paths() []string {
+	out := make([]string, len(o.names))
+	for i, n := range o.names {
+		out[i] = filepath.Join(o.dir, n)
+	}
+	return out
+}
+
+// renderBoth draws c as PNG and SVG at the default size.
+func renderBoth(c Plotter) (png, svg []byte, err error) {
+	p, err := c.Plot()
+	if err != nil {
+		return nil, nil, err
+	}
+	if png, err = plots.Render(p, "png", plots.DefaultWidth, plots.DefaultHeight); err != nil {
+		return nil, nil, err
+	}
+	if svg, err = plots.Render(p, "svg", plots.DefaultWidth, plots.DefaultHeight); err != nil {
+		return nil, nil, err
+	}
+	return png, svg, nil
+}
+
+// AddChart renders c and adds base.png and base.svg to the set.
+func (o *Files) AddChart(base string, c Plotter) error {
+	png, svg, err := renderBoth(c)
+	if err != nil {
+		return err
+	}
+	o.Add(base+".png", png)
+	o.Add(base+".svg", svg)
+	return nil
+}
