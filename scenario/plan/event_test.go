@@ -30,15 +30,18 @@ func TestEffects(t *testing.T) {
 	plantest.EqualSlices(t, "share", eff.Share, []float64{1, 1, 0}, 1e-12)
 	plantest.EqualSlices(t, "contribution", eff.Contrib, []float64{100, 100, 0}, 1e-12)
 	plantest.EqualSlices(t, "sigma", eff.Sigma, []float64{sd, sd, 0}, 1e-4)
-	plantest.EqualSlices(t, "scenario promo's contribution", p.Scenarios[1].Contrib[0], eff.Contrib, 0)
-	plantest.EqualSlices(t, "scenario none's contribution", p.Scenarios[0].Contrib[0], []float64{0, 0, 0}, 0)
+	plantest.EqualSlices(t, "scenario promo's contribution", p.Line("promo", "demand").Contrib["promo"], eff.Contrib, 0)
+	plantest.EqualSlices(t, "scenario none's contribution", p.Line("none", "demand").Contrib["promo"], []float64{0, 0, 0}, 0)
 	for i := range p.Baseline {
 		w := 2 * math.Sqrt(p.BaselineVar[i])
 		plantest.Same(t, "lower", p.BaselineLower[i], p.Baseline[i]-w, 1e-12)
 		plantest.Same(t, "upper", p.BaselineUpper[i], p.Baseline[i]+w, 1e-12)
 	}
+	if p.Line("promo", "other") != nil || p.Line("missing", "demand") != nil {
+		t.Error("Line found a line the plan does not hold")
+	}
 	// The scenario's plan is its own copy: changing it leaves the effect.
-	p.Scenarios[1].Contrib[0][0] = 0
+	p.Scenarios[1].Contrib["promo"][0] = 0
 	if eff.Contrib[0] != 100 {
 		t.Error("a scenario's contribution shares the effect's values")
 	}

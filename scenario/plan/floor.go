@@ -49,8 +49,8 @@ func (p *Plan) clip(sp *ScenarioPlan) {
 		if below {
 			sp.Clipped++
 			if p.Baseline[t] >= f {
-				for i, e := range p.Future {
-					if sp.Contrib[i][t] < 0 {
+				for _, e := range p.Future {
+					if sp.Contrib[e.ID][t] < 0 {
 						pushed[e] = append(pushed[e], t)
 					}
 				}
@@ -71,19 +71,18 @@ func (p *Plan) clip(sp *ScenarioPlan) {
 			sp.Upper[t] = adj
 		}
 	}
-	for i, e := range p.Future {
+	for _, e := range p.Future {
 		if ts := pushed[e]; len(ts) > 0 {
-			sp.Clips = append(sp.Clips, p.newClip(e, i, sp, ts))
+			sp.Clips = append(sp.Clips, p.newClip(e, sp, ts))
 		}
 	}
 }
 
-// newClip sums up how event e (the i-th future event) pushed sp below the
-// floor in periods ts.
-func (p *Plan) newClip(e *scenario.Event, i int, sp *ScenarioPlan, ts []int) Clip {
+// newClip sums up how event e pushed sp below the floor in periods ts.
+func (p *Plan) newClip(e *scenario.Event, sp *ScenarioPlan, ts []int) Clip {
 	c := Clip{Event: e, Periods: ts}
 	for k, t := range ts {
-		fall := -sp.Contrib[i][t]
+		fall := -sp.Contrib[e.ID][t]
 		c.Baseline += p.Baseline[t]
 		if k == 0 || fall < c.Least {
 			c.Least = fall

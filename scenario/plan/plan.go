@@ -102,7 +102,9 @@ type EventEffect struct {
 
 // ScenarioPlan is one scenario's adjusted plan.
 type ScenarioPlan struct {
-	Name string
+	// Name is the scenario's name and Series the series it plans: a plan
+	// line is keyed by (scenario, series) (see Plan.Line).
+	Name, Series string
 	// Events are the scenario's future events, in file order.
 	Events []*scenario.Event
 	// Adjusted = baseline + sum of the included events' contributions;
@@ -113,10 +115,10 @@ type ScenarioPlan struct {
 	// RiskWeighted, Lower and Upper are then clipped at it, keeping
 	// Lower <= Adjusted <= Upper (see Plan.Floor); Var is not changed.
 	Var, Lower, Upper []float64
-	// Contrib[i] is the contribution per period of Plan.Future[i]; all
-	// zeros when that event is not in the scenario. Contributions are
-	// not clipped.
-	Contrib [][]float64
+	// Contrib holds the contribution per period of each future event to
+	// this series, keyed by event id; all zeros for an event that is not
+	// in the scenario. Contributions are not clipped.
+	Contrib map[string][]float64
 	// Floored counts the periods where only the lower band was raised to
 	// the floor (the plan itself above it, the usual case near zero).
 	Floored int
@@ -125,6 +127,17 @@ type ScenarioPlan struct {
 	// pushed it there, in file order.
 	Clipped int
 	Clips   []Clip
+}
+
+// Line returns the plan of scenario name for series, or nil when the plan
+// has no such line. Today's plans hold one series, the history's.
+func (p *Plan) Line(name, series string) *ScenarioPlan {
+	for i := range p.Scenarios {
+		if sp := &p.Scenarios[i]; sp.Name == name && sp.Series == series {
+			return sp
+		}
+	}
+	return nil
 }
 
 // Total returns the sum of v.
@@ -313,17 +326,17 @@ func (p *Plan) lay() {
 // layer adds the future events of case c to the baseline.
 func (p *Plan) layer(c scenario.Case) ScenarioPlan {
 	hz := len(p.Baseline)
-	sp := ScenarioPlan{Name: c.Name,
+	sp := ScenarioPlan{Name: c.Name, Series: p.History.Name,
 		Adjusted: append([]float64(nil), p.Baseline...), RiskWeighted: append([]float64(nil), p.Baseline...),
 		Var: append([]float64(nil), p.BaselineVar...), Lower: make([]float64, hz), Upper: make([]float64, hz),
-		Contrib: make([][]float64, len(p.Future))}
+		Contrib: make(map[string][]float64, len(p.Future))}
 	in := map[string]bool{}
 	for _, e := range c.Events {
 		in[e.ID] = true
 	}
-	for i, e := range p.Future {
+	for _, e := range p.Future {
 		if !in[e.ID] {
-			sp.Contrib[i] = make([]float64, hz)
+			sp.Contrib[e.ID] = make([]float64, hz)
 			continue
 		}
 		sp.Events = append(sp.Events, e)
@@ -334,7 +347,7 @@ func (p *Plan) layer(c scenario.Case) ScenarioPlan {
 			sp.RiskWeighted[t] += e.Probability * contrib[t]
 			sp.Var[t] += sigma[t] * sigma[t]
 		}
-		sp.Contrib[i] = contrib
+		sp.Contrib[e.ID] = contrib
 	}
 	for t := range sp.Var {
 		w := p.Z * math.Sqrt(sp.Var[t])

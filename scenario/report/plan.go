@@ -159,14 +159,14 @@ func Plan(p *plan.Plan) PlanDoc {
 		sj.RiskWeighted = Num(plan.Total(sp.RiskWeighted))
 		i, v := plan.Peak(sp.Adjusted)
 		sj.Peak = PeakDoc{Period: p.Periods[i].String(), Value: Num(v)}
-		for k, e := range p.Future {
-			sj.Contributions[e.ID] = Num(plan.Total(sp.Contrib[k]))
+		for _, e := range p.Future {
+			sj.Contributions[e.ID] = Num(plan.Total(sp.Contrib[e.ID]))
 		}
 		for t, per := range p.Periods {
 			pj := planPeriodJSON{Period: per.String(), Baseline: Num(p.Baseline[t]), Adjusted: Num(sp.Adjusted[t]),
 				RiskWeighted: Num(sp.RiskWeighted[t]), Lower: Num(sp.Lower[t]), Upper: Num(sp.Upper[t]), Events: map[string]Num{}}
-			for k, e := range p.Future {
-				pj.Events[e.ID] = Num(sp.Contrib[k][t])
+			for _, e := range p.Future {
+				pj.Events[e.ID] = Num(sp.Contrib[e.ID][t])
 			}
 			sj.Periods = append(sj.Periods, pj)
 		}

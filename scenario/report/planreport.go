@@ -97,11 +97,11 @@ func scenarioText(w *Text, p *plan.Plan, sp plan.ScenarioPlan, d int, detail boo
 	base := plan.Total(p.Baseline)
 	t := NewTable("", "total"+units, "vs baseline", "share")
 	t.AddRow("baseline", num(base, d), "", "")
-	for i, e := range p.Future {
+	for _, e := range p.Future {
 		if !slices.Contains(sp.Events, e) {
 			continue
 		}
-		c := plan.Total(sp.Contrib[i])
+		c := plan.Total(sp.Contrib[e.ID])
 		label := e.ID
 		if e.Probability < 1 {
 			label += fmt.Sprintf(" (p=%.2g)", e.Probability)
@@ -172,8 +172,8 @@ func planCSV(p *plan.Plan) *Table {
 		for k, per := range p.Periods {
 			row := []string{sp.Name, per.String(), CSV2(p.Baseline[k]), CSV2(sp.Adjusted[k]),
 				CSV2(sp.RiskWeighted[k]), CSV2(sp.Lower[k]), CSV2(sp.Upper[k])}
-			for i := range p.Future {
-				row = append(row, CSV2(sp.Contrib[i][k]))
+			for _, e := range p.Future {
+				row = append(row, CSV2(sp.Contrib[e.ID][k]))
 			}
 			t.Rows = append(t.Rows, row)
 		}

@@ -73,9 +73,9 @@ func Compare(sim *sim.Simulation, service float64) []Comparison {
 			b := PlanBuffer(ps.QuantileDemand(service), capacity, 0)
 			c.Prebuild, c.PrebuildAt = b.Prebuild, b.PrebuildAt
 		}
-		for k, e := range p.Future {
+		for _, e := range p.Future {
 			if slices.Contains(sp.Events, e) {
-				c.Contributions = append(c.Contributions, Contribution{ID: e.ID, Total: plan.Total(sp.Contrib[k])})
+				c.Contributions = append(c.Contributions, Contribution{ID: e.ID, Total: plan.Total(sp.Contrib[e.ID])})
 			}
 		}
 		out[s] = c

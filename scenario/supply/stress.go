@@ -12,17 +12,13 @@ import (
 )
 
 // CapacityPerPeriod returns the capacity in each of the plan's periods
-// (Capacity.At), or nil when the file sets no capacity.
+// (Capacity.At) of the resource "capacity", or nil when the file sets no
+// capacity: the shorthand of a plan with one resource over every series.
 func CapacityPerPeriod(p *plan.Plan) []float64 {
-	c := p.File.Capacity
-	if c == nil {
-		return nil
+	if r := ResourceOf(p, CapacityResource); r != nil {
+		return r.Capacity
 	}
-	out := make([]float64, len(p.Periods))
-	for t, per := range p.Periods {
-		out[t] = c.At(per)
-	}
-	return out
+	return nil
 }
 
 // PeriodRisk is the simulated demand of one period set against capacity.

@@ -249,3 +249,21 @@ func TestGroupDigits(t *testing.T) {
 		}
 	}
 }
+
+// TestResources: the capacity block is the resource "capacity" over the
+// plan's one series, one unit per unit of demand; without it there is
+// none.
+func TestResources(t *testing.T) {
+	p := buildTestPlan(t, "plan: p\nhorizon: 2\nbaseline: {method: naive}\ncapacity: {units: 900}\n", testHistory(24))
+	rs := Resources(p)
+	if len(rs) != 1 || rs[0].ID != CapacityResource || rs[0].PerUnit != 1 || len(rs[0].Series) != 1 || rs[0].Series[0] != "demand" {
+		t.Fatalf("resources %+v", rs)
+	}
+	plantest.EqualSlices(t, "capacity", ResourceOf(p, "capacity").Capacity, []float64{900, 900}, 0)
+	if ResourceOf(p, "line-2") != nil {
+		t.Error("found a resource the plan does not have")
+	}
+	if q := buildTestPlan(t, "plan: p\nhorizon: 2\nbaseline: {method: naive}\n", testHistory(24)); Resources(q) != nil {
+		t.Error("a plan without capacity has resources")
+	}
+}
