@@ -45,7 +45,7 @@ exit code is 0 when the file is sound (with --strict: and has no warning) and
 }
 
 func checkRun(opts *CheckOptions) error {
-	f, err := scenario.LoadLimited(opts.File, opts.Shared.limits().scenario())
+	f, err := scenario.LoadLimited(opts.File, opts.Shared.limits().Scenario())
 	if err != nil {
 		return &inputError{err: err}
 	}

@@ -3,6 +3,7 @@ package main
 import (
 	"errors"
 	"fmt"
+	"forelay/scenario/bounds"
 	"io"
 	"os"
 
@@ -54,8 +55,8 @@ one with the lowest error on --metric wins; the table shows every candidate.`,
 			if cmd.Flags().Changed("workers") && opts.Workers < 1 {
 				return flagErrorf("--workers %d: must be at least 1 (leave it out for one worker per core)", opts.Workers)
 			}
-			if l := opts.Shared.limits(); int64(opts.Baseline.Horizon) > l.get("horizon") {
-				return l.exceeded("--horizon", "horizon", int64(opts.Baseline.Horizon))
+			if l := opts.Shared.limits(); int64(opts.Baseline.Horizon) > l.Get("horizon") {
+				return &flagError{err: l.Exceeded("--horizon", "horizon", int64(opts.Baseline.Horizon))}
 			}
 			opts.Baseline.record(cmd)
 			if runF != nil {
@@ -78,7 +79,7 @@ one with the lowest error on --metric wins; the table shows every candidate.`,
 
 // loadHistory reads a history file with the period and fill flags, under
 // the size limits.
-func loadHistory(path, period, fill string, l limits) (*data.History, error) {
+func loadHistory(path, period, fill string, l bounds.Set) (*data.History, error) {
 	freq, err := forecast.ParseFrequency(period)
 	if err != nil {
 		return nil, &flagError{err: fmt.Errorf("--period: %w", err)}
@@ -92,11 +93,11 @@ func loadHistory(path, period, fill string, l limits) (*data.History, error) {
 		return nil, &inputError{err: err}
 	}
 	defer fh.Close()
-	h, err := data.ReadHistory(data.BoundedReader(fh, path, l.input()), path, data.ReadOptions{Freq: freq, Fill: fm})
+	h, err := data.ReadHistory(data.BoundedReader(fh, path, l.Input()), path, data.ReadOptions{Freq: freq, Fill: fm})
 	if err != nil {
 		return nil, &inputError{err: err}
 	}
-	if err := h.CheckNameLength(int(l.get("name-length"))); err != nil {
+	if err := h.CheckNameLength(int(l.Get("name-length"))); err != nil {
 		return nil, &inputError{err: err}
 	}
 	return h, nil

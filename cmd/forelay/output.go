@@ -4,7 +4,6 @@ import (
 	"bytes"
 	"encoding/json"
 	"fmt"
-	"forelay/forecast"
 	"io"
 
 	"forelay/scenario/report"
@@ -18,10 +17,6 @@ func marshalLine(v any) ([]byte, error) {
 	}
 	return append(b, '\n'), nil
 }
-
-// fmtNum formats a value for tables: thousands separators, the given
-// decimals, "-" for NaN (see scenario.FormatNumber).
-func fmtNum(v float64, decimals int) string { return forecast.FormatNumber(v, decimals) }
 
 // warnings prints each warning of a run on ErrOut, one "warning:" line
 // each. Under --strict it then returns an input error (exit code 2), so

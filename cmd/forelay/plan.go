@@ -58,7 +58,7 @@ the whole run succeeds.`,
 // buildPlan loads a scenario file and builds its plan; every failure is an
 // input error (exit code 2).
 func buildPlan(path string, shared *sharedFlags) (*plan.Plan, error) {
-	f, err := scenario.LoadLimited(path, shared.limits().scenario())
+	f, err := scenario.LoadLimited(path, shared.limits().Scenario())
 	if err != nil {
 		return nil, &inputError{err: err}
 	}

@@ -3,6 +3,7 @@ package main
 import (
 	"errors"
 	"fmt"
+	"forelay/scenario/bounds"
 	"io"
 	"runtime/debug"
 	"time"
@@ -31,7 +32,7 @@ type sharedFlags struct {
 	// Strict turns every warning into an input error (exit code 2).
 	Strict bool
 	// Limits bound the size of a run.
-	Limits limits
+	Limits bounds.Set
 }
 
 // strict reports whether --strict is set; a nil s (a command built in a
@@ -39,9 +40,9 @@ type sharedFlags struct {
 func (s *sharedFlags) strict() bool { return s != nil && s.Strict }
 
 // limits returns the limits in force: the defaults when s is nil.
-func (s *sharedFlags) limits() limits {
+func (s *sharedFlags) limits() bounds.Set {
 	if s == nil || s.Limits == nil {
-		return defaultLimits()
+		return bounds.Defaults()
 	}
 	return s.Limits
 }
@@ -72,7 +73,7 @@ scenario file for the known events ("forelay init" writes a starter), and run
 against capacity and size the stock to build ahead; "forelay track" follows
 new actuals against it.
 
-Every run is bounded; a larger run needs --limit NAME=N. The limits:` + limitsHelp() + `
+Every run is bounded; a larger run needs --limit NAME=N. The limits:` + bounds.Help() + `
 
 The plan is a statistical estimate: where supply is safety-critical, defer to
 the applicable reliability standards, local codes and licensed practice.`,
@@ -84,10 +85,10 @@ the applicable reliability standards, local codes and licensed practice.`,
 	if f.Shared == nil {
 		f.Shared = &sharedFlags{}
 	}
-	f.Shared.Limits = defaultLimits()
+	f.Shared.Limits = bounds.Defaults()
 	pf := root.PersistentFlags()
 	pf.BoolVar(&f.Shared.Strict, "strict", false, "treat every warning as an error (exit code 2) and write nothing")
-	pf.Var(&limitsValue{l: f.Shared.Limits}, "limit", "raise or lower a limit, NAME=N (repeatable); see 'forelay --help' for the limits")
+	pf.Var(&bounds.Value{L: f.Shared.Limits}, "limit", "raise or lower a limit, NAME=N (repeatable); see 'forelay --help' for the limits")
 	root.SetOut(f.IO.Out)
 	root.SetErr(f.IO.ErrOut)
 	root.SetIn(f.IO.In)
@@ -119,7 +120,7 @@ func run(args []string, io *IOStreams, now func() time.Time) int {
 		if err == nil {
 			return exitOK
 		}
-		fmt.Fprintln(io.ErrOut, "forelay: "+err.Error()+limitHint(err))
+		fmt.Fprintln(io.ErrOut, "forelay: "+err.Error()+bounds.Hint(err))
 		var fe *flagError
 		if errors.As(err, &fe) {
 			fmt.Fprintln(io.ErrOut, "Run 'forelay --help' (or the command with --help) for usage.")

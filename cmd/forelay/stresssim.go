@@ -3,6 +3,7 @@ package main
 import (
 	"errors"
 	"fmt"
+	"forelay/scenario/bounds"
 	"forelay/scenario/plan"
 	"forelay/scenario/sim"
 	"math"
@@ -35,9 +36,9 @@ func (s *simFlags) register(fl *pflag.FlagSet) {
 
 // check validates the flags against the limits; every problem is a flag
 // error (exit code 2), found before anything is allocated.
-func (s *simFlags) check(l limits) error {
-	if int64(s.Paths) > l.get("paths") {
-		return l.exceeded("--paths", "paths", int64(s.Paths))
+func (s *simFlags) check(l bounds.Set) error {
+	if int64(s.Paths) > l.Get("paths") {
+		return &flagError{err: l.Exceeded("--paths", "paths", int64(s.Paths))}
 	}
 	if s.Paths < sim.MinPaths {
 		return flagErrorf("--paths %d: at least %d paths are needed (with fewer, P5 and P95 rest on a handful of paths)", s.Paths, sim.MinPaths)

@@ -212,7 +212,7 @@ func readActuals(opts *TrackOptions, tp plan.TrackPlan) ([]float64, error) {
 		return nil, &inputError{err: err}
 	}
 	defer fh.Close()
-	actual, err := tp.ReadActuals(data.BoundedReader(fh, opts.Actuals, opts.Shared.limits().input()), opts.Actuals)
+	actual, err := tp.ReadActuals(data.BoundedReader(fh, opts.Actuals, opts.Shared.limits().Input()), opts.Actuals)
 	if err != nil {
 		return nil, &inputError{err: err}
 	}
