@@ -36,33 +36,7 @@ func newCmdBuffer(f *Factory, runF func(*BufferOptions) error) *cobra.Command {
 	cmd := &cobra.Command{
 		Use:   "buffer FILE --service 0.95 [--lead-time L] [--opening-stock S]",
 		Short: "Size the stock to build ahead of a disruption, and the safety stock",
-		Long: `Work out how much stock to build ahead of the periods whose demand exceeds
-capacity (a planned shutdown, a peak, a supply cut), for one scenario.
-
-Demand in each period is taken at the service quantile: the --service quantile
-of the Monte Carlo paths (the default, --demand mc; see "forelay stress"), or
-the adjusted plan plus z times its standard error (--demand bands), z being the
-standard normal quantile of --service. Capacity comes from the scenario file,
-which must have a capacity block.
-
-A backward pass finds the least stock needed at the start of each period so
-that no later period falls short:
-
-    S(T+1) = 0,   S(t) = max(0, demand(t) - capacity(t) + S(t+1)).
-
-The report gives the stock to hold before the first period whose demand
-exceeds capacity (the pre-build), the first period in which building ahead
-must start, and the period-by-period build and stock plan from
---opening-stock, building as late as capacity allows.
-
-It also gives the safety stock for a replenishment lead time of --lead-time
-periods, z x sigma x sqrt(lead time) with sigma the square root of the
-baseline's in-sample mean squared error (Silver, Pyke & Thomas), and the
-service it gives. The service level is a cycle service level (the chance that
-demand in a period, or over a lead time, is met from stock), not a fill rate
-(the share of demand met).
-
-With --out DIR it writes buffer.csv, buffer.json and buffer.png / buffer.svg.`,
+		Long:  helpText("buffer"),
 		Example: `  forelay buffer examples/dairy/plan.yaml --service 0.95 --scenario with-contract
   forelay buffer plan.yaml --service 0.98 --lead-time 2 --opening-stock 40000 --out out
   forelay buffer plan.yaml --service 0.9 --demand bands --json`,

@@ -20,16 +20,9 @@ type CheckOptions struct {
 func newCmdCheck(f *Factory, runF func(*CheckOptions) error) *cobra.Command {
 	opts := &CheckOptions{IO: f.IO, Shared: f.Shared}
 	cmd := &cobra.Command{
-		Use:   "check FILE",
-		Short: "Validate a scenario file and its history without computing a plan",
-		Long: `Read a scenario file and the history it names and report every problem with
-its file, line and column: unknown or misspelt keys, wrong types, bad dates,
-duplicate ids, scenarios naming unknown events, impossible ranges and so on.
-It also warns of what is legal but almost certainly not meant (an event
-outside the history and the horizon, an event dated inside the history,
-percent: 0.4), as plan does. Nothing is fitted and nothing is written. The
-exit code is 0 when the file is sound (with --strict: and has no warning) and
-2 when it is not.`,
+		Use:     "check FILE",
+		Short:   "Validate a scenario file and its history without computing a plan",
+		Long:    helpText("check"),
 		Example: `  forelay check examples/dairy/plan.yaml`,
 		Args:    cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {

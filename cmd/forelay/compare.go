@@ -24,22 +24,7 @@ func newCmdCompare(f *Factory, runF func(*CompareOptions) error) *cobra.Command 
 	cmd := &cobra.Command{
 		Use:   "compare FILE [--out DIR] [--json]",
 		Short: "Set the scenarios of a scenario file side by side",
-		Long: `Show the scenarios of a scenario file side by side: the adjusted plan's total
-and change against the baseline, its peak, the highest P90 of the simulated
-demand, the probability that demand exceeds capacity in at least one period,
-and the stock to build ahead of the first period whose demand at the --service
-quantile exceeds capacity (see "forelay buffer"), followed by each event's
-contribution to each scenario's total.
-
-The Monte Carlo flags are those of "forelay stress"; every scenario is
-simulated with the same random draws, so differences between scenarios come
-from their events alone.
-
-With --out DIR it writes compare.csv, compare.json, compare.png / compare.svg
-(over the plan periods, the baseline and every scenario's adjusted plan with
-the capacity, and below them each scenario's change from the baseline) and,
-for each scenario with events, waterfall-NAME.png / waterfall-NAME.svg (the walk from the baseline
-total through each event's contribution to the scenario's total).`,
+		Long:  helpText("compare"),
 		Example: `  forelay compare examples/dairy/plan.yaml
   forelay compare plan.yaml --out out --service 0.9
   forelay compare plan.yaml --json | jq '.scenarios[] | {name, breach_probability}'`,

@@ -33,17 +33,7 @@ func newCmdFit(f *Factory, runF func(*FitOptions) error) *cobra.Command {
 	cmd := &cobra.Command{
 		Use:   "fit --history FILE [flags]",
 		Short: "Fit a baseline forecast to a history and report its accuracy",
-		Long: `Fit a statistical baseline to each series of a history file and show the
-method, its parameters, its accuracy (in-sample and in a rolling-origin
-backtest) and the forecast with error bands.
-
-The history is a CSV file, either wide (a "period" column, then one column per
-series) or long (columns "series", "period" and "value"). Periods look like
-2026-03 (month), 2026-03-15 (day, or week when 7 days apart), 2026-W11 (ISO
-week), 2026-Q1 (quarter) or 2026 (year).
-
-With --method auto (the default) every suitable method is backtested and the
-one with the lowest error on --metric wins; the table shows every candidate.`,
+		Long:  helpText("fit"),
 		Example: `  forelay fit --history examples/dairy/history.csv --series bottled-l
   forelay fit --history sales.csv --method holt-winters-additive --horizon 18 --coverage 0.9
   forelay fit --history sales.csv --json > fits.jsonl`,

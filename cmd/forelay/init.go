@@ -27,11 +27,9 @@ type InitOptions struct {
 func newCmdInit(f *Factory, runF func(*InitOptions) error) *cobra.Command {
 	opts := &InitOptions{IO: f.IO, Shared: f.Shared}
 	cmd := &cobra.Command{
-		Use:   "init DIR",
-		Short: "Write a starter scenario and history to edit",
-		Long: `Write plan.yaml (a commented starter scenario with a step and a pulse) and
-history.csv (invented demo data) into DIR, creating it if needed. Existing
-files are left alone unless --force is given.`,
+		Use:     "init DIR",
+		Short:   "Write a starter scenario and history to edit",
+		Long:    helpText("init"),
 		Example: `  forelay init my-plan && forelay plan my-plan/plan.yaml`,
 		Args:    cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {

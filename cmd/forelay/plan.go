@@ -26,14 +26,7 @@ func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
 	cmd := &cobra.Command{
 		Use:   "plan FILE [--out DIR]",
 		Short: "Build the adjusted plan from a scenario file",
-		Long: `Read a scenario file, fit the baseline to the history after taking known past
-events out of it, lay the future events on the baseline and report each
-scenario: totals, peak, change against the baseline and each event's share.
-
-With --out DIR it also writes plan.csv (one row per scenario and period),
-plan.json (the same with the fitted model, accuracy, cleaning estimates and
-input digests) and the chart plan.png / plan.svg. Files are written only when
-the whole run succeeds.`,
+		Long:  helpText("plan"),
 		Example: `  forelay plan examples/dairy/plan.yaml --out out/dairy
   forelay plan plan.yaml --detail
   forelay plan plan.yaml --json | jq '.scenarios[].total'`,

@@ -62,18 +62,7 @@ func newRootCmd(f *Factory) *cobra.Command {
 	root := &cobra.Command{
 		Use:   "forelay",
 		Short: "Adjusted demand plans from a baseline forecast and known events",
-		Long: `forelay helps demand planners turn a statistical baseline forecast and the
-changes they hear about from sales and marketing (an account signed, a customer
-leaving, a shutdown or a local event) into an adjusted plan with honest error
-bands, and then watch actuals against it.
-
-Start with "forelay fit" to see how well the history can be forecast, write a
-scenario file for the known events ("forelay init" writes a starter), and run
-"forelay plan" on it. "forelay stress", "buffer" and "compare" test the plan
-against capacity and size the stock to build ahead; "forelay track" follows
-new actuals against it.
-
-Every run is bounded; a larger run needs --limit NAME=N. The limits:` + bounds.Help() + `
+		Long: helpText("forelay") + bounds.Help() + `
 
 The plan is a statistical estimate: where supply is safety-critical, defer to
 the applicable reliability standards, local codes and licensed practice.`,

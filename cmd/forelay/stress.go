@@ -26,30 +26,7 @@ func newCmdStress(f *Factory, runF func(*StressOptions) error) *cobra.Command {
 	cmd := &cobra.Command{
 		Use:   "stress FILE [--paths N] [--seed S] [--out DIR] [--json]",
 		Short: "Monte Carlo risk of each scenario against capacity",
-		Long: `Simulate many possible futures of each scenario of a scenario file: the
-baseline forecast plus a forecast-error path (resampled from the baseline's own
-in-sample errors, or normal with --errors normal), plus each event, which
-happens or not with its probability and, when it has a range, takes a size
-between the range's low and high (a triangular distribution peaked at the
-effect).
-
-For every scenario and period it reports the mean and the P5, P10, P50, P90 and
-P95 of demand; with a capacity in the file also the probability that demand
-exceeds capacity, the expected shortfall (the mean excess over capacity,
-counting paths without excess as zero), the P50 and P90 utilisation, the first
-period whose breach probability is above --breach and the total expected
-shortfall.
-
-With production: {mode: frozen} in the file, production is held at the
-previous plan (production.plan, or the baseline) and the stock is projected
-from --opening-stock under each scenario, showing where it runs short and
-where it builds up, and the capacity left idle.
-
-With --out DIR it writes stress.csv, stress.json and the fan chart fan.png /
-fan.svg (and stock.png / stock.svg when production is frozen) for the scenario
-named by --scenario (default: the last one in the file). Files are written
-only when the whole run succeeds. The same inputs and seed give the same
-files, byte for byte.`,
+		Long:  helpText("stress"),
 		Example: `  forelay stress examples/dairy/plan.yaml --out out/dairy
   forelay stress plan.yaml --paths 50000 --seed 7 --breach 0.05
   forelay stress plan.yaml --json | jq '.scenarios[] | {name, first_breach}'`,

@@ -49,30 +49,7 @@ func newCmdTrack(f *Factory, runF func(*TrackOptions) error) *cobra.Command {
 	cmd := &cobra.Command{
 		Use:   "track FILE --actuals CSV [--scenario NAME] [--plan DIR]",
 		Short: "Follow new actuals against a plan: tracking signal, control chart, verdict",
-		Long: `Compare new actuals with the adjusted plan of one scenario, period by period:
-the error (actual minus plan), the cumulative error, a running MAD, the tracking
-signal, the error's position on a control chart, and a verdict:
-
-  in-control  the errors look like the plan's usual noise
-  bias        the tracking signal is beyond its limit (also with the errors
-              beyond the control limits left out), or a Western Electric
-              run rule of drift fired: re-forecast
-  outlier     an error beyond the control limits, and no drift: the signal
-              is within its limit once such errors are left out; check for
-              an unplanned event
-
-The plan is built again from FILE, or read from DIR/plan.json with --plan
-(written earlier by "forelay plan --out DIR"). The actuals use the history
-layouts, hold the plan's series, start at the first plan period and run
-without gaps.
-
-The running MAD starts at the baseline's in-sample MAD and is updated with
-each new error e_t as MAD_t = a |e_t| + (1-a) MAD_t-1, a = --mad-smoothing.
-The control limits are +-z sqrt(MSE), with the baseline's in-sample MSE.
-
-With --out DIR it also writes track.csv, control.png/.svg and signal.png/.svg.
-Exit codes: 0 done, 1 internal failure, 2 bad flags or input files, 3 when the
-latest period's verdict is one --fail-on names (the report is printed first).`,
+		Long:  helpText("track"),
 		Example: `  forelay track examples/dairy/plan.yaml --actuals examples/dairy/actuals.csv --scenario with-contract
   forelay track plan.yaml --actuals new.csv --plan out --fail-on bias
   forelay track plan.yaml --actuals new.csv --signal smoothed --json`,
