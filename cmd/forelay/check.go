@@ -1,8 +1,8 @@
 package main
 
 import (
-	"fmt"
 	"forelay/scenario/plan"
+	"forelay/scenario/report"
 
 	"github.com/spf13/cobra"
 
@@ -46,28 +46,17 @@ func checkRun(opts *CheckOptions) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	ser := in.Series
-	lint := f.Lint(ser)
-	if err := warnings(opts.IO, opts.Shared, lint); err != nil {
+	rep := report.Check(opts.File, f, in.Series, f.Lint(in.Series))
+	if err := warnings(opts.IO, opts.Shared, rep.Warnings); err != nil {
 		return err
 	}
-	past := 0
-	for _, e := range f.Events {
-		if e.IsPast(ser.Next()) {
-			past++
-		}
-	}
 	if opts.JSON {
-		b, err := marshalLine(map[string]any{"file": opts.File, "ok": true, "plan": f.Plan, "series": ser.Name,
-			"period": ser.Freq().String(), "n": ser.Len(), "events": len(f.Events), "past_events": past,
-			"scenarios": len(f.Cases()), "horizon": f.Horizon, "warnings": warningList(lint)})
+		b, err := marshalLine(rep.Doc)
 		if err != nil {
 			return err
 		}
 		_, err = opts.IO.Out.Write(b)
 		return err
 	}
-	_, err = fmt.Fprintf(opts.IO.Out, "%s: ok: plan %s, series %s (%d %s periods, %s to %s), %d event(s) of which %d past, %d scenario(s), horizon %d\n",
-		opts.File, f.Plan, ser.Name, ser.Len(), ser.Freq(), ser.Start, ser.Period(ser.Len()-1), len(f.Events), past, len(f.Cases()), f.Horizon)
-	return err
+	return rep.WriteText(opts.IO.Out)
 }

@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"forelay/scenario/bounds"
 	"io"
-	"os"
 
 	"github.com/spf13/cobra"
 
@@ -78,16 +77,8 @@ func loadHistory(path, period, fill string, l bounds.Set) (*data.History, error)
 	if err != nil {
 		return nil, &flagError{err: fmt.Errorf("--fill: %w", err)}
 	}
-	fh, err := os.Open(path)
+	h, err := data.ReadFile(path, data.ReadOptions{Freq: freq, Fill: fm}, l.Input(), int(l.Get("name-length")))
 	if err != nil {
-		return nil, &inputError{err: err}
-	}
-	defer fh.Close()
-	h, err := data.ReadHistory(data.BoundedReader(fh, path, l.Input()), path, data.ReadOptions{Freq: freq, Fill: fm})
-	if err != nil {
-		return nil, &inputError{err: err}
-	}
-	if err := h.CheckNameLength(int(l.Get("name-length"))); err != nil {
 		return nil, &inputError{err: err}
 	}
 	return h, nil

@@ -35,10 +35,6 @@ func warnings(ios *IOStreams, shared *sharedFlags, list []string) error {
 	return nil
 }
 
-// warningList returns list, or an empty list for nil, so that the
-// "warnings" field of a JSON document is always a list.
-func warningList(list []string) []string { return report.List(list) }
-
 // finish ends a command run: it writes the output set (nil when no --out
 // was given) and lists the files on ErrOut, then prints the JSON document
 // or the text report on Out.

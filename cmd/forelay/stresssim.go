@@ -8,7 +8,6 @@ import (
 	"forelay/scenario/sim"
 	"math"
 	"strconv"
-	"strings"
 
 	"github.com/spf13/pflag"
 )
@@ -88,19 +87,11 @@ func checkStock(flag string, v float64) error {
 	return nil
 }
 
-// pickScenario returns the index of the scenario called name, or of the
-// last scenario when name is empty. An unknown name is a flag error that
-// lists the scenarios.
+// pickScenario is Plan.ScenarioIndex, its error a flag error.
 func pickScenario(p *plan.Plan, name string) (int, error) {
-	if name == "" {
-		return len(p.Scenarios) - 1, nil
+	i, err := p.ScenarioIndex(name)
+	if err != nil {
+		return 0, flagErrorf("--scenario %v", err)
 	}
-	names := make([]string, len(p.Scenarios))
-	for i, sp := range p.Scenarios {
-		if sp.Name == name {
-			return i, nil
-		}
-		names[i] = sp.Name
-	}
-	return 0, flagErrorf("--scenario %q: %s has no such scenario (it has %s)", name, p.File.Path, strings.Join(names, ", "))
+	return i, nil
 }

@@ -92,6 +92,7 @@ import (
 	"forelay/forecast"
 	"io"
 	"math"
+	"os"
 	"slices"
 	"strconv"
 	"strings"
@@ -647,4 +648,25 @@ func (hr *historyReader) series(c *column) (forecast.Series, []Filled, *ParseErr
 		}
 	}
 	return forecast.Series{Name: c.name, Start: start, Values: values}, filled, nil
+}
+
+// ReadFile reads the history file at path with opt, under the size limits
+// and the limit of series name lengths (0: none): ReadHistory through a
+// BoundedReader, then History.CheckNameLength.
+func ReadFile(path string, opt ReadOptions, limits SizeLimits, nameLength int) (*History, error) {
+	fh, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer fh.Close()
+	h, err := ReadHistory(BoundedReader(fh, path, limits), path, opt)
+	if err != nil {
+		return nil, err
+	}
+	if nameLength > 0 {
+		if err := h.CheckNameLength(nameLength); err != nil {
+			return nil, err
+		}
+	}
+	return h, nil
 }

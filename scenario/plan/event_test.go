@@ -66,3 +66,19 @@ func TestFutureEvent(t *testing.T) {
 		}
 	}
 }
+
+// TestScenarioIndex: a name gives its index, no name the last scenario,
+// and an unknown name an error that lists the scenarios.
+func TestScenarioIndex(t *testing.T) {
+	body := "plan: p\nhorizon: 2\nbaseline: {method: naive}\nscenarios:\n  - {name: low, events: []}\n  - {name: high, events: []}\n"
+	p := buildTestPlan(t, body, testHistory(24))
+	if i, err := p.ScenarioIndex("low"); i != 0 || err != nil {
+		t.Errorf("low: %d, %v", i, err)
+	}
+	if i, err := p.ScenarioIndex(""); i != 1 || err != nil {
+		t.Errorf("none: %d, %v", i, err)
+	}
+	if _, err := p.ScenarioIndex("mid"); err == nil || !strings.Contains(err.Error(), "has no such scenario (it has low, high)") {
+		t.Errorf("mid: %v", err)
+	}
+}

@@ -8,6 +8,7 @@ import (
 	"maps"
 	"math"
 	"slices"
+	"strings"
 
 	"forelay/forecast"
 )
@@ -138,6 +139,23 @@ func (p *Plan) Line(name, series string) *ScenarioPlan {
 		}
 	}
 	return nil
+}
+
+// ScenarioIndex returns the index of the scenario called name, or of the
+// last scenario when name is empty. An unknown name is an error that lists
+// the scenarios.
+func (p *Plan) ScenarioIndex(name string) (int, error) {
+	if name == "" {
+		return len(p.Scenarios) - 1, nil
+	}
+	names := make([]string, len(p.Scenarios))
+	for i, sp := range p.Scenarios {
+		if sp.Name == name {
+			return i, nil
+		}
+		names[i] = sp.Name
+	}
+	return 0, fmt.Errorf("%q: %s has no such scenario (it has %s)", name, p.File.Path, strings.Join(names, ", "))
 }
 
 // Total returns the sum of v.
