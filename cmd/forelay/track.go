@@ -3,15 +3,11 @@ package main
 import (
 	"fmt"
 	"math"
-	"os"
-	"path/filepath"
 	"strings"
 
 	"github.com/spf13/cobra"
 
 	"forelay/forecast"
-	"forelay/scenario"
-	"forelay/scenario/data"
 	"forelay/scenario/plan"
 	"forelay/scenario/report"
 )
@@ -160,8 +156,8 @@ func trackRun(opts *TrackOptions) error {
 }
 
 // loadTrackPlan builds the plan from the scenario file or reads it from
-// plan.json, and says which; warns are the plan's warnings, or those about
-// the inputs plan.json was made from.
+// plan.json (report.SavedTrackPlan), and says which; warns are the plan's
+// warnings, or those about the inputs plan.json was made from.
 func loadTrackPlan(opts *TrackOptions) (tp plan.TrackPlan, source string, warns []string, err error) {
 	if opts.PlanDir == "" {
 		p, err := buildPlan(opts.File, opts.Shared)
@@ -170,39 +166,19 @@ func loadTrackPlan(opts *TrackOptions) (tp plan.TrackPlan, source string, warns 
 		}
 		return p.TrackPlan(), "recomputed from " + opts.File, p.Warnings, nil
 	}
-	path := filepath.Join(opts.PlanDir, "plan.json")
-	tp, inputs, err := report.ReadPlan(path)
+	tp, source, warns, err = report.SavedTrackPlan(opts.File, opts.PlanDir)
 	if err != nil {
 		return plan.TrackPlan{}, "", nil, &inputError{err: err}
 	}
-	if warns, err = checkInputs(opts.File, path, inputs); err != nil {
-		return plan.TrackPlan{}, "", nil, err
-	}
-	return tp, "read from " + path, warns, nil
+	return tp, source, warns, nil
 }
 
 // readActuals reads the actuals file under the size limits, aligned with
-// the plan's periods (see plan.TrackPlan.ReadActuals).
+// the plan's periods (see plan.TrackPlan.ReadActualsFile).
 func readActuals(opts *TrackOptions, tp plan.TrackPlan) ([]float64, error) {
-	fh, err := os.Open(opts.Actuals)
-	if err != nil {
-		return nil, &inputError{err: err}
-	}
-	defer fh.Close()
-	actual, err := tp.ReadActuals(data.BoundedReader(fh, opts.Actuals, opts.Shared.limits().Input()), opts.Actuals)
+	actual, err := tp.ReadActualsFile(opts.Actuals, opts.Shared.limits().Input())
 	if err != nil {
 		return nil, &inputError{err: err}
 	}
 	return actual, nil
-}
-
-// checkInputs compares the digests plan.json records of the scenario and
-// history files with the files as they are now (see plan.InputChanges).
-// A scenario file that does not load is an input error.
-func checkInputs(file, planPath string, inputs map[string]string) ([]string, error) {
-	f, err := scenario.Load(file)
-	if err != nil {
-		return nil, &inputError{err: err}
-	}
-	return plan.InputChanges(planPath, inputs, plan.InputFiles(f)), nil
 }

@@ -9,6 +9,7 @@ import (
 	"forelay/scenario/data"
 	"io"
 	"math"
+	"os"
 	"strings"
 
 	"forelay/forecast"
@@ -457,4 +458,15 @@ func (t *Tracking) Unchanged() bool {
 func (t *Tracking) Latest() (forecast.Period, forecast.TrackPoint) {
 	n := len(t.Points) - 1
 	return t.Periods[n], t.Points[n]
+}
+
+// ReadActualsFile is ReadActuals of the file at path, read under the size
+// limits.
+func (tp TrackPlan) ReadActualsFile(path string, limits data.SizeLimits) ([]float64, error) {
+	fh, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer fh.Close()
+	return tp.ReadActuals(data.BoundedReader(fh, path, limits), path)
 }

@@ -5,7 +5,9 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
+	"forelay/scenario"
 	"os"
+	"path/filepath"
 
 	"forelay/forecast"
 	"forelay/scenario/data"
@@ -128,4 +130,23 @@ func offsetPos(src []byte, off int64) (line, col int) {
 	line = bytes.Count(before, []byte("\n")) + 1
 	col = int(off) - bytes.LastIndexByte(before, '\n')
 	return line, col
+}
+
+// SavedTrackPlan reads the plan to track against from DIR/plan.json,
+// written for the scenario file at file, and compares the digests it
+// records of the scenario and history files with the files as they are
+// now: a warning for each that changed or cannot be checked. source says
+// where the plan came from ("read from DIR/plan.json"). A scenario file
+// that does not load and a plan.json that cannot be read are errors.
+func SavedTrackPlan(file, dir string) (tp plan.TrackPlan, source string, warns []string, err error) {
+	path := filepath.Join(dir, "plan.json")
+	tp, inputs, err := ReadPlan(path)
+	if err != nil {
+		return plan.TrackPlan{}, "", nil, err
+	}
+	f, err := scenario.Load(file)
+	if err != nil {
+		return plan.TrackPlan{}, "", nil, err
+	}
+	return tp, "read from " + path, plan.InputChanges(path, inputs, plan.InputFiles(f)), nil
 }
