@@ -116,7 +116,7 @@ func fitRun(opts *FitOptions) error {
 	if err := warnings(opts.IO, opts.Shared, warns); err != nil {
 		return err
 	}
-	out, failed, err := fitOutput(opts, series, outcomes, spec.Horizon, bands)
+	out, failed, err := report.Fits(opts.History, series, outcomes, spec.Horizon, bands, opts.Units, opts.JSON)
 	if err != nil {
 		return err
 	}
@@ -131,41 +131,4 @@ func fitRun(opts *FitOptions) error {
 		return &inputError{err: joined}
 	}
 	return nil
-}
-
-// fitOutput lays out the fits, in input order: one JSON line per series
-// (a series that failed gives {"series", "error"}), or the text reports
-// separated by blank lines (a series that failed gives none). failed
-// holds the error of each series that failed, naming the history file.
-func fitOutput(opts *FitOptions, series []forecast.Series, outcomes []forecast.Outcome, horizon int, bands report.Bands) (out *report.Text, failed []error, err error) {
-	out = &report.Text{}
-	for i, oc := range outcomes {
-		h := horizon
-		if h == 0 {
-			h = series[i].Freq().DefaultHorizon()
-		}
-		var line any
-		switch {
-		case oc.Err != nil:
-			err := fmt.Errorf("%s: %w", opts.History, oc.Err)
-			failed = append(failed, err)
-			line = map[string]string{"series": series[i].Name, "error": err.Error()}
-		case opts.JSON:
-			line = report.Fit(oc.Result, h, bands)
-		default:
-			if i > 0 {
-				fmt.Fprintln(out)
-			}
-			report.FitText(out, oc.Result, h, bands, opts.Units)
-			continue
-		}
-		if opts.JSON {
-			b, err := marshalLine(line)
-			if err != nil {
-				return out, nil, err
-			}
-			out.Write(b)
-		}
-	}
-	return out, failed, nil
 }
