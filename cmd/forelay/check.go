@@ -47,16 +47,5 @@ func checkRun(opts *CheckOptions) error {
 		return &inputError{err: err}
 	}
 	rep := report.Check(opts.File, f, in.Series, f.Lint(in.Series))
-	if err := warnings(opts.IO, opts.Shared, rep.Warnings); err != nil {
-		return err
-	}
-	if opts.JSON {
-		b, err := marshalLine(rep.Doc)
-		if err != nil {
-			return err
-		}
-		_, err = opts.IO.Out.Write(b)
-		return err
-	}
-	return rep.WriteText(opts.IO.Out)
+	return emit(opts.IO, opts.Shared, "", opts.JSON, true, rep)
 }

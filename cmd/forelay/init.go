@@ -69,18 +69,11 @@ func initRun(opts *InitOptions) error {
 	if err != nil {
 		return err
 	}
-	if opts.JSON {
-		b, err := marshalLine(map[string]any{"written": paths})
-		if err != nil {
-			return err
-		}
-		_, err = opts.IO.Out.Write(b)
-		return err
-	}
+	rep := &report.Report{Name: "init", Compact: true, Doc: map[string]any{"written": paths}}
 	for _, p := range paths {
-		fmt.Fprintf(opts.IO.Out, "wrote %s\n", p)
+		fmt.Fprintf(&rep.Text, "wrote %s\n", p)
 	}
-	fmt.Fprintf(opts.IO.Out, "next: forelay check %s, then forelay plan %s --out %s\n",
-		filepath.Join(opts.Dir, "plan.yaml"), filepath.Join(opts.Dir, "plan.yaml"), filepath.Join(opts.Dir, "out"))
-	return nil
+	starter := filepath.Join(opts.Dir, "plan.yaml")
+	fmt.Fprintf(&rep.Text, "next: forelay check %s, then forelay plan %s --out %s\n", starter, starter, filepath.Join(opts.Dir, "out"))
+	return emit(opts.IO, opts.Shared, "", opts.JSON, true, rep)
 }

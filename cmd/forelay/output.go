@@ -1,22 +1,10 @@
 package main
 
 import (
-	"bytes"
-	"encoding/json"
 	"fmt"
-	"io"
 
 	"forelay/scenario/report"
 )
-
-// marshalLine encodes v as one line of JSON.
-func marshalLine(v any) ([]byte, error) {
-	b, err := json.Marshal(v)
-	if err != nil {
-		return nil, err
-	}
-	return append(b, '\n'), nil
-}
 
 // warnings prints each warning of a run on ErrOut, one "warning:" line
 // each. Under --strict it then returns an input error (exit code 2), so
@@ -33,29 +21,6 @@ func warnings(ios *IOStreams, shared *sharedFlags, list []string) error {
 		return &inputError{err: fmt.Errorf("%s and --strict is set: nothing was written; fix the input or run without --strict", n)}
 	}
 	return nil
-}
-
-// finish ends a command run: it writes the output set (nil when no --out
-// was given) and lists the files on ErrOut, then prints the JSON document
-// or the text report on Out.
-func finish(ios *IOStreams, set *report.Files, js []byte, asJSON bool, text func(io.Writer)) error {
-	if set != nil {
-		paths, err := set.Commit()
-		if err != nil {
-			return err
-		}
-		for _, p := range paths {
-			fmt.Fprintf(ios.ErrOut, "wrote %s\n", p)
-		}
-	}
-	if asJSON {
-		_, err := ios.Out.Write(js)
-		return err
-	}
-	var b bytes.Buffer
-	text(&b)
-	_, err := ios.Out.Write(b.Bytes())
-	return err
 }
 
 // emit ends a command run the same way for every command: the warnings
@@ -91,5 +56,18 @@ func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart bool,
 			}
 		}
 	}
-	return finish(ios, set, js, asJSON, func(w io.Writer) { r.WriteText(w) })
+	if set != nil {
+		paths, err := set.Commit()
+		if err != nil {
+			return err
+		}
+		for _, p := range paths {
+			fmt.Fprintf(ios.ErrOut, "wrote %s\n", p)
+		}
+	}
+	if asJSON {
+		_, err := ios.Out.Write(js)
+		return err
+	}
+	return r.WriteText(ios.Out)
 }

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"forelay/scenario/bounds"
+	"forelay/scenario/report"
 	"io"
 	"runtime/debug"
 	"time"
@@ -138,16 +139,9 @@ func newCmdVersion(f *Factory) *cobra.Command {
 		Short: "Print the forelay version",
 		Args:  cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
-			if asJSON {
-				b, err := marshalLine(map[string]string{"version": version})
-				if err != nil {
-					return err
-				}
-				_, err = f.IO.Out.Write(b)
-				return err
-			}
-			_, err := fmt.Fprintf(f.IO.Out, "forelay %s\n", version)
-			return err
+			rep := &report.Report{Name: "version", Compact: true, Doc: map[string]string{"version": version}}
+			fmt.Fprintf(&rep.Text, "forelay %s\n", version)
+			return emit(f.IO, f.Shared, "", asJSON, true, rep)
 		},
 	}
 	cmd.Flags().BoolVar(&asJSON, "json", false, "print the version as JSON")

@@ -17,7 +17,7 @@ func Check(path string, f *scenario.File, ser forecast.Series, warnings []string
 			past++
 		}
 	}
-	r := &Report{Name: "check", Warnings: warnings, Doc: map[string]any{"file": path, "ok": true, "plan": f.Plan, "series": ser.Name,
+	r := &Report{Name: "check", Warnings: warnings, Compact: true, Doc: map[string]any{"file": path, "ok": true, "plan": f.Plan, "series": ser.Name,
 		"period": ser.Freq().String(), "n": ser.Len(), "events": len(f.Events), "past_events": past,
 		"scenarios": len(f.Cases()), "horizon": f.Horizon, "warnings": List(warnings)}}
 	fmt.Fprintf(&r.Text, "%s: ok: plan %s, series %s (%d %s periods, %s to %s), %d event(s) of which %d past, %d scenario(s), horizon %d\n",

@@ -34,6 +34,8 @@ type Report struct {
 	// Warnings are legal but doubtful input: one sentence each, with the
 	// fix.
 	Warnings []string
+	// Compact writes the JSON document on one line.
+	Compact bool
 }
 
 // A Chart is a chart to draw and the base name of its files.
@@ -57,8 +59,13 @@ func (r *Report) WriteText(w io.Writer) error {
 	return err
 }
 
-// JSON returns the JSON document, indented, with a final newline.
+// JSON returns the JSON document, indented (on one line when Compact),
+// with a final newline.
 func (r *Report) JSON() ([]byte, error) {
+	if r.Compact {
+		b, err := json.Marshal(r.Doc)
+		return append(b, '\n'), err
+	}
 	b, err := json.MarshalIndent(r.Doc, "", "  ")
 	if err != nil {
 		return nil, err
