@@ -9,6 +9,6 @@
 // person as blocks (lines and tables), the JSON document, the CSV table,
 // the charts and the warnings; WriteText, JSON and CSVBytes are its
 // writers, and a new output format (HTML, XLSX) is one more writer of
-// Report. The builders of most commands' reports still live in
-// cmd/forelay.
+// Report. ForPlan, Stress, Buffer, Compare, ForTrack, Fits and Check
+// build the reports of the commands.
 package report
