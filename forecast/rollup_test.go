@@ -1,0 +1,284 @@
+package forecast
+
+import (
+	"errors"
+	"math"
+	"math/rand/v2"
+	"testing"
+
+	"gonum.org/v1/gonum/floats/scalar"
+)
+
+// TestSumVarianceFormula works SumVariance's formula through by hand on
+// aligned errors.
+func TestSumVarianceFormula(t *testing.T) {
+	r2 := math.Sqrt2
+	for _, c := range []struct {
+		name string
+		errs [][]float64
+		v    [][]float64
+		psi  [][]float64
+		want []float64
+	}{
+		// One series gets back its own variance: s² = 1; lead 1:
+		// k = sqrt(2/1), 2·1 = 2; lead 2: k = sqrt(5/(1·1.25)) = 2,
+		// 2²·1 + (2·0.5)²·1 = 5.
+		{"one series", [][]float64{{1, -1}}, [][]float64{{2, 5}}, [][]float64{{1, 0.5}}, []float64{2, 5}},
+		// Identical errors (rho = 1), variance 1 at both lead times, the
+		// first series a random walk (psi 1, 1), the second white noise
+		// (psi 1, 0). Lead 1: k = 1, 1, mean((e + e)²) = 4. Lead 2:
+		// k1 = sqrt(1/2), k2 = 1; j = 0: (1/√2 + 1)² = 1.5 + √2;
+		// j = 1: (1/√2 · 1)² = 0.5; total 2 + √2, less than the 4 of
+		// sqrt(v1 v2) rho summed, because the series carry a surprise
+		// forward differently.
+		{"different carry-over", [][]float64{{1, -1}, {1, -1}}, [][]float64{{1, 1}, {1, 1}}, [][]float64{{1, 1}, {1, 0}}, []float64{4, 2 + r2}},
+		// Errors at right angles (rho = 0): the variances add, 1 + 4.
+		{"uncorrelated", [][]float64{{1, -1, 1, -1}, {1, 1, -1, -1}}, [][]float64{{1}, {4}}, [][]float64{{1}, {1}}, []float64{5}},
+		// A series whose errors are all zero is taken as independent:
+		// 2 + 3.
+		{"zero errors", [][]float64{{1, -1}, {0, 0}}, [][]float64{{2}, {3}}, [][]float64{{1}, {1}}, []float64{5}},
+		// Opposite errors of equal variance cancel: 0.
+		{"opposite", [][]float64{{2, -2}, {-2, 2}}, [][]float64{{3, 6}}, nil, []float64{0, 0}},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			v, psi := c.v, c.psi
+			if psi == nil { // the opposite case: two random walks alike
+				v = [][]float64{c.v[0], c.v[0]}
+				psi = [][]float64{{1, 1}, {1, 1}}
+			}
+			got := sumVariance(c.errs, v, psi)
+			for l := range c.want {
+				if !scalar.EqualWithinAbsOrRel(got[l], c.want[l], 1e-12, 1e-12) {
+					t.Errorf("lead %d: got %v, want %v", l+1, got[l], c.want[l])
+				}
+			}
+		})
+	}
+}
+
+// rollupWalk returns n points of a random walk from 1000 whose steps are
+// the given shocks.
+func rollupWalk(steps []float64) []float64 {
+	y := make([]float64, len(steps))
+	level := 1000.0
+	for i, s := range steps {
+		level += s
+		y[i] = level
+	}
+	return y
+}
+
+// fitRollupNaive fits the naive method to y from start, failing the test on an
+// error.
+func fitRollupNaive(t *testing.T, name string, start Period, y []float64) *Result {
+	t.Helper()
+	r, err := Fit(Series{Name: name, Start: start, Values: y}, Spec{Method: Naive, Config: Config{Season: 1}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r
+}
+
+// rollupNormals returns n standard normal draws from the seeded generator.
+func rollupNormals(rng *rand.Rand, n int) []float64 {
+	out := make([]float64, n)
+	for i := range out {
+		out[i] = rng.NormFloat64()
+	}
+	return out
+}
+
+// TestSumVarianceKnownAnswers checks the sum of fitted series against the
+// cases whose answer is known: identical errors give twice one series'
+// standard deviation, opposite errors zero, independent errors the sum of
+// the variances (sqrt(2) times one series' standard deviation when the
+// variances are equal).
+func TestSumVarianceKnownAnswers(t *testing.T) {
+	const h = 6
+	start, _ := ParsePeriod("2020-01", Monthly)
+	rng := rand.New(rand.NewPCG(7, 11))
+	y := rollupWalk(rollupNormals(rng, 200))
+	neg := make([]float64, len(y))
+	for i, x := range y {
+		neg[i] = -x
+	}
+	a, b, n := fitRollupNaive(t, "a", start, y), fitRollupNaive(t, "b", start, y), fitRollupNaive(t, "minus-a", start, neg)
+	one, _ := a.Variance(h, Widening)
+
+	// Identical errors: sd of the sum = 2 sd, variance 4 v (exact up to
+	// rounding: the scaled errors of the two series are the same numbers).
+	v, c, err := SumVariance([]*Result{a, b}, h, Widening, Calibrated)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if c.Skipped != 0 || len(c.Periods) != len(y)-1 { // naive has no prediction for the first point
+		t.Errorf("common periods %d, skipped %d; want %d, 0", len(c.Periods), c.Skipped, len(y)-1)
+	}
+	for l := range h {
+		if got, want := math.Sqrt(v[l]), 2*math.Sqrt(one[l]); !scalar.EqualWithinRel(got, want, 1e-12) {
+			t.Errorf("identical, lead %d: sd %v, want 2 × %v", l+1, got, math.Sqrt(one[l]))
+		}
+	}
+
+	// A series and its negative: the sum is known exactly, sd 0.
+	v, _, err = SumVariance([]*Result{a, n}, h, Widening, Calibrated)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for l := range h {
+		if !(math.Abs(v[l]) <= 1e-12*one[l]) {
+			t.Errorf("opposite, lead %d: variance %v, want 0", l+1, v[l])
+		}
+	}
+}
+
+// TestSumVarianceIndependent checks two independent random walks of 5,000
+// points. Each series is rescaled to its own variance, so only the sample
+// correlation r of the errors is left to chance: Var(sum) = (v1 + v2) +
+// 2 sqrt(v1 v2) r, and r of independent normal samples has standard error
+// about 1/sqrt(n) (from memory: Var(r) = 1/(n-1) under independence). The
+// tolerance is four standard errors: |Var(sum)/(v1+v2) - 1| <= 4/sqrt(n),
+// and for equal variances |sd(sum)/sd(one) - sqrt(2)| <= sqrt(2)·2/sqrt(n)
+// (sd(sum) = sqrt(2) sd sqrt(1 + r), sqrt(1 + r) ≈ 1 + r/2).
+func TestSumVarianceIndependent(t *testing.T) {
+	if testing.Short() {
+		t.Skip("5,000-point fits")
+	}
+	const n, h = 5000, 4
+	start, _ := ParsePeriod("2000-01-03", Daily)
+	rng := rand.New(rand.NewPCG(3, 5))
+	a := fitRollupNaive(t, "a", start, rollupWalk(rollupNormals(rng, n)))
+	b := fitRollupNaive(t, "b", start, rollupWalk(rollupNormals(rng, n)))
+	v, c, err := SumVariance([]*Result{a, b}, h, Widening, Calibrated)
+	if err != nil {
+		t.Fatal(err)
+	}
+	va, _ := a.Variance(h, Widening)
+	vb, _ := b.Variance(h, Widening)
+	tol := 4 / math.Sqrt(float64(len(c.Periods)))
+	for l := range h {
+		if ratio := v[l] / (va[l] + vb[l]); math.Abs(ratio-1) > tol {
+			t.Errorf("lead %d: Var(sum)/(v1+v2) = %v, want 1 within %v", l+1, ratio, tol)
+		}
+	}
+
+	// Equal variances by construction: the same errors with equal v.
+	vEq := [][]float64{{1, 2, 3, 4}, {1, 2, 3, 4}} // a random walk's v_h = h (unit shocks)
+	psi := [][]float64{{1, 1, 1, 1}, {1, 1, 1, 1}}
+	s := sumVariance(c.Errors, vEq, psi)
+	for l := range h {
+		got := math.Sqrt(s[l]) / math.Sqrt(vEq[0][l])
+		if math.Abs(got-math.Sqrt2) > math.Sqrt2*tol/2 {
+			t.Errorf("lead %d: sd(sum)/sd(one) = %v, want sqrt(2) within %v", l+1, got, math.Sqrt2*tol/2)
+		}
+	}
+}
+
+// TestAlignErrorsUnequalLengths aligns a series with a shorter one that
+// is a stretch of it: the errors on the shared periods are identical, so
+// the sum's sd is the sum of the two sds at every lead time (both are
+// naive forecasts, psi_j = 1), which holds only if the periods line up.
+func TestAlignErrorsUnequalLengths(t *testing.T) {
+	const h = 3
+	start, _ := ParsePeriod("2020-01", Monthly)
+	rng := rand.New(rand.NewPCG(1, 9))
+	y := rollupWalk(rollupNormals(rng, 60)) // 2020-01 .. 2024-12
+	a := fitRollupNaive(t, "long", start, y)
+	b := fitRollupNaive(t, "short", start.Add(12), y[12:48]) // 2021-01 .. 2023-12
+	v, c, err := SumVariance([]*Result{a, b}, h, Widening, Calibrated)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// Errors: long from 2020-02 (59), short from 2021-02 (35); shared
+	// 2021-02 .. 2023-12 = 35, the other 24 of long's are skipped.
+	if len(c.Periods) != 35 || c.Skipped != 24 || c.Periods[0].String() != "2021-02" || c.Periods[34].String() != "2023-12" {
+		t.Fatalf("periods %d (%v .. %v), skipped %d; want 35 (2021-02 .. 2023-12), 24",
+			len(c.Periods), c.Periods[0], c.Periods[len(c.Periods)-1], c.Skipped)
+	}
+	for t0 := range c.Periods {
+		if d := c.Errors[0][t0] - c.Errors[1][t0]; math.Abs(d) > 1e-9 {
+			t.Fatalf("period %v: errors differ by %v", c.Periods[t0], d)
+		}
+	}
+	va, _ := a.Variance(h, Widening)
+	vb, _ := b.Variance(h, Widening)
+	for l := range h {
+		want := math.Sqrt(va[l]) + math.Sqrt(vb[l]) // rho = 1: sds add
+		if got := math.Sqrt(v[l]); !scalar.EqualWithinRel(got, want, 1e-9) {
+			t.Errorf("lead %d: sd %v, want %v", l+1, got, want)
+		}
+	}
+}
+
+// TestAlignErrorsRejects checks the errors for input that cannot be summed.
+func TestAlignErrorsRejects(t *testing.T) {
+	m, _ := ParsePeriod("2020-01", Monthly)
+	q, _ := ParsePeriod("2020-Q1", Quarterly)
+	y := rollupWalk(rollupNormals(rand.New(rand.NewPCG(2, 2)), 12))
+	a := fitRollupNaive(t, "a", m, y)
+	if _, err := AlignErrors(nil); err == nil {
+		t.Error("no series: want an error")
+	}
+	if _, err := AlignErrors([]*Result{a, fitRollupNaive(t, "q", q, y)}); err == nil {
+		t.Error("monthly with quarterly: want an error")
+	}
+	far := fitRollupNaive(t, "later", m.Add(12), y)
+	if _, err := AlignErrors([]*Result{a, far}); !errors.Is(err, ErrFewCommonPeriods) {
+		t.Errorf("no shared period: got %v, want ErrFewCommonPeriods", err)
+	}
+	if _, _, err := SumVariance([]*Result{a}, 0, Widening, Calibrated); err == nil {
+		t.Error("lead time 0: want an error")
+	}
+}
+
+// TestDrawKeepsCorrelation draws whole periods from two series whose
+// shocks have correlation 0.6 and checks that every draw is one period's
+// pair and that the drawn pairs keep the errors' correlation. With N draws
+// the sample correlation has standard error about (1 - rho²)/sqrt(N)
+// (from memory, the large-sample variance of Pearson's r for normal
+// data): 0.64/sqrt(100,000) ≈ 0.002, and the tolerance is 0.01.
+func TestDrawKeepsCorrelation(t *testing.T) {
+	const n, draws, rho = 500, 100_000, 0.6
+	start, _ := ParsePeriod("2020-01", Monthly)
+	rng := rand.New(rand.NewPCG(4, 4))
+	z1, z2 := rollupNormals(rng, n), rollupNormals(rng, n)
+	for i := range z2 {
+		z2[i] = rho*z1[i] + math.Sqrt(1-rho*rho)*z2[i]
+	}
+	c, err := AlignErrors([]*Result{fitRollupNaive(t, "a", start, rollupWalk(z1)), fitRollupNaive(t, "b", start, rollupWalk(z2))})
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := correlation(c.Errors[0], c.Errors[1])
+	xs, ys := make([]float64, draws), make([]float64, draws)
+	dst := make([]float64, 2)
+	pick := rand.New(rand.NewPCG(8, 8))
+	for k := range xs {
+		p := c.Draw(pick, dst)
+		if dst[0] != c.Errors[0][p] || dst[1] != c.Errors[1][p] {
+			t.Fatalf("draw %d: got %v, want period %d's pair", k, dst, p)
+		}
+		xs[k], ys[k] = dst[0], dst[1]
+	}
+	if got := correlation(xs, ys); math.Abs(got-want) > 0.01 {
+		t.Errorf("drawn correlation %v, errors' correlation %v: want within 0.01", got, want)
+	}
+}
+
+// correlation returns Pearson's correlation of x and y.
+func correlation(x, y []float64) float64 {
+	var mx, my float64
+	for i := range x {
+		mx += x[i]
+		my += y[i]
+	}
+	mx /= float64(len(x))
+	my /= float64(len(y))
+	var sxy, sxx, syy float64
+	for i := range x {
+		sxy += (x[i] - mx) * (y[i] - my)
+		sxx += (x[i] - mx) * (x[i] - mx)
+		syy += (y[i] - my) * (y[i] - my)
+	}
+	return sxy / math.Sqrt(sxx*syy)
+}
