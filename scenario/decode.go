@@ -137,7 +137,7 @@ func parse(r io.Reader, path string, l Limits) (*File, error) {
 // them (which is also the order "did you mean" prefers on a tie).
 var (
 	topKeys        = []string{"plan", "history", "horizon", "baseline", "bands", "units", "events", "scenarios", "capacity", "production"}
-	historyKeys    = []string{"file", "series", "period", "fill"}
+	historyKeys    = []string{"file", "series", "key", "levels", "period", "fill"}
 	baselineKeys   = []string{"method", "season", "metric", "select", "alpha", "beta", "gamma", "phi", "window", "weights", "dummies", "damped", "mse_divisor", "refit", "holdout"}
 	bandsKeys      = []string{"z", "coverage", "widen", "from", "floor"}
 	eventKeys      = []string{"id", "kind", "start", "end", "periods", "effect", "ramp", "probability", "range", "payback", "past", "note"}
@@ -698,7 +698,13 @@ func (d *decoder) history(m *mapping, f *File) {
 	if m.str("file", &h.File) {
 		h.File = resolvePath(f.Dir, h.File)
 	}
-	m.str("series", &h.Series)
+	d.seriesSelection(m, h)
+	h.Key = d.names(m, "key", "a column name", true)
+	h.Levels = d.names(m, "levels", "a level name", false)
+	if h.Key != nil && h.Levels != nil && len(h.Key) != len(h.Levels) {
+		d.fail(d.at(m.field("levels"), h.Pos), m.field("levels"), ErrValue,
+			"names %s, but the key has %s; give one level per key column", count(len(h.Levels), "level"), count(len(h.Key), "column"))
+	}
 	if n := m.scalar("period", "a period name"); n != nil {
 		fr, err := forecast.ParseFrequency(n.Value)
 		if err != nil || fr == forecast.FreqUnknown {

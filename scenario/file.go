@@ -76,8 +76,23 @@ type HistoryRef struct {
 	// File is the history CSV, resolved against the scenario file's
 	// directory when relative.
 	File string
-	// Series names the series to use; empty means the file's only series.
+	// Series names the series to use when history.series is one name
+	// without a wildcard; empty means the file's only series (when Select
+	// is nil too).
 	Series string
+	// Select holds the entries of history.series when it is a list, or one
+	// text with a "*": series names and patterns (see package
+	// scenario/series), each with its position. The series selected are
+	// those any entry matches; each entry must match at least one.
+	Select []Selector
+	// Key names the columns of a long history whose values, joined by
+	// "/", name each series (data.ReadOptions.Key); nil reads the series
+	// column.
+	Key []string
+	// Levels names the levels of the series names, widest first; nil
+	// means level1, level2, and so on. When given, every selected name
+	// has as many levels.
+	Levels []string
 	// Period is the history's frequency; FreqUnknown means "infer it from
 	// the labels" (File.Resolve then sets it to the inferred one).
 	Period forecast.Frequency
@@ -86,6 +101,13 @@ type HistoryRef struct {
 	Fill data.FillMode
 	// Pos is where the history key stands.
 	Pos Pos
+}
+
+// A Selector is one entry of history.series: a series name or a pattern,
+// and where it stands.
+type Selector struct {
+	Pattern string
+	Pos     Pos
 }
 
 // Baseline holds the settings of the baseline fit, the options of the fit

@@ -27,6 +27,24 @@
 //
 // Any other header is an error naming the header line.
 //
+// # Composite keys
+//
+// A series name may be a path of levels separated by "/", such as
+// milk/whole-1l/grocer-north. A series column may hold such names as
+// they are. Or ReadOptions.Key names the columns that make the name, from
+// the widest level to the narrowest (family, product, customer, say): the
+// header must then have the columns period and value and every key column
+// (compared like the other header cells; a series column is then just
+// another column), and each row's series is named by its key cells,
+// trimmed, joined by "/":
+//
+//	family,product,customer,period,value
+//	milk,whole-1l,grocer-north,2026-01,120
+//
+// A key cell that is empty, or holds a "/", is an error at that cell. A
+// key naming a column twice, or the period or value column, is an error at
+// the header; so is a wide file read with a key.
+//
 // # Periods
 //
 // A period label is one of
@@ -74,7 +92,7 @@
 // its column (empty for errors in the header), and Err wrapping one of the
 // sentinels ErrMissingColumn, ErrDuplicateColumn, ErrBadPeriod, ErrBadNumber
 // (with ErrNotDecimal or ErrNotFinite), ErrEmptyCell, ErrDuplicatePeriod,
-// ErrUnsorted, ErrGap or ErrNoSeries, or, for a row
+// ErrUnsorted, ErrGap, ErrNoSeries or ErrBadKey, or, for a row
 // that is not valid CSV or has the wrong number of cells, the error of
 // encoding/csv (such as csv.ErrQuote or csv.ErrFieldCount). When a file
 // has several problems, the first one met is reported; the order and gap
@@ -115,6 +133,9 @@ type ReadOptions struct {
 	// Fill says what to do with gaps. FillNone (the zero value) makes them
 	// errors.
 	Fill FillMode
+	// Key names the columns whose values, joined by "/", name the series
+	// of a long file (see "Composite keys"); nil reads the series column.
+	Key []string
 }
 
 // A History is the content of one history file.
@@ -189,6 +210,7 @@ type row struct {
 	period forecast.Period
 	label  cell
 	series cell
+	keys   []cell // the key cells, with ReadOptions.Key
 	values []cell
 	nums   []float64 // parsed values, NaN when missing
 }
@@ -210,6 +232,9 @@ type historyReader struct {
 	header []cell
 	// indices of the key columns of the long layout
 	seriesCol, periodCol, valueCol int
+	// indices of the columns of ReadOptions.Key, and their header cells
+	keyCols   []int
+	keyFields []string
 	// field names of the period and value columns, for ParseError.Field
 	periodField, valueField, seriesField string
 	rows                                 []*row
@@ -284,6 +309,13 @@ func (hr *historyReader) readRows(r io.Reader) error {
 		}
 		if hr.long {
 			rw := &row{label: cells[hr.periodCol], series: cells[hr.seriesCol], values: []cell{cells[hr.valueCol]}}
+			if hr.keyCols != nil {
+				rw.keys = make([]cell, len(hr.keyCols))
+				for i, k := range hr.keyCols {
+					rw.keys[i] = cells[k]
+				}
+				rw.series = joinKeys(rw.keys)
+			}
 			if err := hr.parseRow(rw); err != nil {
 				return err
 			}
@@ -329,6 +361,9 @@ func (hr *historyReader) readHeader(cells []cell) error {
 	_, hasSeries := first["series"]
 	_, hasValue := first["value"]
 	_, hasPeriod := first["period"]
+	if hr.opt.Key != nil {
+		return hr.readKeyHeader(cells, first)
+	}
 	switch {
 	case hasSeries && hasPeriod && hasValue:
 		hr.long = true
@@ -393,7 +428,11 @@ func (hr *historyReader) parseRow(rw *row) error {
 		run func() error
 	}
 	checks := []check{{rw.label, func() error { return hr.parseLabel(rw) }}}
-	if hr.long {
+	if hr.keyCols != nil {
+		for i, c := range rw.keys {
+			checks = append(checks, check{c, func() error { return hr.checkKeyCell(c, i) }})
+		}
+	} else if hr.long {
 		checks = append(checks, check{rw.series, func() error {
 			if rw.series.text == "" {
 				return hr.errAt(rw.series, hr.seriesField, fmt.Errorf("%w: no series name", ErrEmptyCell))

@@ -10,26 +10,61 @@ import (
 )
 
 // Inputs are what a plan is built from besides its scenario file: the
-// history the file names, read, and the digests of the scenario and
-// history files (keyed "scenario" and "history").
+// history the file names, read, the series it selects, and the digests of
+// the scenario and history files (keyed "scenario" and "history").
 type Inputs struct {
 	History *data.History
-	Series  forecast.Series
+	// Series is the series planned: the only one selected. It is the zero
+	// Series when ReadSelection selects several.
+	Series forecast.Series
+	// Selected names the series history.series selects, in file order
+	// (the one of Series when it names one series or none).
+	Selected []string
+	// Levels names the levels of the selected names: history.levels, or
+	// level1, level2, ... up to the deepest selected name.
+	Levels  []string
 	Digests map[string]string
 }
 
 // Read reads the inputs of f, under f's limits, and makes the checks of f
 // that need the history (File.Resolve). Errors name the history file and
-// line, or the scenario file's history key.
+// line, or the scenario file's history key. It is ReadSelection, then an
+// error at history.series when it selects more than one series, since a
+// plan is of one series still.
 func Read(f *scenario.File) (*Inputs, error) {
-	h, ser, err := readHistory(f)
+	in, err := ReadSelection(f)
 	if err != nil {
 		return nil, err
 	}
-	if err := f.Resolve(ser.Next()); err != nil {
+	if err := in.one(f); err != nil {
 		return nil, err
 	}
-	in := &Inputs{History: h, Series: ser, Digests: map[string]string{}}
+	return in, nil
+}
+
+// ReadSelection reads the inputs of f like Read, but lets history.series
+// select several series: Inputs.Selected names them all, and Series is set
+// only when there is one. File.Resolve is checked against the first one
+// selected (all series of a file share their frequency).
+func ReadSelection(f *scenario.File) (*Inputs, error) {
+	h, err := readHistory(f)
+	if err != nil {
+		return nil, err
+	}
+	in := &Inputs{History: h, Digests: map[string]string{}}
+	if in.Selected, err = selectSeries(f, h); err != nil {
+		return nil, err
+	}
+	if in.Levels, err = levels(f, in.Selected); err != nil {
+		return nil, err
+	}
+	first, _ := h.Lookup(in.Selected[0])
+	if len(in.Selected) == 1 {
+		in.Series = first
+	}
+	if err := f.Resolve(first.Next()); err != nil {
+		return nil, err
+	}
 	for _, file := range InputFiles(f) {
 		if d, err := data.Digest(file.Path); err == nil {
 			in.Digests[file.Role] = d
@@ -81,37 +116,21 @@ func Load(f *scenario.File) (*Plan, error) {
 	return Build(f, in)
 }
 
-// readHistory reads the series the file's history block names.
-func readHistory(f *scenario.File) (*data.History, forecast.Series, error) {
+// readHistory reads the history file f names, under f's limits.
+func readHistory(f *scenario.File) (*data.History, error) {
 	fh, err := os.Open(f.History.File)
 	if err != nil {
-		return nil, forecast.Series{}, f.ErrorAt(f.History.Pos, "history.file", err)
+		return nil, f.ErrorAt(f.History.Pos, "history.file", err)
 	}
 	defer fh.Close()
 	limits := f.EffectiveLimits()
 	h, err := data.ReadHistory(data.BoundedReader(fh, f.History.File, limits.Input), f.History.File,
-		data.ReadOptions{Freq: f.History.Period, Fill: f.History.Fill})
+		data.ReadOptions{Freq: f.History.Period, Fill: f.History.Fill, Key: f.History.Key})
 	if err != nil {
-		return nil, forecast.Series{}, err
+		return nil, err
 	}
 	if err := h.CheckNameLength(limits.NameLength); err != nil {
-		return nil, forecast.Series{}, err
+		return nil, err
 	}
-	name := f.History.Series
-	if name == "" {
-		if len(h.Series) != 1 {
-			names := make([]string, len(h.Series))
-			for i, s := range h.Series {
-				names[i] = s.Name
-			}
-			return nil, forecast.Series{}, f.ErrorAt(f.History.Pos, "history.series",
-				fmt.Errorf("%s holds %d series (%v); name one", f.History.File, len(h.Series), names))
-		}
-		return h, h.Series[0], nil
-	}
-	s, err := h.Lookup(name)
-	if err != nil {
-		return nil, forecast.Series{}, f.ErrorAt(f.History.Pos, "history.series", err)
-	}
-	return h, s, nil
+	return h, nil
 }

@@ -185,7 +185,12 @@ func Peak(v []float64) (int, float64) {
 // (*data.ParseError, *forecast.TooShortError) for data the plan cannot be
 // built from. Input that is legal but almost certainly not meant gives
 // Plan.Warnings (File.Lint's, the fit's, then the floor's).
+// Inputs selecting several series (Inputs.Selected) are an error at
+// history.series: plans of several series are not built yet.
 func Build(f *scenario.File, in *Inputs) (*Plan, error) {
+	if err := in.one(f); err != nil {
+		return nil, err
+	}
 	p, spec := newPlan(f, in)
 	if err := p.clean(spec); err != nil {
 		return nil, err
