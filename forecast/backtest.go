@@ -107,10 +107,18 @@ func RunBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit boo
 func scoreForecasts(bt *Backtest, y []float64, maxH, season int, div Divisor) {
 	bt.HorizonMSE, bt.HorizonCount = make([]float64, maxH), make([]int, maxH)
 	bt.Errors = make([][]float64, len(bt.Forecasts))
-	var act, pred, oneStep []float64
+	total := 0
+	for _, f := range bt.Forecasts {
+		total += len(f)
+	}
+	// One backing array for the error rows and one for each list.
+	all := make([]float64, total)
+	act, pred := make([]float64, 0, total), make([]float64, 0, total)
+	oneStep := make([]float64, 0, len(bt.Forecasts))
 	for i, f := range bt.Forecasts {
 		o := bt.Train + i
-		errs := make([]float64, len(f))
+		errs := all[:len(f):len(f)]
+		all = all[len(f):]
 		for k := range f {
 			e := y[o+k] - f[k]
 			errs[k] = e
