@@ -60,7 +60,8 @@ func DefaultHoldout(n int) int {
 // RunBacktest evaluates method m with cfg on y over the last holdout
 // origins, scoring forecasts up to maxH periods ahead. With refit the model
 // is fitted again at every origin; otherwise it is fitted once on the first
-// training window and its states are rolled forward with Model.Extend.
+// training window and its states are rolled forward: one observation at a
+// time where the model can (see roller), with Model.Extend otherwise.
 // It returns a *TooShortError when the training window is shorter than the
 // method needs.
 func RunBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit bool, div Divisor) (*Backtest, error) {
@@ -77,13 +78,20 @@ func RunBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit boo
 		return nil, err
 	}
 	bt := &Backtest{Train: train, Origins: holdout, Model: base}
+	var roll roller
+	if r, ok := base.(rollable); ok && !refit {
+		roll = r.roller(y[:train])
+	}
 	for o := train; o < n; o++ {
-		model := base
+		var model interface{ Forecast(h int) []float64 } = base
 		switch {
 		case refit && o > train:
 			if model, err = FitMethod(y[:o], m, cfg); err != nil {
 				return nil, err
 			}
+		case o > train && roll != nil:
+			roll.rollOn(y[:o]) // as Extend(y[:o]) would, one step on
+			model = roll
 		case o > train:
 			model = base.Extend(y[:o])
 		}
@@ -99,10 +107,18 @@ func RunBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit boo
 func scoreForecasts(bt *Backtest, y []float64, maxH, season int, div Divisor) {
 	bt.HorizonMSE, bt.HorizonCount = make([]float64, maxH), make([]int, maxH)
 	bt.Errors = make([][]float64, len(bt.Forecasts))
-	var act, pred, oneStep []float64
+	total := 0
+	for _, f := range bt.Forecasts {
+		total += len(f)
+	}
+	// One backing array for the error rows and one for each list.
+	all := make([]float64, total)
+	act, pred := make([]float64, 0, total), make([]float64, 0, total)
+	oneStep := make([]float64, 0, len(bt.Forecasts))
 	for i, f := range bt.Forecasts {
 		o := bt.Train + i
-		errs := make([]float64, len(f))
+		errs := all[:len(f):len(f)]
+		all = all[len(f):]
 		for k := range f {
 			e := y[o+k] - f[k]
 			errs[k] = e

@@ -59,8 +59,23 @@ func (f *etsFitter) gridValues() (vals [4][]float64) {
 // season S(θ) is exact and cheap (one linear pass, one solve). For a
 // multiplicative season the points are ranked on the additive season
 // model of the same data, whose smoothing parameters behave much alike,
-// and the best few are then evaluated properly (see fit).
+// and the best few are then evaluated properly (see fit). The additive and
+// multiplicative fits of the same data share one evaluation (etsGrids).
 func (f *etsFitter) grid() []gridPoint {
+	if f.sh.season == 0 {
+		return f.evalGrid()
+	}
+	key := etsGridKeyOf(f)
+	if pts := etsGrids.get(key, f.y); pts != nil {
+		return pts
+	}
+	pts := f.evalGrid()
+	etsGrids.put(key, f.y, pts)
+	return pts
+}
+
+// evalGrid evaluates the grid that grid returns.
+func (f *etsFitter) evalGrid() []gridPoint {
 	lin := f
 	if f.mult {
 		sh := f.sh

@@ -59,7 +59,7 @@ var ErrCollinear = errors.New("the events cannot be told apart in the history")
 // exactly ordinary least squares with the event dummies as regressors.
 //
 // Auto selection runs in the first round only; later rounds keep its
-// choice. An intervention whose shape is zero at every observation is an
+// choice, and refit only the model (no backtest) until the last round. An intervention whose shape is zero at every observation is an
 // error, and so are interventions that cannot be told apart (ErrCollinear).
 func FitInterventions(s Series, spec Spec, ivs []Intervention, maxIter int) (*InterventionFit, error) {
 	n, k := s.Len(), len(ivs)
@@ -107,6 +107,21 @@ func FitInterventions(s Series, spec Spec, ivs []Intervention, maxIter int) (*In
 	}
 	res := first
 	out.Iterations = 1
+	// refit fits the kept method to the cleaned series: in full (with its
+	// backtest) in the last round, and only the model in the rounds
+	// before, whose results serve the next Gauss-Newton step alone (it
+	// reads the model, never the backtest). A combination goes through
+	// Fit every round, as its members' backtests weigh them.
+	refit := func(last bool) (*Result, error) {
+		if last || spec.Method == Combination {
+			return fit()
+		}
+		model, err := FitMethod(append([]float64(nil), cleaned...), spec.Method, spec.Config)
+		if err != nil {
+			return nil, nameSeries(err, s.Name)
+		}
+		return &Result{Series: s, Method: spec.Method, Config: spec.Config, Model: model}, nil
+	}
 	for it := 1; it < maxIter && k > 0; it++ {
 		step, se, err := gaussNewtonStep(heldPredictor(res, spec), cleaned, ivs, res.Model.NumParams())
 		if err != nil {
@@ -119,11 +134,12 @@ func FitInterventions(s Series, spec Spec, ivs []Intervention, maxIter int) (*In
 			moved = math.Max(moved, math.Abs(step[j])/math.Max(se[j], 1e-12))
 		}
 		clean()
-		if res, err = fit(); err != nil {
+		last := moved < 1e-3 || it == maxIter-1
+		if res, err = refit(last); err != nil {
 			return nil, err
 		}
 		out.Iterations = it + 1
-		if moved < 1e-3 {
+		if last {
 			break
 		}
 	}

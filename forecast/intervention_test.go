@@ -99,3 +99,25 @@ func TestInterventionRecovery(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkFitInterventions cleans two events out of a monthly series of
+// 120 points under method auto.
+func BenchmarkFitInterventions(b *testing.B) {
+	s := benchPortfolio(1, 120)[0]
+	pulse, step := make([]float64, 120), make([]float64, 120)
+	for t := 60; t < 63; t++ {
+		pulse[t] = 1
+		s.Values[t] += 400
+	}
+	for t := 90; t < 120; t++ {
+		step[t] = 1
+		s.Values[t] += 250
+	}
+	ivs := []Intervention{{Name: "promotion", Shape: pulse}, {Name: "listing", Shape: step}}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := FitInterventions(s, Spec{}, ivs, 0); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

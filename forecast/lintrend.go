@@ -23,7 +23,6 @@ type linearTrendModel struct {
 	coef   []float64 // b_0, b_1, d_2..d_m
 	r      *mat.Dense
 	n      int
-	fitted []float64
 }
 
 // linearTrendNumCoef returns the number of regression coefficients p: 2,
@@ -61,7 +60,7 @@ func fitLinearTrend(y []float64, cfg Config) (Model, error) {
 	p := m.season + 1
 	x := mat.NewDense(m.n, p, nil)
 	for i := 0; i < m.n; i++ {
-		x.SetRow(i, m.row(i))
+		m.rowTo(x.RawRowView(i), i)
 	}
 	var qr mat.QR
 	qr.Factorize(x)
@@ -89,36 +88,50 @@ func fitLinearTrend(y []float64, cfg Config) (Model, error) {
 	for i := range m.coef {
 		m.coef[i] = b.AtVec(i)
 	}
-	m.fitted = m.line(0, m.n)
 	return m, nil
 }
 
-// row returns the regressors of observation i (0-based; t = i+1).
-func (m *linearTrendModel) row(i int) []float64 {
-	x := make([]float64, m.season+1)
+// rowTo writes the regressors of observation i (0-based; t = i+1) into
+// x, which holds season+1 values.
+func (m *linearTrendModel) rowTo(x []float64, i int) {
+	clear(x)
 	x[0] = 1
 	x[1] = float64(i + 1)
 	if s := i % m.season; s > 0 {
 		x[s+1] = 1
 	}
-	return x
 }
 
 // line returns the regression values for observations from..to-1
-// (0-based; past n-1 they are forecasts).
+// (0-based; past n-1 they are forecasts). Each is the sum of coef[j]
+// times regressor j in the order of j, zeros included, as a dot product
+// with the row of rowTo would add them, without building the row.
 func (m *linearTrendModel) line(from, to int) []float64 {
 	v := make([]float64, to-from)
 	for i := range v {
-		for j, xj := range m.row(from + i) {
-			v[i] += m.coef[j] * xj
+		t := from + i
+		dummy := t%m.season + 1 // the regressor set to 1 (1: none, being the slope's)
+		var s float64
+		for j, c := range m.coef {
+			switch {
+			case j == 0:
+				s += c
+			case j == 1:
+				s += c * float64(t+1)
+			case j == dummy:
+				s += c
+			default:
+				s += c * 0
+			}
 		}
+		v[i] = s
 	}
 	return v
 }
 
 func (m *linearTrendModel) Method() Method    { return LinearTrend }
 func (m *linearTrendModel) Params() Params    { return simpleNoParams() }
-func (m *linearTrendModel) Fitted() []float64 { return append([]float64(nil), m.fitted...) }
+func (m *linearTrendModel) Fitted() []float64 { return m.line(0, m.n) }
 
 // NumParams is the number of regression coefficients: 2, or m+1 with
 // seasonal dummies.
@@ -164,8 +177,9 @@ func (m *linearTrendModel) VarianceFactors(h int) ([]float64, bool) {
 	p := len(m.coef)
 	c := make([]float64, h)
 	z := make([]float64, p)
+	x := make([]float64, p)
 	for k := range c {
-		x := m.row(m.n + k)
+		m.rowTo(x, m.n+k)
 		// Forward substitution for R' z = x (R upper triangular).
 		ss := 0.0
 		for i := 0; i < p; i++ {

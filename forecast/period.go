@@ -3,8 +3,6 @@ package forecast
 import (
 	"errors"
 	"fmt"
-	"regexp"
-	"strconv"
 	"time"
 )
 
@@ -132,32 +130,23 @@ func (p Period) MarshalText() ([]byte, error) { return []byte(p.String()), nil }
 // ErrBadPeriod is returned (wrapped) for a period label that cannot be read.
 var ErrBadPeriod = errors.New("bad period")
 
-var (
-	reYear    = regexp.MustCompile(`^(\d{4})$`)
-	reQuarter = regexp.MustCompile(`^(\d{4})-?[Qq]([1-4])$`)
-	reMonth   = regexp.MustCompile(`^(\d{4})-(\d{1,2})$`)
-	reWeek    = regexp.MustCompile(`^(\d{4})-?W(\d{1,2})$`)
-	reDay     = regexp.MustCompile(`^(\d{4})-(\d{2})-(\d{2})$`)
-)
-
 // LabelFrequency returns the frequency a label's form suggests: Yearly for
 // 2026, Quarterly for 2026-Q1, Monthly for 2026-03, Weekly for 2026-W11 and
 // Daily for 2026-03-15 (a date may also label a week; only the spacing of the
 // dates in a file tells).
 func LabelFrequency(label string) (Frequency, error) {
-	switch {
-	case reYear.MatchString(label):
-		return Yearly, nil
-	case reQuarter.MatchString(label):
-		return Quarterly, nil
-	case reMonth.MatchString(label):
-		return Monthly, nil
-	case reWeek.MatchString(label):
-		return Weekly, nil
-	case reDay.MatchString(label):
-		return Daily, nil
+	l, err := readLabel(label)
+	return l.freq, err
+}
+
+// readLabel takes a label apart (scanLabel) or returns the error of
+// LabelFrequency.
+func readLabel(label string) (periodLabel, error) {
+	l, ok := scanLabel(label)
+	if !ok {
+		return periodLabel{}, fmt.Errorf("%w %q (want 2026, 2026-Q1, 2026-03, 2026-W11 or 2026-03-15)", ErrBadPeriod, label)
 	}
-	return FreqUnknown, fmt.Errorf("%w %q (want 2026, 2026-Q1, 2026-03, 2026-W11 or 2026-03-15)", ErrBadPeriod, label)
+	return l, nil
 }
 
 // ParsePeriod reads a period label in frequency f. With f == FreqUnknown the
@@ -165,21 +154,21 @@ func LabelFrequency(label string) (Frequency, error) {
 // is accepted for any frequency and gives the period that contains that day,
 // except that a date read as Weekly starts the week on that very day.
 func ParsePeriod(label string, f Frequency) (Period, error) {
-	lf, err := LabelFrequency(label)
+	l, err := readLabel(label)
 	if err != nil {
 		return Period{}, err
 	}
+	lf := l.freq
 	if f == FreqUnknown {
 		f = lf
 	}
 	bad := func() (Period, error) {
 		return Period{}, fmt.Errorf("%w %q for %s data", ErrBadPeriod, label, f)
 	}
-	atoi := func(s string) int { n, _ := strconv.Atoi(s); return n }
 	switch lf {
 	case Daily:
-		t, err := time.Parse("2006-01-02", label)
-		if err != nil {
+		t, ok := dateOf(l)
+		if !ok {
 			return Period{}, fmt.Errorf("%w %q: no such date", ErrBadPeriod, label)
 		}
 		if f == Weekly {
@@ -190,8 +179,7 @@ func ParsePeriod(label string, f Frequency) (Period, error) {
 		if f != Weekly {
 			return bad()
 		}
-		m := reWeek.FindStringSubmatch(label)
-		y, w := atoi(m[1]), atoi(m[2])
+		y, w := l.year, l.num
 		// ISO week 1 is the week holding 4 January.
 		jan4 := time.Date(y, 1, 4, 0, 0, 0, 0, time.UTC)
 		p := PeriodOf(Weekly, jan4).Add(w - 1)
@@ -200,28 +188,43 @@ func ParsePeriod(label string, f Frequency) (Period, error) {
 		}
 		return p, nil
 	case Monthly:
-		m := reMonth.FindStringSubmatch(label)
-		y, mo := atoi(m[1]), atoi(m[2])
+		y, mo := l.year, l.num
 		if mo < 1 || mo > 12 {
 			return Period{}, fmt.Errorf("%w %q: month %d", ErrBadPeriod, label, mo)
 		}
 		if f == Daily || f == Weekly {
 			return bad()
 		}
+		if f == Monthly {
+			return Period{Freq: Monthly, n: y*12 + mo - 1}, nil // as PeriodOf gives it
+		}
 		return PeriodOf(f, time.Date(y, time.Month(mo), 1, 0, 0, 0, 0, time.UTC)), nil
 	case Quarterly:
 		if f != Quarterly && f != Yearly {
 			return bad()
 		}
-		m := reQuarter.FindStringSubmatch(label)
-		q := atoi(m[2])
-		return PeriodOf(f, time.Date(atoi(m[1]), time.Month(3*q-2), 1, 0, 0, 0, 0, time.UTC)), nil
+		return PeriodOf(f, time.Date(l.year, time.Month(3*l.num-2), 1, 0, 0, 0, 0, time.UTC)), nil
 	default: // Yearly
 		if f != Yearly {
 			return bad()
 		}
-		return Period{Freq: Yearly, n: atoi(label)}, nil
+		return Period{Freq: Yearly, n: l.year}, nil
 	}
+}
+
+// dateOf returns the day of a date label, and ok = false if the month or
+// the day does not exist (as time.Parse with the layout 2006-01-02 would
+// refuse it: months 1 to 12, days 1 to the month's length in the
+// proleptic Gregorian calendar).
+func dateOf(l periodLabel) (time.Time, bool) {
+	if l.num < 1 || l.num > 12 || l.day < 1 {
+		return time.Time{}, false
+	}
+	// Day 0 of the next month is the last day of this one.
+	if l.day > time.Date(l.year, time.Month(l.num)+1, 0, 0, 0, 0, 0, time.UTC).Day() {
+		return time.Time{}, false
+	}
+	return time.Date(l.year, time.Month(l.num), l.day, 0, 0, 0, 0, time.UTC), true
 }
 
 // FloorDiv returns floor(a / b), rounding toward minus infinity where Go's

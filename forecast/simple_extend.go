@@ -24,11 +24,11 @@ func (m *movingAverageModel) Extend(y []float64) Model {
 }
 
 // Extend returns the regression line, coefficients held, over len(y)
-// periods; the values of y do not enter (see Filter).
+// periods; the values of y do not enter (see Filter), and Fitted computes
+// the line when asked.
 func (m *linearTrendModel) Extend(y []float64) Model {
 	c := *m
 	c.n = len(y)
-	c.fitted = c.Filter(y)
 	return &c
 }
 
