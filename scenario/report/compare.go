@@ -133,8 +133,7 @@ func contributionOf(c supply.Comparison, id string, format func(float64, int) st
 func writeCompareText(w *Text, r *supply.CompareRun, notes []string) {
 	p := r.Plan
 	f := p.File
-	fmt.Fprintf(w, "Scenarios of plan %s: series %s, %d %s periods %s to %s%s\n", f.Plan, p.History.Name, len(p.Periods),
-		p.History.Freq(), p.Periods[0], p.Periods[len(p.Periods)-1], InUnits(f.Units))
+	fmt.Fprintf(w, "Scenarios of plan %s: %s\n", f.Plan, planSpan(p))
 	fmt.Fprintf(w, "Monte Carlo: %s\n", SimText(r.Sim))
 	if f.Capacity != nil {
 		fmt.Fprintf(w, "Capacity: %s; pre-build sized at the %s quantile of demand (%s)\n", CapacityText(p), PctText(r.Service), serviceDefinition)

@@ -209,3 +209,10 @@ func StockLabel(units string) string {
 func G3(v float64) string { return strconv.FormatFloat(v, 'g', 3, 64) }
 
 func F4(v float64) string { return strconv.FormatFloat(v, 'f', 4, 64) }
+
+// planSpan describes what a plan covers, for the first line of a report:
+// "series bottled-l, 18 month periods 2026-11 to 2028-04 (litres)".
+func planSpan(p *plan.Plan) string {
+	return fmt.Sprintf("series %s, %d %s periods %s to %s%s", p.History.Name, len(p.Periods), p.History.Freq(),
+		p.Periods[0], p.Periods[len(p.Periods)-1], InUnits(p.File.Units))
+}

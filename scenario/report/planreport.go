@@ -30,8 +30,7 @@ func ForPlan(p *plan.Plan, detail bool, event *scenario.Event) *Report {
 func planText(w *Text, p *plan.Plan, detail bool) {
 	f := p.File
 	d := forecast.Decimals(p.Baseline)
-	last := p.Periods[len(p.Periods)-1]
-	fmt.Fprintf(w, "Plan %s: series %s, %d %s periods %s to %s%s\n", f.Plan, p.History.Name, len(p.Periods), p.History.Freq(), p.Periods[0], last, InUnits(f.Units))
+	fmt.Fprintf(w, "Plan %s: %s\n", f.Plan, planSpan(p))
 	r := p.Fit
 	fmt.Fprintf(w, "Baseline %s (%s)", r.Method, choiceText(r))
 	if pt := ParamText(r.Model.Params()); pt != "" {

@@ -122,8 +122,7 @@ func stressCSV(r *supply.StressRun) *Table {
 func writeStressText(w *Text, r *supply.StressRun, notes []string) {
 	p := r.Plan
 	f := p.File
-	fmt.Fprintf(w, "Stress test %s: series %s, %d %s periods %s to %s%s\n", f.Plan, p.History.Name, len(p.Periods),
-		p.History.Freq(), p.Periods[0], p.Periods[len(p.Periods)-1], InUnits(f.Units))
+	fmt.Fprintf(w, "Stress test %s: %s\n", f.Plan, planSpan(p))
 	fmt.Fprintf(w, "Monte Carlo: %s; quantiles by Hyndman-Fan type 7\n", SimText(r.Sim))
 	if f.Capacity != nil {
 		fmt.Fprintf(w, "Capacity: %s; breach threshold %s\n", CapacityText(p), PctText(r.Settings.Breach))

@@ -2,8 +2,8 @@ package report
 
 import (
 	"encoding/json"
-	"forelay/scenario"
 	"forelay/scenario/internal/plantest"
+	"forelay/scenario/internal/testplan"
 	"forelay/scenario/plan"
 	"forelay/scenario/sim"
 	"testing"
@@ -16,11 +16,7 @@ import (
 // other files, and builds the plan.
 func supplyPlan(t *testing.T, body string, files map[string]string) *plan.Plan {
 	t.Helper()
-	f, err := scenario.Load(plantest.Write(t, body, plantest.History(48), files))
-	if err != nil {
-		t.Fatal(err)
-	}
-	p, err := plan.Load(f)
+	p, err := testplan.BuildWithFiles(t, body, plantest.History(48), files)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -2,7 +2,7 @@ package sim
 
 import (
 	"fmt"
-	"forelay/scenario"
+	"forelay/scenario/internal/testplan"
 	"forelay/scenario/plan"
 	"testing"
 
@@ -12,19 +12,10 @@ import (
 // testHistory is plantest.History.
 func testHistory(n int) []float64 { return plantest.History(n) }
 
-// buildTestPlan writes the history and the scenario file body (without
-// its history key) and builds the plan.
+// buildTestPlan is testplan.Build.
 func buildTestPlan(tb testing.TB, body string, hist []float64) *plan.Plan {
 	tb.Helper()
-	f, err := scenario.Load(plantest.Write(tb, body, hist, nil))
-	if err != nil {
-		tb.Fatal(err)
-	}
-	p, err := plan.Load(f)
-	if err != nil {
-		tb.Fatal(err)
-	}
-	return p
+	return testplan.Build(tb, body, hist)
 }
 
 // sprintf is fmt.Sprintf, short for the test tables.
