@@ -413,10 +413,13 @@ func (d *decoder) checkCapacity(c *Capacity, path string) {
 //     is coarser than the data or falls inside a period;
 //   - a ramp longer than its step (counted in periods of the data);
 //   - an event that reaches the forecast but has no effect (an effect is
-//     needed unless the event lies wholly before next, or is learnt with
-//     from: past);
+//     needed unless the event lies wholly before next, is learnt with
+//     from: past, or every entry of its scope has an effect of its own);
 //   - a past occurrence that, payback included, does not end before next;
-//   - a capacity change that falls inside a period.
+//   - a capacity change (of the top-level capacity or of a resource) that
+//     falls inside a period.
+//
+// The checks that need the names of the plan's series are File.CheckSeries'.
 //
 // Resolve sets History.Period to next's frequency when it was not given
 // and changes nothing else. Errors are as for Parse. It panics if next is
