@@ -112,7 +112,7 @@
 // the plan; effect, when given, is the entry's own effect (units, percent
 // or from: past), applied in full to every series the entry matches;
 // new: true creates a series without history (one name, not a pattern,
-// not a series of the plan, moved by units), whose baseline is zero.
+// not a series of the history file, moved by units), whose baseline is zero.
 // Entries without an effect share the event's: effect.split: baseline
 // divides a units total in proportion to each series' baseline over the
 // event's span, split: equal divides it evenly, and without split every

@@ -25,7 +25,8 @@ type ScopeEntry struct {
 	// New says the entry creates a series the history does not hold (a
 	// product the customer never bought): its baseline is zero and its
 	// bands come from the event's range and probability alone. Series is
-	// then one name, not a pattern, and must not be a series of the plan.
+	// then one name, not a pattern, and must not be a series of the history
+	// file.
 	New bool
 	// Pos is where the entry's list item stands.
 	Pos Pos
@@ -196,29 +197,33 @@ func (e *Event) coveredByScope() bool {
 const nearestNames = 3
 
 // CheckSeries makes the checks of scopes and resources that need the
-// names of the plan's series (those history.series selects, in any
-// order). It reports, with positions:
+// names of the series: selected are the plan's series (those
+// history.series selects, in any order), history all those of the history
+// file (nil means the same as selected). It reports, with positions:
 //
 //   - a scope entry without new: true whose name or pattern matches none
 //     of the plan's series (nor a series another entry creates), naming
 //     the nearest;
 //   - a scope entry with new: true whose name is already a series of the
-//     plan;
+//     plan, or of the history file;
 //   - a resource whose pattern matches no series, naming the nearest;
 //   - when the plan has more than one series (the selected ones and those
 //     new: true creates), an event without a scope.
 //
 // Errors are as for Parse. CheckSeries changes nothing.
-func (f *File) CheckSeries(names []string) error {
+func (f *File) CheckSeries(selected, history []string) error {
 	r := &reporter{file: f.Path, pos: f.pos}
-	all := f.seriesWithNew(names)
+	all := f.seriesWithNew(selected)
 	for _, e := range f.Events {
 		for i, s := range e.Scope {
 			field := e.scopeField(i, "series")
 			switch {
-			case s.New && slices.Contains(names, s.Series):
+			case s.New && slices.Contains(selected, s.Series):
 				r.fail(r.at(field, s.Pos), field, ErrValue,
 					"%q is already a series of the plan; leave out new: true to move it", s.Series)
+			case s.New && slices.Contains(history, s.Series):
+				r.fail(r.at(field, s.Pos), field, ErrValue,
+					"%q is a series of %s that history.series does not select; select it and leave out new: true", s.Series, f.History.File)
 			case !s.New && !matchesAny(s.Series, all):
 				r.fail(r.at(field, s.Pos), field, ErrValue, "%s", noMatch(s.Series, all))
 			}

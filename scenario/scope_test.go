@@ -69,7 +69,7 @@ func TestParseScope(t *testing.T) {
 	if ch := f.Resources[0].Capacity.Changes[0].From; ch.Label != "2027-09" {
 		t.Errorf("capacity change from %v; want 2027-09", ch)
 	}
-	if err := f.CheckSeries(dairy); err != nil {
+	if err := f.CheckSeries(dairy, nil); err != nil {
 		t.Errorf("CheckSeries: %v", err)
 	}
 	// Every entry of grocer-exit has its own effect, so the event needs
@@ -122,6 +122,8 @@ func TestCheckSeriesErrors(t *testing.T) {
 			`resource "r": series: the pattern "butter/**" matches no series of the plan; the nearest are`},
 		{"event without scope", head + "events:\n  - {id: b, kind: step, start: 2027-02, effect: {units: 5}, scope: [{series: \"milk/**\"}]}\n  - §{id: a, kind: step, start: 2027-02, effect: {units: 5}}\n", dairy, ErrMissing,
 			`event "a": scope: required: the plan has 3 series; say which the event moves (scope: [{series: NAME or PATTERN}])`},
+		{"new on a series of the history not selected", head + step + "scope: [{series: §milk/whole-1l/grocer-east, new: true}]}\n", nil, ErrValue,
+			`event "a": scope[0].series: "milk/whole-1l/grocer-east" is a series of h.csv that history.series does not select; select it and leave out new: true`},
 		// One series of the history and one that a scope creates make two.
 		{"event without scope beside a new series", head + "events:\n  - {id: b, kind: step, start: 2027-02, effect: {units: 5}, scope: [{series: milk/x, new: true}]}\n  - §{id: a, kind: pulse, start: 2027-02, effect: {units: 5}}\n", []string{"milk/y"}, ErrMissing,
 			`event "a": scope: required: the plan has 2 series`},
@@ -132,7 +134,11 @@ func TestCheckSeriesErrors(t *testing.T) {
 			if err != nil {
 				t.Fatalf("Parse: %v", err)
 			}
-			err = f.CheckSeries(tc.names)
+			hist := tc.names
+			if tc.names == nil {
+				tc.names, hist = dairy, append(dairy[:len(dairy):len(dairy)], "milk/whole-1l/grocer-east")
+			}
+			err = f.CheckSeries(tc.names, hist)
 			if _, ok := err.(*data.ParseError); !ok {
 				t.Fatalf("want exactly one problem, got %v", err)
 			}
@@ -171,7 +177,7 @@ func TestCheckSeriesAccepts(t *testing.T) {
 		if err != nil {
 			t.Fatalf("%s: Parse: %v", tc.name, err)
 		}
-		if err := f.CheckSeries(tc.names); err != nil {
+		if err := f.CheckSeries(tc.names, tc.names); err != nil {
 			t.Errorf("%s: CheckSeries: %v", tc.name, err)
 		}
 	}
@@ -187,7 +193,7 @@ func TestCheckSeriesSeveral(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	err = f.CheckSeries([]string{"milk", "cream"})
+	err = f.CheckSeries([]string{"milk", "cream"}, nil)
 	var list ErrorList
 	if !errors.As(err, &list) || len(list) != 3 {
 		t.Fatalf("error %v; want a list of 3", err)
