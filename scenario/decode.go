@@ -136,12 +136,12 @@ func parse(r io.Reader, path string, l Limits) (*File, error) {
 // The keys allowed at each level, in the order the documentation gives
 // them (which is also the order "did you mean" prefers on a tie).
 var (
-	topKeys        = []string{"plan", "history", "horizon", "baseline", "bands", "units", "events", "scenarios", "capacity", "production"}
+	topKeys        = []string{"plan", "history", "horizon", "baseline", "bands", "units", "events", "scenarios", "capacity", "resources", "production"}
 	historyKeys    = []string{"file", "series", "key", "levels", "period", "fill"}
 	baselineKeys   = []string{"method", "season", "metric", "select", "alpha", "beta", "gamma", "phi", "window", "weights", "dummies", "damped", "mse_divisor", "refit", "holdout"}
 	bandsKeys      = []string{"z", "coverage", "widen", "from", "floor"}
-	eventKeys      = []string{"id", "kind", "start", "end", "periods", "effect", "ramp", "probability", "range", "payback", "past", "note"}
-	effectKeys     = []string{"units", "percent", "from"}
+	eventKeys      = []string{"id", "kind", "start", "end", "periods", "effect", "ramp", "probability", "range", "payback", "past", "scope", "note"}
+	effectKeys     = []string{"units", "percent", "from", "split"}
 	rampKeys       = []string{"periods", "shape"}
 	rangeKeys      = []string{"low", "high"}
 	paybackKeys    = []string{"share", "periods"}
@@ -241,6 +241,7 @@ type decoder struct {
 	lines    [][]byte
 	seenID   map[string]int // event id -> line of first use
 	seenCase map[string]int // scenario name -> line of first use
+	seenRes  map[string]int // resource id -> line of first use
 	refs     []caseRefs     // scenario event lists, linked after decoding
 	limits   Limits         // complete (see Limits.orDefaults)
 }
@@ -659,6 +660,16 @@ func (d *decoder) file(root *yaml.Node, f *File) {
 	if c := m.sub("capacity", capacityKeys); c != nil {
 		f.Capacity = d.capacity(c)
 	}
+	if items, ok := m.list("resources"); ok {
+		if len(items) == 0 {
+			d.fail(d.at("resources", Pos{}), "resources", ErrValue, "an empty list; give at least one resource, or leave the key out")
+		}
+		for i, n := range items {
+			if res := d.resource(n, i); res != nil {
+				f.Resources = append(f.Resources, *res)
+			}
+		}
+	}
 	if p := m.sub("production", productionKeys); p != nil {
 		pr := &Production{Mode: Follow, Pos: d.position(p.node)}
 		typed(p, "mode", "mode", modeValues, ParseProductionMode, &pr.Mode)
@@ -818,10 +829,7 @@ func (d *decoder) event(n *yaml.Node, i int) *Event {
 	e.HasEnd = m.when("end", &e.End)
 	m.integer("periods", &e.Periods)
 	if ef := m.sub("effect", effectKeys); ef != nil {
-		ef.num("units", &e.Effect.Units)
-		e.Effect.IsPercent = ef.num("percent", &e.Effect.Percent)
-		var from string
-		e.Effect.FromPast = ef.enum("from", "source", fromValues, &from)
+		d.effect(ef, &e.Effect)
 	}
 	if r := m.sub("ramp", rampKeys); r != nil {
 		hasP := r.integer("periods", &e.Ramp.Periods)
@@ -859,6 +867,9 @@ func (d *decoder) event(n *yaml.Node, i int) *Event {
 				delete(d.pos, m.field("past"))
 			}
 		}
+	}
+	if items, ok := m.list("scope"); ok {
+		d.scope(items, m, e)
 	}
 	m.str("note", &e.Note)
 	return e

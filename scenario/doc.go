@@ -42,6 +42,7 @@
 //	  units: 540000            #   required; above 0
 //	  changes:                 #   later levels, sorted by from, no two in one period
 //	    - {from: 2027-06, units: 600000}   # from: a label; units above 0
+//	resources: [...]           # what demand loads (see below); not with capacity
 //	production:
 //	  mode: follow             #   follow (production follows the plan) or frozen; default follow
 //	  plan: previous-plan.csv  #   a production plan CSV, relative to the scenario file's directory
@@ -73,7 +74,8 @@
 //	    periods: 1                # pulses only: length in periods of the data; default 1; not with end
 //	    effect: {units: 35000}    # size at full strength: {units: N} per period,
 //	                              # {percent: P} of each period's baseline (at least -100),
-//	                              # or {from: past} (learnt from the past occurrences); exactly one
+//	                              # or {from: past} (learnt from the past occurrences); exactly one;
+//	                              # with units and a scope, split: baseline or equal shares it out
 //	    ramp: {periods: 3, shape: linear}  # steps only: shape immediate (default), linear or s-curve;
 //	                              # periods (at least 1) is required for linear and s-curve, and
 //	                              # alone means linear
@@ -86,6 +88,8 @@
 //	    past: [2024-08, 2025-08]  # earlier occurrences of the same kind and length, written in
 //	                              # the form of start and before it: cleaned out of the history
 //	                              # and used to learn the effect (a step needs an end for this)
+//	    scope:                    # the series it moves (see below); default: the plan's only one
+//	      - {series: "milk/whole-1l/*"}
 //	    note: free text
 //
 // An event needs an effect unless it lies wholly in the past (it is then
@@ -99,6 +103,40 @@
 // Event.Profile and Event.Contribution give the exact arithmetic of steps,
 // ramps, pulses and paybacks. A payback takes back a share of the pulse's
 // lift in units, also for a percent pulse.
+//
+// # Scope
+//
+// In a plan of several series each event lists, under scope, the series
+// it moves. An entry is a mapping {series, effect, new}: series (required)
+// is a name or a pattern as in history.series and must match a series of
+// the plan; effect, when given, is the entry's own effect (units, percent
+// or from: past), applied in full to every series the entry matches;
+// new: true creates a series without history (one name, not a pattern,
+// not a series of the history file, moved by units), whose baseline is zero.
+// Entries without an effect share the event's: effect.split: baseline
+// divides a units total in proportion to each series' baseline over the
+// event's span, split: equal divides it evenly, and without split every
+// series gets the full effect. Percent effects always apply per series,
+// so split goes with units only, and only on an event with a scope. An
+// event reaching the forecast needs an effect unless every scope entry
+// has one. In a plan of more than one series an event without a scope is
+// an error. The checks against the plan's series are File.CheckSeries'.
+//
+// # Resources
+//
+// Each item of resources is a mapping:
+//
+//	resources:
+//	  - id: bottling-1            # required; unique; a-z, 0-9 and '-', starting with a letter or digit
+//	    series: "milk/**"         # required; a name or pattern matching series of the plan
+//	    per-unit: 0.0012          # required; the load of one unit of demand, above 0
+//	    units: line-hours         # a label for the load; default none
+//	    capacity: {units: 600, changes: [{from: 2027-09, units: 680}]}  # as the top-level capacity; default none
+//
+// A resource's load is the sum over its series of per-unit times demand.
+// The top-level capacity is shorthand for one resource "capacity" over
+// every series with per-unit 1 (File.AllResources); a file gives one or
+// the other.
 //
 // # Scenarios
 //

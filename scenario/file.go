@@ -56,8 +56,14 @@ type File struct {
 	// when the file names none (see Cases).
 	Scenarios []Case
 
-	// Capacity is the optional capacity limit; nil when not given.
+	// Capacity is the optional capacity limit; nil when not given. It is
+	// shorthand for one resource over every series with a per-unit of 1
+	// (see AllResources), and may not stand together with Resources.
 	Capacity *Capacity
+
+	// Resources are the resources the file lists (production lines,
+	// storage, crews), in file order; nil when it lists none.
+	Resources []Resource
 
 	// Production is the optional production setting; nil when not given.
 	Production *Production
@@ -328,6 +334,10 @@ type Event struct {
 	// length), written in the same form as Start, to clean out of the
 	// history and to learn the effect from.
 	Past []When
+	// Scope lists the series the event moves, each with its own effect or
+	// sharing Effect; nil means the plan's only series (a plan of several
+	// series refuses an event without a scope, see File.CheckSeries).
+	Scope []ScopeEntry
 	// Note is free text.
 	Note string
 	// Pos is where the event's list item stands.
@@ -352,6 +362,13 @@ type Effect struct {
 	// Until the caller sets Units or Percent (and IsPercent) from them,
 	// both are zero and the event contributes nothing.
 	FromPast bool
+	// Split says how an event's units effect is shared among the series of
+	// its scope that have no effect of their own: SplitNone (the zero
+	// value) gives each series the full effect, SplitBaseline divides it in
+	// proportion to each series' baseline over the event's span, and
+	// SplitEqual divides it evenly. Percent effects always apply to each
+	// series, so Split is SplitNone for them.
+	Split Split
 }
 
 // Value returns the effect's number in its own unit: Percent for a percent

@@ -73,10 +73,10 @@ func TestLoadFull(t *testing.T) {
 history ../testdata/scenario/history.csv series "bottled-l" period month fill interpolate at 3:10
 baseline holt-winters-additive season 12 metric mase select aicc alpha 0.3 beta - gamma - phi 0.98 window 0 weights [] dummies false damped true divisor n refit true holdout 12 at 6:3
 bands z 1.959964 coverage 0.950000 widen flat floor 0
-event school-contract at 19:5: step 2027-02..2028-01 periods 0 effect {Units:35000 Percent:0 IsPercent:false FromPast:false} ramp 3 linear p 0.7 range 25000..42000 payback - past [] note "signed letter of intent, owner sales-east"
-event fair-week at 28:5: pulse 2027-08..- periods 1 effect {Units:0 Percent:20 IsPercent:true FromPast:false} ramp 0 immediate p 1 range - payback 0.5 over 2 past [2024-08 2025-08] note ""
-event storm-2025 at 35:5: pulse 2025-07..- periods 2 effect {Units:0 Percent:0 IsPercent:false FromPast:false} ramp 0 immediate p 1 range - payback - past [] note ""
-event depot-closing at 39:5: step 2027-05-15..- periods 0 effect {Units:0 Percent:-4 IsPercent:true FromPast:false} ramp 4 s-curve p 1 range - payback - past [] note ""
+event school-contract at 19:5: step 2027-02..2028-01 periods 0 effect {Units:35000 Percent:0 IsPercent:false FromPast:false Split:none} ramp 3 linear p 0.7 range 25000..42000 payback - past [] note "signed letter of intent, owner sales-east"
+event fair-week at 28:5: pulse 2027-08..- periods 1 effect {Units:0 Percent:20 IsPercent:true FromPast:false Split:none} ramp 0 immediate p 1 range - payback 0.5 over 2 past [2024-08 2025-08] note ""
+event storm-2025 at 35:5: pulse 2025-07..- periods 2 effect {Units:0 Percent:0 IsPercent:false FromPast:false Split:none} ramp 0 immediate p 1 range - payback - past [] note ""
+event depot-closing at 39:5: step 2027-05-15..- periods 0 effect {Units:0 Percent:-4 IsPercent:true FromPast:false Split:none} ramp 4 s-curve p 1 range - payback - past [] note ""
 scenario committed at 45:5: fair-week
 scenario with-contract at 46:5: fair-week, school-contract
 capacity 540000

@@ -24,8 +24,8 @@ import (
 //     past event, taken out of the history, and its effect is not used (a
 //     past event is declared by leaving out its effect). When the date one
 //     year after its start lies in the horizon, the warning offers it;
-//   - a percent effect below 1 in absolute value (not 0): 0.4 means
-//     0.4 %, not 40 %.
+//   - a percent effect (the event's or a scope entry's) below 1 in
+//     absolute value (not 0): 0.4 means 0.4 %, not 40 %.
 //
 // Each warning is one sentence ending with the fix, starting with the
 // file, the line and column and the key path as errors do:
@@ -46,7 +46,13 @@ func (f *File) Lint(hist forecast.Series) []string {
 		if notes[0] == nil {
 			notes = append(notes, l.oldOccurrences(e)...)
 		}
-		for _, w := range append(notes, l.pastTypo(e), l.smallPercent(e)) {
+		notes = append(notes, l.pastTypo(e), l.smallPercent(e, e.Effect, "effect.percent"))
+		for i, s := range e.Scope {
+			if s.Effect != nil {
+				notes = append(notes, l.smallPercent(e, *s.Effect, join(index("scope", i), "effect.percent")))
+			}
+		}
+		for _, w := range notes {
 			if w != nil {
 				out = append(out, f.warning(w))
 			}
@@ -157,13 +163,14 @@ func (l *linter) pastTypo(e *Event) *lintNote {
 		e.Start, spanText(l.first, l.next.Add(-1)), size, hint, spanText(l.next, l.end))}
 }
 
-// smallPercent warns of a percent effect between -1 and 1 (not 0).
-func (l *linter) smallPercent(e *Event) *lintNote {
-	p := e.Effect.Percent
-	if !e.Effect.IsPercent || p == 0 || p <= -1 || p >= 1 {
+// smallPercent warns of a percent effect between -1 and 1 (not 0): the
+// event's effect or a scope entry's, whose percent stands at key.
+func (l *linter) smallPercent(e *Event, ef Effect, key string) *lintNote {
+	p := ef.Percent
+	if !ef.IsPercent || p == 0 || p <= -1 || p >= 1 {
 		return nil
 	}
-	at, field := l.place(e, "effect.percent", When{})
+	at, field := l.place(e, key, When{})
 	meant := strconv.FormatFloat(p*100, 'g', 10, 64)
 	return &lintNote{at, field, fmt.Sprintf("%s means %s %%, not %s %%. For %s %% write %s.",
 		strconv.FormatFloat(p, 'g', -1, 64), strconv.FormatFloat(p, 'g', -1, 64), meant, meant, meant)}

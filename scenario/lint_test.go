@@ -54,6 +54,8 @@ func TestLint(t *testing.T) {
 			`event "dip": effect.percent: -0.25 means -0.25 %, not -25 %. For -25 % write -25.`},
 		{"percent 1", "  - {id: a, kind: pulse, start: 2027-03, effect: {percent: 1}}\n", ""},
 		{"percent 0", "  - {id: a, kind: pulse, start: 2027-03, effect: {percent: 0}}\n", ""},
+		{"scope entry percent", "  - {id: exit, kind: step, start: 2027-03, scope: [{series: a, effect: {percent: -100}}, {series: b, effect: {percent: §0.5}}]}\n",
+			`event "exit": scope[1].effect.percent: 0.5 means 0.5 %, not 50 %. For 50 % write 50.`},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			src, line, col := tc.src, 0, 0

@@ -64,8 +64,9 @@ func (d *decoder) validate(f *File) {
 	}
 	d.link(f)
 	if f.Capacity != nil {
-		d.checkCapacity(f.Capacity)
+		d.checkCapacity(f.Capacity, "capacity")
 	}
+	d.checkResources(f)
 }
 
 // maxCount bounds every count of periods in a file (horizon, periods,
@@ -215,6 +216,7 @@ func (d *decoder) checkEvent(e *Event) {
 		d.fail(d.at(f("end"), e.Pos), f("end"), ErrValue, "end %s is before start %s", e.End, e.Start)
 	}
 	d.checkEffect(e)
+	d.checkScope(e)
 	if d.given(f("ramp")) {
 		rp, rs := f("ramp.periods"), f("ramp.shape")
 		switch {
@@ -267,21 +269,22 @@ func (d *decoder) checkProbability(e *Event) {
 	d.fail(d.at(field, e.Pos), field, ErrValue, "must be in [0, 1], got %g%s", e.Probability, hint)
 }
 
-// checkEffect checks an event's effect and range.
-func (d *decoder) checkEffect(e *Event) {
-	f := e.field
-	units, pct, from := f("effect.units"), f("effect.percent"), f("effect.from")
+// checkEffectKeys checks the effect mapping at key path base (an event's
+// or a scope entry's): exactly one of units, percent and from, and a
+// percent of at least -100. It returns the key paths of those given.
+func (d *decoder) checkEffectKeys(base string, ef *Effect, at Pos) []string {
+	units, pct, from := join(base, "units"), join(base, "percent"), join(base, "from")
 	var set []string
 	for _, k := range []string{units, pct, from} {
 		if d.given(k) {
 			set = append(set, k)
 		}
 	}
-	if d.given(f("effect")) {
+	if d.given(base) {
 		switch len(set) {
 		case 0:
-			if !d.failedUnder(f("effect")) {
-				d.fail(d.at(f("effect"), e.Pos), f("effect"), ErrMissing, "give units, percent or from: past")
+			if !d.failedUnder(base) {
+				d.fail(d.at(base, at), base, ErrMissing, "give units, percent or from: past")
 			}
 		case 1:
 		default:
@@ -289,12 +292,20 @@ func (d *decoder) checkEffect(e *Event) {
 			if d.at(set[0], Pos{}).Line > d.at(set[1], Pos{}).Line {
 				second = set[0]
 			}
-			d.fail(d.at(second, e.Pos), second, ErrConflict, "give one of units, percent or from: past, not several")
+			d.fail(d.at(second, at), second, ErrConflict, "give one of units, percent or from: past, not several")
 		}
 	}
-	if d.given(pct) && e.Effect.Percent < -100 {
-		d.fail(d.at(pct, e.Pos), pct, ErrValue, "must be at least -100 (a fall to zero), got %g", e.Effect.Percent)
+	if d.given(pct) && ef.Percent < -100 {
+		d.fail(d.at(pct, at), pct, ErrValue, "must be at least -100 (a fall to zero), got %g", ef.Percent)
 	}
+	return set
+}
+
+// checkEffect checks an event's effect and range.
+func (d *decoder) checkEffect(e *Event) {
+	f := e.field
+	from := f("effect.from")
+	set := d.checkEffectKeys(f("effect"), &e.Effect, e.Pos)
 	if e.Effect.FromPast && len(e.Past) == 0 && !d.failedUnder(f("past")) {
 		d.fail(d.at(from, e.Pos), from, ErrMissing, "from: past needs the past occurrences (past: [...])")
 	}
@@ -361,16 +372,17 @@ func (d *decoder) link(f *File) {
 	}
 }
 
-// checkCapacity checks the capacity block.
-func (d *decoder) checkCapacity(c *Capacity) {
-	if d.given("capacity.units") && c.Units <= 0 {
-		d.fail(d.at("capacity.units", c.Pos), "capacity.units", ErrValue, "must be above 0, got %g", c.Units)
+// checkCapacity checks a capacity block at key path path (the top-level
+// capacity or a resource's).
+func (d *decoder) checkCapacity(c *Capacity, path string) {
+	if uf := join(path, "units"); d.given(uf) && c.Units <= 0 {
+		d.fail(d.at(uf, c.Pos), uf, ErrValue, "must be above 0, got %g", c.Units)
 	}
-	if !d.given("capacity.changes") {
+	if !d.given(join(path, "changes")) {
 		return
 	}
 	for j, ch := range c.Changes {
-		field := index("capacity.changes", j)
+		field := index(join(path, "changes"), j)
 		if ch.Units <= 0 {
 			uf := join(field, "units")
 			d.fail(d.at(uf, ch.Pos), uf, ErrValue, "must be above 0, got %g", ch.Units)
@@ -401,10 +413,13 @@ func (d *decoder) checkCapacity(c *Capacity) {
 //     is coarser than the data or falls inside a period;
 //   - a ramp longer than its step (counted in periods of the data);
 //   - an event that reaches the forecast but has no effect (an effect is
-//     needed unless the event lies wholly before next, or is learnt with
-//     from: past);
+//     needed unless the event lies wholly before next, is learnt with
+//     from: past, or every entry of its scope has an effect of its own);
 //   - a past occurrence that, payback included, does not end before next;
-//   - a capacity change that falls inside a period.
+//   - a capacity change (of the top-level capacity or of a resource) that
+//     falls inside a period.
+//
+// The checks that need the names of the plan's series are File.CheckSeries'.
 //
 // Resolve sets History.Period to next's frequency when it was not given
 // and changes nothing else. Errors are as for Parse. It panics if next is
@@ -423,12 +438,11 @@ func (f *File) Resolve(next forecast.Period) error {
 		resolveEvent(r, e, next)
 	}
 	if f.Capacity != nil {
-		for j, ch := range f.Capacity.Changes {
-			if !aligned(next, ch.From.From) {
-				field := join(index("capacity.changes", j), "from")
-				r.fail(r.at(field, ch.Pos), field, ErrValue,
-					"%s falls inside %s; capacity changes apply from whole %ss", ch.From, grainName(freq), freq)
-			}
+		resolveCapacity(r, f.Capacity, "capacity", next)
+	}
+	for _, res := range f.Resources {
+		if res.Capacity != nil {
+			resolveCapacity(r, res.Capacity, res.field("capacity"), next)
 		}
 	}
 	if err := r.err(); err != nil {
@@ -438,6 +452,19 @@ func (f *File) Resolve(next forecast.Period) error {
 		f.History.Period = freq
 	}
 	return nil
+}
+
+// resolveCapacity reports the changes of a capacity block (at key path
+// path) that fall inside a period.
+func resolveCapacity(r *reporter, c *Capacity, path string, next forecast.Period) {
+	freq := next.Freq
+	for j, ch := range c.Changes {
+		if !aligned(next, ch.From.From) {
+			field := join(index(join(path, "changes"), j), "from")
+			r.fail(r.at(field, ch.Pos), field, ErrValue,
+				"%s falls inside %s; capacity changes apply from whole %ss", ch.From, grainName(freq), freq)
+		}
+	}
 }
 
 // resolveEvent makes Resolve's checks for one event.
@@ -476,8 +503,8 @@ func resolveEvent(r *reporter, e *Event, next forecast.Period) {
 	}
 	if !e.IsPast(next) {
 		learnt := e.Effect.FromPast && len(e.Past) > 0
-		if !r.given(f("effect")) && !learnt && !e.Effect.IsPercent && e.Effect.Units == 0 {
-			r.fail(e.Pos, f("effect"), ErrMissing, "required: the event reaches the forecast (%s on); give units, percent or from: past", next)
+		if !r.given(f("effect")) && !learnt && !e.Effect.IsPercent && e.Effect.Units == 0 && !e.coveredByScope() {
+			resolveMissingEffect(r, e, next)
 		}
 	}
 	for j, o := range e.Occurrences() {
@@ -495,4 +522,24 @@ func resolveEvent(r *reporter, e *Event, next forecast.Period) {
 				o.Start, reach, next)
 		}
 	}
+}
+
+// resolveMissingEffect reports an event that reaches the forecast without
+// an effect: at the event, or at the first scope entry without an effect
+// of its own when others have one.
+func resolveMissingEffect(r *reporter, e *Event, next forecast.Period) {
+	for i, s := range e.Scope {
+		if s.Effect != nil {
+			continue
+		}
+		for _, o := range e.Scope {
+			if o.Effect != nil {
+				r.fail(s.Pos, e.scopeField(i, "effect"), ErrMissing,
+					"required: the event reaches the forecast (%s on) and gives no effect for this entry to share; give the entry or the event an effect", next)
+				return
+			}
+		}
+		break
+	}
+	r.fail(e.Pos, e.field("effect"), ErrMissing, "required: the event reaches the forecast (%s on); give units, percent or from: past", next)
 }
