@@ -1,14 +1,17 @@
-// Command generate writes forelay's invented example data as wide CSV files.
+// Command generate writes forelay's invented example data as CSV files.
 //
 // Usage:
 //
-//	go run ./examples/generate [-kind dairy|bench] [-seed N] [-out FILE]
+//	go run ./examples/generate [-kind dairy|bench|portfolio] [-seed N] [-out FILE]
 //	go run ./examples/generate -kind bench [-series N] [-points N] [-start 2016-01] [-out FILE]
+//	go run ./examples/generate -kind portfolio [-series N] [-points N] [-out FILE]
 //
-// The output is a wide history file: a header "period,<series>,..." and one
-// row per month, labelled 2026-03, with one whole number per series. The same
-// flags always give byte-identical output (on the same Go release, since the
-// numbers come from math/rand/v2's PCG generator).
+// The dairy and bench kinds write a wide history file: a header
+// "period,<series>,..." and one row per month, labelled 2026-03, with one
+// whole number per series. The portfolio kind writes a long history file:
+// a header "family,product,customer,period,value" and one row per value.
+// The same flags always give byte-identical output (on the same Go release,
+// since the numbers come from math/rand/v2's PCG generator).
 //
 // Kinds:
 //
@@ -20,14 +23,20 @@
 //     at -start, named s0001, s0002, ... with varied level, trend, season
 //     strength and noise. It feeds the throughput benchmark of
 //     "forelay fit --method auto" and is not committed.
+//   - portfolio writes -series series (default 300) of the invented
+//     cooperative's portfolio: families (milk, yoghurt, cream, cheese,
+//     butter), their products and the customers who buy them, each series
+//     at most -points months (default 94) ending 2026-10, in the long
+//     layout. examples/portfolio/history.csv is this output with the
+//     defaults; the function portfolio documents the design.
 //
 // Flags:
 //
-//	-kind    dairy or bench (default dairy)
+//	-kind    dairy, bench or portfolio (default dairy)
 //	-seed    seed of the random numbers (default 1)
 //	-out     file to write; "-" or empty is standard output (default "-")
-//	-series  bench only: number of series, 1..100000 (default 1000)
-//	-points  bench only: values per series, 1..100000 (default 120)
+//	-series  bench and portfolio: number of series, 1..100000 (default 1000 or 300)
+//	-points  bench and portfolio: values per series, 1..100000 (default 120 or 94)
 //	-start   bench only: first month (default 2016-01)
 //
 // The exit status is 0 on success, 2 for bad flags and 1 when the output
@@ -81,11 +90,11 @@ func parseFlags(args []string, errOut io.Writer) (options, error) {
 	fs.SetOutput(errOut)
 	var o options
 	var start string
-	fs.StringVar(&o.kind, "kind", "dairy", "data to write: dairy or bench")
+	fs.StringVar(&o.kind, "kind", "dairy", "data to write: dairy, bench or portfolio")
 	fs.Uint64Var(&o.seed, "seed", 1, "seed of the random numbers")
 	fs.StringVar(&o.out, "out", "-", `file to write ("-" is standard output)`)
-	fs.IntVar(&o.series, "series", 1000, "bench: number of series")
-	fs.IntVar(&o.points, "points", 120, "bench: values per series")
+	fs.IntVar(&o.series, "series", 1000, "bench and portfolio: number of series (portfolio default 300)")
+	fs.IntVar(&o.points, "points", 120, "bench and portfolio: values per series (portfolio default 94)")
 	fs.StringVar(&start, "start", "2016-01", "bench: first month")
 	if err := fs.Parse(args); err != nil {
 		return o, err
@@ -97,30 +106,54 @@ func parseFlags(args []string, errOut io.Writer) (options, error) {
 	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })
 	switch o.kind {
 	case "dairy":
-		for _, name := range []string{"series", "points", "start"} {
+		for _, name := range []string{"series", "points"} {
 			if set[name] {
-				return o, fmt.Errorf("-%s applies to -kind bench only", name)
+				return o, fmt.Errorf("-%s applies to -kind bench or portfolio only", name)
 			}
 		}
+		if set["start"] {
+			return o, errors.New("-start applies to -kind bench only")
+		}
 	case "bench":
-		if o.series < 1 || o.series > maxSeries {
-			return o, fmt.Errorf("-series %d: want 1..%d", o.series, maxSeries)
-		}
-		if o.points < 1 || o.points > maxPoints {
-			return o, fmt.Errorf("-points %d: want 1..%d", o.points, maxPoints)
-		}
-		if o.series*o.points > maxCells {
-			return o, fmt.Errorf("-series %d -points %d: more than %d values", o.series, o.points, maxCells)
+		if err := checkSize(o); err != nil {
+			return o, err
 		}
 		p, err := forecast.ParsePeriod(start, forecast.Monthly)
 		if err != nil {
 			return o, fmt.Errorf("-start: %w", err)
 		}
 		o.start = p
+	case "portfolio":
+		if set["start"] {
+			return o, errors.New("-start applies to -kind bench only (the portfolio ends in 2026-10)")
+		}
+		if !set["series"] {
+			o.series = portfolioSeries
+		}
+		if !set["points"] {
+			o.points = portfolioPoints
+		}
+		if err := checkSize(o); err != nil {
+			return o, err
+		}
 	default:
-		return o, fmt.Errorf("-kind %q: want dairy or bench", o.kind)
+		return o, fmt.Errorf("-kind %q: want dairy, bench or portfolio", o.kind)
 	}
 	return o, nil
+}
+
+// checkSize checks -series and -points against the limits.
+func checkSize(o options) error {
+	if o.series < 1 || o.series > maxSeries {
+		return fmt.Errorf("-series %d: want 1..%d", o.series, maxSeries)
+	}
+	if o.points < 1 || o.points > maxPoints {
+		return fmt.Errorf("-points %d: want 1..%d", o.points, maxPoints)
+	}
+	if o.series*o.points > maxCells {
+		return fmt.Errorf("-series %d -points %d: more than %d values", o.series, o.points, maxCells)
+	}
+	return nil
 }
 
 // run is the whole command; it returns the exit status.
@@ -133,10 +166,13 @@ func run(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, "generate:", err)
 		return exitUsage
 	}
-	var t table
-	if o.kind == "bench" {
+	var t csvWriter
+	switch o.kind {
+	case "bench":
 		t = bench(o.seed, o.series, o.points, o.start)
-	} else {
+	case "portfolio":
+		t = portfolio(o.seed, o.series, o.points)
+	default:
 		t = dairy(o.seed, true)
 	}
 	if err := writeOut(o.out, stdout, t); err != nil {
@@ -146,8 +182,14 @@ func run(args []string, stdout, stderr io.Writer) int {
 	return exitOK
 }
 
+// A csvWriter is a history that writes itself as CSV: a wide table or a
+// long one.
+type csvWriter interface {
+	writeCSV(w io.Writer) error
+}
+
 // writeOut writes t to the named file, or to stdout for "-" or "".
-func writeOut(name string, stdout io.Writer, t table) error {
+func writeOut(name string, stdout io.Writer, t csvWriter) error {
 	if name == "" || name == "-" {
 		return t.writeCSV(stdout)
 	}

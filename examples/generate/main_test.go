@@ -11,12 +11,14 @@ import (
 	"strings"
 	"testing"
 
+	"forelay/scenario/data"
+
 	"gonum.org/v1/gonum/floats/scalar"
 	"gonum.org/v1/gonum/stat"
 )
 
 // csvOf writes t and returns the bytes.
-func csvOf(t *testing.T, tab table) []byte {
+func csvOf(t *testing.T, tab csvWriter) []byte {
 	t.Helper()
 	var b bytes.Buffer
 	if err := tab.writeCSV(&b); err != nil {
@@ -57,6 +59,8 @@ func TestDeterministic(t *testing.T) {
 		{"dairy seed 7", []string{"-seed", "7"}},
 		{"bench small", []string{"-kind", "bench", "-series", "20", "-points", "30"}},
 		{"bench default", []string{"-kind", "bench"}},
+		{"portfolio default", []string{"-kind", "portfolio"}},
+		{"portfolio small", []string{"-kind", "portfolio", "-series", "40", "-points", "30", "-seed", "3"}},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
@@ -69,6 +73,9 @@ func TestDeterministic(t *testing.T) {
 	}
 	if bytes.Equal(csvOf(t, dairy(1, true)), csvOf(t, dairy(2, true))) {
 		t.Error("seeds 1 and 2 give the same dairy data")
+	}
+	if bytes.Equal(csvOf(t, portfolio(1, 50, 60)), csvOf(t, portfolio(2, 50, 60))) {
+		t.Error("seeds 1 and 2 give the same portfolio data")
 	}
 }
 
@@ -384,8 +391,12 @@ func TestBadFlags(t *testing.T) {
 		code int
 		want string // part of stderr
 	}{
-		{"unknown kind", []string{"-kind", "weekly"}, exitUsage, `-kind "weekly": want dairy or bench`},
-		{"series for dairy", []string{"-series", "5"}, exitUsage, "-series applies to -kind bench only"},
+		{"unknown kind", []string{"-kind", "weekly"}, exitUsage, `-kind "weekly": want dairy, bench or portfolio`},
+		{"series for dairy", []string{"-series", "5"}, exitUsage, "-series applies to -kind bench or portfolio only"},
+		{"points for dairy", []string{"-points", "5"}, exitUsage, "-points applies to -kind bench or portfolio only"},
+		{"start for portfolio", []string{"-kind", "portfolio", "-start", "2020-01"}, exitUsage, "-start applies to -kind bench only"},
+		{"zero portfolio series", []string{"-kind", "portfolio", "-series", "0"}, exitUsage, "-series 0: want 1..100000"},
+		{"portfolio too many cells", []string{"-kind", "portfolio", "-series", "100000", "-points", "501"}, exitUsage, "more than 50000000 values"},
 		{"start for dairy", []string{"-start", "2020-01"}, exitUsage, "-start applies to -kind bench only"},
 		{"zero series", []string{"-kind", "bench", "-series", "0"}, exitUsage, "-series 0: want 1..100000"},
 		{"zero points", []string{"-kind", "bench", "-points", "0"}, exitUsage, "-points 0: want 1..100000"},
@@ -409,5 +420,181 @@ func TestBadFlags(t *testing.T) {
 				t.Errorf("wrote %d bytes to stdout on error", out.Len())
 			}
 		})
+	}
+}
+
+// readLong parses a long portfolio CSV, checks its header and returns the
+// data rows.
+func readLong(t *testing.T, b []byte) [][]string {
+	t.Helper()
+	recs, err := csv.NewReader(bytes.NewReader(b)).ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	// The layout asked for: three key columns, widest level first.
+	want := "family,product,customer,period,value"
+	if len(recs) == 0 || strings.Join(recs[0], ",") != want {
+		t.Fatalf("header %q, want %q", recs[0], want)
+	}
+	return recs[1:]
+}
+
+// TestPortfolioShape checks the long portfolio file: the asked number of
+// series, each named by three non-empty levels without "/", appearing once
+// (its rows together, months in order, ending 2026-10, at most -points of
+// them), every value a finite whole number >= 0, and the file read back by
+// scenario/data with the key family, product, customer.
+func TestPortfolioShape(t *testing.T) {
+	tests := []struct {
+		name           string
+		args           []string
+		series, points int
+	}{
+		// The defaults: 300 series, 2019-01 through 2026-10 (94 months).
+		{"defaults", []string{"-kind", "portfolio"}, 300, 94},
+		{"small", []string{"-kind", "portfolio", "-series", "7", "-points", "13"}, 7, 13},
+		{"one point", []string{"-kind", "portfolio", "-series", "3", "-points", "1", "-seed", "9"}, 3, 1},
+		{"many customers", []string{"-kind", "portfolio", "-series", "2000", "-points", "40"}, 2000, 40},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			out := runOK(t, tc.args...)
+			rows := readLong(t, out)
+			done := map[string]bool{}
+			var name, last string
+			count := 0
+			for i, r := range rows {
+				for _, c := range r[:3] {
+					if c == "" || strings.ContainsAny(c, "/, \"") {
+						t.Fatalf("line %d: key cell %q is empty or holds / , space or quote", i+2, c)
+					}
+				}
+				v, err := strconv.ParseFloat(r[4], 64)
+				if err != nil || math.IsNaN(v) || math.IsInf(v, 0) || v < 0 || v != math.Trunc(v) {
+					t.Fatalf("line %d: value %q is not a finite whole number >= 0", i+2, r[4])
+				}
+				n := strings.Join(r[:3], "/")
+				if n != name {
+					if done[n] {
+						t.Fatalf("line %d: series %s appears twice", i+2, n)
+					}
+					if name != "" && last != "2026-10" {
+						t.Errorf("series %s ends in %s, want 2026-10", name, last)
+					}
+					name, count = n, 0
+					done[n] = true
+				} else if r[3] <= last {
+					t.Fatalf("line %d: %s after %s", i+2, r[3], last)
+				}
+				last = r[3]
+				if count++; count > tc.points {
+					t.Fatalf("line %d: series %s has more than %d values", i+2, n, tc.points)
+				}
+			}
+			if last != "2026-10" {
+				t.Errorf("last series ends in %s, want 2026-10", last)
+			}
+			if len(done) != tc.series {
+				t.Errorf("%d series, want %d", len(done), tc.series)
+			}
+			h, err := data.ReadHistory(bytes.NewReader(out), "history.csv", data.ReadOptions{Key: []string{"family", "product", "customer"}})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if len(h.Series) != tc.series || h.Layout != "long" {
+				t.Errorf("ReadHistory: %d series in the %s layout, want %d in the long one", len(h.Series), h.Layout, tc.series)
+			}
+			for _, s := range h.Series {
+				if strings.Count(s.Name, "/") != 2 {
+					t.Errorf("series %q has not 3 levels", s.Name)
+				}
+			}
+		})
+	}
+}
+
+// TestPortfolioVaried checks the design documented on portfolio: intermittent
+// series with months of no orders, a few short histories, every kind of
+// customer, and series that do not change when more series or other seeds
+// are asked for.
+func TestPortfolioVaried(t *testing.T) {
+	tab := portfolio(1, 300, 94)
+	short, zeros, kinds := 0, 0, map[string]bool{}
+	for _, s := range tab.series {
+		if len(s.values) < 94 {
+			short++
+			if len(s.values) < 24 {
+				t.Errorf("%v has %d values, want at least 24", s.keys, len(s.values))
+			}
+		}
+		if slices.Contains(s.values, 0) {
+			zeros++
+		}
+		kinds[strings.TrimRight(s.keys[2], "-0123456789")] = true
+	}
+	// One series in twenty is short: 15 expected of 300, binomial sd
+	// sqrt(300*0.05*0.95) = 3.8 (hand calculation); accept 5..30.
+	if short < 5 || short > 30 {
+		t.Errorf("%d short series, want about 15", short)
+	}
+	// Cafes and shops (about half the series) are intermittent with chance
+	// 0.5 and 0.4; want at least 20 series with a month of no orders.
+	if zeros < 20 {
+		t.Errorf("%d series with zeros, want at least 20", zeros)
+	}
+	for _, k := range []string{"grocer-north", "schools", "cafe-row", "farm-shop", "grocer", "cafe", "shop", "school"} {
+		if !kinds[k] {
+			t.Errorf("no customer %q in the default portfolio", k)
+		}
+	}
+	// Each series draws from its own stream: the 50 series of a smaller
+	// portfolio are among the 300, with the same values.
+	all := map[[3]string][]float64{}
+	for _, s := range tab.series {
+		all[s.keys] = s.values
+	}
+	for _, s := range portfolio(1, 50, 94).series {
+		if !slices.Equal(all[s.keys], s.values) {
+			t.Errorf("%v differs between 50 and 300 series", s.keys)
+		}
+	}
+}
+
+// TestPortfolioFileUpToDate checks that the committed example is the
+// generator's default output. Regenerate it with
+//
+//	go run ./examples/generate -kind portfolio -out examples/portfolio/history.csv
+func TestPortfolioFileUpToDate(t *testing.T) {
+	committed, err := os.ReadFile(filepath.Join("..", "portfolio", "history.csv"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Equal(committed, runOK(t, "-kind", "portfolio")) {
+		t.Error("examples/portfolio/history.csv differs from the generator's output; regenerate it")
+	}
+	// The plan draft (examples/portfolio/plan.yaml) counts on these series:
+	// grocer-hill never bought whole milk in litre bottles (the account adds
+	// it as a new series), and grocer-east, which leaves, buys some of all
+	// five families.
+	names := map[string]bool{}
+	for _, s := range portfolio(1, portfolioSeries, portfolioPoints).series {
+		names[strings.Join(s.keys[:], "/")] = true
+	}
+	if names["milk/whole-1l/grocer-hill"] {
+		t.Error("grocer-hill buys milk/whole-1l; plan.yaml adds it as a new series")
+	}
+	for _, n := range []string{"milk/semi-1l/grocer-hill", "milk/whole-2l/grocer-hill", "yoghurt/strawberry-125g/grocer-hill"} {
+		if !names[n] {
+			t.Errorf("no series %s; plan.yaml scopes the account over it", n)
+		}
+	}
+	for _, f := range []string{"milk", "yoghurt", "cream", "cheese", "butter"} {
+		found := false
+		for n := range names {
+			found = found || strings.HasPrefix(n, f+"/") && strings.HasSuffix(n, "/grocer-east")
+		}
+		if !found {
+			t.Errorf("grocer-east buys no %s", f)
+		}
 	}
 }
