@@ -78,3 +78,27 @@ func TestInputChanges(t *testing.T) {
 		}
 	}
 }
+
+// TestPortfolioExample: the portfolio example's scenario file decodes,
+// selects every series of its history through its key and pattern, and
+// its scopes and resources match series of that history (File.CheckSeries);
+// Read then refuses it, since plans of several series are not built yet.
+func TestPortfolioExample(t *testing.T) {
+	f, err := scenario.Load(filepath.Join("..", "..", "examples", "portfolio", "plan.yaml"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	in, err := ReadSelection(f)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(in.Selected) != 300 || len(in.Levels) != 3 {
+		t.Fatalf("%d series selected, levels %v", len(in.Selected), in.Levels)
+	}
+	if err := f.CheckSeries(in.Selected, nil); err != nil {
+		t.Errorf("CheckSeries: %v", err)
+	}
+	if _, err := Read(f); err == nil || !strings.Contains(err.Error(), "plans of several series") {
+		t.Errorf("Read: %v, want the refusal of several series", err)
+	}
+}
