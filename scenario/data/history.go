@@ -204,24 +204,43 @@ type cell struct {
 	line, col int
 }
 
-// A row is one data row. For the long layout series holds the series name
-// and values one cell; for the wide layout values holds one cell per series.
-type row struct {
-	period forecast.Period
-	label  cell
-	series cell
-	keys   []cell // the key cells, with ReadOptions.Key
-	values []cell
-	nums   []float64 // parsed values, NaN when missing
+// A pos is the 1-based line and column of a cell.
+type pos struct{ line, col int }
+
+// A point is one row of one series: its period, its value (NaN when
+// missing), and where its label and its value cell are.
+type point struct {
+	period       forecast.Period
+	v            float64
+	label, value pos
 }
 
-// A column is one series being read: its header (wide layout) and the rows
-// that belong to it, with the index of its value cell in row.values.
+// A column is one series being read: its header cell (wide layout), the
+// header of its value cells (for ParseError.Field) and its points in file
+// order.
 type column struct {
 	name   string
 	header cell
-	rows   []*row
-	vi     []int
+	field  string
+	pts    []point
+}
+
+// A slotKind says what a cell of a long row holds.
+type slotKind int
+
+const (
+	slotLabel  slotKind = iota // the period label
+	slotSeries                 // the series name
+	slotKey                    // a key cell of ReadOptions.Key
+	slotValue                  // the value
+)
+
+// A slot is a cell that each long row checks: its column index, what it
+// holds and, for a key cell, its index in ReadOptions.Key.
+type slot struct {
+	col  int
+	kind slotKind
+	key  int
 }
 
 type historyReader struct {
@@ -237,21 +256,37 @@ type historyReader struct {
 	keyFields []string
 	// field names of the period and value columns, for ParseError.Field
 	periodField, valueField, seriesField string
-	rows                                 []*row
-	cols                                 []*column
+	// the cells a long row checks, in column order, so that the first
+	// problem met is the leftmost one
+	slots []slot
+
+	cols   []*column
+	byName map[string]*column // long layout: the series by name
+	last   *column            // long layout: the series of the last row
+	name   []byte             // long layout: the series name of this row
+	nrows  int                // data rows read
 
 	form     forecast.Frequency // frequency of the label form
 	formCell cell               // first label, where the form was set
+	anchor   forecast.Period    // period of the first label
+	// first date label that does not fall on the weekday of the first
+	// one (dates only), and its period
+	offDay   *cell
+	offDayAt forecast.Period
 }
 
 func (hr *historyReader) errAt(c cell, field string, err error) *ParseError {
 	return &ParseError{File: hr.file, Line: c.line, Column: c.col, Field: field, Err: err}
 }
 
+func (hr *historyReader) errPos(p pos, field string, err error) *ParseError {
+	return &ParseError{File: hr.file, Line: p.line, Column: p.col, Field: field, Err: err}
+}
+
 var utf8BOM = []byte{0xEF, 0xBB, 0xBF}
 
-// readRows reads the header and the raw data rows and sorts the rows into
-// columns.
+// readRows reads the header and the data rows, checks each row and adds
+// its values to the series they belong to.
 func (hr *historyReader) readRows(r io.Reader) error {
 	br := bufio.NewReader(r)
 	if b, err := br.Peek(len(utf8BOM)); err == nil && bytes.Equal(b, utf8BOM) {
@@ -260,91 +295,188 @@ func (hr *historyReader) readRows(r io.Reader) error {
 	cr := csv.NewReader(br)
 	cr.FieldsPerRecord = -1 // checked here, so that blank rows of any width pass
 	cr.TrimLeadingSpace = true
-	var (
-		byName  = map[string]*column{}
-		lastRow int // line of the last row read, for the no-data error
-	)
+	cr.ReuseRecord = true
+	lastRow := 0 // line of the last row read, for the no-data error
 	for {
 		rec, err := cr.Read()
 		if err == io.EOF {
 			break
 		}
 		if err != nil {
-			var pe *csv.ParseError
-			if errors.As(err, &pe) {
-				return &ParseError{File: hr.file, Line: pe.Line, Column: pe.Column, Err: pe.Err}
-			}
-			var own *ParseError // from a BoundedReader: it names the file already
-			if errors.As(err, &own) {
-				return own
-			}
-			return fmt.Errorf("%s: %w", hr.file, err)
+			return hr.csvError(err)
 		}
-		cells := make([]cell, len(rec))
-		blank := true
-		for i, s := range rec {
-			line, col := cr.FieldPos(i)
-			cells[i] = cell{text: strings.TrimSpace(s), line: line, col: col}
-			if cells[i].text != "" {
-				blank = false
-			}
-		}
-		if blank {
+		if blankRecord(rec) {
 			continue
 		}
-		lastRow = cells[0].line
-		if hr.header == nil {
-			if err := hr.readHeader(cells); err != nil {
-				return err
-			}
-			continue
-		}
-		if len(cells) != len(hr.header) {
-			c := cell{line: cells[0].line, col: 1}
-			if len(cells) > len(hr.header) {
-				c = cells[len(hr.header)]
-			}
-			return hr.errAt(c, "", fmt.Errorf("%w: %d cells, but the header (line %d) has %d",
-				csv.ErrFieldCount, len(cells), hr.header[0].line, len(hr.header)))
-		}
-		if hr.long {
-			rw := &row{label: cells[hr.periodCol], series: cells[hr.seriesCol], values: []cell{cells[hr.valueCol]}}
-			if hr.keyCols != nil {
-				rw.keys = make([]cell, len(hr.keyCols))
-				for i, k := range hr.keyCols {
-					rw.keys[i] = cells[k]
-				}
-				rw.series = joinKeys(rw.keys)
-			}
-			if err := hr.parseRow(rw); err != nil {
-				return err
-			}
-			c := byName[rw.series.text]
-			if c == nil {
-				c = &column{name: rw.series.text, header: rw.series}
-				byName[c.name] = c
-				hr.cols = append(hr.cols, c)
-			}
-			c.rows = append(c.rows, rw)
-			c.vi = append(c.vi, 0)
-			hr.rows = append(hr.rows, rw)
-		} else {
-			rw := &row{label: cells[0], values: cells[1:]}
-			if err := hr.parseRow(rw); err != nil {
-				return err
-			}
-			for i, c := range hr.cols {
-				c.rows = append(c.rows, rw)
-				c.vi = append(c.vi, i)
-			}
-			hr.rows = append(hr.rows, rw)
+		lastRow, _ = cr.FieldPos(0)
+		if err := hr.readRecord(cr, rec); err != nil {
+			return err
 		}
 	}
 	if hr.header == nil {
 		return &ParseError{File: hr.file, Err: fmt.Errorf("%w: the file is empty", ErrNoSeries)}
 	}
-	if len(hr.rows) == 0 {
+	if hr.nrows == 0 {
 		return &ParseError{File: hr.file, Line: lastRow, Err: fmt.Errorf("%w: no data rows after the header", ErrNoSeries)}
+	}
+	return nil
+}
+
+// csvError turns an error of the CSV reader into the error ReadHistory
+// returns.
+func (hr *historyReader) csvError(err error) error {
+	var pe *csv.ParseError
+	if errors.As(err, &pe) {
+		return &ParseError{File: hr.file, Line: pe.Line, Column: pe.Column, Err: pe.Err}
+	}
+	var own *ParseError // from a BoundedReader: it names the file already
+	if errors.As(err, &own) {
+		return own
+	}
+	return fmt.Errorf("%s: %w", hr.file, err)
+}
+
+// blankRecord reports whether every cell of rec is empty or spaces.
+func blankRecord(rec []string) bool {
+	for _, s := range rec {
+		if strings.TrimSpace(s) != "" {
+			return false
+		}
+	}
+	return true
+}
+
+// cellAt returns cell i of the record cr has just read.
+func cellAt(cr *csv.Reader, rec []string, i int) cell {
+	line, col := cr.FieldPos(i)
+	return cell{text: strings.TrimSpace(rec[i]), line: line, col: col}
+}
+
+// readRecord reads one row that is not blank: the header, or a data row.
+func (hr *historyReader) readRecord(cr *csv.Reader, rec []string) error {
+	if hr.header == nil {
+		cells := make([]cell, len(rec))
+		for i := range rec {
+			cells[i] = cellAt(cr, rec, i)
+		}
+		if err := hr.readHeader(cells); err != nil {
+			return err
+		}
+		if hr.long {
+			hr.setSlots()
+		}
+		return nil
+	}
+	if len(rec) != len(hr.header) {
+		line, _ := cr.FieldPos(0)
+		c := cell{line: line, col: 1}
+		if len(rec) > len(hr.header) {
+			c = cellAt(cr, rec, len(hr.header))
+		}
+		return hr.errAt(c, "", fmt.Errorf("%w: %d cells, but the header (line %d) has %d",
+			csv.ErrFieldCount, len(rec), hr.header[0].line, len(hr.header)))
+	}
+	hr.nrows++
+	if hr.long {
+		return hr.readLongRow(cr, rec)
+	}
+	return hr.readWideRow(cr, rec)
+}
+
+// setSlots lists the cells a long row checks, in column order.
+func (hr *historyReader) setSlots() {
+	hr.slots = []slot{{col: hr.periodCol, kind: slotLabel}, {col: hr.valueCol, kind: slotValue}}
+	if hr.keyCols == nil {
+		hr.slots = append(hr.slots, slot{col: hr.seriesCol, kind: slotSeries})
+	}
+	for i, k := range hr.keyCols {
+		hr.slots = append(hr.slots, slot{col: k, kind: slotKey, key: i})
+	}
+	slices.SortFunc(hr.slots, func(a, b slot) int { return cmp.Compare(a.col, b.col) })
+	hr.byName = make(map[string]*column, 1024)
+}
+
+// readLongRow checks the cells of a long data row from the left and adds
+// its value to its series.
+func (hr *historyReader) readLongRow(cr *csv.Reader, rec []string) error {
+	var pt point
+	for _, s := range hr.slots {
+		c := cellAt(cr, rec, s.col)
+		switch s.kind {
+		case slotLabel:
+			p, err := hr.parseLabel(c)
+			if err != nil {
+				return err
+			}
+			pt.period, pt.label = p, pos{c.line, c.col}
+		case slotSeries:
+			if c.text == "" {
+				return hr.errAt(c, hr.seriesField, fmt.Errorf("%w: no series name", ErrEmptyCell))
+			}
+		case slotKey:
+			if err := hr.checkKeyCell(c, s.key); err != nil {
+				return err
+			}
+		case slotValue:
+			v, err := parseValue(c.text)
+			if err != nil {
+				return hr.errAt(c, hr.valueField, err)
+			}
+			pt.v, pt.value = v, pos{c.line, c.col}
+		}
+	}
+	c := hr.columnOf(hr.seriesName(rec))
+	c.pts = append(c.pts, pt)
+	return nil
+}
+
+// seriesName returns the series name of a checked long row, in a buffer
+// that the next row reuses.
+func (hr *historyReader) seriesName(rec []string) []byte {
+	if hr.keyCols == nil {
+		hr.name = append(hr.name[:0], strings.TrimSpace(rec[hr.seriesCol])...)
+		return hr.name
+	}
+	hr.name = appendKey(hr.name[:0], rec, hr.keyCols)
+	return hr.name
+}
+
+// columnOf returns the series called name, adding it after the others
+// when it is new. Rows of one series usually follow each other, so the
+// series of the last row is tried first.
+func (hr *historyReader) columnOf(name []byte) *column {
+	if hr.last != nil && hr.last.name == string(name) {
+		return hr.last
+	}
+	c := hr.byName[string(name)]
+	if c == nil {
+		c = &column{name: string(name), field: hr.valueField}
+		if hr.last != nil {
+			// Series tend to have the same length.
+			c.pts = make([]point, 0, len(hr.last.pts))
+		}
+		hr.byName[c.name] = c
+		hr.cols = append(hr.cols, c)
+	}
+	hr.last = c
+	return c
+}
+
+// readWideRow checks the cells of a wide data row from the left and adds
+// one value to each series.
+func (hr *historyReader) readWideRow(cr *csv.Reader, rec []string) error {
+	label := cellAt(cr, rec, 0)
+	p, err := hr.parseLabel(label)
+	if err != nil {
+		return err
+	}
+	for i, c := range hr.cols {
+		vc := cellAt(cr, rec, i+1)
+		v, err := parseValue(vc.text)
+		if err != nil {
+			return hr.errAt(vc, c.field, err)
+		}
+		c.pts = append(c.pts, point{period: p, v: v, label: pos{label.line, label.col}, value: pos{vc.line, vc.col}})
 	}
 	return nil
 }
@@ -394,7 +526,7 @@ func (hr *historyReader) readHeader(cells []cell) error {
 				return hr.errAt(c, "", fmt.Errorf("%w: %q is already column %d", ErrDuplicateColumn, c.text, j+1))
 			}
 			seen[k] = i + 1
-			hr.cols = append(hr.cols, &column{name: c.text, header: c})
+			hr.cols = append(hr.cols, &column{name: c.text, header: c, field: c.text})
 		}
 		if len(hr.cols) == 0 {
 			return hr.errAt(cells[0], "", fmt.Errorf("%w: the header has a period column but no series columns", ErrNoSeries))
@@ -412,78 +544,31 @@ func (hr *historyReader) readHeader(cells []cell) error {
 		ErrMissingColumn, strings.Join(texts, ",")))
 }
 
-// fieldOf returns the header of value cell i of a row.
-func (hr *historyReader) fieldOf(i int) string {
-	if hr.long {
-		return hr.valueField
+// parseLabel reads the label of a row in its own form (so that a month 13,
+// a 30 February or a week 53 that does not exist is refused) and checks
+// the form against the labels before it.
+func (hr *historyReader) parseLabel(c cell) (forecast.Period, error) {
+	if c.text == "" {
+		return forecast.Period{}, hr.errAt(c, hr.periodField, fmt.Errorf("%w: no period label", forecast.ErrBadPeriod))
 	}
-	return hr.cols[i].name
-}
-
-// parseRow checks the series name (long layout) and the label form of a
-// data row and reads its numbers, cell by cell from the left.
-func (hr *historyReader) parseRow(rw *row) error {
-	type check struct {
-		c   cell
-		run func() error
-	}
-	checks := []check{{rw.label, func() error { return hr.parseLabel(rw) }}}
-	if hr.keyCols != nil {
-		for i, c := range rw.keys {
-			checks = append(checks, check{c, func() error { return hr.checkKeyCell(c, i) }})
-		}
-	} else if hr.long {
-		checks = append(checks, check{rw.series, func() error {
-			if rw.series.text == "" {
-				return hr.errAt(rw.series, hr.seriesField, fmt.Errorf("%w: no series name", ErrEmptyCell))
-			}
-			return nil
-		}})
-	}
-	rw.nums = make([]float64, len(rw.values))
-	for i, c := range rw.values {
-		checks = append(checks, check{c, func() error {
-			v, err := parseValue(c.text)
-			if err != nil {
-				return hr.errAt(c, hr.fieldOf(i), err)
-			}
-			rw.nums[i] = v
-			return nil
-		}})
-	}
-	slices.SortStableFunc(checks, func(a, b check) int {
-		return cmp.Or(cmp.Compare(a.c.line, b.c.line), cmp.Compare(a.c.col, b.c.col))
-	})
-	for _, ch := range checks {
-		if err := ch.run(); err != nil {
-			return err
-		}
-	}
-	return nil
-}
-
-// parseLabel checks the label of a row against the form of the labels
-// before it.
-func (hr *historyReader) parseLabel(rw *row) error {
-	if rw.label.text == "" {
-		return hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: no period label", forecast.ErrBadPeriod))
-	}
-	lf, err := forecast.LabelFrequency(rw.label.text)
+	p, err := forecast.ParsePeriod(c.text, forecast.FreqUnknown)
 	if err != nil {
-		return hr.errAt(rw.label, hr.periodField, err)
+		return forecast.Period{}, hr.errAt(c, hr.periodField, err)
 	}
-	// Check the label itself (a month 13, a 30 February, a week 53
-	// that does not exist) in its own frequency.
-	if _, err := forecast.ParsePeriod(rw.label.text, lf); err != nil {
-		return hr.errAt(rw.label, hr.periodField, err)
+	switch lf := p.Freq; {
+	case hr.form == forecast.FreqUnknown:
+		hr.form, hr.formCell, hr.anchor = lf, c, p
+		hr.formCell.text = strings.Clone(c.text)
+	case lf != hr.form:
+		return forecast.Period{}, hr.errAt(c, hr.periodField, fmt.Errorf("%w: %q is %s, but the labels before it are %s (line %d)",
+			forecast.ErrBadPeriod, c.text, labelKind(lf, false), labelKind(hr.form, true), hr.formCell.line))
+	case lf == forecast.Daily && hr.offDay == nil && p.Sub(hr.anchor)%7 != 0:
+		// An error only if the dates turn out to be weeks.
+		off := c
+		off.text = strings.Clone(c.text)
+		hr.offDay, hr.offDayAt = &off, p
 	}
-	if hr.form == forecast.FreqUnknown {
-		hr.form, hr.formCell = lf, rw.label
-	} else if lf != hr.form {
-		return hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: %q is %s, but the labels before it are %s (line %d)",
-			forecast.ErrBadPeriod, rw.label.text, labelKind(lf, false), labelKind(hr.form, true), hr.formCell.line))
-	}
-	return nil
+	return p, nil
 }
 
 // parseValue reads one value cell with ParseDecimal; an empty cell is a
@@ -511,6 +596,8 @@ func labelKind(f forecast.Frequency, plural bool) string {
 }
 
 // frequency returns the frequency of the file: the forced one if it fits
+
+// frequency returns the frequency of the file: the forced one if it fits
 // the labels, else the one the labels give.
 func (hr *historyReader) frequency() (forecast.Frequency, error) {
 	if f := hr.opt.Freq; f != forecast.FreqUnknown {
@@ -531,10 +618,8 @@ func (hr *historyReader) frequency() (forecast.Frequency, error) {
 	// decides between days and weeks.
 	minGap := 0
 	for _, c := range hr.cols {
-		for i := 1; i < len(c.rows); i++ {
-			a, _ := forecast.ParsePeriod(c.rows[i-1].label.text, forecast.Daily)
-			b, _ := forecast.ParsePeriod(c.rows[i].label.text, forecast.Daily)
-			if d := b.Sub(a); d > 0 && (minGap == 0 || d < minGap) {
+		for i := 1; i < len(c.pts); i++ {
+			if d := c.pts[i].period.Sub(c.pts[i-1].period); d > 0 && (minGap == 0 || d < minGap) {
 				minGap = d
 			}
 		}
@@ -545,23 +630,26 @@ func (hr *historyReader) frequency() (forecast.Frequency, error) {
 	return forecast.Daily, nil
 }
 
-// parsePeriods reads every label in frequency f.
+// parsePeriods turns the periods, read in the frequency of their form,
+// into periods of frequency f: dates become weeks that start on them, all
+// on the weekday of the first one.
 func (hr *historyReader) parsePeriods(f forecast.Frequency) error {
-	var anchor forecast.Period // first week, for the weekday check
-	for _, rw := range hr.rows {
-		p, err := forecast.ParsePeriod(rw.label.text, f)
-		if err != nil {
-			return hr.errAt(rw.label, hr.periodField, err) // not reached: checked before
+	if f != forecast.Weekly || hr.form != forecast.Daily {
+		return nil
+	}
+	if hr.offDay != nil {
+		wa, wp := hr.anchor.Start().Weekday(), hr.offDayAt.Start().Weekday()
+		return hr.errAt(*hr.offDay, hr.periodField, fmt.Errorf("%w: %s is a %s, but the weeks of this file start on %s (line %d)",
+			forecast.ErrBadPeriod, hr.offDay.text, wp, wa, hr.formCell.line))
+	}
+	week, err := forecast.ParsePeriod(hr.formCell.text, forecast.Weekly)
+	if err != nil {
+		return hr.errAt(hr.formCell, hr.periodField, err) // not reached: checked before
+	}
+	for _, c := range hr.cols {
+		for i := range c.pts {
+			c.pts[i].period = week.Add(c.pts[i].period.Sub(hr.anchor) / 7)
 		}
-		if f == forecast.Weekly && hr.form == forecast.Daily {
-			if anchor.IsZero() {
-				anchor = p
-			} else if wa, wp := anchor.Start().Weekday(), p.Start().Weekday(); wa != wp {
-				return hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: %s is a %s, but the weeks of this file start on %s (line %d)",
-					forecast.ErrBadPeriod, rw.label.text, wp, wa, hr.formCell.line))
-			}
-		}
-		rw.period = p
 	}
 	return nil
 }
@@ -587,29 +675,13 @@ func (hr *historyReader) build() (*History, error) {
 	// Order: periods increase within each series.
 	var first *ParseError
 	for _, c := range hr.cols {
-		seen := map[forecast.Period]int{}
-		for i, rw := range c.rows {
-			if l, ok := seen[rw.period]; ok {
-				first = earliest(first, hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w %s%s (first on line %d)",
-					ErrDuplicatePeriod, rw.period, hr.forSeries(c), l)))
-				break
-			}
-			seen[rw.period] = rw.label.line
-			if i == 0 {
-				continue
-			}
-			if prev := c.rows[i-1]; rw.period.Before(prev.period) {
-				first = earliest(first, hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: %s%s comes after %s (line %d)",
-					ErrUnsorted, rw.period, hr.forSeries(c), prev.period, prev.label.line)))
-				break
-			}
-		}
+		first = earliest(first, hr.checkOrder(c))
 	}
 	if first != nil {
 		return nil, first
 	}
 
-	h := &History{File: hr.file, Layout: "wide"}
+	h := &History{File: hr.file, Layout: "wide", Series: make([]forecast.Series, 0, len(hr.cols))}
 	if hr.long {
 		h.Layout = "long"
 	}
@@ -628,11 +700,45 @@ func (hr *historyReader) build() (*History, error) {
 	return h, nil
 }
 
+// comparePeriods orders periods of one frequency.
+func comparePeriods(a, b forecast.Period) int {
+	switch {
+	case a.Before(b):
+		return -1
+	case b.Before(a):
+		return 1
+	}
+	return 0
+}
+
+// checkOrder returns the first period of a series that repeats an earlier
+// one or comes before the one above it, or nil.
+func (hr *historyReader) checkOrder(c *column) *ParseError {
+	for i := 1; i < len(c.pts); i++ {
+		pt, prev := c.pts[i], c.pts[i-1]
+		if prev.period.Before(pt.period) {
+			continue
+		}
+		// The periods above increase, so a repeated one is found by
+		// bisection.
+		j, dup := slices.BinarySearchFunc(c.pts[:i], pt.period, func(q point, p forecast.Period) int {
+			return comparePeriods(q.period, p)
+		})
+		if dup {
+			return hr.errPos(pt.label, hr.periodField, fmt.Errorf("%w %s%s (first on line %d)",
+				ErrDuplicatePeriod, pt.period, hr.forSeries(c), c.pts[j].label.line))
+		}
+		return hr.errPos(pt.label, hr.periodField, fmt.Errorf("%w: %s%s comes after %s (line %d)",
+			ErrUnsorted, pt.period, hr.forSeries(c), prev.period, prev.label.line))
+	}
+	return nil
+}
+
 // series turns one column into a Series, checking and filling its gaps.
 func (hr *historyReader) series(c *column) (forecast.Series, []Filled, *ParseError) {
-	lo, hi := -1, -1 // first and last row with a value
-	for i, rw := range c.rows {
-		if !math.IsNaN(rw.nums[c.vi[i]]) {
+	lo, hi := -1, -1 // first and last point with a value
+	for i, pt := range c.pts {
+		if !math.IsNaN(pt.v) {
 			if lo < 0 {
 				lo = i
 			}
@@ -642,43 +748,36 @@ func (hr *historyReader) series(c *column) (forecast.Series, []Filled, *ParseErr
 	if lo < 0 {
 		at, field := c.header, ""
 		if hr.long {
-			at, field = c.rows[0].values[0], hr.valueField
+			at, field = cell{line: c.pts[0].value.line, col: c.pts[0].value.col}, hr.valueField
 		}
 		return forecast.Series{}, nil, hr.errAt(at, field, fmt.Errorf("%w: series %q has no values", ErrEmptyCell, c.name))
 	}
-	rows, vi := c.rows[lo:hi+1], c.vi[lo:hi+1]
-	start := rows[0].period
-	n := rows[len(rows)-1].period.Sub(start) + 1
+	pts := c.pts[lo : hi+1]
+	start := pts[0].period
+	n := pts[len(pts)-1].period.Sub(start) + 1
 	values := make([]float64, n)
-	lines := make([]int, n)
+	var lines []int // line of each value, when a fill mode may need it
+	if hr.opt.Fill != FillNone {
+		lines = make([]int, n)
+	}
 	for k := range values {
 		values[k] = math.NaN()
 	}
-	for i, rw := range rows {
+	for i, pt := range pts {
 		if i > 0 {
-			prev := rows[i-1]
-			d := rw.period.Sub(prev.period)
-			if d > maxFillGap && hr.opt.Fill != FillNone {
-				return forecast.Series{}, nil, hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: %d periods%s from %s to %s (between line %d and %d); too long to fill",
-					ErrGap, d-1, hr.forSeries(c), prev.period.Add(1), rw.period.Add(-1), prev.label.line, rw.label.line))
-			}
-			if d > 1 && hr.opt.Fill == FillNone {
-				what := fmt.Sprintf("value for %s", prev.period.Add(1))
-				if d > 2 {
-					what = fmt.Sprintf("values for %s to %s", prev.period.Add(1), rw.period.Add(-1))
-				}
-				return forecast.Series{}, nil, hr.errAt(rw.label, hr.periodField, fmt.Errorf("%w: no %s%s (between line %d and %d); use --fill zero|interpolate",
-					ErrGap, what, hr.forSeries(c), prev.label.line, rw.label.line))
+			if err := hr.checkGap(c, pts[i-1], pt); err != nil {
+				return forecast.Series{}, nil, err
 			}
 		}
-		k := rw.period.Sub(start)
-		v := rw.nums[vi[i]]
-		if math.IsNaN(v) && hr.opt.Fill == FillNone {
-			return forecast.Series{}, nil, hr.errAt(rw.values[vi[i]], hr.fieldOf(vi[i]), fmt.Errorf("%w for %s inside series %q (a %w); use --fill zero|interpolate",
-				ErrEmptyCell, rw.period, c.name, ErrGap))
+		k := pt.period.Sub(start)
+		if math.IsNaN(pt.v) && hr.opt.Fill == FillNone {
+			return forecast.Series{}, nil, hr.errPos(pt.value, c.field, fmt.Errorf("%w for %s inside series %q (a %w); use --fill zero|interpolate",
+				ErrEmptyCell, pt.period, c.name, ErrGap))
 		}
-		values[k] = v
-		lines[k] = rw.label.line
+		values[k] = pt.v
+		if lines != nil {
+			lines[k] = pt.label.line
+		}
 	}
 	var filled []Filled
 	if hr.opt.Fill != FillNone {
@@ -687,6 +786,25 @@ func (hr *historyReader) series(c *column) (forecast.Series, []Filled, *ParseErr
 		}
 	}
 	return forecast.Series{Name: c.name, Start: start, Values: values}, filled, nil
+}
+
+// checkGap checks the periods between two consecutive points of a
+// series: none, unless a fill mode may fill them.
+func (hr *historyReader) checkGap(c *column, prev, pt point) *ParseError {
+	d := pt.period.Sub(prev.period)
+	if d > maxFillGap && hr.opt.Fill != FillNone {
+		return hr.errPos(pt.label, hr.periodField, fmt.Errorf("%w: %d periods%s from %s to %s (between line %d and %d); too long to fill",
+			ErrGap, d-1, hr.forSeries(c), prev.period.Add(1), pt.period.Add(-1), prev.label.line, pt.label.line))
+	}
+	if d > 1 && hr.opt.Fill == FillNone {
+		what := fmt.Sprintf("value for %s", prev.period.Add(1))
+		if d > 2 {
+			what = fmt.Sprintf("values for %s to %s", prev.period.Add(1), pt.period.Add(-1))
+		}
+		return hr.errPos(pt.label, hr.periodField, fmt.Errorf("%w: no %s%s (between line %d and %d); use --fill zero|interpolate",
+			ErrGap, what, hr.forSeries(c), prev.label.line, pt.label.line))
+	}
+	return nil
 }
 
 // ReadFile reads the history file at path with opt, under the size limits

@@ -66,12 +66,14 @@ func (hr *historyReader) checkKeyCell(c cell, i int) error {
 	return nil
 }
 
-// joinKeys returns the series cell of a row from its key cells: their
-// texts joined by "/", at the position of the first one.
-func joinKeys(keys []cell) cell {
-	texts := make([]string, len(keys))
-	for i, k := range keys {
-		texts[i] = k.text
+// appendKey appends the series name of a row to b: its key cells (the
+// columns cols of rec), trimmed, joined by "/".
+func appendKey(b []byte, rec []string, cols []int) []byte {
+	for i, k := range cols {
+		if i > 0 {
+			b = append(b, '/')
+		}
+		b = append(b, strings.TrimSpace(rec[k])...)
 	}
-	return cell{text: strings.Join(texts, "/"), line: keys[0].line, col: keys[0].col}
+	return b
 }
