@@ -125,6 +125,14 @@ func TestReadHistory(t *testing.T) {
 			filled: []wantFilled{{"kiosk", "2026-03-18", 4, 0}},
 		},
 		{
+			// Two series of weeks from the same Wednesday (see above),
+			// their rows interleaved; b starts two weeks after a.
+			name:   "long weekly dates, interleaved series",
+			input:  "series,period,value\na,2026-03-04,1\nb,2026-03-18,5\na,2026-03-11,2\nb,2026-03-25,6\n",
+			layout: "long", freq: forecast.Weekly,
+			want: []wantSeries{{"a", "2026-03-04", []float64{1, 2}}, {"b", "2026-03-18", []float64{5, 6}}},
+		},
+		{
 			// Only 14-day steps: still weeks, and forcing weeks gives the
 			// same. The missing week is filled with 0.
 			name:   "forced weekly on dates, zero fill",
@@ -511,6 +519,25 @@ func TestReadHistoryErrors(t *testing.T) {
 			input: "period,a\n2026-03-04,1\n2026-03-11,2\n§2026-03-19,3\n",
 			want:  []error{forecast.ErrBadPeriod},
 			msg:   "2026-03-19 is a Thursday, but the weeks of this file start on Wednesday (line 2)",
+		},
+		{
+			// Weeks (smallest spacing 7 days) from Wednesday 2026-03-04;
+			// the first date off that weekday in the file is b's
+			// 2026-03-05, a Thursday (one day after a Wednesday), although
+			// a's rows come first in the series order.
+			name:  "weekly dates off the weekday, long, earliest row",
+			input: "series,period,value\na,2026-03-04,1\nb,§2026-03-05,1\na,2026-03-11,2\nb,2026-03-12,2\na,2026-03-19,3\n",
+			want:  []error{forecast.ErrBadPeriod},
+			field: "period",
+			msg:   "2026-03-05 is a Thursday, but the weeks of this file start on Wednesday (line 2)",
+		},
+		{
+			// The periods above the last row increase, and it repeats the
+			// second one (line 3), not the one just above it.
+			name:  "duplicate of an earlier period, long",
+			input: "series,period,value\na,2026-01,1\na,2026-02,2\na,2026-03,3\na,2026-04,4\na,§2026-02,5\n",
+			want:  []error{ErrDuplicatePeriod},
+			msg:   `duplicate period 2026-02 of series "a" (first on line 3)`,
 		},
 		{
 			name:  "forced weeks, date off the weekday",

@@ -82,6 +82,19 @@ func TestReadHistoryKeyErrors(t *testing.T) {
 			opt:   key, want: forecast.ErrBadPeriod, field: "period",
 		},
 		{
+			// The key lists family first, but product is the leftmost
+			// bad cell of the row.
+			name:  "key cells checked in column order",
+			input: "product,family,period,value\n§whole/1l,,2026-01,1\n",
+			opt:   key, want: ErrBadKey, field: "product",
+		},
+		{
+			// The value comes before the key cells in the row.
+			name:  "value before the key cells",
+			input: "period,value,family,product\n2026-01,§1_000,,whole/1l\n",
+			opt:   key, want: ErrBadNumber, field: "value",
+		},
+		{
 			name:  "missing key column",
 			input: "§family,period,value\nmilk,2026-01,1\n",
 			opt:   key, want: ErrMissingColumn, msg: `no key column "product"`,
