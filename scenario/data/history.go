@@ -264,7 +264,9 @@ type historyReader struct {
 	byName map[string]*column // long layout: the series by name
 	last   *column            // long layout: the series of the last row
 	name   []byte             // long layout: the series name of this row
-	nrows  int                // data rows read
+	// long layout: the key cells of this row, trimmed, in key order
+	keyText []string
+	nrows   int // data rows read
 
 	form     forecast.Frequency // frequency of the label form
 	formCell cell               // first label, where the form was set
@@ -393,6 +395,7 @@ func (hr *historyReader) setSlots() {
 		hr.slots = append(hr.slots, slot{col: k, kind: slotKey, key: i})
 	}
 	slices.SortFunc(hr.slots, func(a, b slot) int { return cmp.Compare(a.col, b.col) })
+	hr.keyText = make([]string, len(hr.keyCols))
 	hr.byName = make(map[string]*column, 1024)
 }
 
@@ -417,6 +420,7 @@ func (hr *historyReader) readLongRow(cr *csv.Reader, rec []string) error {
 			if err := hr.checkKeyCell(c, s.key); err != nil {
 				return err
 			}
+			hr.keyText[s.key] = c.text
 		case slotValue:
 			v, err := parseValue(c.text)
 			if err != nil {
@@ -425,20 +429,14 @@ func (hr *historyReader) readLongRow(cr *csv.Reader, rec []string) error {
 			pt.v, pt.value = v, pos{c.line, c.col}
 		}
 	}
-	c := hr.columnOf(hr.seriesName(rec))
-	c.pts = append(c.pts, pt)
-	return nil
-}
-
-// seriesName returns the series name of a checked long row, in a buffer
-// that the next row reuses.
-func (hr *historyReader) seriesName(rec []string) []byte {
 	if hr.keyCols == nil {
 		hr.name = append(hr.name[:0], strings.TrimSpace(rec[hr.seriesCol])...)
-		return hr.name
+	} else {
+		hr.name = appendKey(hr.name[:0], hr.keyText)
 	}
-	hr.name = appendKey(hr.name[:0], rec, hr.keyCols)
-	return hr.name
+	c := hr.columnOf(hr.name)
+	c.pts = append(c.pts, pt)
+	return nil
 }
 
 // columnOf returns the series called name, adding it after the others

@@ -66,14 +66,14 @@ func (hr *historyReader) checkKeyCell(c cell, i int) error {
 	return nil
 }
 
-// appendKey appends the series name of a row to b: its key cells (the
-// columns cols of rec), trimmed, joined by "/".
-func appendKey(b []byte, rec []string, cols []int) []byte {
-	for i, k := range cols {
+// appendKey appends a series name to b: the trimmed key cells of a row,
+// in key order, joined by "/".
+func appendKey(b []byte, keys []string) []byte {
+	for i, k := range keys {
 		if i > 0 {
 			b = append(b, '/')
 		}
-		b = append(b, strings.TrimSpace(rec[k])...)
+		b = append(b, k...)
 	}
 	return b
 }

@@ -57,6 +57,9 @@ func longHistory(series, points int, keyed bool) []byte {
 // 120 values (1.2 million rows, about 50 MB) whose names are built from the
 // key columns family, product and customer. Target: at most 1 s per read on
 // one core (go test -run '^$' -bench ReadLong -cpu 1 ./scenario/data).
+// Measured on a shared 2-core AMD EPYC: 0.39 to 0.47 s, 1.24 million
+// allocations (one per row: the line's string in encoding/csv); encoding/csv
+// takes about half of the time.
 func BenchmarkReadLong10kx120(b *testing.B) {
 	benchRead(b, longHistory(10000, 120, true), ReadOptions{Key: []string{"family", "product", "customer"}}, 10000)
 }
