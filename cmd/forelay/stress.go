@@ -1,6 +1,7 @@
 package main
 
 import (
+	"forelay/scenario/plan"
 	"forelay/scenario/report"
 	"forelay/scenario/supply"
 
@@ -75,11 +76,15 @@ func stressRun(opts *StressOptions) error {
 	if err != nil {
 		return err
 	}
+	prod, err := plan.ReadProduction(p)
+	if err != nil {
+		return &inputError{err: err}
+	}
 	mc, err := simulate(p, &opts.Sim)
 	if err != nil {
 		return err
 	}
-	run, err := supply.Stress(mc, supply.StressSettings{Breach: opts.Breach, Opening: opts.OpeningStock})
+	run, err := supply.Stress(mc, supply.StressSettings{Breach: opts.Breach, Opening: opts.OpeningStock, Production: prod})
 	if err != nil {
 		return &inputError{err: err}
 	}

@@ -16,7 +16,7 @@ func TestFanChart(t *testing.T) {
 	if show != 36 || len(labels) != 40 || labels[0] != "2023-01" || labels[35] != "2025-12" || labels[36] != "2026-01" {
 		t.Fatalf("labels %q, %d of history", labels, show)
 	}
-	run, err := supply.Stress(simulated(t, p), supply.StressSettings{Breach: 0.1})
+	run, err := supply.Stress(simulated(t, p), supply.StressSettings{Breach: 0.1, Production: production(t, p)})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -27,7 +27,7 @@ const frozenStressCSV = "period,litres\n2026-01,650000\n2026-02,700000\n2026-03,
 // overload and idle capacity in the text, the document's fields.
 func TestStressFrozen(t *testing.T) {
 	p := supplyPlan(t, frozenStressBody, map[string]string{"prev.csv": frozenStressCSV})
-	run, err := supply.Stress(simulated(t, p), supply.StressSettings{Breach: 0.1, Opening: 1000})
+	run, err := supply.Stress(simulated(t, p), supply.StressSettings{Breach: 0.1, Opening: 1000, Production: production(t, p)})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -23,6 +23,16 @@ func supplyPlan(t *testing.T, body string, files map[string]string) *plan.Plan {
 	return p
 }
 
+// production reads p's frozen production plan (plan.ReadProduction).
+func production(t *testing.T, p *plan.Plan) *plan.Production {
+	t.Helper()
+	prod, err := plan.ReadProduction(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return prod
+}
+
 // simulated draws a few hundred paths of p, seeded.
 func simulated(t *testing.T, p *plan.Plan) *sim.Simulation {
 	t.Helper()

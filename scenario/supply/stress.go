@@ -1,14 +1,12 @@
 package supply
 
 import (
-	"forelay/scenario/data"
-	"forelay/scenario/plan"
-	"forelay/scenario/sim"
 	"math"
-	"os"
 	"slices"
 
-	"forelay/forecast"
+	"forelay/scenario"
+	"forelay/scenario/plan"
+	"forelay/scenario/sim"
 )
 
 // CapacityPerPeriod returns the capacity in each of the plan's periods
@@ -143,45 +141,32 @@ func CapacityRisk(ps *sim.PathSet, capacity []float64, threshold float64) Risk {
 }
 
 // FrozenProduction returns the production held at the previous plan for
-// each plan period, and where it came from: the values of the
-// production.plan CSV (read with data.ReadHistory at the history's
-// frequency; its only series, or the one named like the history's series)
-// when the file names one, else the baseline forecast ("baseline").
+// each plan period, and where it came from: the values of prod (read by
+// plan.ReadProduction) in the plan's periods when prod is not nil, else
+// the baseline forecast ("baseline").
 //
-// It returns a *data.ParseError naming the CSV (and its line) for a
-// bad file, or naming the scenario file's production.plan key when the
-// CSV holds several series and none is named like the history's, or does
-// not cover every plan period.
-func FrozenProduction(p *plan.Plan) (prod []float64, source string, err error) {
+// It returns a *data.ParseError naming the scenario file's
+// production.plan key when prod does not cover every plan period, or
+// when the file names a frozen production plan that prod does not carry.
+func FrozenProduction(p *plan.Plan, prod *plan.Production) (values []float64, source string, err error) {
 	pr := p.File.Production
-	if pr == nil || pr.Plan == "" {
-		return slices.Clone(p.Baseline), "baseline", nil
-	}
 	fail := func(format string, args ...any) error {
 		return p.File.ValueError("production.plan", pr.Pos, format, args...)
 	}
-	fh, err := os.Open(pr.Plan)
-	if err != nil {
-		return nil, "", fail("%v", err)
+	if prod == nil {
+		if pr != nil && pr.Mode == scenario.Frozen && pr.Plan != "" {
+			return nil, "", fail("%s was not read; read it with plan.ReadProduction before the stress run", pr.Plan)
+		}
+		return slices.Clone(p.Baseline), "baseline", nil
 	}
-	defer fh.Close()
-	h, err := data.ReadHistory(fh, pr.Plan, data.ReadOptions{Freq: p.History.Freq()})
-	if err != nil {
-		return nil, "", err
-	}
-	var ser forecast.Series
-	if len(h.Series) == 1 {
-		ser = h.Series[0]
-	} else if ser, err = h.Lookup(p.History.Name); err != nil {
-		return nil, "", fail("%v", err)
-	}
+	ser := prod.Series
 	first, last := p.Periods[0], p.Periods[len(p.Periods)-1]
 	i0, i1 := ser.Index(first), ser.Index(last)
 	if i0 < 0 || i1 >= ser.Len() {
 		return nil, "", fail("%s covers %s to %s, but the plan runs from %s to %s; the production plan must cover every plan period",
-			pr.Plan, ser.Start, ser.Period(ser.Len()-1), first, last)
+			prod.Path, ser.Start, ser.Period(ser.Len()-1), first, last)
 	}
-	return slices.Clone(ser.Values[i0 : i1+1]), pr.Plan, nil
+	return slices.Clone(ser.Values[i0 : i1+1]), prod.Path, nil
 }
 
 // StockProjection is the stock that builds up or runs down when

@@ -108,6 +108,16 @@ capacity: {units: 2000}
 production: {mode: frozen, plan: prev.csv}
 `
 
+// readFrozen reads p's production plan (plan.ReadProduction) and returns
+// FrozenProduction of it, or the first error.
+func readFrozen(p *plan.Plan) ([]float64, string, error) {
+	prod, err := plan.ReadProduction(p)
+	if err != nil {
+		return nil, "", err
+	}
+	return FrozenProduction(p, prod)
+}
+
 func TestFrozenProduction(t *testing.T) {
 	hist := testHistory(48) // 2022-01 .. 2025-12; the plan is 2026-01 .. 2026-03
 	for _, tc := range []struct {
@@ -128,7 +138,7 @@ func TestFrozenProduction(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			got, src, err := FrozenProduction(p)
+			got, src, err := readFrozen(p)
 			if tc.wantErr != nil {
 				var pe *data.ParseError
 				if !errors.As(err, &pe) {
@@ -151,7 +161,7 @@ func TestFrozenProduction(t *testing.T) {
 		})
 	}
 	p := buildTestPlan(t, strings.Replace(frozenBody, ", plan: prev.csv", "", 1), hist)
-	got, src, err := FrozenProduction(p)
+	got, src, err := FrozenProduction(p, nil)
 	if err != nil || src != "baseline" {
 		t.Fatalf("no plan CSV: %v, %q", err, src)
 	}
@@ -201,7 +211,7 @@ func TestOverload(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	prod, src, err := FrozenProduction(p)
+	prod, src, err := readFrozen(p)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -17,6 +17,10 @@ type StressSettings struct {
 	// Opening is the stock before the first period, for frozen
 	// production.
 	Opening float64
+	// Production is the frozen production plan (plan.ReadProduction);
+	// nil holds production at the baseline. A file that names a frozen
+	// production plan needs it read here (see FrozenProduction).
+	Production *plan.Production
 }
 
 // A StressRun is a simulated plan set against its capacity and, when the
@@ -51,11 +55,11 @@ type StressRun struct {
 // the plan's capacity (CapacityRisk with the Breach threshold) and, when
 // the file sets production: {mode: frozen}, projects the stock of each
 // scenario under the frozen production from the Opening stock
-// (FrozenProduction, ProjectStock). A production plan named without the
-// frozen mode is not read, and a note says so.
+// (FrozenProduction with s.Production, ProjectStock). A production plan
+// named without the frozen mode is not used, and a note says so.
 //
 // It returns the error of FrozenProduction for a production plan that
-// cannot be read or does not cover the plan.
+// does not cover the plan or was not read.
 func Stress(mc *sim.Simulation, s StressSettings) (*StressRun, error) {
 	p := mc.Plan
 	r := &StressRun{Plan: p, Sim: mc, Settings: s, Warnings: p.Warnings}
@@ -66,7 +70,7 @@ func Stress(mc *sim.Simulation, s StressSettings) (*StressRun, error) {
 	pr := p.File.Production
 	switch {
 	case pr != nil && pr.Mode == scenario.Frozen:
-		prod, src, err := FrozenProduction(p)
+		prod, src, err := FrozenProduction(p, s.Production)
 		if err != nil {
 			return nil, err
 		}

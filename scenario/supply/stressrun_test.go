@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"forelay/scenario/data"
+	"forelay/scenario/plan"
 	"forelay/scenario/sim"
 	"slices"
 	"strings"
@@ -24,7 +25,11 @@ func TestStress(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	s := StressSettings{Breach: 0.2, Opening: 1000}
+	read, err := plan.ReadProduction(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := StressSettings{Breach: 0.2, Opening: 1000, Production: read}
 	r, err := Stress(mc, s)
 	if err != nil {
 		t.Fatal(err)
@@ -33,7 +38,7 @@ func TestStress(t *testing.T) {
 		t.Fatalf("run %+v", r)
 	}
 	capacity := CapacityPerPeriod(p)
-	prod, src, err := FrozenProduction(p)
+	prod, src, err := FrozenProduction(p, read)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -93,20 +98,26 @@ func TestStressNotFrozen(t *testing.T) {
 }
 
 // TestStressBadProduction: a production plan that cannot be read is the
-// error of FrozenProduction, naming the CSV and its line.
+// error of plan.ReadProduction, naming the CSV and its line, and a stress
+// run of a frozen plan whose production plan was not read is refused,
+// never run on the baseline instead.
 func TestStressBadProduction(t *testing.T) {
 	csv := "period,units\n2026-01,10\n2026-02,x\n2026-03,30\n"
 	p, err := buildWithFiles(t, frozenBody, testHistory(48), map[string]string{"prev.csv": csv})
 	if err != nil {
 		t.Fatal(err)
 	}
+	prod, err := plan.ReadProduction(p)
+	var pe *data.ParseError
+	if prod != nil || !errors.As(err, &pe) || !strings.Contains(err.Error(), "prev.csv:3:9: units: ") {
+		t.Errorf("production %v, error %v; want a ParseError at prev.csv:3:9", prod, err)
+	}
 	mc, err := sim.Simulate(p, sim.SimOptions{Paths: 200, Seed: 1})
 	if err != nil {
 		t.Fatal(err)
 	}
 	r, err := Stress(mc, StressSettings{Breach: 0.1})
-	var pe *data.ParseError
-	if r != nil || !errors.As(err, &pe) || !strings.Contains(err.Error(), "prev.csv:3:9: units: ") {
-		t.Errorf("run %v, error %v; want a ParseError at prev.csv:3:9", r, err)
+	if r != nil || !errors.As(err, &pe) || !strings.Contains(err.Error(), "production.plan: ") || !strings.Contains(err.Error(), "was not read") {
+		t.Errorf("run %v, error %v; want the production.plan key refused as not read", r, err)
 	}
 }
