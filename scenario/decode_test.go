@@ -213,6 +213,8 @@ func TestParseErrors(t *testing.T) {
 			`event "a": scope[0].new: "milk/*" is a pattern, and new: true creates one series; give the new series' full name`},
 		{"scope new with the event's percent", head + "events:\n  - {id: a, kind: step, start: 2027-02, effect: {percent: 5}, scope: [{series: milk/choc, new: §true}]}\n", false, ErrValue,
 			`event "a": scope[0].new: a new series has no baseline, so a percent effect adds nothing to it; give the effect in units`},
+		{"scope new sharing a split by baseline", head + "events:\n  - {id: a, kind: step, start: 2027-02, effect: {units: 5, split: baseline}, scope: [{series: \"milk/*\"}, {series: milk/choc, new: §true}]}\n", false, ErrValue,
+			`event "a": scope[1].new: a new series has no baseline, so split: baseline gives it nothing; give the entry its own effect ({units: N}), or use split: equal`},
 		{"scope new with its own percent", head + "events:\n  - {id: a, kind: step, start: 2027-02, effect: {units: 5}, scope: [{series: milk/choc, effect: {percent: 3}, new: §true}]}\n", false, ErrValue,
 			`scope[0].new: a new series has no baseline`},
 		{"scope entry effect empty", head + "events:\n  - {id: a, kind: step, start: 2027-02, scope: [{series: a, effect: §{}}]}\n", false, ErrMissing, `event "a": scope[0].effect: give units, percent or from: past`},

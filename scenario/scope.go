@@ -158,8 +158,11 @@ func (d *decoder) checkScope(e *Event) {
 		if s.Effect != nil {
 			ef = s.Effect
 		}
-		if ef.IsPercent {
+		switch {
+		case ef.IsPercent:
 			d.fail(d.at(nf, s.Pos), nf, ErrValue, "a new series has no baseline, so a percent effect adds nothing to it; give the effect in units")
+		case s.Effect == nil && e.Effect.Split == SplitBaseline:
+			d.fail(d.at(nf, s.Pos), nf, ErrValue, "a new series has no baseline, so split: baseline gives it nothing; give the entry its own effect ({units: N}), or use split: equal")
 		}
 	}
 }
@@ -206,6 +209,7 @@ const nearestNames = 3
 //     the nearest;
 //   - a scope entry with new: true whose name is already a series of the
 //     plan, or of the history file;
+//   - a series that two entries of one scope match, at the second entry;
 //   - a resource whose pattern matches no series, naming the nearest;
 //   - when the plan has more than one series (the selected ones and those
 //     new: true creates), an event without a scope.
@@ -227,6 +231,13 @@ func (f *File) CheckSeries(selected, history []string) error {
 			case !s.New && !matchesAny(s.Series, all):
 				r.fail(r.at(field, s.Pos), field, ErrValue, "%s", noMatch(s.Series, all))
 			}
+		}
+		for _, o := range e.scopeOverlaps(all) {
+			s := e.Scope[o.second]
+			field := e.scopeField(o.second, "series")
+			r.fail(r.at(field, s.Pos), field, ErrValue,
+				"%q is matched by %s too; an event moves each series once: narrow a pattern, or make two events",
+				o.series, index(e.field("scope"), o.first))
 		}
 	}
 	for _, res := range f.Resources {

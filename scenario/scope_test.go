@@ -26,7 +26,7 @@ const portfolio = head + `events:
     effect: {units: 38000, split: baseline}
     scope:
       - {series: "milk/whole-1l/*"}
-      - {series: "milk/choc-250ml/schools", new: true}
+      - {series: "milk/choc-250ml/schools", new: true, effect: {units: 2000}}
 resources:
   - id: bottling-1
     series: "milk/**"
@@ -54,7 +54,7 @@ func TestParseScope(t *testing.T) {
 	if exit.Effect != (Effect{}) {
 		t.Errorf("grocer-exit effect %+v; want none", exit.Effect)
 	}
-	wantSchool := []ScopeEntry{{Series: "milk/whole-1l/*", Pos: Pos{16, 9}}, {Series: "milk/choc-250ml/schools", New: true, Pos: Pos{17, 9}}}
+	wantSchool := []ScopeEntry{{Series: "milk/whole-1l/*", Pos: Pos{16, 9}}, {Series: "milk/choc-250ml/schools", New: true, Effect: &Effect{Units: 2000}, Pos: Pos{17, 9}}}
 	if !reflect.DeepEqual(school.Scope, wantSchool) {
 		t.Errorf("school-contract scope %+v; want %+v", school.Scope, wantSchool)
 	}
@@ -73,7 +73,9 @@ func TestParseScope(t *testing.T) {
 		t.Errorf("CheckSeries: %v", err)
 	}
 	// Every entry of grocer-exit has its own effect, so the event needs
-	// none; school-contract has its own.
+	// none; school-contract has its own. (Its new series takes an effect
+	// of its own: split by baseline would give a series without history
+	// nothing, and the decoder refuses that.)
 	if err := f.Resolve(period("2027-01", forecast.Monthly)); err != nil {
 		t.Errorf("Resolve: %v", err)
 	}
@@ -124,6 +126,12 @@ func TestCheckSeriesErrors(t *testing.T) {
 			`event "a": scope: required: the plan has 3 series; say which the event moves (scope: [{series: NAME or PATTERN}])`},
 		{"new on a series of the history not selected", head + step + "scope: [{series: §milk/whole-1l/grocer-east, new: true}]}\n", nil, ErrValue,
 			`event "a": scope[0].series: "milk/whole-1l/grocer-east" is a series of h.csv that history.series does not select; select it and leave out new: true`},
+		// milk/whole-1l/grocer-north is matched by both entries.
+		{"series matched by two entries", head + step + "scope: [{series: \"milk/**\"}, {series: §\"*/*/grocer-north\", effect: {percent: 5}}]}\n", dairy, ErrValue,
+			`event "a": scope[1].series: "milk/whole-1l/grocer-north" is matched by event "a": scope[0] too; an event moves each series once: narrow a pattern, or make two events`},
+		// A pattern may match a series another entry creates.
+		{"pattern over a new series", head + step + "scope: [{series: milk/choc/schools, new: true}, {series: §\"milk/choc/*\"}]}\n", dairy, ErrValue,
+			`event "a": scope[1].series: "milk/choc/schools" is matched by event "a": scope[0] too`},
 		// One series of the history and one that a scope creates make two.
 		{"event without scope beside a new series", head + "events:\n  - {id: b, kind: step, start: 2027-02, effect: {units: 5}, scope: [{series: milk/x, new: true}]}\n  - §{id: a, kind: pulse, start: 2027-02, effect: {units: 5}}\n", []string{"milk/y"}, ErrMissing,
 			`event "a": scope: required: the plan has 2 series`},
