@@ -1,6 +1,10 @@
 package supply
 
-import "forelay/scenario/plan"
+import (
+	"math"
+
+	"forelay/scenario/plan"
+)
 
 // CapacityResource is the id of the resource the scenario file's capacity
 // block describes.
@@ -43,4 +47,35 @@ func ResourceOf(p *plan.Plan, id string) *Resource {
 		}
 	}
 	return nil
+}
+
+// Load returns the resource's load in each of n periods: PerUnit times the
+// sum, over the resource's Series, of the demand that demand returns for
+// the series (nil for a series the scenario does not plan, which adds
+// nothing; periods beyond a shorter demand add nothing either).
+func (r Resource) Load(n int, demand func(series string) []float64) []float64 {
+	load := make([]float64, n)
+	for _, s := range r.Series {
+		d := demand(s)
+		for t := range min(len(d), len(load)) {
+			load[t] += d[t]
+		}
+	}
+	for t := range load {
+		load[t] *= r.PerUnit
+	}
+	return load
+}
+
+// Utilisation returns load / capacity in each period, NaN where the
+// resource has no capacity (none given, or not above 0).
+func (r Resource) Utilisation(load []float64) []float64 {
+	u := make([]float64, len(load))
+	for t, l := range load {
+		u[t] = math.NaN()
+		if t < len(r.Capacity) && r.Capacity[t] > 0 {
+			u[t] = l / r.Capacity[t]
+		}
+	}
+	return u
 }
