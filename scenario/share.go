@@ -27,6 +27,12 @@ type SeriesShare struct {
 	// Split is SplitNone, so Contribution and Sigma of an event carrying
 	// it give the series' own change.
 	Effect Effect
+	// Range is the range of Effect: the event's range times Share for a
+	// series sharing the event's effect; for an entry's own effect, the
+	// event's range scaled by the ratio of the two effects when both are
+	// in units or both in percent (the same relative uncertainty), else
+	// nil. Nil when the event has no range.
+	Range *Range
 }
 
 // ErrNoSplitBase is the error of Shares when an effect split by baseline
@@ -110,8 +116,26 @@ func (e *Event) Shares(names []string, weight func(series string) float64) ([]Se
 		if shared(out[i]) && out[i].Share != 1 {
 			out[i].Effect.Units = e.Effect.Units * out[i].Share
 		}
+		out[i].Range = e.rangeOf(out[i].Effect, shared(out[i]), out[i].Share)
 	}
 	return out, nil
+}
+
+// rangeOf returns the range of ef, a series' effect (see
+// SeriesShare.Range): shared says the series shares the event's effect,
+// with share its part.
+func (e *Event) rangeOf(ef Effect, shared bool, share float64) *Range {
+	switch {
+	case e.Range == nil:
+		return nil
+	case shared:
+		return &Range{Low: e.Range.Low * share, High: e.Range.High * share}
+	case ef.IsPercent != e.Effect.IsPercent || ef.FromPast || e.Effect.FromPast || e.Effect.Value() == 0:
+		return nil
+	}
+	k := ef.Value() / e.Effect.Value()
+	lo, hi := e.Range.Low*k, e.Range.High*k
+	return &Range{Low: min(lo, hi), High: max(lo, hi)}
 }
 
 // SpanWeight returns a series' weight for an effect split by baseline:
