@@ -40,6 +40,23 @@ type SeriesShare struct {
 // over the event's span.
 var ErrNoSplitBase = errors.New("no baseline to split by")
 
+// A SplitError is the error of Event.Shares for an effect split by
+// baseline among series without baseline over the event's span. It wraps
+// ErrNoSplitBase.
+type SplitError struct {
+	// Event is the event, and Sharing the number of series sharing its
+	// effect.
+	Event   *Event
+	Sharing int
+}
+
+func (e *SplitError) Error() string {
+	return fmt.Sprintf("event %q: %v: the %d series sharing its effect have no baseline over its span; use split: equal, or give scope entries their own effects", e.Event.ID, ErrNoSplitBase, e.Sharing)
+}
+
+// Unwrap returns ErrNoSplitBase.
+func (e *SplitError) Unwrap() error { return ErrNoSplitBase }
+
 // Shares resolves the event's scope against names, the plan's series
 // (those history.series selects and those new: true creates; see
 // File.CheckSeries), and returns one SeriesShare per series the scope
@@ -57,8 +74,8 @@ var ErrNoSplitBase = errors.New("no baseline to split by")
 // event's span (SpanWeight); it is called only under SplitBaseline, and a
 // negative weight counts as 0. A series matched by several entries takes
 // the first (File.CheckSeries refuses such a scope). An event without a
-// scope moves every series of names in full. Shares returns an error
-// wrapping ErrNoSplitBase when the weights of the sharing series sum to 0.
+// scope moves every series of names in full. Shares returns a *SplitError
+// when the weights of the sharing series sum to 0.
 func (e *Event) Shares(names []string, weight func(series string) float64) ([]SeriesShare, error) {
 	var out []SeriesShare
 	sharing := 0 // series taking the event's effect
@@ -104,7 +121,7 @@ func (e *Event) Shares(names []string, weight func(series string) float64) ([]Se
 			}
 		}
 		if !(total > 0) || math.IsInf(total, 0) {
-			return nil, fmt.Errorf("event %q: %w: the %d series sharing its effect have no baseline over its span; use split: equal, or give scope entries their own effects", e.ID, ErrNoSplitBase, sharing)
+			return nil, &SplitError{Event: e, Sharing: sharing}
 		}
 		for i, s := range out {
 			if shared(s) {

@@ -1,0 +1,132 @@
+package plan
+
+import (
+	"errors"
+	"fmt"
+	"slices"
+
+	"forelay/forecast"
+	"forelay/scenario"
+)
+
+// A Portfolio is the plan of several series from one scenario file: one
+// Plan per series, each built as the series sees the file
+// (scenario.File.ForSeries), so that an event moves only the series of its
+// scope, with the series' share of its effect, and a past event is cleaned
+// out of those series only.
+type Portfolio struct {
+	// File is the scenario file the portfolio was built from.
+	File *scenario.File
+	// Names are the series planned, in the order history.series selects
+	// them, and Levels the names of their levels.
+	Names  []string
+	Levels []string
+	// Plans holds each series' plan, in the order of Names. A plan's File
+	// is the series' view of File.
+	Plans []*Plan
+	// Warnings are the series' warnings, each once, in the order the
+	// series first give them.
+	Warnings []string
+}
+
+// BuildPortfolio builds the plan of every series in (Inputs.Selected), in
+// two passes over the series. The first cleans each history and fits its
+// baseline; an effect split by baseline is then shared equally, which
+// matters only for a future event that starts inside the history (its
+// planned effect is taken out of the history before the fit). The second
+// shares each effect among the series of its scope (scenario.Event.Shares,
+// weighing a series by its baseline over the event's span) and lays the
+// events on each baseline.
+//
+// Every series must end in the same period, so that the plans share their
+// periods. Scopes are checked against the series (File.CheckSeries).
+// Series that new: true creates are refused for now, with an error at the
+// scope entry, since a plan without history is not built yet. Resources
+// are not part of a plan: their loads come from the plans (package
+// supply). Errors name the file and key as for Build.
+func BuildPortfolio(f *scenario.File, in *Inputs) (*Portfolio, error) {
+	if err := f.CheckSeries(in.Selected, names(in.History)); err != nil {
+		return nil, err
+	}
+	if err := noNewSeries(f); err != nil {
+		return nil, err
+	}
+	series := make([]forecast.Series, len(in.Selected))
+	for i, name := range in.Selected {
+		ser, err := in.History.Lookup(name)
+		if err != nil {
+			return nil, f.ValueError("history.series", f.History.Pos, "%v", err)
+		}
+		if i > 0 && ser.Next() != series[0].Next() {
+			return nil, f.ValueError("history.series", f.History.Pos,
+				"series %q ends in %s but %q in %s; the series of a plan must end in the same period (select series that do, or bring the history up to date)",
+				ser.Name, ser.Period(ser.Len()-1), series[0].Name, series[0].Period(series[0].Len()-1))
+		}
+		series[i] = ser
+	}
+	equal, err := f.SharesOf(in.Selected, func(*scenario.Event, string) float64 { return 1 })
+	if err != nil {
+		return nil, err
+	}
+	pf := &Portfolio{File: f, Names: in.Selected, Levels: in.Levels, Plans: make([]*Plan, len(series))}
+	base := make(map[string][]float64, len(series))
+	for i, ser := range series {
+		one := &Inputs{History: in.History, Series: ser, Selected: []string{ser.Name}, Levels: in.Levels, Digests: in.Digests}
+		p, spec := newPlan(f.ForSeries(ser.Name, equal[ser.Name]), one)
+		if err := p.clean(spec); err != nil {
+			return nil, err
+		}
+		pf.Plans[i] = p
+		base[ser.Name] = p.Fit.Model.Forecast(f.Horizon)
+	}
+	first := series[0].Next()
+	shares, err := f.SharesOf(in.Selected, func(e *scenario.Event, s string) float64 { return e.SpanWeight(first, base[s]) })
+	var se *scenario.SplitError
+	if errors.As(err, &se) {
+		return nil, f.ValueError(fmt.Sprintf("event %q: effect.split", se.Event.ID), se.Event.Pos,
+			"the %d series sharing the effect have no baseline over the event's span (%v); use split: equal, or give scope entries their own effects", se.Sharing, scenario.ErrNoSplitBase)
+	}
+	if err != nil {
+		return nil, err
+	}
+	for _, p := range pf.Plans {
+		p.retarget(f.ForSeries(p.History.Name, shares[p.History.Name]))
+		p.lay()
+		for _, w := range p.Warnings {
+			if !slices.Contains(pf.Warnings, w) {
+				pf.Warnings = append(pf.Warnings, w)
+			}
+		}
+	}
+	return pf, nil
+}
+
+// retarget points a cleaned plan at view, the series' view with the final
+// shares: the plan's file becomes view and each future event its copy in
+// view, except those whose effect was learnt from the past (a learnt
+// effect is the series' own and is kept).
+func (p *Plan) retarget(view *scenario.File) {
+	p.File = view
+	for i, e := range p.Future {
+		if e.Effect.FromPast {
+			continue
+		}
+		if v := view.Event(e.ID); v != nil {
+			p.Future[i] = v
+		}
+	}
+}
+
+// noNewSeries refuses a scope entry with new: true: a plan of a series
+// without history is not built yet.
+func noNewSeries(f *scenario.File) error {
+	for _, e := range f.Events {
+		for i, s := range e.Scope {
+			if s.New {
+				return f.ValueError(fmt.Sprintf("event %q: scope[%d].new", e.ID, i), s.Pos,
+					"plans of new series (without history) are not built yet; leave the entry out for now")
+			}
+		}
+	}
+	return nil
+}
