@@ -38,13 +38,17 @@ type Portfolio struct {
 // weighing a series by its baseline over the event's span) and lays the
 // events on each baseline.
 //
+// The series are planned on workers goroutines (zero or less: one per
+// core); the portfolio, and the error reported when several series fail
+// (that of the first in order), do not depend on their number.
+//
 // Every series must end in the same period, so that the plans share their
 // periods. Scopes are checked against the series (File.CheckSeries).
 // Series that new: true creates are refused for now, with an error at the
 // scope entry, since a plan without history is not built yet. Resources
 // are not part of a plan: their loads come from the plans (package
 // supply). Errors name the file and key as for Build.
-func BuildPortfolio(f *scenario.File, in *Inputs) (*Portfolio, error) {
+func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, error) {
 	if err := f.CheckSeries(in.Selected, names(in.History)); err != nil {
 		return nil, err
 	}
@@ -69,15 +73,24 @@ func BuildPortfolio(f *scenario.File, in *Inputs) (*Portfolio, error) {
 		return nil, err
 	}
 	pf := &Portfolio{File: f, Names: in.Selected, Levels: in.Levels, Plans: make([]*Plan, len(series))}
-	base := make(map[string][]float64, len(series))
-	for i, ser := range series {
+	bases := make([][]float64, len(series))
+	name := func(i int) string { return series[i].Name }
+	err = eachSeries(len(series), workers, name, func(i int) error {
+		ser := series[i]
 		one := &Inputs{History: in.History, Series: ser, Selected: []string{ser.Name}, Levels: in.Levels, Digests: in.Digests}
 		p, spec := newPlan(f.ForSeries(ser.Name, equal[ser.Name]), one)
 		if err := p.clean(spec); err != nil {
-			return nil, err
+			return err
 		}
-		pf.Plans[i] = p
-		base[ser.Name] = p.Fit.Model.Forecast(f.Horizon)
+		pf.Plans[i], bases[i] = p, p.Fit.Model.Forecast(f.Horizon)
+		return nil
+	})
+	if err != nil {
+		return nil, err
+	}
+	base := make(map[string][]float64, len(series))
+	for i, b := range bases {
+		base[series[i].Name] = b
 	}
 	first := series[0].Next()
 	shares, err := f.SharesOf(in.Selected, func(e *scenario.Event, s string) float64 { return e.SpanWeight(first, base[s]) })
@@ -89,9 +102,16 @@ func BuildPortfolio(f *scenario.File, in *Inputs) (*Portfolio, error) {
 	if err != nil {
 		return nil, err
 	}
-	for _, p := range pf.Plans {
+	err = eachSeries(len(series), workers, name, func(i int) error {
+		p := pf.Plans[i]
 		p.retarget(f.ForSeries(p.History.Name, shares[p.History.Name]))
 		p.lay()
+		return nil
+	})
+	if err != nil {
+		return nil, err
+	}
+	for _, p := range pf.Plans {
 		for _, w := range p.Warnings {
 			if !slices.Contains(pf.Warnings, w) {
 				pf.Warnings = append(pf.Warnings, w)

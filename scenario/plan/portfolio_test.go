@@ -93,7 +93,7 @@ func TestPortfolioScoped(t *testing.T) {
 	vals := [][]float64{scaled(1), scaled(3), scaled(0.5)}
 	vals[0][29] += 300 // the fair in 2024-06 (index 29)
 	f, in := writePortfolio(t, names, vals, portfolioBody)
-	pf, err := BuildPortfolio(f, in)
+	pf, err := BuildPortfolio(f, in, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -161,7 +161,7 @@ func TestPortfolioOfOne(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	pf, err := BuildPortfolio(f, in)
+	pf, err := BuildPortfolio(f, in, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -194,7 +194,7 @@ func TestPortfolioErrors(t *testing.T) {
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			f, in := writePortfolio(t, []string{"milk/a", "milk/b"}, tc.vals, tc.body)
-			_, err := BuildPortfolio(f, in)
+			_, err := BuildPortfolio(f, in, 0)
 			if err == nil || !strings.Contains(err.Error(), tc.want) {
 				t.Errorf("error %v; want %q", err, tc.want)
 			}
