@@ -45,6 +45,13 @@ func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart bool,
 			}
 			set.Add(r.Name+".csv", csv)
 		}
+		for _, more := range r.MoreCSV {
+			csv, err := more.Table.CSVBytes()
+			if err != nil {
+				return err
+			}
+			set.Add(more.Name+".csv", csv)
+		}
 		if !r.NoJSONFile {
 			set.Add(r.Name+".json", js)
 		}

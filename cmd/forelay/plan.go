@@ -19,6 +19,9 @@ type PlanOptions struct {
 	NoChart bool
 	// Event, when set, adds the period-by-period account of one event.
 	Event string
+	// Workers plans the series of a portfolio in parallel; 0: one per
+	// core.
+	Workers int
 }
 
 func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
@@ -33,6 +36,9 @@ func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			opts.File = args[0]
+			if cmd.Flags().Changed("workers") && opts.Workers < 1 {
+				return flagErrorf("--workers %d: must be at least 1 (leave it out for one worker per core)", opts.Workers)
+			}
 			if runF != nil {
 				return runF(opts)
 			}
@@ -45,6 +51,7 @@ func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
 	fl.BoolVar(&opts.Detail, "detail", false, "also print every period of every scenario")
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip plan.png and plan.svg")
 	fl.StringVar(&opts.Event, "event", "", "also show how this event adds up, period by period")
+	fl.IntVar(&opts.Workers, "workers", 0, "series planned in parallel in a plan of several series, at least 1 (default: one per core); the plan is the same for any number")
 	return cmd
 }
 
@@ -63,9 +70,20 @@ func buildPlan(path string, shared *sharedFlags) (*plan.Plan, error) {
 }
 
 func planRun(opts *PlanOptions) error {
-	p, err := buildPlan(opts.File, opts.Shared)
+	f, err := scenario.LoadLimited(opts.File, opts.Shared.limits().Scenario())
 	if err != nil {
-		return err
+		return &inputError{err: err}
+	}
+	in, err := plan.ReadSelection(f)
+	if err != nil {
+		return &inputError{err: err}
+	}
+	if plan.WantsPortfolio(f, in) {
+		return portfolioRun(opts, f, in)
+	}
+	p, err := plan.Build(f, in)
+	if err != nil {
+		return &inputError{err: err}
 	}
 	var ev *scenario.Event
 	if opts.Event != "" {
@@ -74,4 +92,20 @@ func planRun(opts *PlanOptions) error {
 		}
 	}
 	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.ForPlan(p, opts.Detail, ev))
+}
+
+// portfolioRun plans the several series of f.
+func portfolioRun(opts *PlanOptions, f *scenario.File, in *plan.Inputs) error {
+	if opts.Detail || opts.Event != "" {
+		return flagErrorf("--detail and --event are for plans of one series; a plan of several series writes every period to plan.csv and rollup.csv with --out")
+	}
+	pf, err := plan.BuildPortfolio(f, in, opts.Workers)
+	if err != nil {
+		return &inputError{err: err}
+	}
+	r, err := report.ForPortfolio(pf)
+	if err != nil {
+		return &inputError{err: err}
+	}
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, r)
 }

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"forelay/forecast"
 	"forelay/scenario"
+	"math"
 	"strings"
 )
 
@@ -45,7 +46,11 @@ func (p *Plan) clip(sp *ScenarioPlan) {
 	pushed := map[*scenario.Event][]int{}
 	for t := range sp.Adjusted {
 		adj, rw := sp.Adjusted[t], sp.RiskWeighted[t]
-		below := adj < f || rw < f
+		// A plan within rounding of the floor (a -100 % effect leaves
+		// baseline - baseline*100/100, which may differ from 0 in the last
+		// bits) is set to it without counting as pushed below.
+		tol := 1e-9 * max(1, math.Abs(p.Baseline[t]))
+		below := adj < f-tol || rw < f-tol
 		if below {
 			sp.Clipped++
 			if p.Baseline[t] >= f {

@@ -82,7 +82,7 @@ func TestInputChanges(t *testing.T) {
 // TestPortfolioExample: the portfolio example's scenario file decodes,
 // selects every series of its history through its key and pattern, and
 // its scopes and resources match series of that history (File.CheckSeries);
-// Read then refuses it, since plans of several series are not built yet.
+// Read then refuses it, since it takes one series.
 func TestPortfolioExample(t *testing.T) {
 	f, err := scenario.Load(filepath.Join("..", "..", "examples", "portfolio", "plan.yaml"))
 	if err != nil {
@@ -98,7 +98,7 @@ func TestPortfolioExample(t *testing.T) {
 	if err := f.CheckSeries(in.Selected, nil); err != nil {
 		t.Errorf("CheckSeries: %v", err)
 	}
-	if _, err := Read(f); err == nil || !strings.Contains(err.Error(), "plans of several series") {
+	if _, err := Read(f); err == nil || !strings.Contains(err.Error(), "300 series selected") {
 		t.Errorf("Read: %v, want the refusal of several series", err)
 	}
 }

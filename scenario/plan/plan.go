@@ -186,9 +186,14 @@ func Peak(v []float64) (int, float64) {
 // built from. Input that is legal but almost certainly not meant gives
 // Plan.Warnings (File.Lint's, the fit's, then the floor's).
 // Inputs selecting several series (Inputs.Selected) are an error at
-// history.series: plans of several series are not built yet.
+// history.series (BuildPortfolio plans them). Events with a scope are
+// planned as the one series sees them (File.ForSeries).
 func Build(f *scenario.File, in *Inputs) (*Plan, error) {
 	if err := in.one(f); err != nil {
+		return nil, err
+	}
+	f, err := scoped(f, in)
+	if err != nil {
 		return nil, err
 	}
 	p, spec := newPlan(f, in)
@@ -197,6 +202,29 @@ func Build(f *scenario.File, in *Inputs) (*Plan, error) {
 	}
 	p.lay()
 	return p, nil
+}
+
+// scoped returns f as the one series of in sees it (File.ForSeries) when
+// an event of f has a scope, after checking the scopes against the series
+// (File.CheckSeries); f itself otherwise. With one series, every split
+// gives it the whole effect.
+func scoped(f *scenario.File, in *Inputs) (*scenario.File, error) {
+	if !slices.ContainsFunc(f.Events, func(e *scenario.Event) bool { return len(e.Scope) > 0 }) {
+		return f, nil
+	}
+	name := in.Series.Name
+	var all []string
+	if in.History != nil {
+		all = names(in.History)
+	}
+	if err := f.CheckSeries([]string{name}, all); err != nil {
+		return nil, err
+	}
+	shares, err := f.SharesOf([]string{name}, func(*scenario.Event, string) float64 { return 1 })
+	if err != nil {
+		return nil, err
+	}
+	return f.ForSeries(name, shares[name]), nil
 }
 
 // newPlan starts the plan: settings, filled cells, input digests and

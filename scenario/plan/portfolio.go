@@ -24,9 +24,29 @@ type Portfolio struct {
 	// Plans holds each series' plan, in the order of Names. A plan's File
 	// is the series' view of File.
 	Plans []*Plan
-	// Warnings are the series' warnings, each once, in the order the
-	// series first give them.
+	// Warnings are those of the file (File.Lint), then each series' own,
+	// naming the series, in the order of Names.
 	Warnings []string
+	// Notes are remarks on the portfolio as a whole, one sentence each.
+	Notes []string
+}
+
+// WantsPortfolio reports whether the inputs call for a portfolio
+// (BuildPortfolio) rather than a plan of one series (Build): history.series
+// selects several series, or a scope creates one (new: true) beside the
+// history's.
+func WantsPortfolio(f *scenario.File, in *Inputs) bool {
+	if len(in.Selected) > 1 {
+		return true
+	}
+	for _, e := range f.Events {
+		for _, s := range e.Scope {
+			if s.New {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 // BuildPortfolio builds the plan of every series in (Inputs.Selected), in
@@ -111,9 +131,17 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 	if err != nil {
 		return nil, err
 	}
+	if len(f.Resources) > 0 {
+		pf.Notes = append(pf.Notes, fmt.Sprintf("the file's %d resource(s) are read and checked, but their loads are not part of a plan; they come with the stress of portfolios", len(f.Resources)))
+	}
+	lint := f.Lint(series[0])
+	pf.Warnings = append(pf.Warnings, lint...)
 	for _, p := range pf.Plans {
 		for _, w := range p.Warnings {
-			if !slices.Contains(pf.Warnings, w) {
+			if slices.Contains(lint, w) {
+				continue // about the file, not the series
+			}
+			if w = fmt.Sprintf("series %s: %s", p.History.Name, w); !slices.Contains(pf.Warnings, w) {
 				pf.Warnings = append(pf.Warnings, w)
 			}
 		}

@@ -87,11 +87,8 @@ func levels(f *scenario.File, selected []string) ([]string, error) {
 // with Selected nil), and otherwise an error at history.series listing
 // the first few selected.
 func (in *Inputs) one(f *scenario.File) error {
-	if err := notYetPlanned(f); err != nil {
-		return err
-	}
 	if len(in.Selected) <= 1 {
-		return nil
+		return notYetPlanned(f)
 	}
 	const shown = 5
 	list := quoteAll(in.Selected[:min(shown, len(in.Selected))])
@@ -99,7 +96,7 @@ func (in *Inputs) one(f *scenario.File) error {
 		list += ", ..."
 	}
 	return f.ValueError("history.series", f.History.Pos,
-		"plans of several series come with the portfolio step; %d series selected: %s; select one", len(in.Selected), list)
+		"%d series selected (%s): forelay plan plans several series, but this command takes one so far; select one", len(in.Selected), list)
 }
 
 // names returns the names of the series of h, in file order.
@@ -129,20 +126,15 @@ func levelCount(n int) string {
 }
 
 // notYetPlanned refuses what the file format reads but the planner does
-// not use yet (scoped events, split effects, resources), rather than
+// not use yet (resources, series that new: true creates), rather than
 // ignoring it: a plan never leaves out part of its input without a word.
+// A plan of several series (BuildPortfolio) notes its resources instead.
 func notYetPlanned(f *scenario.File) error {
-	const later = "come with plans of several series, which this version does not build yet; leave it out for a plan of one series"
-	for _, e := range f.Events {
-		if len(e.Scope) > 0 {
-			return f.ValueError(fmt.Sprintf("event %q: scope", e.ID), e.Pos, "scoped events %s", later)
-		}
-		if e.Effect.Split != scenario.SplitNone {
-			return f.ValueError(fmt.Sprintf("event %q: effect.split", e.ID), e.Pos, "split effects %s", later)
-		}
+	if err := noNewSeries(f); err != nil {
+		return err
 	}
 	if len(f.Resources) > 0 {
-		return f.ValueError("resources", f.Resources[0].Pos, "resources %s; use capacity for one line over the series", later)
+		return f.ValueError("resources", f.Resources[0].Pos, "resources come with the stress of plans of several series, which this version does not run yet; use capacity for one line over the series")
 	}
 	return nil
 }

@@ -26,6 +26,9 @@ type Report struct {
 	Doc any
 	// CSV is the table of Name.csv, in plain numbers; nil for none.
 	CSV *Table
+	// MoreCSV are further tables written as their own CSV files with
+	// --out (rollup.csv beside plan.csv, say), in order.
+	MoreCSV []CSVFile
 	// NoJSONFile leaves Name.json out of --out (the document is still
 	// printed with --json).
 	NoJSONFile bool
@@ -73,15 +76,25 @@ func (r *Report) JSON() ([]byte, error) {
 	return append(b, '\n'), nil
 }
 
+// A CSVFile is a table written to a CSV file of its own: Name.csv.
+type CSVFile struct {
+	Name  string
+	Table *Table
+}
+
 // CSVBytes returns the CSV file of r.CSV (head, then rows), or the first
 // error the CSV writer reports.
-func (r *Report) CSVBytes() ([]byte, error) {
+func (r *Report) CSVBytes() ([]byte, error) { return r.CSV.CSVBytes() }
+
+// CSVBytes returns the table as a CSV file (head, then rows), or the first
+// error of the CSV writer.
+func (t *Table) CSVBytes() ([]byte, error) {
 	var b bytes.Buffer
 	w := csv.NewWriter(&b)
-	if err := w.Write(r.CSV.Head); err != nil {
+	if err := w.Write(t.Head); err != nil {
 		return nil, err
 	}
-	for _, row := range r.CSV.Rows {
+	for _, row := range t.Rows {
 		if err := w.Write(row); err != nil {
 			return nil, err
 		}

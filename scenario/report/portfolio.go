@@ -1,0 +1,305 @@
+package report
+
+import (
+	"cmp"
+	"fmt"
+	"math"
+	"slices"
+	"strings"
+
+	"forelay/forecast"
+	"forelay/scenario"
+	"forelay/scenario/plan"
+)
+
+// PortfolioVersion is the version of the portfolio plan.json document;
+// it changes only when a field changes meaning or goes away.
+const PortfolioVersion = 1
+
+// MostChanged is how many series the text lists per scenario as those the
+// events change most.
+const MostChanged = 10
+
+// portfolioJSON is plan.json of a portfolio.
+type portfolioJSON struct {
+	Version   int                     `json:"version"`
+	Kind      string                  `json:"kind"`
+	Plan      string                  `json:"plan"`
+	Units     string                  `json:"units,omitempty"`
+	Series    int                     `json:"series"`
+	Levels    []string                `json:"levels"`
+	Periods   []string                `json:"periods"`
+	Scenarios []portfolioScenarioJSON `json:"scenarios"`
+	Notes     []string                `json:"notes"`
+	Caution   string                  `json:"caution"`
+	Warnings  []string                `json:"warnings"`
+}
+
+type portfolioScenarioJSON struct {
+	Name    string          `json:"name"`
+	Events  []string        `json:"events"`
+	Rollups []rollupJSON    `json:"rollups"`
+	Series  []seriesSumJSON `json:"series"`
+}
+
+type rollupJSON struct {
+	Level        string `json:"level"`
+	Group        string `json:"group"`
+	Members      int    `json:"members"`
+	Baseline     []Num  `json:"baseline"`
+	Adjusted     []Num  `json:"adjusted"`
+	RiskWeighted []Num  `json:"risk_weighted"`
+	Lower        []Num  `json:"lower"`
+	Upper        []Num  `json:"upper"`
+}
+
+// seriesSumJSON is one series' totals over the horizon in a scenario.
+type seriesSumJSON struct {
+	Series   string `json:"series"`
+	Baseline Num    `json:"baseline"`
+	Adjusted Num    `json:"adjusted"`
+	Change   Num    `json:"change"`
+}
+
+// A seriesChange is one series' totals over the horizon in a scenario.
+type seriesChange struct {
+	name               string
+	baseline, adjusted float64
+}
+
+func (c seriesChange) change() float64 { return c.adjusted - c.baseline }
+
+// ForPortfolio is the report of a portfolio plan: a summary per scenario
+// on standard output (totals per group of the widest level and the
+// series the events change most), plan.csv (every series and period),
+// rollup.csv (every group of every level and period), summary.csv (every
+// series ranked by the change) and plan.json. It returns the error of
+// Portfolio.Rollups.
+func ForPortfolio(pf *plan.Portfolio) (*Report, error) {
+	p0 := pf.Plans[0]
+	rollups := make([][]plan.Rollup, len(p0.Scenarios))
+	for k, sp := range p0.Scenarios {
+		rs, err := pf.Rollups(sp.Name)
+		if err != nil {
+			return nil, err
+		}
+		rollups[k] = rs
+	}
+	r := &Report{Name: "plan", Warnings: pf.Warnings, CSV: portfolioCSV(pf),
+		MoreCSV: []CSVFile{{"rollup", rollupCSV(pf, rollups)}, {"summary", summaryCSV(pf)}},
+		Doc:     portfolioDoc(pf, rollups)}
+	portfolioText(&r.Text, pf, rollups)
+	return r, nil
+}
+
+// changes returns each series' totals in scenario k, in the order of
+// Names.
+func changes(pf *plan.Portfolio, k int) []seriesChange {
+	out := make([]seriesChange, len(pf.Plans))
+	for i, p := range pf.Plans {
+		out[i] = seriesChange{p.History.Name, plan.Total(p.Baseline), plan.Total(p.Scenarios[k].Adjusted)}
+	}
+	return out
+}
+
+// ranked returns the changes ordered by the size of the change, largest
+// first, ties by name.
+func ranked(cs []seriesChange) []seriesChange {
+	out := slices.Clone(cs)
+	slices.SortStableFunc(out, func(a, b seriesChange) int {
+		if c := cmp.Compare(math.Abs(b.change()), math.Abs(a.change())); c != 0 {
+			return c
+		}
+		return strings.Compare(a.name, b.name)
+	})
+	return out
+}
+
+// portfolioText writes the summary: what was planned, then per scenario
+// the total and the groups of the widest level, and the series the events
+// change most.
+func portfolioText(w *Text, pf *plan.Portfolio, rollups [][]plan.Rollup) {
+	p0 := pf.Plans[0]
+	f := pf.File
+	units := unitsSuffix(f.Units)
+	fmt.Fprintf(w, "Plan %s: %d series, %d %s periods %s to %s%s\n", f.Plan, len(pf.Plans), len(p0.Periods), p0.History.Freq(),
+		p0.Periods[0], p0.Periods[len(p0.Periods)-1], InUnits(f.Units))
+	fmt.Fprintf(w, "Bands: plan +- %.3g x standard error; bands of sums come from the series' joint errors, not from adding bands\n", p0.Z)
+	cases := f.Cases()
+	for k, sp := range p0.Scenarios {
+		fmt.Fprintln(w)
+		ids := eventIDs(cases[k])
+		evs := "baseline only"
+		if len(ids) > 0 {
+			evs = "events: " + strings.Join(ids, ", ")
+		}
+		fmt.Fprintf(w, "Scenario %s (%s)\n", sp.Name, evs)
+		last := len(p0.Periods) - 1
+		t := NewTable("group", "series", "baseline"+units, "plan"+units, "vs baseline", "change", fmt.Sprintf("band %s", p0.Periods[last]))
+		t.Left(0)
+		for _, ru := range rollups[k] {
+			if ru.Depth > 1 {
+				continue
+			}
+			d := forecast.Decimals(ru.Baseline)
+			base, adj := plan.Total(ru.Baseline), plan.Total(ru.Adjusted)
+			label := ru.Group
+			if ru.Depth == 1 {
+				label = ru.Level + " " + ru.Group
+			}
+			t.AddRow(label, fmt.Sprint(len(ru.Members)), num(base, d), num(adj, d), Signed(adj-base, d), Pct(adj-base, base),
+				num(ru.Lower[last], d)+" to "+num(ru.Upper[last], d))
+		}
+		w.Add(t)
+		top := ranked(changes(pf, k))
+		n := 0
+		for _, c := range top {
+			if c.change() != 0 && n < MostChanged {
+				n++
+			}
+		}
+		if n == 0 {
+			continue
+		}
+		fmt.Fprintf(w, "Most changed series (%d of %d changed; all in summary.csv):\n", countChanged(top), len(top))
+		mt := NewTable("series", "baseline"+units, "plan"+units, "vs baseline", "change")
+		for _, c := range top[:n] {
+			d := forecast.Decimals([]float64{c.baseline})
+			mt.AddRow(c.name, num(c.baseline, d), num(c.adjusted, d), Signed(c.change(), d), Pct(c.change(), c.baseline))
+		}
+		w.Add(mt)
+	}
+	if len(pf.Notes) > 0 {
+		fmt.Fprintln(w)
+		for _, n := range pf.Notes {
+			fmt.Fprintf(w, "Note: %s.\n", strings.TrimSuffix(n, "."))
+		}
+	}
+	fmt.Fprintln(w)
+	fmt.Fprintln(w, Caution)
+}
+
+// countChanged counts the series whose plan differs from the baseline.
+func countChanged(cs []seriesChange) int {
+	n := 0
+	for _, c := range cs {
+		if c.change() != 0 {
+			n++
+		}
+	}
+	return n
+}
+
+// portfolioCSV is plan.csv of a portfolio: one row per scenario, series
+// and period (series in the order of Names), with the columns scenario,
+// series, period, baseline, adjusted, risk_weighted, lower, upper and one
+// per event of the file, in file order, holding its contribution to the
+// series (0 where it does not move the series); two decimals.
+func portfolioCSV(pf *plan.Portfolio) *Table {
+	t := &Table{Head: []string{"scenario", "series", "period", "baseline", "adjusted", "risk_weighted", "lower", "upper"}}
+	var ids []string
+	for _, e := range pf.File.Events {
+		if !pastOnly(pf, e.ID) {
+			ids = append(ids, e.ID)
+		}
+	}
+	t.Head = append(t.Head, ids...)
+	p0 := pf.Plans[0]
+	for k := range p0.Scenarios {
+		for _, p := range pf.Plans {
+			sp := p.Scenarios[k]
+			for j, per := range p.Periods {
+				row := []string{sp.Name, p.History.Name, per.String(), CSV2(p.Baseline[j]), CSV2(sp.Adjusted[j]),
+					CSV2(sp.RiskWeighted[j]), CSV2(sp.Lower[j]), CSV2(sp.Upper[j])}
+				for _, id := range ids {
+					c := 0.0
+					if v, ok := sp.Contrib[id]; ok {
+						c = v[j]
+					}
+					row = append(row, CSV2(c))
+				}
+				t.Rows = append(t.Rows, row)
+			}
+		}
+	}
+	return t
+}
+
+// pastOnly reports whether no series' plan holds event id as a future
+// event (it was only cleaned out of histories, or moves no series).
+func pastOnly(pf *plan.Portfolio, id string) bool {
+	for _, p := range pf.Plans {
+		if _, ok := p.Effects[id]; ok {
+			return false
+		}
+	}
+	return true
+}
+
+// rollupCSV is rollup.csv: one row per scenario, roll-up and period, with
+// the columns scenario, level, group, period, baseline, adjusted,
+// risk_weighted, lower, upper; two decimals.
+func rollupCSV(pf *plan.Portfolio, rollups [][]plan.Rollup) *Table {
+	t := &Table{Head: []string{"scenario", "level", "group", "period", "baseline", "adjusted", "risk_weighted", "lower", "upper"}}
+	periods := pf.Plans[0].Periods
+	for _, rs := range rollups {
+		for _, ru := range rs {
+			for k, per := range periods {
+				t.Rows = append(t.Rows, []string{ru.Scenario, ru.Level, ru.Group, per.String(), CSV2(ru.Baseline[k]),
+					CSV2(ru.Adjusted[k]), CSV2(ru.RiskWeighted[k]), CSV2(ru.Lower[k]), CSV2(ru.Upper[k])})
+			}
+		}
+	}
+	return t
+}
+
+// summaryCSV is summary.csv: every series in every scenario ranked by the
+// size of its change over the horizon (rank 1 the largest; ties by name),
+// with the columns scenario, rank, series, baseline, adjusted, change,
+// change_pct (empty when the baseline total is 0); two decimals.
+func summaryCSV(pf *plan.Portfolio) *Table {
+	t := &Table{Head: []string{"scenario", "rank", "series", "baseline", "adjusted", "change", "change_pct"}}
+	for k, sp := range pf.Plans[0].Scenarios {
+		for i, c := range ranked(changes(pf, k)) {
+			pct := ""
+			if c.baseline != 0 {
+				pct = CSV2(100 * c.change() / c.baseline)
+			}
+			t.Rows = append(t.Rows, []string{sp.Name, fmt.Sprint(i + 1), c.name, CSV2(c.baseline), CSV2(c.adjusted), CSV2(c.change()), pct})
+		}
+	}
+	return t
+}
+
+// portfolioDoc is plan.json of a portfolio.
+func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup) portfolioJSON {
+	p0 := pf.Plans[0]
+	doc := portfolioJSON{Version: PortfolioVersion, Kind: "portfolio", Plan: pf.File.Plan, Units: pf.File.Units,
+		Series: len(pf.Plans), Levels: List(pf.Levels), Notes: List(pf.Notes), Caution: Caution, Warnings: List(pf.Warnings)}
+	for _, per := range p0.Periods {
+		doc.Periods = append(doc.Periods, per.String())
+	}
+	cases := pf.File.Cases()
+	for k, sp := range p0.Scenarios {
+		sj := portfolioScenarioJSON{Name: sp.Name, Events: List(eventIDs(cases[k]))}
+		for _, ru := range rollups[k] {
+			sj.Rollups = append(sj.Rollups, rollupJSON{Level: ru.Level, Group: ru.Group, Members: len(ru.Members),
+				Baseline: Nums(ru.Baseline), Adjusted: Nums(ru.Adjusted), RiskWeighted: Nums(ru.RiskWeighted),
+				Lower: Nums(ru.Lower), Upper: Nums(ru.Upper)})
+		}
+		for _, c := range changes(pf, k) {
+			sj.Series = append(sj.Series, seriesSumJSON{Series: c.name, Baseline: Num(c.baseline), Adjusted: Num(c.adjusted), Change: Num(c.change())})
+		}
+		doc.Scenarios = append(doc.Scenarios, sj)
+	}
+	return doc
+}
+
+// eventIDs returns the ids of a scenario's events, in its order.
+func eventIDs(c scenario.Case) []string {
+	ids := make([]string, len(c.Events))
+	for i, e := range c.Events {
+		ids[i] = e.ID
+	}
+	return ids
+}
