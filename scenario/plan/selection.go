@@ -14,16 +14,15 @@ import (
 const nearestNames = 3
 
 // selectSeries returns the names of the series of h that f's
-// history.series selects, in file order: the one it names, the file's only
-// one when it names none, or those its names and patterns match (see
+// history.series selects, in file order: the one it names, every series
+// of the file when it names none, or those its names and patterns match (see
 // package scenario/series). A name or pattern that matches nothing is an
 // error at its position, offering the nearest names of the file.
 func selectSeries(f *scenario.File, h *data.History) ([]string, error) {
 	ref := f.History
 	if ref.Select == nil {
-		if ref.Series == "" && len(h.Series) != 1 {
-			return nil, f.ErrorAt(ref.Pos, "history.series",
-				fmt.Errorf("%s holds %d series (%v); name one", ref.File, len(h.Series), names(h)))
+		if ref.Series == "" {
+			return names(h), nil // every series of the file
 		}
 		s, err := h.Lookup(ref.Series)
 		if err != nil {
