@@ -256,6 +256,12 @@ func (f *File) CheckSeries(selected, history []string) error {
 	return r.err()
 }
 
+// NewSeries returns the series the scopes create (new: true) that are not
+// among names, each once, in file order.
+func (f *File) NewSeries(names []string) []string {
+	return f.seriesWithNew(names)[len(names):]
+}
+
 // seriesWithNew returns names followed by the names the scopes create
 // that are not among them, each once.
 func (f *File) seriesWithNew(names []string) []string {

@@ -25,7 +25,10 @@ type Plan struct {
 	Cleaned []float64
 	// Filled lists the history cells filled under history.fill.
 	Filled []data.Filled
-	// Fit is the baseline fitted to the cleaned history.
+	// Fit is the baseline fitted to the cleaned history; nil for a series
+	// of a portfolio that a scope creates (new: true), whose History has
+	// no values, starting at the first plan period, and whose baseline and
+	// its variance are zero.
 	Fit *forecast.Result
 	// Cleaning holds one estimate per past event or past occurrence, in
 	// file order.
@@ -348,8 +351,12 @@ func (p *Plan) lay() {
 	for i := range p.Periods {
 		p.Periods[i] = first.Add(i)
 	}
-	p.Baseline = p.Fit.Model.Forecast(hz)
-	p.BaselineVar, p.VarSource = p.Fit.VarianceFrom(hz, p.Mode, p.From)
+	if p.Fit != nil {
+		p.Baseline = p.Fit.Model.Forecast(hz)
+		p.BaselineVar, p.VarSource = p.Fit.VarianceFrom(hz, p.Mode, p.From)
+	} else { // a series without history (new: true): nothing but its events
+		p.Baseline, p.BaselineVar = make([]float64, hz), make([]float64, hz)
+	}
 	p.BaselineLower, p.BaselineUpper = make([]float64, hz), make([]float64, hz)
 	for t := range p.Baseline {
 		w := p.Z * math.Sqrt(p.BaselineVar[t])
@@ -370,7 +377,9 @@ func (p *Plan) lay() {
 			p.Notes = append(p.Notes, fmt.Sprintf("scenario %q: the lower band was cut at the floor %s in %d period(s)", sp.Name, forecast.FormatNumber(*p.Floor, -1), sp.Floored))
 		}
 	}
-	p.Warnings = append(p.Warnings, p.Fit.Warnings()...)
+	if p.Fit != nil {
+		p.Warnings = append(p.Warnings, p.Fit.Warnings()...)
+	}
 	p.Warnings = append(p.Warnings, p.floorWarnings()...)
 }
 

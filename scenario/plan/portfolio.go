@@ -3,6 +3,7 @@ package plan
 import (
 	"errors"
 	"fmt"
+	"maps"
 	"slices"
 
 	"forelay/forecast"
@@ -18,7 +19,8 @@ type Portfolio struct {
 	// File is the scenario file the portfolio was built from.
 	File *scenario.File
 	// Names are the series planned, in the order history.series selects
-	// them, and Levels the names of their levels.
+	// them, then those the scopes create (new: true), and Levels the names
+	// of their levels.
 	Names  []string
 	Levels []string
 	// Plans holds each series' plan, in the order of Names. A plan's File
@@ -64,15 +66,14 @@ func WantsPortfolio(f *scenario.File, in *Inputs) bool {
 //
 // Every series must end in the same period, so that the plans share their
 // periods. Scopes are checked against the series (File.CheckSeries).
-// Series that new: true creates are refused for now, with an error at the
-// scope entry, since a plan without history is not built yet. Resources
+// A series that a scope creates (new: true) comes after the selected ones:
+// its baseline and the baseline's variance are zero, so its plan and
+// bands come from its events alone (their range and probability), and it
+// has no Fit. Resources
 // are not part of a plan: their loads come from the plans (package
 // supply). Errors name the file and key as for Build.
 func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, error) {
 	if err := f.CheckSeries(in.Selected, names(in.History)); err != nil {
-		return nil, err
-	}
-	if err := noNewSeries(f); err != nil {
 		return nil, err
 	}
 	series := make([]forecast.Series, len(in.Selected))
@@ -88,17 +89,28 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 		}
 		series[i] = ser
 	}
-	equal, err := f.SharesOf(in.Selected, func(*scenario.Event, string) float64 { return 1 })
+	created := f.NewSeries(in.Selected)
+	all := append(slices.Clip(in.Selected), created...)
+	first := series[0].Next()
+	for _, name := range created {
+		series = append(series, forecast.Series{Name: name, Start: first})
+	}
+	equal, err := f.SharesOf(all, func(*scenario.Event, string) float64 { return 1 })
 	if err != nil {
 		return nil, err
 	}
-	pf := &Portfolio{File: f, Names: in.Selected, Levels: in.Levels, Plans: make([]*Plan, len(series))}
+	pf := &Portfolio{File: f, Names: all, Levels: in.Levels, Plans: make([]*Plan, len(series))}
 	bases := make([][]float64, len(series))
 	name := func(i int) string { return series[i].Name }
 	err = eachSeries(len(series), workers, name, func(i int) error {
 		ser := series[i]
 		one := &Inputs{History: in.History, Series: ser, Selected: []string{ser.Name}, Levels: in.Levels, Digests: in.Digests}
-		p, spec := newPlan(f.ForSeries(ser.Name, equal[ser.Name]), one)
+		view := f.ForSeries(ser.Name, equal[ser.Name])
+		if ser.Len() == 0 { // created by a scope: no history to clean or fit
+			pf.Plans[i], bases[i] = newSeriesPlan(view, ser, in.Digests), make([]float64, f.Horizon)
+			return nil
+		}
+		p, spec := newPlan(view, one)
 		if err := p.clean(spec); err != nil {
 			return err
 		}
@@ -112,8 +124,7 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 	for i, b := range bases {
 		base[series[i].Name] = b
 	}
-	first := series[0].Next()
-	shares, err := f.SharesOf(in.Selected, func(e *scenario.Event, s string) float64 { return e.SpanWeight(first, base[s]) })
+	shares, err := f.SharesOf(all, func(e *scenario.Event, s string) float64 { return e.SpanWeight(first, base[s]) })
 	var se *scenario.SplitError
 	if errors.As(err, &se) {
 		return nil, f.ValueError(fmt.Sprintf("event %q: effect.split", se.Event.ID), se.Event.Pos,
@@ -165,16 +176,29 @@ func (p *Plan) retarget(view *scenario.File) {
 	}
 }
 
-// noNewSeries refuses a scope entry with new: true: a plan of a series
-// without history is not built yet.
+// noNewSeries refuses a scope entry with new: true in a plan of one
+// series: only a portfolio plans series without history.
 func noNewSeries(f *scenario.File) error {
 	for _, e := range f.Events {
 		for i, s := range e.Scope {
 			if s.New {
 				return f.ValueError(fmt.Sprintf("event %q: scope[%d].new", e.ID, i), s.Pos,
-					"plans of new series (without history) are not built yet; leave the entry out for now")
+					"a series without history is planned by forelay plan, as part of a plan of several series; this command takes the history's series only so far")
 			}
 		}
 	}
 	return nil
+}
+
+// newSeriesPlan starts the plan of a series that a scope creates: no
+// history, no fit, and every event of its view that is not wholly past.
+func newSeriesPlan(view *scenario.File, ser forecast.Series, digests map[string]string) *Plan {
+	p := &Plan{File: view, History: ser, Z: view.Bands.Z, Floor: view.Bands.Floor, Digests: maps.Clone(digests),
+		Mode: view.Bands.Widen, From: view.Bands.From}
+	for _, e := range view.Events {
+		if !e.IsPast(ser.Start) {
+			p.Future = append(p.Future, e)
+		}
+	}
+	return p
 }

@@ -185,9 +185,6 @@ func TestPortfolioErrors(t *testing.T) {
 		want string
 	}{
 		{"ends apart", [][]float64{scaled(1), short}, "", `plan.yaml:2:32: history.series: series "milk/b" ends in 2025-04 but "milk/a" in 2025-12`},
-		{"new series", [][]float64{scaled(1), scaled(2)},
-			"events:\n  - {id: e, kind: step, start: 2026-02, effect: {units: 5}, scope: [{series: milk/n, new: true}]}\n",
-			`plan.yaml:6:91: event "e": scope[0].new: plans of new series (without history) are not built yet`},
 		{"nothing to split by", [][]float64{zeros, zeros},
 			"events:\n  - {id: e, kind: step, start: 2026-02, effect: {units: 5, split: baseline}, scope: [{series: \"milk/*\"}]}\n",
 			`event "e": effect.split: the 2 series sharing the effect have no baseline over the event's span`},
@@ -199,5 +196,46 @@ func TestPortfolioErrors(t *testing.T) {
 				t.Errorf("error %v; want %q", err, tc.want)
 			}
 		})
+	}
+}
+
+// TestPortfolioNewSeries: a series that a scope creates has a zero
+// baseline, so its plan is its event alone and its band comes from the
+// event's range: a step of 5 units from 2026-02 with a range of 3 to 7 read
+// as a 90 % interval, sd = 4 / (2 × 1.6449) (standard normal table), and a
+// probability of 0.5 that halves the risk-weighted plan.
+func TestPortfolioNewSeries(t *testing.T) {
+	body := "events:\n  - {id: e, kind: step, start: 2026-02, effect: {units: 5}, range: {low: 3, high: 7}, probability: 0.5, scope: [{series: milk/n, new: true}]}\n"
+	f, in := writePortfolio(t, []string{"milk/a", "milk/b"}, [][]float64{scaled(1), scaled(2)}, body)
+	pf, err := BuildPortfolio(f, in, 2)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if want := []string{"milk/a", "milk/b", "milk/n"}; !reflect.DeepEqual(pf.Names, want) {
+		t.Fatalf("names %v; want %v", pf.Names, want)
+	}
+	n := pf.Plans[2]
+	line := n.Line("plan", "milk/n")
+	if n.Fit != nil || n.History.Name != "milk/n" || line == nil {
+		t.Fatalf("new series plan %+v", n)
+	}
+	sd := 4 / (2 * 1.6448536269514722)
+	for k := range 12 {
+		want, rw, w := 0.0, 0.0, 0.0
+		if k >= 1 {
+			want, rw, w = 5, 2.5, 2*sd
+		}
+		if n.Baseline[k] != 0 || math.Abs(line.Adjusted[k]-want) > 1e-12 || math.Abs(line.RiskWeighted[k]-rw) > 1e-12 ||
+			math.Abs(line.Upper[k]-(want+w)) > 1e-9 || math.Abs(line.Lower[k]-(want-w)) > 1e-9 {
+			t.Errorf("period %d: baseline %v, plan %v, risk-weighted %v, band %v to %v; want %v, %v, %v -/+ %v",
+				k, n.Baseline[k], line.Adjusted[k], line.RiskWeighted[k], line.Lower[k], line.Upper[k], want, rw, want, w)
+		}
+	}
+	rs, err := pf.Rollups("plan")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(rs[0].Members) != 3 || math.Abs(rs[0].Adjusted[5]-(pf.Plans[0].Baseline[5]+pf.Plans[1].Baseline[5]+5)) > 1e-9 {
+		t.Errorf("total %+v", rs[0])
 	}
 }

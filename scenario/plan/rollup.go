@@ -103,15 +103,17 @@ func (pf *Portfolio) rollup(k int, members []int) (Rollup, error) {
 	hz := len(p0.Baseline)
 	r := Rollup{Scenario: p0.Scenarios[k].Name, Baseline: make([]float64, hz), Adjusted: make([]float64, hz),
 		RiskWeighted: make([]float64, hz), Lower: make([]float64, hz), Upper: make([]float64, hz)}
-	fits := make([]*forecast.Result, len(members))
+	var fits []*forecast.Result     // nil for new series: no baseline error
 	sigma := map[string][]float64{} // summed sd of each event's contributions
 	var events []string
 	floor := 0.0
-	for j, i := range members {
+	for _, i := range members {
 		p := pf.Plans[i]
 		sp := &p.Scenarios[k]
 		r.Members = append(r.Members, p.History.Name)
-		fits[j] = p.Fit
+		if p.Fit != nil {
+			fits = append(fits, p.Fit)
+		}
 		if p.Floor != nil {
 			floor += *p.Floor
 		}
@@ -130,9 +132,12 @@ func (pf *Portfolio) rollup(k int, members []int) (Rollup, error) {
 			}
 		}
 	}
-	v, _, err := forecast.SumVariance(fits, hz, p0.Mode, p0.From)
-	if err != nil {
-		return Rollup{}, err
+	v := make([]float64, hz)
+	if len(fits) > 0 {
+		var err error
+		if v, _, err = forecast.SumVariance(fits, hz, p0.Mode, p0.From); err != nil {
+			return Rollup{}, err
+		}
 	}
 	for _, id := range events {
 		for t, s := range sigma[id] {

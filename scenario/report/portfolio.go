@@ -164,7 +164,7 @@ func portfolioText(w *Text, pf *plan.Portfolio, rollups [][]plan.Rollup) {
 		fmt.Fprintf(w, "Most changed series (%d of %d changed; all in summary.csv):\n", countChanged(top), len(top))
 		mt := NewTable("series", "baseline"+units, "plan"+units, "vs baseline", "change")
 		for _, c := range top[:n] {
-			d := forecast.Decimals([]float64{c.baseline})
+			d := forecast.Decimals([]float64{c.baseline, c.adjusted})
 			mt.AddRow(c.name, num(c.baseline, d), num(c.adjusted, d), Signed(c.change(), d), Pct(c.change(), c.baseline))
 		}
 		w.Add(mt)
