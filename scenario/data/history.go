@@ -160,11 +160,13 @@ func (h *History) Lookup(name string) (forecast.Series, error) {
 	if name == "" && len(h.Series) == 1 {
 		return h.Series[0], nil
 	}
-	names := make([]string, len(h.Series))
-	for i, s := range h.Series {
+	for _, s := range h.Series {
 		if s.Name == name {
 			return s, nil
 		}
+	}
+	names := make([]string, len(h.Series))
+	for i, s := range h.Series {
 		names[i] = strconv.Quote(s.Name)
 	}
 	if name == "" {

@@ -76,12 +76,18 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 	if err := f.CheckSeries(in.Selected, names(in.History)); err != nil {
 		return nil, err
 	}
+	byName := make(map[string]int, len(in.History.Series))
+	for i, s := range in.History.Series {
+		byName[s.Name] = i
+	}
 	series := make([]forecast.Series, len(in.Selected))
 	for i, name := range in.Selected {
-		ser, err := in.History.Lookup(name)
-		if err != nil {
+		j, ok := byName[name]
+		if !ok {
+			_, err := in.History.Lookup(name) // the error naming the file's series
 			return nil, f.ValueError("history.series", f.History.Pos, "%v", err)
 		}
+		ser := in.History.Series[j]
 		if i > 0 && ser.Next() != series[0].Next() {
 			return nil, f.ValueError("history.series", f.History.Pos,
 				"series %q ends in %s but %q in %s; the series of a plan must end in the same period (select series that do, or bring the history up to date)",
