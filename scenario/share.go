@@ -82,7 +82,7 @@ func (e *Event) Shares(names []string, weight func(series string) float64) ([]Se
 	for _, n := range names {
 		s := SeriesShare{Series: n, Entry: -1, Share: 1, Effect: e.Effect}
 		for i, en := range e.Scope {
-			if en.Series == n || (!en.New && series.Match(en.Series, n)) {
+			if en.moves(n) {
 				s.Entry, s.New = i, en.New
 				if en.Effect != nil {
 					s.Effect = *en.Effect
@@ -183,7 +183,7 @@ func (e *Event) scopeOverlaps(names []string) []scopeOverlap {
 	for _, n := range names {
 		first := -1
 		for i, en := range e.Scope {
-			if en.Series != n && (en.New || !series.Match(en.Series, n)) {
+			if !en.moves(n) {
 				continue
 			}
 			if first < 0 {
@@ -198,4 +198,10 @@ func (e *Event) scopeOverlaps(names []string) []scopeOverlap {
 	}
 	slices.SortStableFunc(out, func(a, b scopeOverlap) int { return a.second - b.second })
 	return out
+}
+
+// moves reports whether the scope entry moves the series called name: the
+// series it creates, or one its name or pattern matches.
+func (en ScopeEntry) moves(name string) bool {
+	return en.Series == name || (!en.New && series.Match(en.Series, name))
 }
