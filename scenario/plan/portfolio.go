@@ -149,7 +149,7 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 		return nil, err
 	}
 	if len(f.Resources) > 0 {
-		pf.Notes = append(pf.Notes, fmt.Sprintf("the file's %d resource(s) are read and checked, but their loads are not part of a plan; they come with the stress of portfolios", len(f.Resources)))
+		pf.Notes = append(pf.Notes, fmt.Sprintf("the loads of the file's %d resource(s) are those of the planned demand; the chance of a breach, shortfalls and buffers come with the stress of portfolios", len(f.Resources)))
 	}
 	lint := f.Lint(series[0])
 	pf.Warnings = append(pf.Warnings, lint...)

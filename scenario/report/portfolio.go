@@ -10,6 +10,7 @@ import (
 	"forelay/forecast"
 	"forelay/scenario"
 	"forelay/scenario/plan"
+	"forelay/scenario/supply"
 )
 
 // PortfolioVersion is the version of the portfolio plan.json document;
@@ -36,10 +37,11 @@ type portfolioJSON struct {
 }
 
 type portfolioScenarioJSON struct {
-	Name    string          `json:"name"`
-	Events  []string        `json:"events"`
-	Rollups []rollupJSON    `json:"rollups"`
-	Series  []seriesSumJSON `json:"series"`
+	Name      string          `json:"name"`
+	Events    []string        `json:"events"`
+	Rollups   []rollupJSON    `json:"rollups"`
+	Resources []resourceJSON  `json:"resources,omitempty"`
+	Series    []seriesSumJSON `json:"series"`
 }
 
 type rollupJSON struct {
@@ -51,6 +53,16 @@ type rollupJSON struct {
 	RiskWeighted []Num  `json:"risk_weighted"`
 	Lower        []Num  `json:"lower"`
 	Upper        []Num  `json:"upper"`
+}
+
+// resourceJSON is one resource's load in a scenario.
+type resourceJSON struct {
+	ID          string `json:"id"`
+	Units       string `json:"units,omitempty"`
+	Series      int    `json:"series"`
+	Load        []Num  `json:"load"`
+	Capacity    []Num  `json:"capacity"`
+	Utilisation []Num  `json:"utilisation"`
 }
 
 // seriesSumJSON is one series' totals over the horizon in a scenario.
@@ -70,10 +82,12 @@ type seriesChange struct {
 func (c seriesChange) change() float64 { return c.adjusted - c.baseline }
 
 // ForPortfolio is the report of a portfolio plan: a summary per scenario
-// on standard output (totals per group of the widest level and the
-// series the events change most), plan.csv (every series and period),
-// rollup.csv (every group of every level and period), summary.csv (every
-// series ranked by the change) and plan.json. It returns the error of
+// on standard output (totals per group of the widest level, the
+// resources' peak loads, and the series the events change most), plan.csv
+// (every series and period), rollup.csv (every group of every level and
+// period), summary.csv (every series ranked by the change), resources.csv
+// (every resource's load per period, when the file has resources) and
+// plan.json. It returns the error of
 // Portfolio.Rollups.
 func ForPortfolio(pf *plan.Portfolio) (*Report, error) {
 	p0 := pf.Plans[0]
@@ -85,11 +99,86 @@ func ForPortfolio(pf *plan.Portfolio) (*Report, error) {
 		}
 		rollups[k] = rs
 	}
+	res := resourceLoads(pf)
 	r := &Report{Name: "plan", Warnings: pf.Warnings, CSV: portfolioCSV(pf),
 		MoreCSV: []CSVFile{{"rollup", rollupCSV(pf, rollups)}, {"summary", summaryCSV(pf)}},
-		Doc:     portfolioDoc(pf, rollups)}
-	portfolioText(&r.Text, pf, rollups)
+		Doc:     portfolioDoc(pf, rollups, res)}
+	if len(res) > 0 {
+		r.MoreCSV = append(r.MoreCSV, CSVFile{"resources", resourcesCSV(pf, res)})
+	}
+	portfolioText(&r.Text, pf, rollups, res)
 	return r, nil
+}
+
+// A resourceLoad is a resource with its load in each scenario.
+type resourceLoad struct {
+	supply.Resource
+	// Load holds the load per period of each scenario, in scenario order.
+	Load [][]float64
+}
+
+// resourceLoads returns the portfolio's resources with their loads.
+func resourceLoads(pf *plan.Portfolio) []resourceLoad {
+	var out []resourceLoad
+	for _, r := range supply.PortfolioResources(pf) {
+		rl := resourceLoad{Resource: r}
+		for k := range pf.Plans[0].Scenarios {
+			rl.Load = append(rl.Load, supply.PortfolioLoad(pf, r, k))
+		}
+		out = append(out, rl)
+	}
+	return out
+}
+
+// resourcesText writes, for scenario k, each resource's peak load, the
+// capacity and utilisation in that period, and the periods the planned
+// load exceeds capacity.
+func resourcesText(w *Text, pf *plan.Portfolio, res []resourceLoad, k int) {
+	if len(res) == 0 {
+		return
+	}
+	periods := pf.Plans[0].Periods
+	t := NewTable("resource", "series", "peak load", "in", "capacity", "utilisation", "periods over capacity")
+	for _, r := range res {
+		load := r.Load[k]
+		i, peak := plan.Peak(load)
+		d := forecast.Decimals(load)
+		capText, utilText := "none", "-"
+		over := 0
+		if r.Capacity != nil {
+			capText = num(r.Capacity[i], d)
+			utilText = PctText(r.Utilisation(load)[i])
+			for t, l := range load {
+				if l > r.Capacity[t] {
+					over++
+				}
+			}
+		}
+		t.AddRow(r.ID, fmt.Sprint(len(r.Series)), num(peak, d)+unitsSuffix(r.Units), periods[i].String(), capText, utilText, fmt.Sprint(over))
+	}
+	fmt.Fprintln(w, "Resources (load of the planned demand; the chance of a breach comes with the stress of portfolios):")
+	w.Add(t)
+}
+
+// resourcesCSV is resources.csv: one row per scenario, resource and
+// period with the columns scenario, resource, period, load, capacity
+// (empty without one) and utilisation (load / capacity, 4 decimals; empty
+// without capacity).
+func resourcesCSV(pf *plan.Portfolio, res []resourceLoad) *Table {
+	t := &Table{Head: []string{"scenario", "resource", "period", "load", "capacity", "utilisation"}}
+	for k, sp := range pf.Plans[0].Scenarios {
+		for _, r := range res {
+			util := r.Utilisation(r.Load[k])
+			for j, per := range pf.Plans[0].Periods {
+				capacity := ""
+				if r.Capacity != nil {
+					capacity = CSV2(r.Capacity[j])
+				}
+				t.Rows = append(t.Rows, []string{sp.Name, r.ID, per.String(), CSV2(r.Load[k][j]), capacity, CSVNum(util[j], 4)})
+			}
+		}
+	}
+	return t
 }
 
 // changes returns each series' totals in scenario k, in the order of
@@ -118,7 +207,7 @@ func ranked(cs []seriesChange) []seriesChange {
 // portfolioText writes the summary: what was planned, then per scenario
 // the total and the groups of the widest level, and the series the events
 // change most.
-func portfolioText(w *Text, pf *plan.Portfolio, rollups [][]plan.Rollup) {
+func portfolioText(w *Text, pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoad) {
 	p0 := pf.Plans[0]
 	f := pf.File
 	units := unitsSuffix(f.Units)
@@ -151,6 +240,7 @@ func portfolioText(w *Text, pf *plan.Portfolio, rollups [][]plan.Rollup) {
 				num(ru.Lower[last], d)+" to "+num(ru.Upper[last], d))
 		}
 		w.Add(t)
+		resourcesText(w, pf, res, k)
 		top := ranked(changes(pf, k))
 		n := 0
 		for _, c := range top {
@@ -272,7 +362,7 @@ func summaryCSV(pf *plan.Portfolio) *Table {
 }
 
 // portfolioDoc is plan.json of a portfolio.
-func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup) portfolioJSON {
+func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoad) portfolioJSON {
 	p0 := pf.Plans[0]
 	doc := portfolioJSON{Version: PortfolioVersion, Kind: "portfolio", Plan: pf.File.Plan, Units: pf.File.Units,
 		Series: len(pf.Plans), Levels: List(pf.Levels), Notes: List(pf.Notes), Caution: Caution, Warnings: List(pf.Warnings)}
@@ -286,6 +376,13 @@ func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup) portfolioJSON {
 			sj.Rollups = append(sj.Rollups, rollupJSON{Level: ru.Level, Group: ru.Group, Members: len(ru.Members),
 				Baseline: Nums(ru.Baseline), Adjusted: Nums(ru.Adjusted), RiskWeighted: Nums(ru.RiskWeighted),
 				Lower: Nums(ru.Lower), Upper: Nums(ru.Upper)})
+		}
+		for _, r := range res {
+			rj := resourceJSON{ID: r.ID, Units: r.Units, Series: len(r.Series), Load: Nums(r.Load[k]), Utilisation: Nums(r.Utilisation(r.Load[k]))}
+			if r.Capacity != nil {
+				rj.Capacity = Nums(r.Capacity)
+			}
+			sj.Resources = append(sj.Resources, rj)
 		}
 		for _, c := range changes(pf, k) {
 			sj.Series = append(sj.Series, seriesSumJSON{Series: c.name, Baseline: Num(c.baseline), Adjusted: Num(c.adjusted), Change: Num(c.change())})

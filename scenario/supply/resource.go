@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"forelay/scenario/plan"
+	"forelay/scenario/series"
 )
 
 // CapacityResource is the id of the resource the scenario file's capacity
@@ -17,11 +18,14 @@ const CapacityResource = "capacity"
 // over the plan's series with one unit per unit of demand.
 type Resource struct {
 	ID string
+	// Units labels the load (line-hours); empty for none.
+	Units string
 	// Series names the series whose demand loads the resource.
 	Series []string
 	// PerUnit is the resource used per unit of demand.
 	PerUnit float64
-	// Capacity is the capacity in each of the plan's periods.
+	// Capacity is the capacity in each of the plan's periods; nil when
+	// the resource has none (its load is reported without a limit).
 	Capacity []float64
 }
 
@@ -78,4 +82,45 @@ func (r Resource) Utilisation(load []float64) []float64 {
 		}
 	}
 	return u
+}
+
+// PortfolioResources returns the resources of a portfolio's file
+// (scenario.File.AllResources: its resources, or the one its top-level
+// capacity stands for), in file order, each with the portfolio's series
+// its pattern matches, in the order of Portfolio.Names, and its capacity
+// in each plan period.
+func PortfolioResources(pf *plan.Portfolio) []Resource {
+	periods := pf.Plans[0].Periods
+	var out []Resource
+	for _, r := range pf.File.AllResources() {
+		res := Resource{ID: r.ID, Units: r.Units, PerUnit: r.PerUnit}
+		for _, n := range pf.Names {
+			if series.Match(r.Series, n) {
+				res.Series = append(res.Series, n)
+			}
+		}
+		if r.Capacity != nil {
+			res.Capacity = make([]float64, len(periods))
+			for t, per := range periods {
+				res.Capacity[t] = r.Capacity.At(per)
+			}
+		}
+		out = append(out, res)
+	}
+	return out
+}
+
+// PortfolioLoad returns the load of resource r in scenario k of the
+// portfolio: Load over the series' plans (the floored adjusted plans).
+func PortfolioLoad(pf *plan.Portfolio, r Resource, k int) []float64 {
+	byName := make(map[string]*plan.Plan, len(pf.Plans))
+	for _, p := range pf.Plans {
+		byName[p.History.Name] = p
+	}
+	return r.Load(len(pf.Plans[0].Periods), func(s string) []float64 {
+		if p := byName[s]; p != nil {
+			return p.Scenarios[k].Adjusted
+		}
+		return nil
+	})
 }
