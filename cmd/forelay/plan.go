@@ -1,6 +1,8 @@
 package main
 
 import (
+	"strconv"
+
 	"github.com/spf13/cobra"
 
 	"forelay/scenario"
@@ -22,6 +24,9 @@ type PlanOptions struct {
 	// Workers plans the series of a portfolio in parallel; 0: one per
 	// core.
 	Workers int
+	// Charts is how many of a portfolio's most-changed series get a
+	// chart besides the total: a number, all or none.
+	Charts string
 }
 
 func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
@@ -51,6 +56,7 @@ func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
 	fl.BoolVar(&opts.Detail, "detail", false, "also print every period of every scenario")
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip plan.png and plan.svg")
 	fl.StringVar(&opts.Event, "event", "", "also show how this event adds up, period by period")
+	fl.StringVar(&opts.Charts, "charts", "5", "in a plan of several series, chart the total and this many of the most-changed series: a number, all or none (none also drops the total)")
 	fl.IntVar(&opts.Workers, "workers", 0, "series planned in parallel in a plan of several series, at least 1 (default: one per core); the plan is the same for any number")
 	return cmd
 }
@@ -99,13 +105,33 @@ func portfolioRun(opts *PlanOptions, f *scenario.File, in *plan.Inputs) error {
 	if opts.Detail || opts.Event != "" {
 		return flagErrorf("--detail and --event are for plans of one series; a plan of several series writes every period to plan.csv and rollup.csv with --out")
 	}
+	charts, noChart, err := chartCount(opts.Charts)
+	if err != nil {
+		return err
+	}
 	pf, err := plan.BuildPortfolio(f, in, opts.Workers)
 	if err != nil {
 		return &inputError{err: err}
 	}
-	r, err := report.ForPortfolio(pf)
+	r, err := report.ForPortfolio(pf, charts)
 	if err != nil {
 		return &inputError{err: err}
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, r)
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart || noChart, r)
+}
+
+// chartCount reads --charts: a count of series charts, all
+// (report.AllCharts) or none (no chart at all).
+func chartCount(s string) (n int, none bool, err error) {
+	switch s {
+	case "all":
+		return report.AllCharts, false, nil
+	case "none":
+		return 0, true, nil
+	}
+	n, err = strconv.Atoi(s)
+	if err != nil || n < 0 {
+		return 0, false, flagErrorf("--charts %q: want a number of at least 0, all or none", s)
+	}
+	return n, false, nil
 }

@@ -19,9 +19,11 @@ func TestNewCmdPlan(t *testing.T) {
 		want    PlanOptions
 		wantErr string
 	}{
-		{args: []string{"plan.yaml"}, want: PlanOptions{File: "plan.yaml"}},
+		{args: []string{"plan.yaml"}, want: PlanOptions{File: "plan.yaml", Charts: "5"}},
 		{args: []string{"plan.yaml", "--out", "o", "--json", "--detail", "--no-chart"},
-			want: PlanOptions{File: "plan.yaml", Out: "o", JSON: true, Detail: true, NoChart: true}},
+			want: PlanOptions{File: "plan.yaml", Out: "o", JSON: true, Detail: true, NoChart: true, Charts: "5"}},
+		{args: []string{"plan.yaml", "--charts", "all", "--workers", "3"},
+			want: PlanOptions{File: "plan.yaml", Charts: "all", Workers: 3}},
 		{args: []string{}, wantErr: "accepts 1 arg"},
 	}
 	for _, tc := range tests {

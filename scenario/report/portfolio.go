@@ -86,10 +86,11 @@ func (c seriesChange) change() float64 { return c.adjusted - c.baseline }
 // resources' peak loads, and the series the events change most), plan.csv
 // (every series and period), rollup.csv (every group of every level and
 // period), summary.csv (every series ranked by the change), resources.csv
-// (every resource's load per period, when the file has resources) and
-// plan.json. It returns the error of
+// (every resource's load per period, when the file has resources),
+// plan.json, and the charts: the total and the plans of the charts series
+// the events change most (AllCharts for every series). It returns the error of
 // Portfolio.Rollups.
-func ForPortfolio(pf *plan.Portfolio) (*Report, error) {
+func ForPortfolio(pf *plan.Portfolio, charts int) (*Report, error) {
 	p0 := pf.Plans[0]
 	rollups := make([][]plan.Rollup, len(p0.Scenarios))
 	for k, sp := range p0.Scenarios {
@@ -106,6 +107,7 @@ func ForPortfolio(pf *plan.Portfolio) (*Report, error) {
 	if len(res) > 0 {
 		r.MoreCSV = append(r.MoreCSV, CSVFile{"resources", resourcesCSV(pf, res)})
 	}
+	r.Charts = portfolioCharts(pf, rollups, charts)
 	portfolioText(&r.Text, pf, rollups, res)
 	return r, nil
 }
