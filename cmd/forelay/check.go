@@ -42,8 +42,19 @@ func checkRun(opts *CheckOptions) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	in, err := plan.Read(f)
+	in, err := plan.ReadSelection(f)
 	if err != nil {
+		return &inputError{err: err}
+	}
+	if plan.WantsPortfolio(f, in) {
+		series, err := plan.CheckPortfolio(f, in)
+		if err != nil {
+			return &inputError{err: err}
+		}
+		rep := report.CheckPortfolio(opts.File, f, in, series[0], f.Lint(series[0]))
+		return emit(opts.IO, opts.Shared, "", opts.JSON, true, rep)
+	}
+	if err := in.One(f); err != nil {
 		return &inputError{err: err}
 	}
 	rep := report.Check(opts.File, f, in.Series, f.Lint(in.Series))

@@ -69,31 +69,13 @@ func WantsPortfolio(f *scenario.File, in *Inputs) bool {
 // A series that a scope creates (new: true) comes after the selected ones:
 // its baseline and the baseline's variance are zero, so its plan and
 // bands come from its events alone (their range and probability), and it
-// has no Fit. Resources
-// are not part of a plan: their loads come from the plans (package
-// supply). Errors name the file and key as for Build.
+// has no Fit. Resources are not part of a plan: their loads come from the
+// plans (package supply). Errors are those of CheckPortfolio, then those of
+// Build.
 func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, error) {
-	if err := f.CheckSeries(in.Selected, names(in.History)); err != nil {
+	series, err := CheckPortfolio(f, in)
+	if err != nil {
 		return nil, err
-	}
-	byName := make(map[string]int, len(in.History.Series))
-	for i, s := range in.History.Series {
-		byName[s.Name] = i
-	}
-	series := make([]forecast.Series, len(in.Selected))
-	for i, name := range in.Selected {
-		j, ok := byName[name]
-		if !ok {
-			_, err := in.History.Lookup(name) // the error naming the file's series
-			return nil, f.ValueError("history.series", f.History.Pos, "%v", err)
-		}
-		ser := in.History.Series[j]
-		if i > 0 && ser.Next() != series[0].Next() {
-			return nil, f.ValueError("history.series", f.History.Pos,
-				"series %q ends in %s but %q in %s; the series of a plan must end in the same period (select series that do, or bring the history up to date)",
-				ser.Name, ser.Period(ser.Len()-1), series[0].Name, series[0].Period(series[0].Len()-1))
-		}
-		series[i] = ser
 	}
 	created := f.NewSeries(in.Selected)
 	all := append(slices.Clip(in.Selected), created...)
@@ -207,4 +189,34 @@ func newSeriesPlan(view *scenario.File, ser forecast.Series, digests map[string]
 		}
 	}
 	return p
+}
+
+// CheckPortfolio makes the checks of a portfolio that need no fit: the
+// scopes and resources against the series (File.CheckSeries) and a common
+// last period. It returns the selected series, in the order of
+// Inputs.Selected.
+func CheckPortfolio(f *scenario.File, in *Inputs) ([]forecast.Series, error) {
+	if err := f.CheckSeries(in.Selected, names(in.History)); err != nil {
+		return nil, err
+	}
+	byName := make(map[string]int, len(in.History.Series))
+	for i, s := range in.History.Series {
+		byName[s.Name] = i
+	}
+	series := make([]forecast.Series, len(in.Selected))
+	for i, name := range in.Selected {
+		j, ok := byName[name]
+		if !ok {
+			_, err := in.History.Lookup(name) // the error naming the file's series
+			return nil, f.ValueError("history.series", f.History.Pos, "%v", err)
+		}
+		ser := in.History.Series[j]
+		if i > 0 && ser.Next() != series[0].Next() {
+			return nil, f.ValueError("history.series", f.History.Pos,
+				"series %q ends in %s but %q in %s; the series of a plan must end in the same period (select series that do, or bring the history up to date)",
+				ser.Name, ser.Period(ser.Len()-1), series[0].Name, series[0].Period(series[0].Len()-1))
+		}
+		series[i] = ser
+	}
+	return series, nil
 }

@@ -98,6 +98,11 @@ func (in *Inputs) one(f *scenario.File) error {
 		"%d series selected (%s): forelay plan plans several series, but this command takes one so far; select one", len(in.Selected), list)
 }
 
+// One returns the error of Read for inputs read by ReadSelection: at
+// history.series when they hold several series, or for what a plan of one
+// series does not take yet (resources, new series); nil otherwise.
+func (in *Inputs) One(f *scenario.File) error { return in.one(f) }
+
 // names returns the names of the series of h, in file order.
 func names(h *data.History) []string {
 	out := make([]string, len(h.Series))
