@@ -47,11 +47,11 @@ func checkRun(opts *CheckOptions) error {
 		return &inputError{err: err}
 	}
 	if plan.WantsPortfolio(f, in) {
-		series, err := plan.CheckPortfolio(f, in)
+		series, warnings, err := plan.CheckPortfolio(f, in)
 		if err != nil {
 			return &inputError{err: err}
 		}
-		rep := report.CheckPortfolio(opts.File, f, in, series[0], f.Lint(series[0]))
+		rep := report.CheckPortfolio(opts.File, f, in, series, append(warnings, f.Lint(series[0])...))
 		return emit(opts.IO, opts.Shared, "", opts.JSON, true, rep)
 	}
 	if err := in.One(f); err != nil {

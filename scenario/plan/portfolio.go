@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"maps"
 	"slices"
+	"strings"
 
 	"forelay/forecast"
 	"forelay/scenario"
@@ -73,12 +74,16 @@ func WantsPortfolio(f *scenario.File, in *Inputs) bool {
 // plans (package supply). Errors are those of CheckPortfolio, then those of
 // Build.
 func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, error) {
-	series, err := CheckPortfolio(f, in)
+	series, warnings, err := CheckPortfolio(f, in)
 	if err != nil {
 		return nil, err
 	}
-	created := f.NewSeries(in.Selected)
-	all := append(slices.Clip(in.Selected), created...)
+	all := make([]string, len(series))
+	for i, s := range series {
+		all[i] = s.Name
+	}
+	created := f.NewSeries(all)
+	all = append(all, created...)
 	first := series[0].Next()
 	for _, name := range created {
 		series = append(series, forecast.Series{Name: name, Start: first})
@@ -134,7 +139,7 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 		pf.Notes = append(pf.Notes, fmt.Sprintf("the loads of the file's %d resource(s) are those of the planned demand; the chance of a breach, shortfalls and buffers come with the stress of portfolios", len(f.Resources)))
 	}
 	lint := f.Lint(series[0])
-	pf.Warnings = append(pf.Warnings, lint...)
+	pf.Warnings = append(append(pf.Warnings, warnings...), lint...)
 	for _, p := range pf.Plans {
 		for _, w := range p.Warnings {
 			if slices.Contains(lint, w) {
@@ -191,32 +196,58 @@ func newSeriesPlan(view *scenario.File, ser forecast.Series, digests map[string]
 	return p
 }
 
-// CheckPortfolio makes the checks of a portfolio that need no fit: the
-// scopes and resources against the series (File.CheckSeries) and a common
-// last period. It returns the selected series, in the order of
-// Inputs.Selected.
-func CheckPortfolio(f *scenario.File, in *Inputs) ([]forecast.Series, error) {
-	if err := f.CheckSeries(in.Selected, names(in.History)); err != nil {
-		return nil, err
-	}
+// CheckPortfolio makes the checks of a portfolio that need no fit and
+// returns the series to plan, in the order of Inputs.Selected, with its
+// warnings. The plan's history ends in the latest last period of the
+// selected series; a series that ends earlier (discontinued, or not
+// brought up to date) is left out with a warning naming how many, the
+// first few and the fix, so that one stale series never stops the plan
+// of thousands. The scopes and resources are then checked against the
+// series planned (File.CheckSeries).
+func CheckPortfolio(f *scenario.File, in *Inputs) ([]forecast.Series, []string, error) {
 	byName := make(map[string]int, len(in.History.Series))
 	for i, s := range in.History.Series {
 		byName[s.Name] = i
 	}
-	series := make([]forecast.Series, len(in.Selected))
-	for i, name := range in.Selected {
+	var all []forecast.Series
+	last := forecast.Period{}
+	for _, name := range in.Selected {
 		j, ok := byName[name]
 		if !ok {
 			_, err := in.History.Lookup(name) // the error naming the file's series
-			return nil, f.ValueError("history.series", f.History.Pos, "%v", err)
+			return nil, nil, f.ValueError("history.series", f.History.Pos, "%v", err)
 		}
 		ser := in.History.Series[j]
-		if i > 0 && ser.Next() != series[0].Next() {
-			return nil, f.ValueError("history.series", f.History.Pos,
-				"series %q ends in %s but %q in %s; the series of a plan must end in the same period (select series that do, or bring the history up to date)",
-				ser.Name, ser.Period(ser.Len()-1), series[0].Name, series[0].Period(series[0].Len()-1))
+		if next := ser.Next(); last.IsZero() || last.Before(next) {
+			last = next
 		}
-		series[i] = ser
+		all = append(all, ser)
 	}
-	return series, nil
+	var series []forecast.Series
+	var stale []string
+	for _, ser := range all {
+		if ser.Next() == last {
+			series = append(series, ser)
+		} else {
+			stale = append(stale, fmt.Sprintf("%q (to %s)", ser.Name, ser.Period(ser.Len()-1)))
+		}
+	}
+	var warnings []string
+	if len(stale) > 0 {
+		const shown = 3
+		list := strings.Join(stale[:min(shown, len(stale))], ", ")
+		if len(stale) > shown {
+			list += ", ..."
+		}
+		warnings = append(warnings, fmt.Sprintf("%d of %d series end before %s, the last period of the others, and are left out of the plan: %s; bring their history up to date, or leave them out of history.series",
+			len(stale), len(all), last.Add(-1), list))
+	}
+	planned := make([]string, len(series))
+	for i, s := range series {
+		planned[i] = s.Name
+	}
+	if err := f.CheckSeries(planned, names(in.History)); err != nil {
+		return nil, nil, err
+	}
+	return series, warnings, nil
 }

@@ -173,18 +173,16 @@ func TestPortfolioOfOne(t *testing.T) {
 	}
 }
 
-// TestPortfolioErrors: series ending apart, a new series, and a split by
-// baseline over series without baseline are refused with positions.
+// TestPortfolioErrors: a split by baseline over series without baseline is
+// refused with its position.
 func TestPortfolioErrors(t *testing.T) {
 	zeros := make([]float64, 48)
-	short := scaled(1)[:40]
 	for _, tc := range []struct {
 		name string
 		vals [][]float64
 		body string
 		want string
 	}{
-		{"ends apart", [][]float64{scaled(1), short}, "", `plan.yaml:2:32: history.series: series "milk/b" ends in 2025-04 but "milk/a" in 2025-12`},
 		{"nothing to split by", [][]float64{zeros, zeros},
 			"events:\n  - {id: e, kind: step, start: 2026-02, effect: {units: 5, split: baseline}, scope: [{series: \"milk/*\"}]}\n",
 			`event "e": effect.split: the 2 series sharing the effect have no baseline over the event's span`},
@@ -237,5 +235,22 @@ func TestPortfolioNewSeries(t *testing.T) {
 	}
 	if len(rs[0].Members) != 3 || math.Abs(rs[0].Adjusted[5]-(pf.Plans[0].Baseline[5]+pf.Plans[1].Baseline[5]+5)) > 1e-9 {
 		t.Errorf("total %+v", rs[0])
+	}
+}
+
+// TestPortfolioStaleSeries: a series that ends before the others is left
+// out of the plan with a warning, and the plan is that of the others.
+func TestPortfolioStaleSeries(t *testing.T) {
+	f, in := writePortfolio(t, []string{"milk/a", "milk/b", "milk/c"}, [][]float64{scaled(1), scaled(2)[:40], scaled(3)}, "")
+	pf, err := BuildPortfolio(f, in, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !reflect.DeepEqual(pf.Names, []string{"milk/a", "milk/c"}) {
+		t.Errorf("names %v", pf.Names)
+	}
+	want := `1 of 3 series end before 2025-12, the last period of the others, and are left out of the plan: "milk/b" (to 2025-04); bring their history up to date, or leave them out of history.series`
+	if len(pf.Warnings) == 0 || pf.Warnings[0] != want {
+		t.Errorf("warnings %q; want first %q", pf.Warnings, want)
 	}
 }

@@ -28,19 +28,25 @@ func Check(path string, f *scenario.File, ser forecast.Series, warnings []string
 }
 
 // CheckPortfolio is the report of "forelay check" on a scenario file that
-// plans several series (plan.WantsPortfolio): the series selected (the
-// first of them, ser, standing for the periods they share), those the
-// scopes create, the levels, events, scenarios and resources. Its JSON
-// document has kind "portfolio" and series_count in place of series.
-func CheckPortfolio(path string, f *scenario.File, in *plan.Inputs, ser forecast.Series, warnings []string) *Report {
-	created := f.NewSeries(in.Selected)
+// plans several series (plan.WantsPortfolio): the series to plan (as
+// plan.CheckPortfolio returns them; the first stands for the periods they
+// share), those the scopes create, the levels, events, scenarios and
+// resources. Its JSON document has kind "portfolio" and series_count in
+// place of series.
+func CheckPortfolio(path string, f *scenario.File, in *plan.Inputs, planned []forecast.Series, warnings []string) *Report {
+	names := make([]string, len(planned))
+	for i, s := range planned {
+		names[i] = s.Name
+	}
+	created := f.NewSeries(names)
 	levels := in.Levels
+	ser := planned[0]
 	r := &Report{Name: "check", Warnings: warnings, Compact: true, Doc: map[string]any{"file": path, "ok": true, "kind": "portfolio",
-		"plan": f.Plan, "series_count": len(in.Selected), "new_series": len(created), "levels": List(levels),
+		"plan": f.Plan, "series_count": len(planned), "new_series": len(created), "levels": List(levels),
 		"period": ser.Freq().String(), "end": ser.Period(ser.Len() - 1).String(), "events": len(f.Events),
 		"scenarios": len(f.Cases()), "resources": len(f.AllResources()), "horizon": f.Horizon, "warnings": List(warnings)}}
 	fmt.Fprintf(&r.Text, "%s: ok: plan %s, %d series (and %d new) at %d level(s) (%s), %s periods to %s, %d event(s), %d scenario(s), %d resource(s), horizon %d\n",
-		path, f.Plan, len(in.Selected), len(created), len(levels), strings.Join(levels, ", "), ser.Freq(), ser.Period(ser.Len()-1),
+		path, f.Plan, len(planned), len(created), len(levels), strings.Join(levels, ", "), ser.Freq(), ser.Period(ser.Len()-1),
 		len(f.Events), len(f.Cases()), len(f.AllResources()), f.Horizon)
 	return r
 }
