@@ -65,8 +65,9 @@ func WantsPortfolio(f *scenario.File, in *Inputs) bool {
 // core); the portfolio, and the error reported when several series fail
 // (that of the first in order), do not depend on their number.
 //
-// Every series must end in the same period, so that the plans share their
-// periods. Scopes are checked against the series (File.CheckSeries).
+// The plans share their periods: a series that ends before the others is
+// left out with a warning, and the scopes are checked against the series
+// planned (CheckPortfolio).
 // A series that a scope creates (new: true) comes after the selected ones:
 // its baseline and the baseline's variance are zero, so its plan and
 // bands come from its events alone (their range and probability), and it
