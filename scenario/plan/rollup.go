@@ -91,6 +91,31 @@ func (pf *Portfolio) Rollups(name string) ([]Rollup, error) {
 	return out, nil
 }
 
+// SumOf returns scenario k of the portfolio summed over the series called
+// members (those it plans; names it does not plan are skipped), as a
+// roll-up with Level and Group empty: the sum a resource's load is built
+// on. It returns nil and no error when no member is planned.
+func (pf *Portfolio) SumOf(k int, members []string) (*Rollup, error) {
+	index := make(map[string]int, len(pf.Plans))
+	for i, p := range pf.Plans {
+		index[p.History.Name] = i
+	}
+	var idx []int
+	for _, m := range members {
+		if i, ok := index[m]; ok {
+			idx = append(idx, i)
+		}
+	}
+	if len(idx) == 0 {
+		return nil, nil
+	}
+	r, err := pf.rollup(k, idx)
+	if err != nil {
+		return nil, err
+	}
+	return &r, nil
+}
+
 // prefix returns the first d levels of name.
 func prefix(name string, d int) string {
 	parts := strings.SplitN(name, "/", d+1)

@@ -63,6 +63,9 @@ type resourceJSON struct {
 	Load        []Num  `json:"load"`
 	Capacity    []Num  `json:"capacity"`
 	Utilisation []Num  `json:"utilisation"`
+	LoadSD      []Num  `json:"load_sd"`
+	PBreach     []Num  `json:"p_breach"`
+	Shortfall   []Num  `json:"expected_shortfall"`
 }
 
 // seriesSumJSON is one series' totals over the horizon in a scenario.
@@ -100,7 +103,10 @@ func ForPortfolio(pf *plan.Portfolio, charts int) (*Report, error) {
 		}
 		rollups[k] = rs
 	}
-	res := resourceLoads(pf)
+	res, err := resourceLoads(pf)
+	if err != nil {
+		return nil, err
+	}
 	r := &Report{Name: "plan", Warnings: pf.Warnings, CSV: portfolioCSV(pf),
 		MoreCSV: []CSVFile{{"rollup", rollupCSV(pf, rollups)}, {"summary", summaryCSV(pf)}},
 		Doc:     portfolioDoc(pf, rollups, res)}
@@ -115,21 +121,48 @@ func ForPortfolio(pf *plan.Portfolio, charts int) (*Report, error) {
 // A resourceLoad is a resource with its load in each scenario.
 type resourceLoad struct {
 	supply.Resource
-	// Load holds the load per period of each scenario, in scenario order.
+	// Load holds the load per period of each scenario, in scenario order,
+	// and Risk its spread and breach risk (nil when none of the
+	// resource's series is planned).
 	Load [][]float64
+	Risk []*supply.LoadRisk
 }
 
-// resourceLoads returns the portfolio's resources with their loads.
-func resourceLoads(pf *plan.Portfolio) []resourceLoad {
+// resourceLoads returns the portfolio's resources with their loads and
+// risks, or the error of supply.PortfolioLoadRisk.
+func resourceLoads(pf *plan.Portfolio) ([]resourceLoad, error) {
 	var out []resourceLoad
 	for _, r := range supply.PortfolioResources(pf) {
 		rl := resourceLoad{Resource: r}
 		for k := range pf.Plans[0].Scenarios {
+			risk, err := supply.PortfolioLoadRisk(pf, r, k)
+			if err != nil {
+				return nil, err
+			}
 			rl.Load = append(rl.Load, supply.PortfolioLoad(pf, r, k))
+			rl.Risk = append(rl.Risk, risk)
 		}
 		out = append(out, rl)
 	}
-	return out
+	return out, nil
+}
+
+// maxBreach returns the largest breach chance of a risk and its period
+// index; -1 without capacity or risk.
+func maxBreach(risk *supply.LoadRisk) (int, float64) {
+	best, at := -1.0, -1
+	if risk == nil {
+		return -1, math.NaN()
+	}
+	for t, p := range risk.PBreach {
+		if p > best {
+			best, at = p, t
+		}
+	}
+	if at < 0 {
+		return -1, math.NaN()
+	}
+	return at, best
 }
 
 // resourcesText writes, for scenario k, each resource's peak load, the
@@ -140,7 +173,7 @@ func resourcesText(w *Text, pf *plan.Portfolio, res []resourceLoad, k int) {
 		return
 	}
 	periods := pf.Plans[0].Periods
-	t := NewTable("resource", "series", "peak load", "in", "capacity", "utilisation", "periods over capacity")
+	t := NewTable("resource", "series", "peak load", "in", "capacity", "utilisation", "periods over capacity", "max breach chance")
 	for _, r := range res {
 		load := r.Load[k]
 		i, peak := plan.Peak(load)
@@ -156,18 +189,23 @@ func resourcesText(w *Text, pf *plan.Portfolio, res []resourceLoad, k int) {
 				}
 			}
 		}
-		t.AddRow(r.ID, fmt.Sprint(len(r.Series)), num(peak, d)+unitsSuffix(r.Units), periods[i].String(), capText, utilText, fmt.Sprint(over))
+		breach := "-"
+		if j, p := maxBreach(r.Risk[k]); j >= 0 {
+			breach = PctText(p) + " in " + periods[j].String()
+		}
+		t.AddRow(r.ID, fmt.Sprint(len(r.Series)), num(peak, d)+unitsSuffix(r.Units), periods[i].String(), capText, utilText, fmt.Sprint(over), breach)
 	}
-	fmt.Fprintln(w, "Resources (load of the planned demand; the chance of a breach comes with the stress of portfolios):")
+	fmt.Fprintln(w, "Resources (load of the planned demand; breach chance if the scenario's events happen, load taken as normal with the spread of the sums):")
 	w.Add(t)
 }
 
 // resourcesCSV is resources.csv: one row per scenario, resource and
 // period with the columns scenario, resource, period, load, capacity
-// (empty without one) and utilisation (load / capacity, 4 decimals; empty
-// without capacity).
+// (empty without one), utilisation (load / capacity, 4 decimals; empty
+// without capacity), load_sd, p_breach (4 decimals) and
+// expected_shortfall (supply.LoadRisk; empty without capacity).
 func resourcesCSV(pf *plan.Portfolio, res []resourceLoad) *Table {
-	t := &Table{Head: []string{"scenario", "resource", "period", "load", "capacity", "utilisation"}}
+	t := &Table{Head: []string{"scenario", "resource", "period", "load", "capacity", "utilisation", "load_sd", "p_breach", "expected_shortfall"}}
 	for k, sp := range pf.Plans[0].Scenarios {
 		for _, r := range res {
 			util := r.Utilisation(r.Load[k])
@@ -176,7 +214,12 @@ func resourcesCSV(pf *plan.Portfolio, res []resourceLoad) *Table {
 				if r.Capacity != nil {
 					capacity = CSV2(r.Capacity[j])
 				}
-				t.Rows = append(t.Rows, []string{sp.Name, r.ID, per.String(), CSV2(r.Load[k][j]), capacity, CSVNum(util[j], 4)})
+				sd, pb, es := math.NaN(), math.NaN(), math.NaN()
+				if risk := r.Risk[k]; risk != nil {
+					sd, pb, es = risk.SD[j], risk.PBreach[j], risk.Shortfall[j]
+				}
+				t.Rows = append(t.Rows, []string{sp.Name, r.ID, per.String(), CSV2(r.Load[k][j]), capacity, CSVNum(util[j], 4),
+					CSVNum(sd, 2), CSVNum(pb, 4), CSVNum(es, 2)})
 			}
 		}
 	}
@@ -383,6 +426,9 @@ func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoa
 			rj := resourceJSON{ID: r.ID, Units: r.Units, Series: len(r.Series), Load: Nums(r.Load[k]), Utilisation: Nums(r.Utilisation(r.Load[k]))}
 			if r.Capacity != nil {
 				rj.Capacity = Nums(r.Capacity)
+			}
+			if risk := r.Risk[k]; risk != nil {
+				rj.LoadSD, rj.PBreach, rj.Shortfall = Nums(risk.SD), Nums(risk.PBreach), Nums(risk.Shortfall)
 			}
 			sj.Resources = append(sj.Resources, rj)
 		}
