@@ -1,6 +1,7 @@
 package main
 
 import (
+	"errors"
 	"strconv"
 
 	"github.com/spf13/cobra"
@@ -102,9 +103,6 @@ func planRun(opts *PlanOptions) error {
 
 // portfolioRun plans the several series of f.
 func portfolioRun(opts *PlanOptions, f *scenario.File, in *plan.Inputs) error {
-	if opts.Detail || opts.Event != "" {
-		return flagErrorf("--detail and --event are for plans of one series; a plan of several series writes every period to plan.csv and rollup.csv with --out")
-	}
 	charts, noChart, err := chartCount(opts.Charts)
 	if err != nil {
 		return err
@@ -113,7 +111,10 @@ func portfolioRun(opts *PlanOptions, f *scenario.File, in *plan.Inputs) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	r, err := report.ForPortfolio(pf, charts)
+	r, err := report.ForPortfolio(pf, report.PortfolioOptions{Charts: charts, Detail: opts.Detail, Event: opts.Event})
+	if errors.Is(err, report.ErrNoPortfolioEvent) {
+		return flagErrorf("--event %q: %v", opts.Event, err)
+	}
 	if err != nil {
 		return &inputError{err: err}
 	}

@@ -90,10 +90,13 @@ func (c seriesChange) change() float64 { return c.adjusted - c.baseline }
 // (every series and period), rollup.csv (every group of every level and
 // period), summary.csv (every series ranked by the change), resources.csv
 // (every resource's load per period, when the file has resources),
-// plan.json, and the charts: the total and the plans of the charts series
-// the events change most (AllCharts for every series). It returns the error of
+// plan.json, and the charts: the total and the plans of the opt.Charts
+// series the events change most (AllCharts for every series). With
+// opt.Detail the text adds every period of each scenario's total, and with
+// opt.Event where that event lands; an event that moves no planned series
+// in the forecast periods is an error wrapping ErrNoPortfolioEvent. It returns the error of
 // Portfolio.Rollups.
-func ForPortfolio(pf *plan.Portfolio, charts int) (*Report, error) {
+func ForPortfolio(pf *plan.Portfolio, opt PortfolioOptions) (*Report, error) {
 	p0 := pf.Plans[0]
 	rollups := make([][]plan.Rollup, len(p0.Scenarios))
 	for k, sp := range p0.Scenarios {
@@ -113,8 +116,13 @@ func ForPortfolio(pf *plan.Portfolio, charts int) (*Report, error) {
 	if len(res) > 0 {
 		r.MoreCSV = append(r.MoreCSV, CSVFile{"resources", resourcesCSV(pf, res)})
 	}
-	r.Charts = portfolioCharts(pf, rollups, charts)
-	portfolioText(&r.Text, pf, rollups, res)
+	r.Charts = portfolioCharts(pf, rollups, opt.Charts)
+	portfolioText(&r.Text, pf, rollups, res, opt.Detail)
+	if opt.Event != "" {
+		if err := portfolioEventText(&r.Text, pf, opt.Event); err != nil {
+			return nil, err
+		}
+	}
 	return r, nil
 }
 
@@ -252,7 +260,7 @@ func ranked(cs []seriesChange) []seriesChange {
 // portfolioText writes the summary: what was planned, then per scenario
 // the total and the groups of the widest level, and the series the events
 // change most.
-func portfolioText(w *Text, pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoad) {
+func portfolioText(w *Text, pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoad, detail bool) {
 	p0 := pf.Plans[0]
 	f := pf.File
 	units := unitsSuffix(f.Units)
@@ -285,6 +293,9 @@ func portfolioText(w *Text, pf *plan.Portfolio, rollups [][]plan.Rollup, res []r
 				num(ru.Lower[last], d)+" to "+num(ru.Upper[last], d))
 		}
 		w.Add(t)
+		if detail {
+			portfolioDetailText(w, pf, rollups[k][0])
+		}
 		resourcesText(w, pf, res, k)
 		top := ranked(changes(pf, k))
 		n := 0
