@@ -1,19 +1,21 @@
 #!/usr/bin/env bash
-# Measures forelay plan on an invented portfolio of 10,000 monthly series
-# of up to 120 months (method auto, 18 months, two scoped events) and
-# prints the wall time and peak memory. Usage, from the repository root:
+# Measures forelay plan on an invented portfolio of SERIES monthly series
+# (10,000 by default) of up to POINTS months (120 by default; method auto,
+# 18 months, two scoped events) and prints the wall time and peak memory.
+# Usage, from the repository root:
 #
-#   bash examples/portfolio/scale.sh [SERIES] [WORKERS]
+#   bash examples/portfolio/scale.sh [SERIES] [WORKERS] [POINTS]
 #
 # Needs Go and GNU time (/usr/bin/time). Nothing is written outside a
 # temporary directory, which is removed at the end.
 set -euo pipefail
 series=${1:-10000}
 workers=${2:-2}
+points=${3:-120}
 dir=$(mktemp -d)
 trap 'rm -rf "$dir"' EXIT
 go build -o "$dir/forelay" ./cmd/forelay
-go run ./examples/generate -kind portfolio -series "$series" -points 120 -out "$dir/history.csv"
+go run ./examples/generate -kind portfolio -series "$series" -points "$points" -out "$dir/history.csv"
 cat > "$dir/plan.yaml" <<'YAML'
 plan: scale
 history:
@@ -39,5 +41,5 @@ events:
 YAML
 /usr/bin/time -v "$dir/forelay" plan "$dir/plan.yaml" --out "$dir/out" --workers "$workers" \
   >/dev/null 2>"$dir/time.txt" || { grep -v '^warning' "$dir/time.txt" >&2; exit 1; }
-echo "forelay plan, $series series, $workers workers:"
+echo "forelay plan, $series series of up to $points months, $workers workers:"
 grep -E 'Elapsed|Maximum resident' "$dir/time.txt"
