@@ -41,6 +41,17 @@ func eventIDList(list []*scenario.Event) []string {
 	return ids
 }
 
+// writeScenarioHeading writes the line that opens a scenario's section,
+// a blank line first: its name and its events' ids, or "baseline only".
+func writeScenarioHeading(t *Text, name string, ids []string) {
+	evs := "baseline only"
+	if len(ids) > 0 {
+		evs = "events: " + strings.Join(ids, ", ")
+	}
+	fmt.Fprintln(t)
+	fmt.Fprintf(t, "Scenario %s (%s)\n", name, evs)
+}
+
 // writeNotesAndCaution writes the notes, a blank line first, one "Note: ...." line
 // each, and then the caution that ends every report.
 func writeNotesAndCaution(t *Text, notes []string) {

@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"math"
 	"slices"
-	"strings"
 
 	"forelay/forecast"
 	"forelay/scenario"
@@ -47,14 +46,7 @@ func planText(w *Text, p *plan.Plan, detail bool) {
 	for _, sp := range p.Scenarios {
 		scenarioText(w, p, sp, d, detail)
 	}
-	if len(p.Notes) > 0 {
-		fmt.Fprintln(w)
-		for _, n := range p.Notes {
-			fmt.Fprintf(w, "Note: %s.\n", strings.TrimSuffix(n, "."))
-		}
-	}
-	fmt.Fprintln(w)
-	fmt.Fprintln(w, Caution)
+	writeNotesAndCaution(w, p.Notes)
 }
 
 // cleaningText lists the past events taken out of the history, with
@@ -83,16 +75,7 @@ func cleaningText(w *Text, p *plan.Plan, d int) {
 // event's share, its peak and, with detail, every period.
 func scenarioText(w *Text, p *plan.Plan, sp plan.ScenarioPlan, d int, detail bool) {
 	units := unitsSuffix(p.File.Units)
-	fmt.Fprintln(w)
-	ids := make([]string, len(sp.Events))
-	for i, e := range sp.Events {
-		ids[i] = e.ID
-	}
-	evs := "baseline only"
-	if len(ids) > 0 {
-		evs = "events: " + strings.Join(ids, ", ")
-	}
-	fmt.Fprintf(w, "Scenario %s (%s)\n", sp.Name, evs)
+	writeScenarioHeading(w, sp.Name, eventIDList(sp.Events))
 	base := plan.Total(p.Baseline)
 	t := NewTable("", "total"+units, "vs baseline", "share")
 	t.AddRow("baseline", num(base, d), "", "")

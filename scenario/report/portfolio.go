@@ -8,7 +8,6 @@ import (
 	"strings"
 
 	"forelay/forecast"
-	"forelay/scenario"
 	"forelay/scenario/plan"
 	"forelay/scenario/supply"
 )
@@ -269,13 +268,7 @@ func portfolioText(w *Text, pf *plan.Portfolio, rollups [][]plan.Rollup, res []r
 	fmt.Fprintf(w, "Bands: plan +- %.3g x standard error; bands of sums come from the series' joint errors, not from adding bands\n", p0.Z)
 	cases := f.Cases()
 	for k, sp := range p0.Scenarios {
-		fmt.Fprintln(w)
-		ids := eventIDs(cases[k])
-		evs := "baseline only"
-		if len(ids) > 0 {
-			evs = "events: " + strings.Join(ids, ", ")
-		}
-		fmt.Fprintf(w, "Scenario %s (%s)\n", sp.Name, evs)
+		writeScenarioHeading(w, sp.Name, eventIDList(cases[k].Events))
 		last := len(p0.Periods) - 1
 		t := NewTable("group", "series", "baseline"+units, "plan"+units, "vs baseline", "change", fmt.Sprintf("band %s", p0.Periods[last]))
 		t.Left(0)
@@ -315,14 +308,7 @@ func portfolioText(w *Text, pf *plan.Portfolio, rollups [][]plan.Rollup, res []r
 		}
 		w.Add(mt)
 	}
-	if len(pf.Notes) > 0 {
-		fmt.Fprintln(w)
-		for _, n := range pf.Notes {
-			fmt.Fprintf(w, "Note: %s.\n", strings.TrimSuffix(n, "."))
-		}
-	}
-	fmt.Fprintln(w)
-	fmt.Fprintln(w, Caution)
+	writeNotesAndCaution(w, pf.Notes)
 }
 
 // countChanged counts the series whose plan differs from the baseline.
@@ -427,7 +413,7 @@ func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoa
 	}
 	cases := pf.File.Cases()
 	for k, sp := range p0.Scenarios {
-		sj := portfolioScenarioJSON{Name: sp.Name, Events: List(eventIDs(cases[k]))}
+		sj := portfolioScenarioJSON{Name: sp.Name, Events: eventIDList(cases[k].Events)}
 		for _, ru := range rollups[k] {
 			sj.Rollups = append(sj.Rollups, rollupJSON{Level: ru.Level, Group: ru.Group, Members: len(ru.Members),
 				Baseline: Nums(ru.Baseline), Adjusted: Nums(ru.Adjusted), RiskWeighted: Nums(ru.RiskWeighted),
@@ -449,13 +435,4 @@ func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoa
 		doc.Scenarios = append(doc.Scenarios, sj)
 	}
 	return doc
-}
-
-// eventIDs returns the ids of a scenario's events, in its order.
-func eventIDs(c scenario.Case) []string {
-	ids := make([]string, len(c.Events))
-	for i, e := range c.Events {
-		ids[i] = e.ID
-	}
-	return ids
 }

@@ -3,7 +3,6 @@ package report
 import (
 	"fmt"
 	"forelay/scenario/supply"
-	"strings"
 )
 
 // The JSON shape of stress.json (and "forelay stress --json"). Field names
@@ -143,12 +142,7 @@ func writeStressText(w *Text, r *supply.StressRun, notes []string) {
 func writeStressScenario(w *Text, r *supply.StressRun, s int) {
 	p, rk := r.Plan, r.Risks[s]
 	hasCap := p.File.Capacity != nil
-	fmt.Fprintln(w)
-	evs := "baseline only"
-	if ids := eventIDList(p.Scenarios[s].Events); len(ids) > 0 {
-		evs = "events: " + strings.Join(ids, ", ")
-	}
-	fmt.Fprintf(w, "Scenario %s (%s)\n", rk.Name, evs)
+	writeScenarioHeading(w, rk.Name, eventIDList(p.Scenarios[s].Events))
 	head := []string{"period", "mean", "P5", "P10", "P50", "P90", "P95"}
 	if hasCap {
 		head = append(head, "capacity", "P(breach)", "exp. shortfall", "use P50", "use P90")
