@@ -128,10 +128,8 @@ func ForPortfolio(pf *plan.Portfolio, opt PortfolioOptions) (*Report, error) {
 // A resourceLoad is a resource with its load in each scenario.
 type resourceLoad struct {
 	supply.Resource
-	// Load holds the load per period of each scenario, in scenario order,
-	// and Risk its spread and breach risk (nil when none of the
-	// resource's series is planned).
-	Load [][]float64
+	// Risk holds the load per period of each scenario, in scenario order,
+	// with its spread and breach risk.
 	Risk []*supply.LoadRisk
 }
 
@@ -146,7 +144,6 @@ func resourceLoads(pf *plan.Portfolio) ([]resourceLoad, error) {
 			if err != nil {
 				return nil, err
 			}
-			rl.Load = append(rl.Load, supply.PortfolioLoad(pf, r, k))
 			rl.Risk = append(rl.Risk, risk)
 		}
 		out = append(out, rl)
@@ -154,22 +151,16 @@ func resourceLoads(pf *plan.Portfolio) ([]resourceLoad, error) {
 	return out, nil
 }
 
-// maxBreach returns the largest breach chance of a risk and its period
-// index; -1 without capacity or risk.
-func maxBreach(risk *supply.LoadRisk) (int, float64) {
-	best, at := -1.0, -1
-	if risk == nil {
-		return -1, math.NaN()
-	}
+// maxBreach returns the period index of a risk's largest breach chance,
+// the first of equals; -1 without capacity (breach chances all NaN).
+func maxBreach(risk *supply.LoadRisk) int {
+	at := -1
 	for t, p := range risk.PBreach {
-		if p > best {
-			best, at = p, t
+		if at < 0 && !math.IsNaN(p) || at >= 0 && p > risk.PBreach[at] {
+			at = t
 		}
 	}
-	if at < 0 {
-		return -1, math.NaN()
-	}
-	return at, best
+	return at
 }
 
 // resourcesText writes, for scenario k, each resource's peak load, the
@@ -182,7 +173,7 @@ func resourcesText(w *Text, pf *plan.Portfolio, res []resourceLoad, k int) {
 	periods := pf.Plans[0].Periods
 	t := NewTable("resource", "series", "peak load", "in", "capacity", "utilisation", "periods over capacity", "max breach chance")
 	for _, r := range res {
-		load := r.Load[k]
+		load := r.Risk[k].Load
 		i, peak := plan.Peak(load)
 		d := forecast.Decimals(load)
 		capText, utilText := "none", "-"
@@ -197,8 +188,8 @@ func resourcesText(w *Text, pf *plan.Portfolio, res []resourceLoad, k int) {
 			}
 		}
 		breach := "-"
-		if j, p := maxBreach(r.Risk[k]); j >= 0 {
-			breach = PctText(p) + " in " + periods[j].String()
+		if j := maxBreach(r.Risk[k]); j >= 0 {
+			breach = PctText(r.Risk[k].PBreach[j]) + " in " + periods[j].String()
 		}
 		t.AddRow(r.ID, fmt.Sprint(len(r.Series)), num(peak, d)+unitsSuffix(r.Units), periods[i].String(), capText, utilText, fmt.Sprint(over), breach)
 	}
@@ -215,18 +206,15 @@ func resourcesCSV(pf *plan.Portfolio, res []resourceLoad) *Table {
 	t := &Table{Head: []string{"scenario", "resource", "period", "load", "capacity", "utilisation", "load_sd", "p_breach", "expected_shortfall"}}
 	for k, sp := range pf.Plans[0].Scenarios {
 		for _, r := range res {
-			util := r.Utilisation(r.Load[k])
+			risk := r.Risk[k]
+			util := r.Utilisation(risk.Load)
 			for j, per := range pf.Plans[0].Periods {
 				capacity := ""
 				if r.Capacity != nil {
 					capacity = CSV2(r.Capacity[j])
 				}
-				sd, pb, es := math.NaN(), math.NaN(), math.NaN()
-				if risk := r.Risk[k]; risk != nil {
-					sd, pb, es = risk.SD[j], risk.PBreach[j], risk.Shortfall[j]
-				}
-				t.Rows = append(t.Rows, []string{sp.Name, r.ID, per.String(), CSV2(r.Load[k][j]), capacity, CSVNum(util[j], 4),
-					CSVNum(sd, 2), CSVNum(pb, 4), CSVNum(es, 2)})
+				t.Rows = append(t.Rows, []string{sp.Name, r.ID, per.String(), CSV2(risk.Load[j]), capacity, CSVNum(util[j], 4),
+					CSVNum(risk.SD[j], 2), CSVNum(risk.PBreach[j], 4), CSVNum(risk.Shortfall[j], 2)})
 			}
 		}
 	}
@@ -420,12 +408,11 @@ func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoa
 				Lower: Nums(ru.Lower), Upper: Nums(ru.Upper)})
 		}
 		for _, r := range res {
-			rj := resourceJSON{ID: r.ID, Units: r.Units, Series: len(r.Series), Load: Nums(r.Load[k]), Utilisation: Nums(r.Utilisation(r.Load[k]))}
+			risk := r.Risk[k]
+			rj := resourceJSON{ID: r.ID, Units: r.Units, Series: len(r.Series), Load: Nums(risk.Load), Utilisation: Nums(r.Utilisation(risk.Load)),
+				LoadSD: Nums(risk.SD), PBreach: Nums(risk.PBreach), Shortfall: Nums(risk.Shortfall)}
 			if r.Capacity != nil {
 				rj.Capacity = Nums(r.Capacity)
-			}
-			if risk := r.Risk[k]; risk != nil {
-				rj.LoadSD, rj.PBreach, rj.Shortfall = Nums(risk.SD), Nums(risk.PBreach), Nums(risk.Shortfall)
 			}
 			sj.Resources = append(sj.Resources, rj)
 		}

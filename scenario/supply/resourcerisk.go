@@ -27,19 +27,22 @@ type LoadRisk struct {
 }
 
 // PortfolioLoadRisk returns the load risk of resource r in scenario k of
-// the portfolio, or nil when no series of r is planned. The events are
-// taken to happen as the scenario says (their probability is the stress
-// run's business); the approximation is that of a normal load.
+// the portfolio: its load (PortfolioLoad) with the spread of the sum its
+// series make (zero when none of them is planned). The events are taken to
+// happen as the scenario says (their probability is the stress run's
+// business); the approximation is that of a normal load.
 func PortfolioLoadRisk(pf *plan.Portfolio, r Resource, k int) (*LoadRisk, error) {
 	sum, err := pf.SumOf(k, r.Series)
-	if err != nil || sum == nil {
+	if err != nil {
 		return nil, err
 	}
-	n := len(sum.Adjusted)
-	lr := &LoadRisk{Load: make([]float64, n), SD: make([]float64, n), PBreach: make([]float64, n), Shortfall: make([]float64, n)}
+	load := PortfolioLoad(pf, r, k)
+	n := len(load)
+	lr := &LoadRisk{Load: load, SD: make([]float64, n), PBreach: make([]float64, n), Shortfall: make([]float64, n)}
 	for t := range n {
-		lr.Load[t] = r.PerUnit * sum.Adjusted[t]
-		lr.SD[t] = r.PerUnit * math.Sqrt(sum.Var[t])
+		if sum != nil {
+			lr.SD[t] = r.PerUnit * math.Sqrt(sum.Var[t])
+		}
 		lr.PBreach[t], lr.Shortfall[t] = math.NaN(), math.NaN()
 		if r.Capacity != nil {
 			lr.PBreach[t], lr.Shortfall[t] = normalBreach(lr.Load[t], lr.SD[t], r.Capacity[t])
