@@ -39,17 +39,7 @@ type Portfolio struct {
 // selects several series, or a scope creates one (new: true) beside the
 // history's.
 func WantsPortfolio(f *scenario.File, in *Inputs) bool {
-	if len(in.Selected) > 1 {
-		return true
-	}
-	for _, e := range f.Events {
-		for _, s := range e.Scope {
-			if s.New {
-				return true
-			}
-		}
-	}
-	return false
+	return len(in.Selected) > 1 || len(f.NewSeries(in.Selected)) > 0
 }
 
 // BuildPortfolio builds the plan of every series in (Inputs.Selected), in
@@ -79,10 +69,7 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 	if err != nil {
 		return nil, err
 	}
-	all := make([]string, len(series))
-	for i, s := range series {
-		all[i] = s.Name
-	}
+	all := seriesNames(series)
 	created := f.NewSeries(all)
 	all = append(all, created...)
 	first := series[0].Next()
@@ -243,11 +230,7 @@ func CheckPortfolio(f *scenario.File, in *Inputs) ([]forecast.Series, []string, 
 		warnings = append(warnings, fmt.Sprintf("%d of %d series end before %s, the last period of the others, and are left out of the plan: %s; bring their history up to date, or leave them out of history.series",
 			len(stale), len(all), last.Add(-1), list))
 	}
-	planned := make([]string, len(series))
-	for i, s := range series {
-		planned[i] = s.Name
-	}
-	if err := f.CheckSeries(planned, names(in.History)); err != nil {
+	if err := f.CheckSeries(seriesNames(series), names(in.History)); err != nil {
 		return nil, nil, err
 	}
 	return series, warnings, nil

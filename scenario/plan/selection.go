@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"strings"
 
+	"forelay/forecast"
 	"forelay/scenario"
 	"forelay/scenario/data"
 	"forelay/scenario/series"
@@ -104,9 +105,12 @@ func (in *Inputs) one(f *scenario.File) error {
 func (in *Inputs) One(f *scenario.File) error { return in.one(f) }
 
 // names returns the names of the series of h, in file order.
-func names(h *data.History) []string {
-	out := make([]string, len(h.Series))
-	for i, s := range h.Series {
+func names(h *data.History) []string { return seriesNames(h.Series) }
+
+// seriesNames returns the names of ss, in order.
+func seriesNames(ss []forecast.Series) []string {
+	out := make([]string, len(ss))
+	for i, s := range ss {
 		out[i] = s.Name
 	}
 	return out
