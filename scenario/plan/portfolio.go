@@ -32,6 +32,30 @@ type Portfolio struct {
 	Warnings []string
 	// Notes are remarks on the portfolio as a whole, one sentence each.
 	Notes []string
+
+	// index maps each name of Names to its plan's index (BuildPortfolio
+	// sets it; nil in a Portfolio built by hand).
+	index map[string]int
+}
+
+// PlanOf returns the plan of the series called name, or nil when the
+// portfolio does not plan it.
+func (pf *Portfolio) PlanOf(name string) *Plan {
+	if i := pf.indexOf(name); i >= 0 {
+		return pf.Plans[i]
+	}
+	return nil
+}
+
+// indexOf returns the index in Plans of the series called name, or -1.
+func (pf *Portfolio) indexOf(name string) int {
+	if pf.index != nil {
+		if i, ok := pf.index[name]; ok {
+			return i
+		}
+		return -1
+	}
+	return slices.IndexFunc(pf.Plans, func(p *Plan) bool { return p.History.Name == name })
 }
 
 // WantsPortfolio reports whether the inputs call for a portfolio
@@ -80,7 +104,10 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 	if err != nil {
 		return nil, err
 	}
-	pf := &Portfolio{File: f, Names: all, Levels: in.Levels, Plans: make([]*Plan, len(series))}
+	pf := &Portfolio{File: f, Names: all, Levels: in.Levels, Plans: make([]*Plan, len(series)), index: make(map[string]int, len(all))}
+	for i, name := range all {
+		pf.index[name] = i
+	}
 	bases := make([][]float64, len(series))
 	name := func(i int) string { return series[i].Name }
 	err = eachSeries(len(series), workers, name, func(i int) error {

@@ -96,13 +96,9 @@ func (pf *Portfolio) Rollups(name string) ([]Rollup, error) {
 // roll-up with Level and Group empty: the sum a resource's load is built
 // on. It returns nil and no error when no member is planned.
 func (pf *Portfolio) SumOf(k int, members []string) (*Rollup, error) {
-	index := make(map[string]int, len(pf.Plans))
-	for i, p := range pf.Plans {
-		index[p.History.Name] = i
-	}
 	var idx []int
 	for _, m := range members {
-		if i, ok := index[m]; ok {
+		if i := pf.indexOf(m); i >= 0 {
 			idx = append(idx, i)
 		}
 	}

@@ -113,12 +113,8 @@ func PortfolioResources(pf *plan.Portfolio) []Resource {
 // PortfolioLoad returns the load of resource r in scenario k of the
 // portfolio: Load over the series' plans (the floored adjusted plans).
 func PortfolioLoad(pf *plan.Portfolio, r Resource, k int) []float64 {
-	byName := make(map[string]*plan.Plan, len(pf.Plans))
-	for _, p := range pf.Plans {
-		byName[p.History.Name] = p
-	}
 	return r.Load(len(pf.Plans[0].Periods), func(s string) []float64 {
-		if p := byName[s]; p != nil {
+		if p := pf.PlanOf(s); p != nil {
 			return p.Scenarios[k].Adjusted
 		}
 		return nil
