@@ -155,12 +155,17 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 	}
 	lint := f.Lint(series[0])
 	pf.Warnings = append(append(pf.Warnings, warnings...), lint...)
+	seen := make(map[string]bool, len(pf.Warnings))
+	for _, w := range pf.Warnings {
+		seen[w] = true
+	}
 	for _, p := range pf.Plans {
 		for _, w := range p.Warnings {
 			if slices.Contains(lint, w) {
 				continue // about the file, not the series
 			}
-			if w = fmt.Sprintf("series %s: %s", p.History.Name, w); !slices.Contains(pf.Warnings, w) {
+			if w = fmt.Sprintf("series %s: %s", p.History.Name, w); !seen[w] {
+				seen[w] = true
 				pf.Warnings = append(pf.Warnings, w)
 			}
 		}
