@@ -1,10 +1,7 @@
 package plan
 
 import (
-	"fmt"
 	"math"
-	"os"
-	"path/filepath"
 	"reflect"
 	"strings"
 	"testing"
@@ -14,32 +11,11 @@ import (
 )
 
 // writePortfolio writes a wide monthly history from 2022-01 of the given
-// series (name to values) and a scenario file reading all of them, and
-// returns the file read with its inputs.
+// series (name to values) and a scenario file reading all of them
+// (plantest.WriteWide), and returns the file read with its inputs.
 func writePortfolio(t *testing.T, series []string, values [][]float64, body string) (*scenario.File, *Inputs) {
 	t.Helper()
-	dir := t.TempDir()
-	var b strings.Builder
-	b.WriteString("period," + strings.Join(series, ",") + "\n")
-	for i := range values[0] {
-		fmt.Fprintf(&b, "%d-%02d", 2022+i/12, i%12+1)
-		for _, v := range values {
-			if i < len(v) {
-				fmt.Fprintf(&b, ",%.4f", v[i])
-			} else {
-				b.WriteString(",")
-			}
-		}
-		b.WriteString("\n")
-	}
-	if err := os.WriteFile(filepath.Join(dir, "h.csv"), []byte(b.String()), 0o644); err != nil {
-		t.Fatal(err)
-	}
-	path := filepath.Join(dir, "plan.yaml")
-	if err := os.WriteFile(path, []byte("plan: p\nhistory: {file: h.csv, series: \"**\"}\nhorizon: 12\nbaseline: {method: naive}\n"+body), 0o644); err != nil {
-		t.Fatal(err)
-	}
-	f, err := scenario.Load(path)
+	f, err := scenario.Load(plantest.WriteWide(t, series, values, body))
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -52,6 +52,37 @@ func Write(tb testing.TB, body string, hist []float64, files map[string]string) 
 	return filepath.Join(dir, "plan.yaml")
 }
 
+// WriteWide writes a wide monthly history from 2022-01 with one column
+// per series (names, values in the same order; a shorter series leaves its
+// later cells empty) as h.csv, and a scenario file reading every series
+// of it with the naive method over 12 months, then body, as plan.yaml, in
+// a temporary directory; it returns plan.yaml's path.
+func WriteWide(tb testing.TB, series []string, values [][]float64, body string) string {
+	tb.Helper()
+	dir := tb.TempDir()
+	var b strings.Builder
+	b.WriteString("period," + strings.Join(series, ",") + "\n")
+	for i := range values[0] {
+		fmt.Fprintf(&b, "%d-%02d", 2022+i/12, i%12+1)
+		for _, v := range values {
+			if i < len(v) {
+				fmt.Fprintf(&b, ",%.4f", v[i])
+			} else {
+				b.WriteString(",")
+			}
+		}
+		b.WriteString("\n")
+	}
+	if err := os.WriteFile(filepath.Join(dir, "h.csv"), []byte(b.String()), 0o644); err != nil {
+		tb.Fatal(err)
+	}
+	path := filepath.Join(dir, "plan.yaml")
+	if err := os.WriteFile(path, []byte("plan: p\nhistory: {file: h.csv, series: \"**\"}\nhorizon: 12\nbaseline: {method: naive}\n"+body), 0o644); err != nil {
+		tb.Fatal(err)
+	}
+	return path
+}
+
 // EqualSlices reports, as test errors, the values of got that differ from
 // want by more than tol (absolute or relative), and a length that differs
 // as a fatal error.
