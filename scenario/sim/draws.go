@@ -4,6 +4,8 @@ import (
 	"math"
 	"math/rand/v2"
 
+	"forelay/scenario"
+
 	"gonum.org/v1/gonum/stat/distuv"
 )
 
@@ -40,14 +42,20 @@ func (s *Simulation) newDraws(pool []float64, resp *shockResponse) *draws {
 		}
 	}
 	for _, e := range s.Plan.Future {
-		ed := eventDraw{id: e.ID, prob: e.Probability, effect: e.Effect.Value()}
-		if rg := e.Range; rg != nil && rg.Low < rg.High {
-			t := distuv.NewTriangle(rg.Low, rg.High, math.Min(math.Max(ed.effect, rg.Low), rg.High), nil)
-			ed.tri = &t
-		}
-		d.events = append(d.events, ed)
+		d.events = append(d.events, newEventDraw(e))
 	}
 	return d
+}
+
+// newEventDraw returns how event e is drawn: its probability, and its
+// size from the triangular distribution over its range, or its effect.
+func newEventDraw(e *scenario.Event) eventDraw {
+	ed := eventDraw{id: e.ID, prob: e.Probability, effect: e.Effect.Value()}
+	if rg := e.Range; rg != nil && rg.Low < rg.High {
+		t := distuv.NewTriangle(rg.Low, rg.High, math.Min(math.Max(ed.effect, rg.Low), rg.High), nil)
+		ed.tri = &t
+	}
+	return ed
 }
 
 // pathChunk is the number of paths a blockWorker runs through the error
@@ -155,13 +163,19 @@ func (w *blockWorker) convolveErrors(r *rand.Rand, i0, i1 int) {
 func (e *eventDraw) draw(r *rand.Rand, amt []float64) {
 	for i := range amt {
 		occ, u := r.Float64(), r.Float64()
-		switch {
-		case occ >= e.prob:
-			amt[i] = 0
-		case e.tri != nil:
-			amt[i] = e.tri.Quantile(u)
-		default:
-			amt[i] = e.effect
-		}
+		amt[i] = e.size(occ, u)
 	}
+}
+
+// size returns the event's size for the uniform numbers occ (occurrence)
+// and u (size): 0 when occ >= the probability, else the u-quantile of
+// the size's distribution (the effect without a range).
+func (e *eventDraw) size(occ, u float64) float64 {
+	switch {
+	case occ >= e.prob:
+		return 0
+	case e.tri != nil:
+		return e.tri.Quantile(u)
+	}
+	return e.effect
 }

@@ -16,6 +16,9 @@ const StreamBlock = 1024
 const (
 	shockStream = "shock" // the forecast-error shocks of a series
 	eventStream = "event" // the occurrences and sizes of an event
+	// periodStream: the historical periods a portfolio's shocks come
+	// from (key "").
+	periodStream = "period"
 )
 
 // FNV-1a 64-bit parameters (Fowler, Noll & Vo; the offset basis and prime
@@ -30,8 +33,8 @@ const (
 //
 //	kind + "\x00" + key + "\x00" + decimal(block)
 //
-// where kind is "shock" (key: the series name) or "event" (key: the event
-// id) and decimal(block) is the block index in base 10 without leading
+// where kind is "shock" (key: the series name), "event" (key: the event
+// id) or "period" (key "": the historical periods of a portfolio's shocks) and decimal(block) is the block index in base 10 without leading
 // zeros ("0", "1", ..., "12"). The zero bytes keep the parts apart, so
 // ("a", "b1") and ("ab", "1") differ. The block's generator is then
 // math/rand/v2's PCG seeded with (seed, streamID).

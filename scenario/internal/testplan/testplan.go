@@ -33,3 +33,23 @@ func BuildWithFiles(tb testing.TB, body string, hist []float64, files map[string
 	}
 	return plan.Load(f)
 }
+
+// Portfolio writes the wide history of the series (names, values) and a
+// scenario file reading them all (plantest.WriteWide, then body) and
+// builds the portfolio on one worker; a failure fails the test.
+func Portfolio(tb testing.TB, series []string, values [][]float64, body string) *plan.Portfolio {
+	tb.Helper()
+	f, err := scenario.Load(plantest.WriteWide(tb, series, values, body))
+	if err != nil {
+		tb.Fatal(err)
+	}
+	in, err := plan.ReadSelection(f)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	pf, err := plan.BuildPortfolio(f, in, 1)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	return pf
+}

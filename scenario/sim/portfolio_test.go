@@ -1,0 +1,186 @@
+package sim
+
+import (
+	"errors"
+	"math"
+	"reflect"
+	"testing"
+
+	"forelay/scenario/internal/testplan"
+	"forelay/scenario/plan"
+)
+
+// walsh returns 49 monthly values from 1000 whose month-on-month changes
+// repeat the pattern (±10 each): the naive method's one-step errors are
+// then the pattern itself, 12 whole cycles of it, with mean zero. The
+// patterns (10, 10, −10, −10) and (10, −10, −10, 10) are orthogonal over
+// whole cycles (Walsh functions), so two series built on them have
+// uncorrelated errors: a known answer, worked by hand.
+func walsh(pattern ...float64) []float64 {
+	y := []float64{1000}
+	for t := 1; t < 49; t++ {
+		y = append(y, y[t-1]+pattern[(t-1)%len(pattern)])
+	}
+	return y
+}
+
+var (
+	walshA = walsh(10, 10, -10, -10)
+	walshB = walsh(10, -10, -10, 10)
+)
+
+// one returns the sum of the single series i.
+func one(name string, i int) Sum { return Sum{Name: name, Members: []int{i}, Weights: []float64{1}} }
+
+// pathVar returns the variance (divided by n) of the paths of period t.
+func pathVar(ps *PathSet, t int) float64 {
+	row := ps.Demand[t]
+	m := mean(row)
+	v := 0.0
+	for _, x := range row {
+		v += (x - m) * (x - m)
+	}
+	return v / float64(len(row))
+}
+
+func simulatePortfolio(t *testing.T, pf *plan.Portfolio, sums []Sum, opt SimOptions) *PortfolioSimulation {
+	t.Helper()
+	mc, err := SimulatePortfolio(pf, sums, opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return mc
+}
+
+// TestPortfolioCorrelation checks the two known answers of a sum: two
+// series with the same errors add up to twice the spread of one (exactly,
+// path by path, since both take the error of the same period), and two
+// series with uncorrelated errors to the square root of two times
+// (variances add), within the Monte Carlo's error: with 20,000 paths the
+// relative standard error of a variance is about sqrt(2/20000) = 1 % for
+// normal-like paths, and the tolerance is 5 %.
+func TestPortfolioCorrelation(t *testing.T) {
+	t.Run("same errors", func(t *testing.T) {
+		pf := testplan.Portfolio(t, []string{"milk/a", "milk/b"}, [][]float64{walshA, walshA}, "")
+		mc := simulatePortfolio(t, pf, []Sum{one("a", 0), one("b", 1), TotalOf(pf)}, SimOptions{Paths: 2000, Seed: 3})
+		a, b, total := mc.Scenarios[0][0], mc.Scenarios[0][1], mc.Scenarios[0][2]
+		if !reflect.DeepEqual(a.Demand, b.Demand) {
+			t.Fatal("two series with the same history and errors have different paths")
+		}
+		for h := range a.Demand {
+			for i, v := range a.Demand[h] {
+				if total.Demand[h][i] != 2*v {
+					t.Fatalf("period %d, path %d: total %v, want 2 × %v", h, i, total.Demand[h][i], v)
+				}
+			}
+			if pathVar(a, h) == 0 {
+				t.Fatalf("period %d: no spread to compare", h)
+			}
+			if r := math.Sqrt(pathVar(total, h) / pathVar(a, h)); math.Abs(r-2) > 1e-9 {
+				t.Errorf("period %d: spread of the sum / spread of one = %v, want 2", h, r)
+			}
+		}
+	})
+	t.Run("uncorrelated errors", func(t *testing.T) {
+		pf := testplan.Portfolio(t, []string{"milk/a", "milk/b"}, [][]float64{walshA, walshB}, "")
+		mc := simulatePortfolio(t, pf, []Sum{one("a", 0), one("b", 1), TotalOf(pf)}, SimOptions{Paths: 20000, Seed: 5})
+		a, b, total := mc.Scenarios[0][0], mc.Scenarios[0][1], mc.Scenarios[0][2]
+		for h := range a.Demand {
+			va, vb, vt := pathVar(a, h), pathVar(b, h), pathVar(total, h)
+			if math.Abs(vt/(va+vb)-1) > 0.05 {
+				t.Errorf("period %d: variance of the sum %v, want var a + var b = %v", h, vt, va+vb)
+			}
+			// Each series' paths have the variance of its plan's bands.
+			for k, v := range []float64{va, vb} {
+				if want := pf.Plans[k].BaselineVar[h]; math.Abs(v/want-1) > 0.05 {
+					t.Errorf("period %d, series %d: path variance %v, want the band's %v", h, k, v, want)
+				}
+			}
+			if h == 0 {
+				r := math.Sqrt(vt / ((va + vb) / 2))
+				t.Logf("period 1: spread of the sum / mean spread of one = %.4f (sqrt 2 = 1.4142)", r)
+			}
+		}
+	})
+}
+
+// TestPortfolioSharedEvent checks that an event is drawn once per path for
+// every series it moves: with its probability of 0.5 it happens on the
+// same paths in both series (common random numbers between the scenario
+// with it and the one without), on about half of them (binomial standard
+// error sqrt(0.25/4000) = 0.008, tolerance 0.04), and each series takes
+// the same quantile of its share's range (here equal shares, so the same
+// size).
+func TestPortfolioSharedEvent(t *testing.T) {
+	body := `events:
+  - id: fair
+    kind: pulse
+    start: 2026-03
+    periods: 1
+    probability: 0.5
+    effect: {units: 400, split: equal}
+    range: {low: 200, high: 600}
+    scope: [{series: "milk/*"}]
+scenarios:
+  - {name: base, events: []}
+  - {name: fair, events: [fair]}
+`
+	pf := testplan.Portfolio(t, []string{"milk/a", "milk/b"}, [][]float64{walshA, walshB}, body)
+	mc := simulatePortfolio(t, pf, []Sum{one("a", 0), one("b", 1)}, SimOptions{Paths: 4000, Seed: 9})
+	const t0 = 1 // 2026-03: the history ends in 2026-01
+	happened := 0
+	for i := range mc.Paths {
+		da := mc.Scenarios[1][0].Demand[t0][i] - mc.Scenarios[0][0].Demand[t0][i]
+		db := mc.Scenarios[1][1].Demand[t0][i] - mc.Scenarios[0][1].Demand[t0][i]
+		if math.Abs(da-db) > 1e-9 {
+			t.Fatalf("path %d: the event adds %v to a and %v to b; want the same (equal shares)", i, da, db)
+		}
+		if da != 0 {
+			happened++
+			if da < 100-1e-9 || da > 300+1e-9 {
+				t.Fatalf("path %d: share %v outside the share's range 100 to 300", i, da)
+			}
+		}
+	}
+	if p := float64(happened) / float64(mc.Paths); math.Abs(p-0.5) > 0.04 {
+		t.Errorf("event on %.3f of the paths, want about 0.5", p)
+	}
+}
+
+// TestPortfolioStreams checks the streams' promises: the same paths for
+// any number of workers, a shorter run gives the first paths of a longer
+// one, and a series' paths do not depend on the other series of the run
+// when the series cover the same periods.
+func TestPortfolioStreams(t *testing.T) {
+	series := []string{"milk/a", "milk/b", "cream/c"}
+	pf := testplan.Portfolio(t, series, [][]float64{walshA, walshB, testHistory(49)}, "")
+	sums := []Sum{one("a", 0), TotalOf(pf)}
+	ref := simulatePortfolio(t, pf, sums, SimOptions{Paths: 3000, Seed: 11, Workers: 1})
+	for _, w := range []int{2, 3, 8} {
+		got := simulatePortfolio(t, pf, sums, SimOptions{Paths: 3000, Seed: 11, Workers: w})
+		if !reflect.DeepEqual(got.Scenarios, ref.Scenarios) {
+			t.Errorf("%d workers: paths differ from one worker's", w)
+		}
+	}
+	short := simulatePortfolio(t, pf, sums, SimOptions{Paths: 1500, Seed: 11})
+	for h, row := range short.Scenarios[0][1].Demand {
+		if !reflect.DeepEqual(row, ref.Scenarios[0][1].Demand[h][:1500]) {
+			t.Fatalf("period %d: 1,500 paths are not the first of 3,000", h)
+		}
+	}
+	other := testplan.Portfolio(t, []string{"milk/a", "cream/d"}, [][]float64{walshA, testHistory(49)}, "")
+	alone := simulatePortfolio(t, other, []Sum{one("a", 0)}, SimOptions{Paths: 3000, Seed: 11})
+	if !reflect.DeepEqual(alone.Scenarios[0][0].Demand, ref.Scenarios[0][0].Demand) {
+		t.Error("series a's paths depend on the other series of the run")
+	}
+}
+
+func TestPortfolioRefusals(t *testing.T) {
+	pf := testplan.Portfolio(t, []string{"milk/a", "milk/b"}, [][]float64{walshA, walshB}, "")
+	if _, err := SimulatePortfolio(pf, nil, SimOptions{Paths: 500, Errors: Normal}); !errors.Is(err, ErrPortfolioNormal) {
+		t.Errorf("normal errors: %v, want ErrPortfolioNormal", err)
+	}
+	if _, err := SimulatePortfolio(pf, nil, SimOptions{Paths: 50}); !errors.Is(err, ErrTooFewPaths) {
+		t.Errorf("50 paths: %v, want ErrTooFewPaths", err)
+	}
+}
