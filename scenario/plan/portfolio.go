@@ -41,14 +41,14 @@ type Portfolio struct {
 // PlanOf returns the plan of the series called name, or nil when the
 // portfolio does not plan it.
 func (pf *Portfolio) PlanOf(name string) *Plan {
-	if i := pf.indexOf(name); i >= 0 {
+	if i := pf.IndexOf(name); i >= 0 {
 		return pf.Plans[i]
 	}
 	return nil
 }
 
-// indexOf returns the index in Plans of the series called name, or -1.
-func (pf *Portfolio) indexOf(name string) int {
+// IndexOf returns the index in Plans of the series called name, or -1.
+func (pf *Portfolio) IndexOf(name string) int {
 	if pf.index != nil {
 		if i, ok := pf.index[name]; ok {
 			return i

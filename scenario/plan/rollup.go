@@ -98,7 +98,7 @@ func (pf *Portfolio) Rollups(name string) ([]Rollup, error) {
 func (pf *Portfolio) SumOf(k int, members []string) (*Rollup, error) {
 	var idx []int
 	for _, m := range members {
-		if i := pf.indexOf(m); i >= 0 {
+		if i := pf.IndexOf(m); i >= 0 {
 			idx = append(idx, i)
 		}
 	}

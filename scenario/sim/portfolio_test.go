@@ -6,27 +6,14 @@ import (
 	"reflect"
 	"testing"
 
+	"forelay/scenario/internal/plantest"
 	"forelay/scenario/internal/testplan"
 	"forelay/scenario/plan"
 )
 
-// walsh returns 49 monthly values from 1000 whose month-on-month changes
-// repeat the pattern (±10 each): the naive method's one-step errors are
-// then the pattern itself, 12 whole cycles of it, with mean zero. The
-// patterns (10, 10, −10, −10) and (10, −10, −10, 10) are orthogonal over
-// whole cycles (Walsh functions), so two series built on them have
-// uncorrelated errors: a known answer, worked by hand.
-func walsh(pattern ...float64) []float64 {
-	y := []float64{1000}
-	for t := 1; t < 49; t++ {
-		y = append(y, y[t-1]+pattern[(t-1)%len(pattern)])
-	}
-	return y
-}
-
 var (
-	walshA = walsh(10, 10, -10, -10)
-	walshB = walsh(10, -10, -10, 10)
+	walshA = plantest.Walsh(10, 10, -10, -10)
+	walshB = plantest.Walsh(10, -10, -10, 10)
 )
 
 // one returns the sum of the single series i.

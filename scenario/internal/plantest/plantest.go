@@ -28,6 +28,20 @@ func History(n int) []float64 {
 	return y
 }
 
+// Walsh returns 49 monthly values from 1000 whose month-on-month changes
+// repeat the pattern: the naive method's one-step errors are then the
+// pattern itself, whole cycles of it when its length divides 48. The
+// patterns (10, 10, −10, −10) and (10, −10, −10, 10) have mean zero and
+// are orthogonal over whole cycles (Walsh functions), so two series built
+// on them have uncorrelated errors: a known answer, worked by hand.
+func Walsh(pattern ...float64) []float64 {
+	y := []float64{1000}
+	for t := 1; t < 49; t++ {
+		y = append(y, y[t-1]+pattern[(t-1)%len(pattern)])
+	}
+	return y
+}
+
 // Write writes the history hist (monthly from 2022-01, series "demand")
 // as history.csv and the scenario file body as plan.yaml, with
 // "history: {file: history.csv}" put first, plus the other files (name to
