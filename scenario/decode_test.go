@@ -246,6 +246,7 @@ func TestParseErrors(t *testing.T) {
 			`resources[1].id: resource id "r" already used on line 5`},
 		{"resource series missing", head + "resources:\n  - §{id: r, per-unit: 1}\n", false, ErrMissing, `resource "r": series: required`},
 		{"resource bad pattern", head + "resources:\n  - {id: r, series: §milk/, per-unit: 1}\n", false, ErrValue, `resource "r": series: bad series pattern: "milk/" has an empty level`},
+		{"resource called total", head + "resources:\n  - {id: §total, series: \"**\", per-unit: 1}\n", false, ErrValue, `resource "total": id: "total" names the sum of every series in the stress outputs; give the resource another id`},
 		{"resource per-unit missing", head + "resources:\n  - §{id: r, series: \"**\"}\n", false, ErrMissing, `resource "r": per-unit: required`},
 		{"resource per-unit zero", head + "resources:\n  - {id: r, series: \"**\", per-unit: §0}\n", false, ErrValue, `resource "r": per-unit: must be above 0 (the load one unit of demand puts on the resource), got 0`},
 		{"resource per-unit negative", head + "resources:\n  - {id: r, series: \"**\", per-unit: §-0.5}\n", false, ErrValue, `resource "r": per-unit: must be above 0`},

@@ -39,6 +39,10 @@ type Resource struct {
 // stands for (see File.AllResources).
 const CapacityResource = "capacity"
 
+// TotalResource is the word the stress outputs of a portfolio use for the
+// sum of every series, beside the resources' ids: no resource takes it.
+const TotalResource = "total"
+
 // The keys of a resource.
 var resourceKeys = []string{"id", "series", "per-unit", "units", "capacity"}
 
@@ -112,6 +116,10 @@ func (d *decoder) checkResources(f *File) {
 				"%q is not a valid id; use lower-case letters, digits and hyphens, starting with a letter or digit", res.ID)
 		} else if c := utf8.RuneCountInString(res.ID); c > d.limits.NameLength {
 			d.fail(d.at(idf, res.Pos), idf, ErrValue, "a name of %s", limitError(c, d.limits.NameLength, "characters", "name-length"))
+		}
+		if res.ID == TotalResource {
+			d.fail(d.at(idf, res.Pos), idf, ErrValue,
+				"%q names the sum of every series in the stress outputs; give the resource another id", res.ID)
 		}
 		if pf := res.field("per-unit"); d.given(pf) && res.PerUnit <= 0 {
 			d.fail(d.at(pf, res.Pos), pf, ErrValue, "must be above 0 (the load one unit of demand puts on the resource), got %g", res.PerUnit)

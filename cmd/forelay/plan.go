@@ -76,6 +76,32 @@ func buildPlan(path string, shared *sharedFlags) (*plan.Plan, error) {
 	return p, nil
 }
 
+// buildPlanOrPortfolio loads a scenario file and builds its plan, or its
+// portfolio (on workers goroutines) when it plans several series; every
+// failure is an input error (exit code 2).
+func buildPlanOrPortfolio(path string, shared *sharedFlags, workers int) (*plan.Plan, *plan.Portfolio, error) {
+	f, err := scenario.LoadLimited(path, shared.limits().Scenario())
+	if err != nil {
+		return nil, nil, &inputError{err: err}
+	}
+	in, err := plan.ReadSelection(f)
+	if err != nil {
+		return nil, nil, &inputError{err: err}
+	}
+	if plan.WantsPortfolio(f, in) {
+		pf, err := plan.BuildPortfolio(f, in, workers)
+		if err != nil {
+			return nil, nil, &inputError{err: err}
+		}
+		return nil, pf, nil
+	}
+	p, err := plan.Build(f, in)
+	if err != nil {
+		return nil, nil, &inputError{err: err}
+	}
+	return p, nil, nil
+}
+
 func planRun(opts *PlanOptions) error {
 	f, err := scenario.LoadLimited(opts.File, opts.Shared.limits().Scenario())
 	if err != nil {

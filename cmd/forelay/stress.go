@@ -68,9 +68,12 @@ func (o *StressOptions) check() error {
 // stressRun loads the plan, simulates it, sets it against capacity and
 // frozen production, and emits the report.
 func stressRun(opts *StressOptions) error {
-	p, err := buildPlan(opts.File, opts.Shared)
+	p, pf, err := buildPlanOrPortfolio(opts.File, opts.Shared, opts.Sim.Workers)
 	if err != nil {
 		return err
+	}
+	if pf != nil {
+		return portfolioStressRun(opts, pf)
 	}
 	chart, err := pickScenario(p, opts.Scenario)
 	if err != nil {
@@ -89,4 +92,27 @@ func stressRun(opts *StressOptions) error {
 		return &inputError{err: err}
 	}
 	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.Stress(run, chart))
+}
+
+// portfolioStressRun simulates the total and the resources' loads of a
+// portfolio and sets the loads against their capacities.
+func portfolioStressRun(opts *StressOptions, pf *plan.Portfolio) error {
+	if opts.Scenario != "" {
+		if _, err := pf.Plans[0].ScenarioIndex(opts.Scenario); err != nil {
+			return flagErrorf("--scenario %v", err)
+		}
+	}
+	if err := supply.CheckPortfolioProduction(pf); err != nil {
+		return &inputError{err: err}
+	}
+	res := supply.PortfolioResources(pf)
+	mc, err := simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim)
+	if err != nil {
+		return err
+	}
+	run, err := supply.PortfolioStress(mc, res, supply.StressSettings{Breach: opts.Breach, Opening: opts.OpeningStock})
+	if err != nil {
+		return &inputError{err: err}
+	}
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.PortfolioStress(run))
 }

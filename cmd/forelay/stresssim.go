@@ -71,6 +71,22 @@ func simulate(p *plan.Plan, s *simFlags) (*sim.Simulation, error) {
 	return mc, nil
 }
 
+// simulatePortfolio runs the Monte Carlo of a portfolio's sums; normal
+// errors are a flag error, errors that cannot be drawn an input error.
+func simulatePortfolio(pf *plan.Portfolio, sums []sim.Sum, s *simFlags) (*sim.PortfolioSimulation, error) {
+	mc, err := sim.SimulatePortfolio(pf, sums, s.options())
+	if err != nil {
+		if errors.Is(err, sim.ErrPortfolioNormal) {
+			return nil, &flagError{err: fmt.Errorf("--errors %s: %w", s.Errors, err)}
+		}
+		if errors.Is(err, sim.ErrTooFewPaths) {
+			return nil, &flagError{err: err}
+		}
+		return nil, &inputError{err: fmt.Errorf("%s: %w", pf.File.Path, err)}
+	}
+	return mc, nil
+}
+
 // checkUnit reports a flag value outside the open interval (0, 1).
 func checkUnit(flag string, v float64) error {
 	if !(v > 0 && v < 1) {

@@ -151,7 +151,7 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 		return nil, err
 	}
 	if len(f.Resources) > 0 {
-		pf.Notes = append(pf.Notes, fmt.Sprintf("the loads of the file's %d resource(s) are those of the planned demand, and their breach chances take the load as normal with the scenario's events happening; a Monte Carlo stress of portfolios, frozen production and buffers per resource are not built yet", len(f.Resources)))
+		pf.Notes = append(pf.Notes, fmt.Sprintf("the loads of the file's %d resource(s) are those of the planned demand, and their breach chances take the load as normal with the scenario's events happening; forelay stress simulates them with the events' probabilities and ranges", len(f.Resources)))
 	}
 	lint := f.Lint(series[0])
 	pf.Warnings = append(append(pf.Warnings, warnings...), lint...)

@@ -134,11 +134,14 @@ func SimNotes(p *plan.Plan) []string {
 
 // PeriodOrNull returns the label of period index i of the plan, or nil
 // when i < 0 (JSON null).
-func PeriodOrNull(p *plan.Plan, i int) *string {
+func PeriodOrNull(p *plan.Plan, i int) *string { return periodOrNull(p.Periods, i) }
+
+// periodOrNull returns the label of periods[i], or nil when i < 0.
+func periodOrNull(periods []forecast.Period, i int) *string {
 	if i < 0 {
 		return nil
 	}
-	s := p.Periods[i].String()
+	s := periods[i].String()
 	return &s
 }
 

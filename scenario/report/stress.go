@@ -84,7 +84,7 @@ func stressDoc(r *supply.StressRun, notes []string) StressDoc {
 				ShortfallIfBreach: Num(pr.ShortfallIfBreach), UtilP50: Num(pr.UtilP50), UtilP90: Num(pr.UtilP90)})
 		}
 		if r.Frozen != nil {
-			sj.Frozen = frozenDoc(p, r.Frozen[s], r.Source)
+			sj.Frozen = frozenDoc(p.Periods, r.Frozen[s], r.Source)
 		}
 		o.Scenarios = append(o.Scenarios, sj)
 	}
@@ -131,7 +131,7 @@ func writeStressText(w *Text, r *supply.StressRun, notes []string) {
 	for s := range r.Risks {
 		writeStressScenario(w, r, s)
 		if r.Frozen != nil {
-			writeFrozenText(w, p, r.Frozen[s], r.Source)
+			writeFrozenText(w, p.Periods, p.File.Units, r.Frozen[s], r.Source)
 		}
 	}
 	writeNotesAndCaution(w, notes)

@@ -6,6 +6,7 @@ import (
 	"slices"
 
 	"forelay/forecast"
+	"forelay/scenario"
 	"forelay/scenario/plan"
 )
 
@@ -34,8 +35,9 @@ type Sum struct {
 	Weights []float64
 }
 
-// TotalSum is the name of the sum of every series.
-const TotalSum = "total"
+// TotalSum is the name of the sum of every series (the id no resource
+// takes, scenario.TotalResource).
+const TotalSum = scenario.TotalResource
 
 // TotalOf returns the sum of every series of pf with weight 1.
 func TotalOf(pf *plan.Portfolio) Sum {

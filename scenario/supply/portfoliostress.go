@@ -25,6 +25,20 @@ func PortfolioSums(pf *plan.Portfolio, res []Resource) []sim.Sum {
 	return sums
 }
 
+// CheckPortfolioProduction returns an error naming the file's
+// production.plan key when the file freezes a portfolio's production at a
+// plan read from a file: a production plan file gives one series, not
+// each resource's production. Call it before drawing paths, to fail
+// before the work.
+func CheckPortfolioProduction(pf *plan.Portfolio) error {
+	pr := pf.File.Production
+	if pr != nil && pr.Mode == scenario.Frozen && pr.Plan != "" {
+		return pf.File.ValueError("production.plan", pr.Pos,
+			"%s: a production plan file gives one series; in a plan of several series each resource's production is held at its baseline load (leave production.plan out)", pr.Plan)
+	}
+	return nil
+}
+
 // A PortfolioStressRun is a portfolio's simulated total and resource loads
 // set against each resource's capacity and, when the scenario file
 // freezes production, each resource's stock projected under each
@@ -40,10 +54,11 @@ type PortfolioStressRun struct {
 	// portfolio's production is frozen at each resource's baseline load).
 	Settings StressSettings
 	// Total holds each scenario's simulated total demand, without a
-	// capacity (CapacityRisk with none), in file order.
+	// capacity (CapacityRisk with none), in file order; its Name is the
+	// scenario's.
 	Total []Risk
 	// Risks[k][j] is the capacity risk of Resources[j] in scenario k: its
-	// simulated load against its capacity.
+	// simulated load against its capacity; its Name is the resource's id.
 	Risks [][]Risk
 	// Frozen[k][j] is the stock projection of Resources[j] in scenario k
 	// when production is frozen (production held at the resource's load
@@ -61,20 +76,19 @@ type PortfolioStressRun struct {
 // baseline forecasts). The stock of a resource is in its units: the load
 // of the goods built ahead.
 //
-// It returns an error naming the file's production.plan key when the
-// file freezes production at a plan read from a file: a production plan
-// file gives one series, not each resource's production.
+// It returns the error of CheckPortfolioProduction.
 func PortfolioStress(mc *sim.PortfolioSimulation, res []Resource, s StressSettings) (*PortfolioStressRun, error) {
 	pf := mc.Portfolio
 	r := &PortfolioStressRun{Portfolio: pf, Sim: mc, Resources: res, Settings: s, Warnings: pf.Warnings}
+	if err := CheckPortfolioProduction(pf); err != nil {
+		return nil, err
+	}
 	pr := pf.File.Production
 	frozen := pr != nil && pr.Mode == scenario.Frozen
-	if frozen && pr.Plan != "" {
-		return nil, pf.File.ValueError("production.plan", pr.Pos,
-			"%s: a production plan file gives one series; in a plan of several series each resource's production is held at its baseline load (leave production.plan out)", pr.Plan)
-	}
 	for k, sets := range mc.Scenarios {
-		r.Total = append(r.Total, CapacityRisk(sets[0], nil, s.Breach))
+		total := CapacityRisk(sets[0], nil, s.Breach)
+		total.Name = pf.Plans[0].Scenarios[k].Name
+		r.Total = append(r.Total, total)
 		var risks []Risk
 		var stocks []StockProjection
 		for j, res := range res {
