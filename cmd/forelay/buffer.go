@@ -1,6 +1,7 @@
 package main
 
 import (
+	"forelay/scenario/plan"
 	"forelay/scenario/report"
 	"forelay/scenario/sim"
 	"forelay/scenario/supply"
@@ -88,9 +89,12 @@ func (o *BufferOptions) check() error {
 // bufferRun loads the plan, checks it has a capacity, simulates it (with
 // --demand mc), sizes the buffer and emits the report.
 func bufferRun(opts *BufferOptions) error {
-	p, err := buildPlan(opts.File, opts.Shared)
+	p, pf, err := buildPlanOrPortfolio(opts.File, opts.Shared, opts.Sim.Workers)
 	if err != nil {
 		return err
+	}
+	if pf != nil {
+		return portfolioBufferRun(opts, pf)
 	}
 	sc, err := pickScenario(p, opts.Scenario)
 	if err != nil {
@@ -111,4 +115,29 @@ func bufferRun(opts *BufferOptions) error {
 		return &inputError{err: err}
 	}
 	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.Buffer(run))
+}
+
+// portfolioBufferRun sizes the buffer of each resource of a portfolio
+// that has a capacity.
+func portfolioBufferRun(opts *BufferOptions, pf *plan.Portfolio) error {
+	sc, err := pickScenario(pf.Plans[0], opts.Scenario)
+	if err != nil {
+		return err
+	}
+	res := supply.PortfolioResources(pf)
+	if err := supply.PortfolioBufferCapacity(pf, res); err != nil {
+		return &inputError{err: err}
+	}
+	var mc *sim.PortfolioSimulation
+	if opts.Demand == demandMC {
+		if mc, err = simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim); err != nil {
+			return err
+		}
+	}
+	run, err := supply.SizePortfolioBuffers(pf, res, mc, supply.BufferSettings{Scenario: sc, Service: opts.Service,
+		LeadTime: opts.LeadTime, Opening: opts.OpeningStock})
+	if err != nil {
+		return &inputError{err: err}
+	}
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.PortfolioBuffer(run))
 }

@@ -2,6 +2,7 @@ package report
 
 import (
 	"fmt"
+	"forelay/forecast"
 	"forelay/scenario/supply"
 	"strconv"
 )
@@ -118,21 +119,27 @@ func writeBufferText(w *Text, r *supply.BufferRun, notes []string) {
 
 // writePrebuildText says how much to build ahead, and from when.
 func writePrebuildText(w *Text, r *supply.BufferRun) {
-	p, b := r.Plan, r.Buffer
-	units := unitsSuffix(p.File.Units)
+	prebuildText(w, r.Plan.Periods, r.Plan.File.Units, r.Buffer, r.Settings.Service)
+}
+
+// prebuildText says how much of build plan b to build ahead over
+// periods, in units, and from when, for the demand at the service
+// quantile.
+func prebuildText(w *Text, periods []forecast.Period, unitName string, b supply.Buffer, service float64) {
+	units := unitsSuffix(unitName)
 	if b.PrebuildAt < 0 {
-		fmt.Fprintf(w, "No period's demand at the %s quantile exceeds capacity: nothing needs building ahead.\n", PctText(r.Settings.Service))
+		fmt.Fprintf(w, "No period's demand at the %s quantile exceeds capacity: nothing needs building ahead.\n", PctText(service))
 		return
 	}
 	fmt.Fprintf(w, "Pre-build: hold %s%s at the start of %s, the first period whose demand exceeds capacity.\n",
-		wholeNum(b.Prebuild), units, p.Periods[b.PrebuildAt])
+		wholeNum(b.Prebuild), units, periods[b.PrebuildAt])
 	switch {
 	case b.Gap > 0:
 		fmt.Fprintf(w, "The plan needs %s%s in stock at the start of %s but opens with %s%s: building ahead should have started before the plan; even at full capacity %s of demand go unmet.\n",
-			wholeNum(b.Required[0]), units, p.Periods[0], wholeNum(b.Opening), units, wholeNum(b.Gap))
+			wholeNum(b.Required[0]), units, periods[0], wholeNum(b.Opening), units, wholeNum(b.Gap))
 	case b.BuildStart >= 0:
 		fmt.Fprintf(w, "Building ahead must start in %s (from an opening stock of %s%s, building as late as capacity allows).\n",
-			p.Periods[b.BuildStart], wholeNum(b.Opening), units)
+			periods[b.BuildStart], wholeNum(b.Opening), units)
 	default:
 		fmt.Fprintf(w, "The opening stock of %s%s covers it: no building ahead is needed.\n", wholeNum(b.Opening), units)
 	}
