@@ -59,6 +59,18 @@ func TestInvalidInput(t *testing.T) {
 		return c.Plot
 	}
 
+	load := func(edit func(*plots.LoadChart)) func() (*plot.Plot, error) {
+		c := plots.LoadChart{
+			Labels:   labels,
+			Baseline: plots.Curve{Values: vals},
+			Scenarios: []plots.Curve{{Name: "up", Start: 3, Values: []float64{5, 6, 7},
+				Lower: []float64{4, 5, 6}, Upper: []float64{6, 7, 8}}},
+			Capacity: []float64{6, 6, 6, 6, 6, 6},
+		}
+		edit(&c)
+		return c.Plot
+	}
+
 	for _, tc := range []struct {
 		name  string
 		build func() (*plot.Plot, error)
@@ -142,6 +154,26 @@ func TestInvalidInput(t *testing.T) {
 		{"comparison infinite capacity", comparison(func(c *plots.ComparisonChart) { c.Capacity = []float64{1, 2, 3, 4, 5, math.Inf(1)} }), plots.ErrNotFinite},
 		{"comparison short capacity", comparison(func(c *plots.ComparisonChart) { c.Capacity = []float64{1} }), plots.ErrLength},
 
+		{"load ok", load(func(*plots.LoadChart) {}), nil},
+		{"load without capacity", load(func(c *plots.LoadChart) { c.Capacity = nil }), nil},
+		{"load open capacity", load(func(c *plots.LoadChart) { c.Capacity = []float64{6, nan, nan, 6, nan, 6} }), nil},
+		{"load only a baseline", load(func(c *plots.LoadChart) { c.Scenarios = nil }), nil},
+		{"load only scenarios", load(func(c *plots.LoadChart) { c.Baseline = plots.Curve{} }), nil},
+		{"load NaN is a gap", load(func(c *plots.LoadChart) { c.Scenarios[0].Values = []float64{5, nan, 7} }), nil},
+		{"load no labels", load(func(c *plots.LoadChart) { c.Labels = nil }), plots.ErrNoData},
+		{"load no loads", load(func(c *plots.LoadChart) { c.Baseline, c.Scenarios = plots.Curve{}, nil }), plots.ErrNoData},
+		{"load empty scenario", load(func(c *plots.LoadChart) { c.Scenarios = append(c.Scenarios, plots.Curve{Name: "x"}) }), plots.ErrNoData},
+		{"load short capacity", load(func(c *plots.LoadChart) { c.Capacity = c.Capacity[:5] }), plots.ErrLength},
+		{"load long capacity", load(func(c *plots.LoadChart) { c.Capacity = append(c.Capacity, 6) }), plots.ErrLength},
+		{"load short band", load(func(c *plots.LoadChart) { c.Scenarios[0].Upper = []float64{6, 7} }), plots.ErrLength},
+		{"load band without lower", load(func(c *plots.LoadChart) { c.Scenarios[0].Lower = nil }), plots.ErrLength},
+		{"load infinite capacity", load(func(c *plots.LoadChart) { c.Capacity[2] = math.Inf(1) }), plots.ErrNotFinite},
+		{"load infinite load", load(func(c *plots.LoadChart) { c.Baseline.Values = []float64{1, 2, math.Inf(-1)} }), plots.ErrNotFinite},
+		{"load past the labels", load(func(c *plots.LoadChart) { c.Scenarios[0].Start = 4 }), plots.ErrRange},
+		{"load highlight past the scenarios", load(func(c *plots.LoadChart) { c.Highlight = 1 }), plots.ErrRange},
+		{"load negative highlight", load(func(c *plots.LoadChart) { c.Highlight = -1 }), plots.ErrRange},
+		{"load highlight without scenarios", load(func(c *plots.LoadChart) { c.Scenarios, c.Highlight = nil, 1 }), plots.ErrRange},
+
 		{"stock ok", stock(func(*plots.StockChart) {}), nil},
 		{"stock open capacity", stock(func(c *plots.StockChart) { c.Capacity = []float64{9, 9, nan, nan, 9, 9} }), nil},
 		{"stock nothing", stock(func(c *plots.StockChart) { c.Demand, c.Build = nil, nil }), plots.ErrNoData},
@@ -194,6 +226,10 @@ func TestEdgeCases(t *testing.T) {
 		{"signal gap", plots.SignalChart{Labels: demoLabels(4), Signal: []float64{nan, 1, nan, -5}, Limit: 4}.Plot},
 		{"control one point", plots.ControlChart{Labels: demoLabels(1), Errors: []float64{0}, UCL: 1, LCL: -1}.Plot},
 		{"stock only capacity", plots.StockChart{Labels: demoLabels(2), Capacity: []float64{nan, nan}}.Plot},
+		{"load one period over", plots.LoadChart{Labels: demoLabels(1), Baseline: plots.Curve{Values: []float64{5}, Lower: []float64{4}, Upper: []float64{6}},
+			Capacity: []float64{4.5}}.Plot},
+		{"load no capacity anywhere", plots.LoadChart{Labels: demoLabels(3), Scenarios: []plots.Curve{{Values: []float64{1, 2, 3}}}, Capacity: []float64{nan, nan, nan}}.Plot},
+		{"load eight scenarios", plots.LoadChart{Labels: demoLabels(4), Scenarios: many, Highlight: 7, Capacity: []float64{1, 1, 1, 1}}.Plot},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			p, err := tc.build()

@@ -307,3 +307,54 @@ func demoComparison() plots.ComparisonChart {
 	}
 	return c
 }
+
+// demoLoad is the load of the cooperative's bottling line, in line-hours,
+// over the 18 plan months in three scenarios: the baseline, the cheese
+// contract (half a line-hour per 1,000 litres more from 2026-04) and the
+// contract with a second customer, whose load is highlighted with a band
+// of ± 2 standard deviations that widens with the horizon. The capacity is
+// 400 line-hours, cut to 330 for the shutdown of 2026-07 and 2026-08 and
+// raised to 430 from 2026-10.
+func demoLoad() plots.LoadChart {
+	mid, _, _ := demoBaseline()
+	n := len(mid)
+	base := make([]float64, n)
+	contract := make([]float64, n)
+	both := make([]float64, n)
+	lo := make([]float64, n)
+	hi := make([]float64, n)
+	capacity := make([]float64, n)
+	for j, v := range mid {
+		base[j] = math.Round(v / 1000 * 0.55)
+		contract[j] = base[j]
+		if j >= 3 {
+			contract[j] += 20
+		}
+		both[j] = contract[j]
+		if j >= 5 {
+			both[j] += 18
+		}
+		w := 2 * 6 * math.Sqrt(1+0.15*float64(j))
+		lo[j], hi[j] = math.Max(0, both[j]-w), both[j]+w
+		switch {
+		case j == 6 || j == 7:
+			capacity[j] = 330
+		case j >= 9:
+			capacity[j] = 430
+		default:
+			capacity[j] = 400
+		}
+	}
+	return plots.LoadChart{
+		Title:    "Bottling line against its capacity, demo dairy cooperative",
+		Units:    "Line-hours per month",
+		Labels:   demoLabels(demoHist + demoHorizon)[demoHist:],
+		Baseline: plots.Curve{Values: base},
+		Scenarios: []plots.Curve{
+			{Name: "With cheese contract", Values: contract},
+			{Name: "Contract and new grocer, ± 2 SD", Values: both, Lower: lo, Upper: hi},
+		},
+		Highlight: 1,
+		Capacity:  capacity,
+	}
+}

@@ -18,6 +18,10 @@
 //   - ComparisonChart: the baseline, each scenario's adjusted plan and the
 //     capacity over the plan periods, with each scenario's change from the
 //     baseline in a panel of its own below.
+//   - LoadChart: the load of each scenario on one shared resource, a band
+//     around one of them, the capacity as a step line, and the periods
+//     where that load or its band reaches above the capacity shaded and
+//     hatched.
 //
 // Render turns a plot into PNG or SVG bytes of a given size; the caller
 // writes the file. The same input gives the same bytes. A chart of stacked
@@ -41,7 +45,8 @@
 // The charts are meant to be read in print and in greyscale. Series differ in
 // colour, in grey level, in dash pattern and in marker shape at once; bands
 // and windows are light translucent tints; decreases in a waterfall are
-// darker and hatched. The key sits in a box above the data, in as many
+// darker and hatched, and so are the periods over capacity in a load chart
+// (cross-hatched where the load itself is over). The key sits in a box above the data, in as many
 // columns as fit, and the value axis is stretched so the key and window
 // labels never cover data. Value ticks fall on round steps and carry
 // thousands separators (540,000). Text is set in the Liberation Sans faces

@@ -138,6 +138,41 @@ func ExampleControlChart() {
 	// Output: 576 x 336 pixels
 }
 
+func ExampleLoadChart() {
+	// A filler's load in hours, the plan's load ± 2 standard deviations
+	// of 10 hours as its band (clipped at 0 by the caller), against a
+	// capacity of 420 hours that rises to 500 in 2026-04. In 2026-02 only
+	// the band's upper edge (410 + 20 = 430) is above 420; in 2026-03 the
+	// load itself (435) is.
+	c := plots.LoadChart{
+		Title:  "Cup filler against its capacity (invented data)",
+		Units:  "Hours per month",
+		Labels: []string{"2026-01", "2026-02", "2026-03", "2026-04", "2026-05"},
+		Scenarios: []plots.Curve{{
+			Name:   "Plan, ± 2 SD",
+			Values: []float64{380, 410, 435, 450, 440},
+			Lower:  []float64{360, 390, 415, 430, 420},
+			Upper:  []float64{400, 430, 455, 470, 460},
+		}},
+		Capacity: []float64{420, 420, 420, 500, 500},
+	}
+	p, err := c.Plot()
+	if err != nil {
+		log.Fatal(err)
+	}
+	b, err := plots.Render(p, "svg", plots.DefaultWidth, plots.DefaultHeight)
+	if err != nil {
+		log.Fatal(err)
+	}
+	for _, s := range []string{">Capacity<", ">Band above capacity<", ">Load above capacity<"} {
+		fmt.Println(s[1:len(s)-1], bytes.Contains(b, []byte(s)))
+	}
+	// Output:
+	// Capacity true
+	// Band above capacity true
+	// Load above capacity true
+}
+
 func ExampleValueTicks() {
 	for _, t := range (plots.ValueTicks{}).Ticks(470000, 790000) {
 		if !t.IsMinor() {

@@ -14,14 +14,14 @@ import (
 
 var update = flag.Bool("update", false, "rewrite the golden images in testdata")
 
-// TestGolden compares four demo charts with reviewed reference images in
+// TestGolden compares five demo charts with reviewed reference images in
 // testdata. Anti-aliasing may differ a little between machines, so a pixel
 // counts as changed only when a channel moves by more than 32 of 255, and up
 // to 0.5% of pixels may change. Run with -update to accept new images after
 // looking at them.
 func TestGolden(t *testing.T) {
 	charts := demoCharts()
-	for _, name := range []string{"plan", "waterfall", "stock", "compare"} {
+	for _, name := range []string{"plan", "waterfall", "stock", "compare", "load"} {
 		p, err := charts[name]()
 		if err != nil {
 			t.Fatal(err)

@@ -44,5 +44,6 @@ func demoCharts() map[string]func() (*plot.Plot, error) {
 		"waterfall": demoWaterfall().Plot,
 		"stock":     demoStock().Plot,
 		"compare":   demoComparison().Plot,
+		"load":      demoLoad().Plot,
 	}
 }

@@ -104,10 +104,11 @@ func (b *band) Thumbnail(c *draw.Canvas) {
 }
 
 // A spanLook is how a kind of window is shaded: a translucent fill,
-// optional hatching and the edge lines.
+// optional hatching (crossed when cross is set) and the edge lines.
 type spanLook struct {
 	fill  color.Color
 	hatch color.Color // nil: none
+	cross bool
 	edge  draw.LineStyle
 }
 
@@ -116,7 +117,11 @@ type spanLook struct {
 func (l spanLook) shade(c *draw.Canvas, r vg.Rectangle, x0, x1 vg.Length) {
 	c.FillPolygon(l.fill, rectPoints(r))
 	if l.hatch != nil {
-		hatch(c, r, draw.LineStyle{Color: l.hatch, Width: vg.Points(0.5)}, vg.Points(6))
+		sty := draw.LineStyle{Color: l.hatch, Width: vg.Points(0.5)}
+		hatch(c, r, sty, vg.Points(6))
+		if l.cross {
+			hatchFalling(c, r, sty, vg.Points(6))
+		}
 	}
 	for _, x := range []vg.Length{x0, x1} {
 		if c.ContainsX(x) {
@@ -362,6 +367,23 @@ func hatch(c *draw.Canvas, r vg.Rectangle, sty draw.LineStyle, gap vg.Length) {
 			continue
 		}
 		c.StrokeLine2(sty, xa, xa-s, xb, xb-s)
+	}
+}
+
+// hatchFalling is hatch with the lines falling at 45 degrees; the two
+// together cross-hatch r.
+func hatchFalling(c *draw.Canvas, r vg.Rectangle, sty draw.LineStyle, gap vg.Length) {
+	// Lines y = s - x for s a multiple of gap, s in [x0+y0, x1+y1].
+	first := math.Ceil(float64((r.Min.X + r.Min.Y) / gap))
+	last := math.Floor(float64((r.Max.X + r.Max.Y) / gap))
+	for k := first; k <= last; k++ {
+		s := vg.Length(k) * gap
+		xa := vg.Length(math.Max(float64(r.Min.X), float64(s-r.Max.Y)))
+		xb := vg.Length(math.Min(float64(r.Max.X), float64(s-r.Min.Y)))
+		if xb <= xa {
+			continue
+		}
+		c.StrokeLine2(sty, xa, s-xa, xb, s-xb)
 	}
 }
 

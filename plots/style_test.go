@@ -28,6 +28,8 @@ func TestPaletteGreyLevels(t *testing.T) {
 		{"waterfall", []color.NRGBA{colTotal, colUp, colDown}, 40},
 		// Fan chart bands.
 		{"fan bands", []color.NRGBA{colFanOuter, colFanInner}, 40},
+		// Load chart: baseline, the first three scenarios and the capacity.
+		{"load", []color.NRGBA{colIndigo, colRust, colTeal, colOchre, lookCapacity.Color}, 25},
 		// Stock chart: demand, capacity, stock lines and build bars.
 		{"stock", []color.NRGBA{colInk, colIndigo, colRust, colBuild}, 25},
 	} {

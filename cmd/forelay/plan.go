@@ -57,7 +57,7 @@ func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
 	fl.BoolVar(&opts.Detail, "detail", false, "also print every period of every scenario")
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip plan.png and plan.svg")
 	fl.StringVar(&opts.Event, "event", "", "also show how this event adds up, period by period")
-	fl.StringVar(&opts.Charts, "charts", "5", "in a plan of several series, chart the total and this many of the most-changed series: a number, all or none (none also drops the total)")
+	fl.StringVar(&opts.Charts, "charts", "5", "in a plan of several series, chart the total, each resource and this many of the most-changed series: a number, all or none (none also drops the total and the resources)")
 	fl.IntVar(&opts.Workers, "workers", 0, "series planned in parallel in a plan of several series, at least 1 (default: one per core); the plan is the same for any number")
 	return cmd
 }

@@ -89,8 +89,9 @@ func (c seriesChange) change() float64 { return c.adjusted - c.baseline }
 // (every series and period), rollup.csv (every group of every level and
 // period), summary.csv (every series ranked by the change), resources.csv
 // (every resource's load per period, when the file has resources),
-// plan.json, and the charts: the total and the plans of the opt.Charts
-// series the events change most (AllCharts for every series). With
+// plan.json, and the charts: the total, each resource against its
+// capacity, and the plans of the opt.Charts series the events change most
+// (AllCharts for every series). With
 // opt.Detail the text adds every period of each scenario's total, and with
 // opt.Event where that event lands; an event that moves no planned series
 // in the forecast periods is an error wrapping ErrNoPortfolioEvent. It returns the error of
@@ -115,7 +116,7 @@ func ForPortfolio(pf *plan.Portfolio, opt PortfolioOptions) (*Report, error) {
 	if len(res) > 0 {
 		r.MoreCSV = append(r.MoreCSV, CSVFile{"resources", resourcesCSV(pf, res)})
 	}
-	r.Charts = portfolioCharts(pf, rollups, opt.Charts)
+	r.Charts = portfolioCharts(pf, rollups, res, opt.Charts)
 	portfolioText(&r.Text, pf, rollups, res, opt.Detail)
 	if opt.Event != "" {
 		if err := portfolioEventText(&r.Text, pf, opt.Event); err != nil {

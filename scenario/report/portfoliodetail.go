@@ -11,7 +11,8 @@ import (
 // PortfolioOptions are the extras of a portfolio's report.
 type PortfolioOptions struct {
 	// Charts is how many of the most-changed series get a chart besides
-	// the total (AllCharts for every series).
+	// the total and the resources, which are always charted (AllCharts
+	// for every series).
 	Charts int
 	// Detail adds every period of the total of each scenario.
 	Detail bool
