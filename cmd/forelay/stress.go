@@ -97,10 +97,9 @@ func stressRun(opts *StressOptions) error {
 // portfolioStressRun simulates the total and the resources' loads of a
 // portfolio and sets the loads against their capacities.
 func portfolioStressRun(opts *StressOptions, pf *plan.Portfolio) error {
-	if opts.Scenario != "" {
-		if _, err := pf.Plans[0].ScenarioIndex(opts.Scenario); err != nil {
-			return flagErrorf("--scenario %v", err)
-		}
+	chart, err := pickScenario(pf.Plans[0], opts.Scenario)
+	if err != nil {
+		return err
 	}
 	if err := supply.CheckPortfolioProduction(pf); err != nil {
 		return &inputError{err: err}
@@ -114,5 +113,5 @@ func portfolioStressRun(opts *StressOptions, pf *plan.Portfolio) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.PortfolioStress(run))
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.PortfolioStress(run, chart))
 }

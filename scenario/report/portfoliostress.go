@@ -4,6 +4,7 @@ import (
 	"fmt"
 
 	"forelay/forecast"
+	"forelay/plots"
 	"forelay/scenario/sim"
 	"forelay/scenario/supply"
 )
@@ -56,14 +57,59 @@ const portfolioErrors = "bootstrap of whole periods"
 // PortfolioStress returns the report of a portfolio's stress run: the
 // text (per scenario, the simulated total and each resource's load
 // against its capacity, with frozen production when the file freezes
-// it), stress.json and stress.csv (a resource column: "total" for the
-// total's rows, then one row per resource and period).
-func PortfolioStress(r *supply.PortfolioStressRun) *Report {
+// it), stress.json, stress.csv (a resource column: "total" for the
+// total's rows, then one row per resource and period) and the charts:
+// the total and each resource's load against its capacity, the median of
+// every scenario with the P5 to P95 band of scenario chart (an index into
+// the scenarios). It panics if chart is out of range.
+func PortfolioStress(r *supply.PortfolioStressRun, chart int) *Report {
 	notes := []string{fmt.Sprintf("Errors drawn by whole historical periods (%d shared by the %s series with a baseline), so the sums keep the series' correlation; each event is drawn once per path for every series it moves",
 		len(r.Sim.Common.Periods), countText(len(r.Sim.Common.Errors)))}
 	rep := &Report{Name: "stress", Warnings: r.Warnings, Doc: portfolioStressDoc(r, notes), CSV: portfolioStressCSV(r)}
+	rep.Charts = append(rep.Charts, Chart{Name: "total", Plot: stressLoadChart(r, chart, -1)})
+	for j, res := range r.Resources {
+		rep.Charts = append(rep.Charts, Chart{Name: "resource-" + fileName(res.ID), Plot: stressLoadChart(r, chart, j)})
+	}
 	writePortfolioStressText(&rep.Text, r, notes)
 	return rep
+}
+
+// stressLoadChart draws the simulated total (j < 0) or resource j's load:
+// the median of each scenario, the P5 to P95 band of scenario chart, and
+// the resource's capacity.
+func stressLoadChart(r *supply.PortfolioStressRun, chart, j int) plots.LoadChart {
+	pf := r.Portfolio
+	p0 := pf.Plans[0]
+	c := plots.LoadChart{Labels: PeriodLabels(p0), Highlight: chart}
+	risks := r.Total
+	if j < 0 {
+		c.Title = fmt.Sprintf("Stress %s: total demand", pf.File.Plan)
+		c.Units = UnitsLabel(pf.File.Units, p0.History.Freq().String())
+	} else {
+		res := r.Resources[j]
+		c.Title = fmt.Sprintf("Stress %s: %s against its capacity", pf.File.Plan, res.ID)
+		c.Units = UnitsLabel(res.Units, p0.History.Freq().String())
+		c.Capacity = res.Capacity
+		risks = make([]supply.Risk, len(r.Risks))
+		for k := range r.Risks {
+			risks[k] = r.Risks[k][j]
+		}
+	}
+	for k, rk := range risks {
+		cv := plots.Curve{Name: p0.Scenarios[k].Name + ", median", Values: make([]float64, len(rk.Periods))}
+		for t, pr := range rk.Periods {
+			cv.Values[t] = pr.P50
+		}
+		if k == chart {
+			cv.Name = p0.Scenarios[k].Name + ", median and P5 to P95"
+			cv.Lower, cv.Upper = make([]float64, len(rk.Periods)), make([]float64, len(rk.Periods))
+			for t, pr := range rk.Periods {
+				cv.Lower[t], cv.Upper[t] = pr.P5, pr.P95
+			}
+		}
+		c.Scenarios = append(c.Scenarios, cv)
+	}
+	return c
 }
 
 // stressPeriods returns the JSON of each period of a capacity risk.
