@@ -60,9 +60,17 @@ func (o *CompareOptions) check() error {
 // compareRun loads the plan, simulates it, compares its scenarios and
 // emits the report.
 func compareRun(opts *CompareOptions) error {
-	p, err := buildPlan(opts.File, opts.Shared)
+	p, pf, err := buildPlanOrPortfolio(opts.File, opts.Shared, opts.Sim.Workers)
 	if err != nil {
 		return err
+	}
+	if pf != nil {
+		res := supply.PortfolioResources(pf)
+		mc, err := simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim)
+		if err != nil {
+			return err
+		}
+		return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.PortfolioCompare(supply.ComparePortfolio(mc, res, opts.Service)))
 	}
 	mc, err := simulate(p, &opts.Sim)
 	if err != nil {

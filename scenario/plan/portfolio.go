@@ -196,7 +196,7 @@ func noNewSeries(f *scenario.File) error {
 		for i, s := range e.Scope {
 			if s.New {
 				return f.ValueError(fmt.Sprintf("event %q: scope[%d].new", e.ID, i), s.Pos,
-					"a series without history is planned by forelay plan, as part of a plan of several series; this command takes the history's series only so far")
+					"a series without history is planned as part of a plan of several series (by plan, stress, buffer and compare); this command takes the history's series only so far")
 			}
 		}
 	}

@@ -96,7 +96,7 @@ func (in *Inputs) one(f *scenario.File) error {
 		list += ", ..."
 	}
 	return f.ValueError("history.series", f.History.Pos,
-		"%d series selected (%s): forelay plan plans several series, but this command takes one so far; select one", len(in.Selected), list)
+		"%d series selected (%s): plan, stress, buffer and compare take several series, but this command takes one so far; select one", len(in.Selected), list)
 }
 
 // One returns the error of Read for inputs read by ReadSelection: at

@@ -106,7 +106,7 @@ func TestReadSelectionErrors(t *testing.T) {
 		{"name in a list matches nothing", "{file: FILE, " + key + ", series: ['milk/**', §milk/whole-1l/grocer-nort]}",
 			`history.series[1]: no series is called "milk/whole-1l/grocer-nort" of ` + keyHistory + `; the nearest are "milk/whole-1l/grocer-north"`, false},
 		{"several selected", "{file: FILE, " + key + ", series: §'milk/whole-1l/*'}",
-			`history.series: 2 series selected ("milk/whole-1l/grocer-north", "milk/whole-1l/grocer-south"): forelay plan plans several series, but this command takes one so far; select one`, true},
+			`history.series: 2 series selected ("milk/whole-1l/grocer-north", "milk/whole-1l/grocer-south"): plan, stress, buffer and compare take several series, but this command takes one so far; select one`, true},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			f, line, col := parseAt(t, tc.block)

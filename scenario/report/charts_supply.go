@@ -76,16 +76,21 @@ func bufferChart(r *supply.BufferRun) plots.StockChart {
 // waterfallChart walks from the baseline total through each event's
 // contribution to scenario c's total.
 func waterfallChart(r *supply.CompareRun, c supply.Comparison) plots.Waterfall {
-	p := r.Plan
+	return waterfallOf(r.Plan.File.Plan, r.Plan.File.Units, c)
+}
+
+// waterfallOf walks from the baseline total through each event's
+// contribution to scenario c's total of plan name, in units.
+func waterfallOf(name, units string, c supply.Comparison) plots.Waterfall {
 	wf := plots.Waterfall{
-		Title:      "Plan " + p.File.Plan + ": " + c.Name,
+		Title:      "Plan " + name + ": " + c.Name,
 		StartLabel: "Baseline",
 		Start:      c.BaselineTotal,
 		EndLabel:   c.Name,
 	}
 	wf.Units = "units over the plan"
-	if p.File.Units != "" {
-		wf.Units = p.File.Units + " over the plan"
+	if units != "" {
+		wf.Units = units + " over the plan"
 	}
 	for _, k := range c.Contributions {
 		if math.IsNaN(k.Total) {
