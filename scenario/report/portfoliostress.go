@@ -40,7 +40,7 @@ type PortfolioStressDoc struct {
 	Paths           int                           `json:"paths"`
 	Seed            uint64                        `json:"seed"`
 	Errors          string                        `json:"errors"`
-	SharedPeriods   int                           `json:"shared_periods"`
+	ErrorWindow     int                           `json:"error_window"`
 	Quantiles       string                        `json:"quantiles"`
 	BreachThreshold Num                           `json:"breach_threshold"`
 	Inputs          map[string]string             `json:"inputs"`
@@ -63,8 +63,8 @@ const portfolioErrors = "bootstrap of whole periods"
 // every scenario with the P5 to P95 band of scenario chart (an index into
 // the scenarios). It panics if chart is out of range.
 func PortfolioStress(r *supply.PortfolioStressRun, chart int) *Report {
-	notes := []string{fmt.Sprintf("Errors drawn by whole historical periods (%d shared by the %s series with a baseline), so the sums keep the series' correlation; each event is drawn once per path for every series it moves",
-		len(r.Sim.Common.Periods), countText(len(r.Sim.Common.Errors)))}
+	notes := []string{fmt.Sprintf("Errors drawn by whole historical periods (up to %d back, for the %s series with a baseline; a series with fewer resamples its own), so the sums keep the series' correlation; each event is drawn once per path for every series it moves",
+		r.Sim.Window, countText(r.Sim.Fitted))}
 	rep := &Report{Name: "stress", Warnings: r.Warnings, Doc: portfolioStressDoc(r, notes), CSV: portfolioStressCSV(r)}
 	rep.Charts = append(rep.Charts, Chart{Name: "total", Plot: stressLoadChart(r, chart, -1)})
 	for j, res := range r.Resources {
@@ -128,7 +128,7 @@ func portfolioStressDoc(r *supply.PortfolioStressRun, notes []string) PortfolioS
 	pf, mc := r.Portfolio, r.Sim
 	p0 := pf.Plans[0]
 	o := PortfolioStressDoc{Plan: pf.File.Plan, Kind: "portfolio", Units: pf.File.Units, Series: len(pf.Plans), Paths: mc.Paths,
-		Seed: mc.Seed, Errors: portfolioErrors, SharedPeriods: len(mc.Common.Periods), Quantiles: quantileDefinition,
+		Seed: mc.Seed, Errors: portfolioErrors, ErrorWindow: mc.Window, Quantiles: quantileDefinition,
 		BreachThreshold: Num(r.Settings.Breach), Inputs: p0.Digests, Notes: notes, Warnings: List(r.Warnings), Caution: Caution}
 	for k, tot := range r.Total {
 		sj := portfolioStressScenarioJSON{Name: tot.Name, Events: eventIDList(pf.File.Cases()[k].Events),
@@ -196,8 +196,8 @@ func writePortfolioStressText(w *Text, r *supply.PortfolioStressRun, notes []str
 	p0 := pf.Plans[0]
 	fmt.Fprintf(w, "Stress test %s: %s series, %d %s periods %s to %s%s\n", pf.File.Plan, countText(len(pf.Plans)),
 		len(p0.Periods), p0.History.Freq(), p0.Periods[0], p0.Periods[len(p0.Periods)-1], InUnits(pf.File.Units))
-	fmt.Fprintf(w, "Monte Carlo: %s paths, seed %d, errors drawn by whole historical periods (%d shared); quantiles by Hyndman-Fan type 7\n",
-		countText(mc.Paths), mc.Seed, len(mc.Common.Periods))
+	fmt.Fprintf(w, "Monte Carlo: %s paths, seed %d, errors drawn by whole historical periods (up to %d back); quantiles by Hyndman-Fan type 7\n",
+		countText(mc.Paths), mc.Seed, mc.Window)
 	if len(r.Resources) == 0 {
 		fmt.Fprintln(w, "Resources: none given (add resources or a capacity block to the scenario file to see breaches)")
 	} else {

@@ -3,9 +3,9 @@ package sim
 import (
 	"errors"
 	"fmt"
+	"math"
 	"slices"
 
-	"forelay/forecast"
 	"forelay/scenario"
 	"forelay/scenario/plan"
 )
@@ -59,16 +59,25 @@ func TotalOf(pf *plan.Portfolio) Sum {
 // (psi weights, rescaled per horizon to the series' band variance
 // BaselineVar), but the shocks of all the series are drawn together: on
 // each path and in each period one historical period is drawn, uniformly
-// with replacement, from those in which every series with a baseline has a
-// one-step error (forecast.AlignErrors), and every series takes its own
-// centred error of that period as its shock. This is the residual
-// bootstrap applied to whole vectors of residuals (common practice for
-// several series), so the paths carry the series' correlation without a
-// covariance matrix: two series with the same errors add up to twice the
-// spread of one, two series with uncorrelated errors to the square root
-// of two times. A series' shock variance s2 is the mean square of its
-// centred errors over those periods. A series without a baseline (a new
-// series) has no error: its paths are its events.
+// with replacement, and every series takes its own centred one-step error
+// of that period as its shock. This is the residual bootstrap applied to
+// whole vectors of residuals (common practice for several series), so the
+// paths carry the series' correlation without a covariance matrix: two
+// series with the same errors add up to twice the spread of one, two
+// series with uncorrelated errors to the square root of two times.
+//
+// The series end in the same period but may start apart. A series' errors
+// are those of its last N_s periods with a finite one-step error (its
+// window, counted back from the end), centred; s2 is their mean square.
+// The period drawn is a lag j back from the end, uniform over the longest
+// window (N_max periods), with a second uniform number v: a series whose
+// window holds lag j takes that period's error, and a shorter one takes
+// the error at lag floor(v N_s) of its own window. Each series thus
+// resamples its own errors uniformly, and any two series share the
+// period drawn whenever it lies in both windows: the correlation is kept
+// over the periods they have in common, and a short series does not cut
+// the errors of the others down to its own. A series without a baseline
+// (a new series) has no error: its paths are its events.
 //
 // # Events
 //
@@ -82,23 +91,25 @@ func TotalOf(pf *plan.Portfolio) Sum {
 // # Random streams
 //
 // Paths come in blocks of StreamBlock as in Simulation. The periods drawn
-// in block b come from the stream ("period", "", b): H draws per path,
-// paths in order, each path's periods in order; the draws of each event
-// from ("event", its id, b), two uniform numbers per path as in
-// Simulation. So the random numbers depend on the seed, the path and the
-// event only. The shared periods come from the series in the run: when
-// the series cover the same periods (the usual case), a series' paths do
-// not depend on which other series are in it.
+// in block b come from the stream ("period", "", b): for each path in
+// order and each of its periods in order, the lag j (an IntN over N_max)
+// then the uniform v; the draws of each event come from ("event", its id,
+// b), two uniform numbers per path as in Simulation. So the random
+// numbers depend on the seed, the path and the event only, and the lags
+// drawn on the longest window: a series' paths do not depend on which
+// other series are in the run as long as the longest window stays the
+// same (the usual case of series over the same periods).
 type PortfolioSimulation struct {
 	// Portfolio is the portfolio simulated.
 	Portfolio *plan.Portfolio
 	// Paths and Seed are the settings used.
 	Paths int
 	Seed  uint64
-	// Common holds the errors drawn from: the shared periods and every
-	// series' centred error in each (the series with a baseline, in the
-	// order of Portfolio.Plans); zero when no series has a baseline.
-	Common forecast.CommonErrors
+	// Window is N_max, the longest window of one-step errors (in
+	// periods, back from the end of the history), and Fitted the number
+	// of series with a baseline, whose errors are drawn; both zero when no
+	// series has a baseline.
+	Window, Fitted int
 	// Sums are the sums followed, in the order given.
 	Sums []Sum
 	// Scenarios[k][j] holds the paths of Sums[j] under scenario k (in
@@ -110,7 +121,7 @@ type PortfolioSimulation struct {
 // and scales, its events' draws and shapes, and its sums.
 type seriesDraw struct {
 	plan   *plan.Plan
-	col    []float64      // its centred errors in the shared periods; nil: no errors
+	col    []float64      // its centred errors by lag back from the end; nil: no errors
 	resp   *shockResponse // nil: the direct sums with psi
 	psi    []float64
 	lags   []int
@@ -126,10 +137,10 @@ type seriesDraw struct {
 // SimulatePortfolio draws sample paths of the sums of pf's series under
 // every scenario (see PortfolioSimulation for the model and the streams).
 // It returns an error wrapping ErrTooFewPaths for too few paths,
-// ErrPortfolioNormal for the Normal error model, the error of
-// forecast.AlignErrors when the series share too few periods with an
-// error, and an error when a series' band variance is not finite. It
-// panics if pf has no plans.
+// ErrPortfolioNormal for the Normal error model, and an error naming the
+// series when a series with a baseline has no finite one-step error at
+// the end of its history or a band variance that is not finite. It panics
+// if pf has no plans.
 //
 // Memory does not grow with the number of series times paths: each block
 // of paths is drawn series by series and only the sums are kept, 8 ×
@@ -185,21 +196,17 @@ func SimulatePortfolio(pf *plan.Portfolio, sums []Sum, opt SimOptions) (*Portfol
 // returns the ids of the events of the run, in the order of the file.
 func (ps *PortfolioSimulation) prepare(workers int) ([]string, []seriesDraw, error) {
 	pf := ps.Portfolio
-	var fits []*forecast.Result
-	col := make([]int, len(pf.Plans))
+	cols := make([][]float64, len(pf.Plans))
 	for i, p := range pf.Plans {
-		col[i] = -1
-		if p.Fit != nil {
-			col[i] = len(fits)
-			fits = append(fits, p.Fit)
+		if p.Fit == nil {
+			continue
 		}
-	}
-	if len(fits) > 0 {
-		c, err := forecast.AlignErrors(fits)
-		if err != nil {
-			return nil, nil, err
+		cols[i] = errorWindow(p.Fit.Residuals())
+		if len(cols[i]) == 0 {
+			return nil, nil, fmt.Errorf("series %q: %w: the baseline made no one-step prediction in the last period of the history", p.History.Name, ErrNoResiduals)
 		}
-		ps.Common = c
+		ps.Window = max(ps.Window, len(cols[i]))
+		ps.Fitted++
 	}
 	var ids []string
 	index := map[string]int{}
@@ -229,11 +236,7 @@ func (ps *PortfolioSimulation) prepare(workers int) ([]string, []seriesDraw, err
 	errs := make([]error, len(pf.Plans))
 	inParallel(workers, len(pf.Plans), func() func(int) {
 		return func(i int) {
-			var c []float64
-			if col[i] >= 0 {
-				c = ps.Common.Errors[col[i]]
-			}
-			errs[i] = draws[i].prepare(pf.Plans[i], c, index)
+			errs[i] = draws[i].prepare(pf.Plans[i], cols[i], index)
 		}
 	})
 	for i, err := range errs {
@@ -244,8 +247,9 @@ func (ps *PortfolioSimulation) prepare(workers int) ([]string, []seriesDraw, err
 	return ids, draws, nil
 }
 
-// prepare works out the draw of plan p, whose centred errors in the shared
-// periods are col (nil without a baseline); index numbers the run's events.
+// prepare works out the draw of plan p, whose centred errors by lag back
+// from the end are col (nil without a baseline); index numbers the run's
+// events.
 func (d *seriesDraw) prepare(p *plan.Plan, col []float64, index map[string]int) error {
 	H := len(p.Periods)
 	d.plan = p
@@ -285,6 +289,31 @@ func (d *seriesDraw) prepare(p *plan.Plan, col []float64, index map[string]int) 
 	return nil
 }
 
+// errorWindow returns the one-step errors res from the last one back to
+// the first of the finite run that ends the history, by lag (out[0] is
+// the last period's), less their mean.
+func errorWindow(res []float64) []float64 {
+	var out []float64
+	for i := len(res) - 1; i >= 0; i-- {
+		if math.IsNaN(res[i]) || math.IsInf(res[i], 0) {
+			break
+		}
+		out = append(out, res[i])
+	}
+	if len(out) == 0 {
+		return nil
+	}
+	m := 0.0
+	for _, x := range out {
+		m += x
+	}
+	m /= float64(len(out))
+	for i := range out {
+		out[i] -= m
+	}
+	return out
+}
+
 // A portfolioRun draws the blocks of a PortfolioSimulation one after
 // another, the groups of series of each block side by side.
 type portfolioRun struct {
@@ -292,9 +321,10 @@ type portfolioRun struct {
 	draws []seriesDraw
 	ids   []string
 	H, K  int
-	// The block being drawn: the shared period of each path and period
-	// (path-major), and each event's two uniform numbers per path.
-	period   []int
+	// The block being drawn: the lag j and the uniform v of each path and
+	// period (path-major), and each event's two uniform numbers per path.
+	lag      []int
+	spare    []float64
 	occ, siz [][]float64
 	// part[c] is group c's part of every sum: scenario k, sum j, period t,
 	// path i at ((k*len(Sums)+j)*H+t)*StreamBlock + i.
@@ -311,16 +341,16 @@ func (r *portfolioRun) draw(workers int) {
 	for c := range r.part {
 		r.part[c] = make([]float64, r.K*J*r.H*StreamBlock)
 	}
-	r.period = make([]int, StreamBlock*r.H)
+	r.lag, r.spare = make([]int, StreamBlock*r.H), make([]float64, StreamBlock*r.H)
 	r.occ, r.siz = matrix(len(r.ids), StreamBlock), matrix(len(r.ids), StreamBlock)
 	rng := newBlockRand(ps.Seed)
 	for b := 0; b*StreamBlock < ps.Paths; b++ {
 		i0 := b * StreamBlock
 		B := min(StreamBlock, ps.Paths-i0)
-		if len(ps.Common.Periods) > 0 {
+		if ps.Window > 0 {
 			g := rng.at(periodStream, "", b)
 			for i := range B * r.H {
-				r.period[i] = g.IntN(len(ps.Common.Periods))
+				r.lag[i], r.spare[i] = g.IntN(ps.Window), g.Float64()
 			}
 		}
 		for q, id := range r.ids {
@@ -435,9 +465,8 @@ func (w *seriesWorker) errors(d *seriesDraw, c0, L int) {
 	buf := w.buf
 	if d.resp != nil {
 		for i := range L {
-			row := r.period[(c0+i)*r.H : (c0+i+1)*r.H]
-			for t, per := range row {
-				buf[t*pathChunk+i] = d.col[per]
+			for t := range r.H {
+				buf[t*pathChunk+i] = d.shock(r, (c0+i)*r.H+t)
 			}
 		}
 		if w.f == nil || w.f.r.m < d.resp.m {
@@ -453,9 +482,8 @@ func (w *seriesWorker) errors(d *seriesDraw, c0, L int) {
 		return
 	}
 	for i := range L {
-		row := r.period[(c0+i)*r.H : (c0+i+1)*r.H]
-		for t, per := range row {
-			w.eps[t] = d.col[per]
+		for t := range w.eps {
+			w.eps[t] = d.shock(r, (c0+i)*r.H+t)
 		}
 		for t := range w.eps {
 			v := w.eps[t]
@@ -468,4 +496,13 @@ func (w *seriesWorker) errors(d *seriesDraw, c0, L int) {
 			w.err[t*pathChunk+i] = d.scale[t] * v
 		}
 	}
+}
+
+// shock returns the series' shock for draw k of the block: its error at
+// the lag drawn when its window holds it, else at lag floor(v N_s).
+func (d *seriesDraw) shock(r *portfolioRun, k int) float64 {
+	if j := r.lag[k]; j < len(d.col) {
+		return d.col[j]
+	}
+	return d.col[int(r.spare[k]*float64(len(d.col)))]
 }

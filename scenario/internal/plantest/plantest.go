@@ -68,7 +68,7 @@ func Write(tb testing.TB, body string, hist []float64, files map[string]string) 
 
 // WriteWide writes a wide monthly history from 2022-01 with one column
 // per series (names, values in the same order; a shorter series leaves its
-// later cells empty) as h.csv, and a scenario file reading every series
+// later cells empty, and a NaN value its cell) as h.csv, and a scenario file reading every series
 // of it with the naive method over 12 months, then body, as plan.yaml, in
 // a temporary directory; it returns plan.yaml's path.
 func WriteWide(tb testing.TB, series []string, values [][]float64, body string) string {
@@ -79,7 +79,7 @@ func WriteWide(tb testing.TB, series []string, values [][]float64, body string) 
 	for i := range values[0] {
 		fmt.Fprintf(&b, "%d-%02d", 2022+i/12, i%12+1)
 		for _, v := range values {
-			if i < len(v) {
+			if i < len(v) && !math.IsNaN(v[i]) {
 				fmt.Fprintf(&b, ",%.4f", v[i])
 			} else {
 				b.WriteString(",")
