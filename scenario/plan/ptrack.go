@@ -189,8 +189,8 @@ func (pt *PortfolioTrackPlan) ReadActuals(r io.Reader, name string, key []string
 		if len(unknown) > shown {
 			list += ", ..."
 		}
-		out.Warnings = append(out.Warnings, fmt.Sprintf("%s: %d series are not in the plan and are not tracked: %s; check their names against the plan's, or leave them out of the actuals",
-			name, len(unknown), list))
+		out.Warnings = append(out.Warnings, fmt.Sprintf("%s: %d series %s not in the plan and not tracked: %s; check their names against the plan's, or leave them out of the actuals",
+			name, len(unknown), isAre(len(unknown)), list))
 	}
 	return out, nil
 }
@@ -306,7 +306,7 @@ func (pt *PortfolioTrackPlan) Track(name string, acts *PortfolioActuals, cfg for
 		out.Series = append(out.Series, SeriesTracking{Plan: s.TrackPlan, Tracking: tr})
 	}
 	if out.NoActuals > 0 {
-		out.Notes = append(out.Notes, fmt.Sprintf("%d of %d planned series have no actuals and are not tracked", out.NoActuals, len(pt.Series)))
+		out.Notes = append(out.Notes, fmt.Sprintf("%d of %d planned series %s no actuals and %s not tracked", out.NoActuals, len(pt.Series), hasHave(out.NoActuals), isAre(out.NoActuals)))
 	}
 	if len(out.Untracked) > 0 {
 		out.Notes = append(out.Notes, fmt.Sprintf("%d series with actuals are not tracked on their own, for want of an error scale (created by an event, so without history, or fitted exactly): %s; they count in the roll-ups",
@@ -368,7 +368,7 @@ func (pt *PortfolioTrackPlan) trackRollup(rs RollupScale, index map[string]int, 
 		}
 	}
 	if missing > 0 {
-		return nil, fmt.Sprintf("%s is not tracked: %d of its %d series have no actuals (and a plan other than zero); its variance is that of all of them", rs.Label(), missing, len(rs.Members)), nil
+		return nil, fmt.Sprintf("%s is not tracked: %d of its %d series %s no actuals (and a plan other than zero); its variance is that of all of them", rs.Label(), missing, len(rs.Members), hasHave(missing)), nil
 	}
 	tp.Scenarios = []PlanLine{{Name: scen, Adjusted: adjusted}}
 	if !(rs.Var > 0) {
@@ -379,6 +379,21 @@ func (pt *PortfolioTrackPlan) trackRollup(rs RollupScale, index map[string]int, 
 		return nil, "", err
 	}
 	return &RollupTracking{RollupScale: rs, Plan: tp, Tracking: tr}, "", nil
+}
+
+// isAre and hasHave are the verbs for a count of series.
+func isAre(n int) string {
+	if n == 1 {
+		return "is"
+	}
+	return "are"
+}
+
+func hasHave(n int) string {
+	if n == 1 {
+		return "has"
+	}
+	return "have"
 }
 
 // allZero reports whether every value of v is 0.

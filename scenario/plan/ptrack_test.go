@@ -62,7 +62,7 @@ func TestPortfolioTrackHandWorked(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if len(acts.Warnings) != 1 || !strings.Contains(acts.Warnings[0], `actuals.csv: 1 series are not in the plan and are not tracked: "c/w"`) {
+	if len(acts.Warnings) != 1 || !strings.Contains(acts.Warnings[0], `actuals.csv: 1 series is not in the plan and not tracked: "c/w"`) {
 		t.Errorf("warnings %q, want one naming c/w", acts.Warnings)
 	}
 	if acts.Values[3] != nil {
@@ -167,7 +167,7 @@ func TestPortfolioTrackMissingMember(t *testing.T) {
 	}
 	want := []string{
 		"2 of 4 planned series have no actuals and are not tracked",
-		"total is not tracked: 1 of its 4 series have no actuals (and a plan other than zero); its variance is that of all of them",
+		"total is not tracked: 1 of its 4 series has no actuals (and a plan other than zero); its variance is that of all of them",
 		"family b is not tracked: none of its 2 series has actuals",
 	}
 	if strings.Join(tr.Notes, "\n") != strings.Join(want, "\n") {
@@ -236,5 +236,62 @@ func TestGroupMembers(t *testing.T) {
 		if got := strings.Join(GroupMembers(names, c.depth, c.group), " "); got != c.want {
 			t.Errorf("GroupMembers(%d, %q) = %q, want %q", c.depth, c.group, got, c.want)
 		}
+	}
+}
+
+// A built portfolio with a series that an event creates (milk/n: a step
+// of 5 from 2026-02, after a history ending 2025-12): the series is
+// marked New with no error scale, is not tracked on its own, and counts
+// in the total, whose variance is that of Rollups.
+func TestPortfolioTrackPlanNewSeries(t *testing.T) {
+	body := "events:\n  - {id: e, kind: step, start: 2026-02, effect: {units: 5}, range: {low: 3, high: 7}, scope: [{series: milk/n, new: true}]}\n"
+	f, in := writePortfolio(t, []string{"milk/a", "milk/b"}, [][]float64{scaled(1), scaled(2)}, body)
+	pf, err := BuildPortfolio(f, in, 2)
+	if err != nil {
+		t.Fatal(err)
+	}
+	pt, err := pf.TrackPlan()
+	if err != nil {
+		t.Fatal(err)
+	}
+	rs, err := pf.Rollups("plan")
+	if err != nil {
+		t.Fatal(err)
+	}
+	n := pt.Series[2]
+	if !n.New || n.MAD != 0 || n.MSE != 0 || pt.Series[0].New || pt.HistoryEnd.String() != "2025-12" {
+		t.Fatalf("series %s new %v MAD %v MSE %v; end %s", n.Series, n.New, n.MAD, n.MSE, pt.HistoryEnd)
+	}
+	if len(pt.Rollups[0]) != 2 || pt.Rollups[0][0].Var != rs[0].Var[0] || pt.Rollups[0][1].Group != "milk" {
+		t.Fatalf("roll-ups %+v", pt.Rollups[0])
+	}
+	plan := func(i, t int) float64 { return pt.Series[i].Scenarios[0].Adjusted[t] }
+	// Two months: each series 1, 2 and 3 above its plan.
+	acts := &PortfolioActuals{Values: [][]float64{
+		{plan(0, 0) + 1, plan(0, 1) + 1}, {plan(1, 0) + 2, plan(1, 1) + 2}, {plan(2, 0) + 3, plan(2, 1) + 3}}}
+	tr, err := pt.Track("", acts, forecast.TrackConfig{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(tr.Series) != 2 || strings.Join(tr.Untracked, ",") != "milk/n" || len(tr.Rollups) != 2 {
+		t.Fatalf("tracked %d, untracked %v, %d roll-ups; notes %q", len(tr.Series), tr.Untracked, len(tr.Rollups), tr.Notes)
+	}
+	// The total's error is the sum of the three: 1 + 2 + 3 = 6 each month,
+	// milk/n's included although it is not tracked on its own.
+	for i, p := range tr.Rollups[0].Points {
+		if !scalar.EqualWithinAbs(p.Error, 6, 1e-9) {
+			t.Errorf("total's error in month %d: %v, want 6", i+1, p.Error)
+		}
+	}
+	// Without milk/n's actuals the total is tracked over 2026-01, where
+	// its plan is 0, but not over 2026-02, where it is 5.
+	acts.Values[2] = nil
+	acts.Values[0], acts.Values[1] = acts.Values[0][:1], acts.Values[1][:1]
+	if tr, err = pt.Track("", acts, forecast.TrackConfig{}); err != nil || len(tr.Rollups) != 2 {
+		t.Fatalf("one month without milk/n: %v, roll-ups %v", err, tr.Rollups)
+	}
+	acts.Values[0], acts.Values[1] = []float64{1, 1}, []float64{2, 2}
+	if tr, err = pt.Track("", acts, forecast.TrackConfig{}); err != nil || len(tr.Rollups) != 0 {
+		t.Fatalf("two months without milk/n: %v, roll-ups %v", err, tr.Rollups)
 	}
 }
