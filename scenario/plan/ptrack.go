@@ -140,8 +140,9 @@ type PortfolioActuals struct {
 
 // ReadActuals reads the actuals of pt's series from r, a CSV file in one
 // of the history layouts, named name in messages. key names the columns
-// that make a series' name in a long file (history.key; nil: the series
-// column). Each series is aligned with the plan as TrackPlan.ReadActuals
+// that make a series' name in a long file (history.key); a file whose
+// header lacks them is read without it, as a wide file (a column per
+// series, named as the plan names it) or a long one with a series column. Each series is aligned with the plan as TrackPlan.ReadActuals
 // aligns one, with the same errors. A series of the file that the plan
 // lacks gives a warning naming it; a planned series the file lacks gets
 // no actuals. A file with none of the planned series is an error wrapping

@@ -219,6 +219,20 @@ func TestPortfolioReadActualsErrors(t *testing.T) {
 	}
 }
 
+// Without the key's columns the actuals are read as a wide file, a column
+// per series named as the plan names it.
+func TestPortfolioReadActualsWide(t *testing.T) {
+	pt := tinyPortfolio(t)
+	src := "period,a/y,b/z\n2027-01,53,21\n2027-02,66,19\n"
+	acts, err := pt.ReadActuals(strings.NewReader(src), "actuals.csv", []string{"family", "item"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if acts.Values[0] != nil || len(acts.Values[1]) != 2 || acts.Values[1][1] != 66 || acts.Values[2][0] != 21 || len(acts.Warnings) != 0 {
+		t.Errorf("values %v, warnings %q; want a/y 53, 66 and b/z 21, 19", acts.Values, acts.Warnings)
+	}
+}
+
 func TestGroupMembers(t *testing.T) {
 	names := []string{"a/x/1", "a/y/1", "b/x/1", "ab/x/2"}
 	for _, c := range []struct {

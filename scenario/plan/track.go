@@ -222,12 +222,23 @@ type actualsFile struct {
 
 // readActuals reads src, a history file named name, with gaps filled (so
 // that they can be named per series) and key naming the series of a long
-// file (nil: the series column). The labels are read in the frequency they
+// file when its header has the key's columns (otherwise the file is read
+// without it: wide, or long with a series column). The labels are read in the frequency they
 // give; dates are read again as weeks when freq is weekly. An error about
 // the frequency points at the first row of series ("" for any series).
 func readActuals(src []byte, name string, freq forecast.Frequency, key []string, series string) (*actualsFile, error) {
-	opt := data.ReadOptions{Fill: data.FillZero, Key: key}
+	opt := data.ReadOptions{Fill: data.FillZero}
+	if hasColumns(src, key) {
+		opt.Key = key
+	}
 	h, err := data.ReadHistory(bytes.NewReader(src), name, opt)
+	if err != nil && opt.Key == nil && len(key) > 0 && errors.Is(err, data.ErrMissingColumn) {
+		// Neither wide nor long with a series column: say what a file
+		// with the key needs.
+		if _, kerr := data.ReadHistory(bytes.NewReader(src), name, data.ReadOptions{Fill: data.FillZero, Key: key}); kerr != nil {
+			err = kerr
+		}
+	}
 	if err != nil {
 		return nil, err
 	}
@@ -251,6 +262,32 @@ func readActuals(src []byte, name string, freq forecast.Frequency, key []string,
 		af.filled[fl.Series] = append(af.filled[fl.Series], fl)
 	}
 	return af, nil
+}
+
+// hasColumns reports whether the header of src, its first row that is not
+// blank, names every column of key (compared as data.ReadHistory does).
+// An empty key is always there.
+func hasColumns(src []byte, key []string) bool {
+	if len(key) == 0 {
+		return true
+	}
+	cr := csv.NewReader(bytes.NewReader(bytes.TrimPrefix(src, []byte("\ufeff"))))
+	cr.FieldsPerRecord = -1
+	for {
+		rec, err := cr.Read()
+		if err != nil {
+			return false
+		}
+		if strings.TrimSpace(strings.Join(rec, "")) == "" {
+			continue
+		}
+		for _, k := range key {
+			if !slices.ContainsFunc(rec, func(c string) bool { return strings.EqualFold(strings.TrimSpace(c), strings.TrimSpace(k)) }) {
+				return false
+			}
+		}
+		return true
+	}
 }
 
 // finder returns the rows of series in the file, for error messages.
