@@ -1,6 +1,7 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -8,6 +9,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"forelay/forecast"
+	"forelay/scenario"
 	"forelay/scenario/plan"
 	"forelay/scenario/report"
 )
@@ -38,6 +40,9 @@ type TrackOptions struct {
 	Z, MADSmoothing float64
 	// FailOn is "", "bias", "outlier" or "any".
 	FailOn string
+	// Workers plans the series of a portfolio in parallel; 0: one per
+	// core.
+	Workers int
 }
 
 func newCmdTrack(f *Factory, runF func(*TrackOptions) error) *cobra.Command {
@@ -55,6 +60,9 @@ func newCmdTrack(f *Factory, runF func(*TrackOptions) error) *cobra.Command {
 			if opts.Actuals == "" {
 				return flagErrorf("--actuals is required")
 			}
+			if cmd.Flags().Changed("workers") && opts.Workers < 1 {
+				return flagErrorf("--workers %d: must be at least 1 (leave it out for one worker per core)", opts.Workers)
+			}
 			if runF != nil {
 				return runF(opts)
 			}
@@ -65,13 +73,14 @@ func newCmdTrack(f *Factory, runF func(*TrackOptions) error) *cobra.Command {
 	fl.StringVar(&opts.Actuals, "actuals", "", "CSV of new actuals (history layouts), starting at the first plan period")
 	fl.StringVar(&opts.Scenario, "scenario", "", `scenario to track (default: the only one, or the one called "plan")`)
 	fl.StringVar(&opts.PlanDir, "plan", "", "read the plan from DIR/plan.json instead of building it again")
-	fl.StringVar(&opts.Out, "out", "", "directory to write track.csv, control.png/.svg and signal.png/.svg into")
+	fl.StringVar(&opts.Out, "out", "", "directory to write track.csv, control.png/.svg and signal.png/.svg into (and track-rollups.csv, track-summary.csv for several series)")
 	fl.BoolVar(&opts.JSON, "json", false, "print the report as JSON instead of the tables")
 	fl.Float64Var(&opts.TSLimit, "ts-limit", 0, "tracking signal limit (default 4 for cumulative, Trigg's 95% limit for smoothed)")
 	fl.StringVar(&opts.Signal, "signal", "cumulative", "tracking signal: cumulative or smoothed (Trigg)")
 	fl.Float64Var(&opts.Z, "z", 3, "control limits in sigmas")
 	fl.Float64Var(&opts.MADSmoothing, "mad-smoothing", 0.1, "smoothing constant of the running MAD, in (0, 1]")
-	fl.StringVar(&opts.FailOn, "fail-on", "", "exit with code 3 when the latest verdict is bias, outlier or any of the two")
+	fl.StringVar(&opts.FailOn, "fail-on", "", "exit with code 3 when the latest verdict (of any series, in a plan of several) is bias, outlier or any of the two")
+	fl.IntVar(&opts.Workers, "workers", 0, "series planned in parallel in a plan of several series, at least 1 (default: one per core); the report is the same for any number")
 	return cmd
 }
 
@@ -123,6 +132,13 @@ func trackRun(opts *TrackOptions) error {
 	if err != nil {
 		return err
 	}
+	f, in, portfolio, err := trackFile(opts)
+	if err != nil {
+		return err
+	}
+	if portfolio {
+		return portfolioTrackRun(opts, f, in, cfg, failOn)
+	}
 	tp, source, warns, err := loadTrackPlan(opts)
 	if err != nil {
 		return err
@@ -153,6 +169,73 @@ func trackRun(opts *TrackOptions) error {
 		}
 	}
 	return nil
+}
+
+// trackFile loads the scenario file and says whether it plans a
+// portfolio: with --plan DIR, whether DIR/plan.json is a portfolio's;
+// without, whether the series it selects make one (in is then read).
+func trackFile(opts *TrackOptions) (f *scenario.File, in *plan.Inputs, portfolio bool, err error) {
+	f, err = scenario.LoadLimited(opts.File, opts.Shared.limits().Scenario())
+	if err != nil {
+		return nil, nil, false, &inputError{err: err}
+	}
+	if opts.PlanDir != "" {
+		return f, nil, report.IsPortfolioPlan(opts.PlanDir), nil
+	}
+	if in, err = plan.ReadSelection(f); err != nil {
+		return nil, nil, false, &inputError{err: err}
+	}
+	return f, in, plan.WantsPortfolio(f, in), nil
+}
+
+// portfolioTrackRun tracks every series of a portfolio and its roll-ups.
+func portfolioTrackRun(opts *TrackOptions, f *scenario.File, in *plan.Inputs, cfg forecast.TrackConfig, failOn []forecast.Verdict) error {
+	pt, source, warns, err := loadPortfolioTrackPlan(opts, f, in)
+	if err != nil {
+		return err
+	}
+	acts, err := pt.ReadActualsFile(opts.Actuals, f.History.Key, opts.Shared.limits().Input())
+	if err != nil {
+		return &inputError{err: err}
+	}
+	tr, err := pt.Track(opts.Scenario, acts, cfg)
+	if errors.Is(err, plan.ErrScenarioChoice) {
+		return flagErrorf("--scenario: %v", err)
+	}
+	if err != nil {
+		return &inputError{err: err}
+	}
+	rep := report.ForPortfolioTrack(report.PortfolioTrack{Plan: pt, Tracking: tr, Source: source,
+		DefaultLimit: opts.TSLimit == 0, Warnings: append(warns, acts.Warnings...)})
+	if err := emit(opts.IO, opts.Shared, opts.Out, opts.JSON, false, rep); err != nil {
+		return err
+	}
+	if msg := report.PortfolioAlert(tr, failOn, strings.ToLower(opts.FailOn)); msg != "" {
+		return &alertError{msg: msg}
+	}
+	return nil
+}
+
+// loadPortfolioTrackPlan builds the portfolio from f and in, or reads it
+// from DIR/plan.json, and says which; warns are the portfolio's warnings,
+// or those about the inputs plan.json was made from.
+func loadPortfolioTrackPlan(opts *TrackOptions, f *scenario.File, in *plan.Inputs) (*plan.PortfolioTrackPlan, string, []string, error) {
+	if opts.PlanDir != "" {
+		pt, source, warns, err := report.SavedPortfolioTrackPlan(f, opts.PlanDir)
+		if err != nil {
+			return nil, "", nil, &inputError{err: err}
+		}
+		return pt, source, warns, nil
+	}
+	pf, err := plan.BuildPortfolio(f, in, opts.Workers)
+	if err != nil {
+		return nil, "", nil, &inputError{err: err}
+	}
+	pt, err := pf.TrackPlan()
+	if err != nil {
+		return nil, "", nil, &inputError{err: err}
+	}
+	return pt, "recomputed from " + opts.File, pf.Warnings, nil
 }
 
 // loadTrackPlan builds the plan from the scenario file or reads it from

@@ -25,11 +25,13 @@ func TestNewCmdTrack(t *testing.T) {
 	}{
 		{"defaults", []string{"plan.yaml", "--actuals", "new.csv"}, func(o *TrackOptions) {}, ""},
 		{"every flag", []string{"plan.yaml", "--actuals", "new.csv", "--scenario", "with-contract", "--plan", "out",
-			"--out", "trk", "--json", "--ts-limit", "0.6", "--signal", "smoothed", "--z", "2", "--mad-smoothing", "0.2", "--fail-on", "any"},
+			"--out", "trk", "--json", "--ts-limit", "0.6", "--signal", "smoothed", "--z", "2", "--mad-smoothing", "0.2", "--fail-on", "any",
+			"--workers", "2"},
 			func(o *TrackOptions) {
 				o.Scenario, o.PlanDir, o.Out, o.JSON = "with-contract", "out", "trk", true
-				o.TSLimit, o.Signal, o.Z, o.MADSmoothing, o.FailOn = 0.6, "smoothed", 2, 0.2, "any"
+				o.TSLimit, o.Signal, o.Z, o.MADSmoothing, o.FailOn, o.Workers = 0.6, "smoothed", 2, 0.2, "any", 2
 			}, ""},
+		{"no workers", []string{"plan.yaml", "--actuals", "new.csv", "--workers", "0"}, nil, "--workers 0: must be at least 1"},
 		{"no actuals", []string{"plan.yaml"}, nil, "--actuals is required"},
 		{"no file", []string{"--actuals", "new.csv"}, nil, "accepts 1 arg(s)"},
 		{"bad number", []string{"plan.yaml", "--actuals", "new.csv", "--z", "three"}, nil, `invalid argument "three"`},

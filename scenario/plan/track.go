@@ -10,6 +10,7 @@ import (
 	"io"
 	"math"
 	"os"
+	"slices"
 	"strings"
 
 	"forelay/forecast"
@@ -190,16 +191,57 @@ func (tp TrackPlan) ReadActuals(r io.Reader, name string) ([]float64, error) {
 	if err != nil {
 		return nil, err
 	}
-	freq := tp.Periods[0].Freq
-	// Read with gaps filled, so that the filled list can name the gaps of
-	// the planned series alone, and with the frequency the labels give;
-	// dates are read again as weeks when the plan is weekly.
-	opt := data.ReadOptions{Fill: data.FillZero}
-	h, err := data.ReadHistory(bytes.NewReader(src), name, opt)
+	af, err := readActuals(src, name, tp.Periods[0].Freq, nil, tp.Series)
 	if err != nil {
 		return nil, err
 	}
-	loc := newRowFinder(src, name, tp.Series)
+	s, ok := af.byName[tp.Series]
+	if !ok {
+		names := make([]string, len(af.h.Series))
+		for i, c := range af.h.Series {
+			names[i] = fmt.Sprintf("%q", c.Name)
+		}
+		return nil, &data.ParseError{File: name, Line: af.finder(tp.Series).headerLine, Column: 1, Err: fmt.Errorf("%w: the plan's series %q is not in the file (it has %s)",
+			data.ErrNoSeries, tp.Series, strings.Join(names, ", "))}
+	}
+	return af.align(tp, s)
+}
+
+// An actualsFile is a file of actuals read once, in the plan's frequency,
+// with what aligning each of its series needs.
+type actualsFile struct {
+	name string
+	src  []byte
+	key  []string
+	h    *data.History
+	// byName indexes the series of h by name; filled lists the values the
+	// reader filled in, by series.
+	byName map[string]forecast.Series
+	filled map[string][]data.Filled
+}
+
+// readActuals reads src, a history file named name, with gaps filled (so
+// that they can be named per series) and key naming the series of a long
+// file when its header has the key's columns (otherwise the file is read
+// without it: wide, or long with a series column). The labels are read in the frequency they
+// give; dates are read again as weeks when freq is weekly. An error about
+// the frequency points at the first row of series ("" for any series).
+func readActuals(src []byte, name string, freq forecast.Frequency, key []string, series string) (*actualsFile, error) {
+	opt := data.ReadOptions{Fill: data.FillZero}
+	if hasColumns(src, key) {
+		opt.Key = key
+	}
+	h, err := data.ReadHistory(bytes.NewReader(src), name, opt)
+	if err != nil && opt.Key == nil && len(key) > 0 && errors.Is(err, data.ErrMissingColumn) {
+		// Neither wide nor long with a series column: say what a file
+		// with the key needs.
+		if _, kerr := data.ReadHistory(bytes.NewReader(src), name, data.ReadOptions{Fill: data.FillZero, Key: key}); kerr != nil {
+			err = kerr
+		}
+	}
+	if err != nil {
+		return nil, err
+	}
 	if got := h.Series[0].Freq(); got != freq {
 		if (got == forecast.Daily || got == forecast.Weekly) && (freq == forecast.Daily || freq == forecast.Weekly) {
 			opt.Freq = freq
@@ -207,63 +249,95 @@ func (tp TrackPlan) ReadActuals(r io.Reader, name string) ([]float64, error) {
 				return nil, err
 			}
 		} else {
+			loc := newRowFinder(src, name, series, key)
 			return nil, loc.errAtFirst(fmt.Errorf("%w: the actuals are by %s but the plan is by %s", forecast.ErrBadPeriod, got, freq))
 		}
 	}
-	var s forecast.Series
-	found := false
-	names := make([]string, len(h.Series))
-	for i, c := range h.Series {
-		names[i] = fmt.Sprintf("%q", c.Name)
-		if c.Name == tp.Series {
-			s, found = c, true
-		}
+	af := &actualsFile{name: name, src: src, key: key, h: h,
+		byName: make(map[string]forecast.Series, len(h.Series)), filled: map[string][]data.Filled{}}
+	for _, s := range h.Series {
+		af.byName[s.Name] = s
 	}
-	if !found {
-		return nil, &data.ParseError{File: name, Line: loc.headerLine, Column: 1, Err: fmt.Errorf("%w: the plan's series %q is not in the file (it has %s)",
-			data.ErrNoSeries, tp.Series, strings.Join(names, ", "))}
+	for _, fl := range h.Filled {
+		af.filled[fl.Series] = append(af.filled[fl.Series], fl)
 	}
+	return af, nil
+}
 
+// hasColumns reports whether the header of src, its first row that is not
+// blank, names every column of key (compared as data.ReadHistory does).
+// An empty key is always there.
+func hasColumns(src []byte, key []string) bool {
+	if len(key) == 0 {
+		return true
+	}
+	cr := csv.NewReader(bytes.NewReader(bytes.TrimPrefix(src, []byte("\ufeff"))))
+	cr.FieldsPerRecord = -1
+	for {
+		rec, err := cr.Read()
+		if err != nil {
+			return false
+		}
+		if strings.TrimSpace(strings.Join(rec, "")) == "" {
+			continue
+		}
+		for _, k := range key {
+			if !slices.ContainsFunc(rec, func(c string) bool { return strings.EqualFold(strings.TrimSpace(c), strings.TrimSpace(k)) }) {
+				return false
+			}
+		}
+		return true
+	}
+}
+
+// finder returns the rows of series in the file, for error messages.
+func (af *actualsFile) finder(series string) *rowFinder {
+	return newRowFinder(af.src, af.name, series, af.key)
+}
+
+// align returns the values of s, a series of the file, aligned with the
+// periods of tp (only its HistoryEnd and Periods are read), or the errors
+// ReadActuals documents.
+func (af *actualsFile) align(tp TrackPlan, s forecast.Series) ([]float64, error) {
 	first, last := tp.Periods[0], tp.Periods[len(tp.Periods)-1]
 	start := s.Start
+	loc := func() *rowFinder { return af.finder(s.Name) }
 	switch {
 	case !start.Start().After(tp.HistoryEnd.Start()):
-		return nil, loc.errAt(start, fmt.Errorf("%w: %s is inside the history (which ends %s); track only periods after it",
+		return nil, loc().errAt(start, fmt.Errorf("%w: %s is inside the history (which ends %s); track only periods after it",
 			ErrOffPlan, start, tp.HistoryEnd))
 	case start.Start().Before(first.Start()):
 		// Only weeks starting on another weekday get here.
-		return nil, loc.errAt(start, fmt.Errorf("%w: the week %s does not start on the day the plan's weeks start (the first is %s)",
+		return nil, loc().errAt(start, fmt.Errorf("%w: the week %s does not start on the day the plan's weeks start (the first is %s)",
 			ErrOffPlan, start, first))
 	case !samePeriod(start, first):
 		k := start.Sub(first)
 		if !samePeriod(first.Add(k), start) {
-			return nil, loc.errAt(start, fmt.Errorf("%w: the week %s does not start on the day the plan's weeks start (the first is %s)",
+			return nil, loc().errAt(start, fmt.Errorf("%w: the week %s does not start on the day the plan's weeks start (the first is %s)",
 				ErrOffPlan, start, first))
 		}
-		return nil, loc.errAt(start, fmt.Errorf("%w: the actuals start at %s but the plan at %s; actuals must start at the first plan period and run without gaps",
+		return nil, loc().errAt(start, fmt.Errorf("%w: the actuals start at %s but the plan at %s; actuals must start at the first plan period and run without gaps",
 			data.ErrGap, start, first))
 	}
-	for _, fl := range h.Filled {
-		if fl.Series != tp.Series {
-			continue
-		}
+	if fills := af.filled[s.Name]; len(fills) > 0 {
+		fl, rows := fills[0], loc()
 		if fl.Line > 0 {
-			return nil, loc.errAt(fl.Period, fmt.Errorf("%w: no actual for %s (its cell is empty); actuals must run without gaps from the first plan period",
+			return nil, rows.errAt(fl.Period, fmt.Errorf("%w: no actual for %s (its cell is empty); actuals must run without gaps from the first plan period",
 				data.ErrGap, fl.Period))
 		}
 		next := fl.Period.Add(1)
 		for k := s.Index(next); k < s.Len(); k++ {
-			if loc.line(s.Period(k)) > 0 {
+			if rows.line(s.Period(k)) > 0 {
 				next = s.Period(k)
 				break
 			}
 		}
-		return nil, loc.errAt(next, fmt.Errorf("%w: no actual for %s (no row before %s); actuals must run without gaps from the first plan period",
+		return nil, rows.errAt(next, fmt.Errorf("%w: no actual for %s (no row before %s); actuals must run without gaps from the first plan period",
 			data.ErrGap, fl.Period, next))
 	}
 	if n := s.Len(); n > len(tp.Periods) {
 		beyond := first.Add(len(tp.Periods))
-		return nil, loc.errAt(beyond, fmt.Errorf("%w: %s is beyond the plan's horizon (the plan ends %s)", ErrOffPlan, beyond, last))
+		return nil, loc().errAt(beyond, fmt.Errorf("%w: %s is beyond the plan's horizon (the plan ends %s)", ErrOffPlan, beyond, last))
 	}
 	return append([]float64(nil), s.Values...), nil
 }
@@ -288,12 +362,16 @@ type foundRow struct {
 	line, col int
 }
 
-func newRowFinder(src []byte, file, series string) *rowFinder {
+// newRowFinder finds the rows of series ("" for every series) in src; key
+// names the columns that make a series' name in a long file (nil: the
+// series column).
+func newRowFinder(src []byte, file, series string, key []string) *rowFinder {
 	rf := &rowFinder{file: file}
 	cr := csv.NewReader(bytes.NewReader(bytes.TrimPrefix(src, []byte("\ufeff"))))
 	cr.FieldsPerRecord = -1
 	cr.TrimLeadingSpace = true
-	periodCol, seriesCol := 0, -1
+	periodCol := 0
+	var seriesCols []int
 	for {
 		rec, err := cr.Read()
 		if err != nil {
@@ -303,29 +381,14 @@ func newRowFinder(src []byte, file, series string) *rowFinder {
 			continue
 		}
 		if rf.headerLine == 0 {
-			// The layout rule of data.ReadHistory: long when the header
-			// has series, period and value columns, else wide with the
-			// period first.
 			rf.headerLine, _ = cr.FieldPos(0)
-			at := map[string]int{}
-			for i, c := range rec {
-				k := strings.ToLower(strings.TrimSpace(c))
-				if _, ok := at[k]; !ok {
-					at[k] = i
-				}
-			}
-			_, hasValue := at["value"]
-			sc, hasSeries := at["series"]
-			pc, hasPeriod := at["period"]
-			if hasSeries && hasPeriod && hasValue {
-				periodCol, seriesCol = pc, sc
-			}
+			periodCol, seriesCols = rowColumns(rec, key)
 			continue
 		}
-		if periodCol >= len(rec) || seriesCol >= len(rec) {
+		if periodCol >= len(rec) || slices.ContainsFunc(seriesCols, func(c int) bool { return c >= len(rec) }) {
 			continue
 		}
-		if seriesCol >= 0 && strings.TrimSpace(rec[seriesCol]) != series {
+		if series != "" && seriesCols != nil && rowSeries(rec, seriesCols) != series {
 			continue
 		}
 		line, col := cr.FieldPos(periodCol)
@@ -335,6 +398,41 @@ func newRowFinder(src []byte, file, series string) *rowFinder {
 		rf.rows = append(rf.rows, foundRow{label: strings.TrimSpace(rec[periodCol]), line: line, col: col})
 	}
 	return rf
+}
+
+// rowColumns returns, by the layout rule of data.ReadHistory, the period
+// column of a header and the columns that name a row's series: the key
+// columns, or the series column of a long file, or none for a wide file.
+func rowColumns(head, key []string) (period int, series []int) {
+	at := map[string]int{}
+	for i, c := range head {
+		k := strings.ToLower(strings.TrimSpace(c))
+		if _, ok := at[k]; !ok {
+			at[k] = i
+		}
+	}
+	_, hasValue := at["value"]
+	pc, hasPeriod := at["period"]
+	if len(key) > 0 {
+		for _, k := range key {
+			series = append(series, at[strings.ToLower(strings.TrimSpace(k))])
+		}
+		return pc, series
+	}
+	if sc, hasSeries := at["series"]; hasSeries && hasPeriod && hasValue {
+		return pc, []int{sc}
+	}
+	return 0, nil
+}
+
+// rowSeries is the name of a row's series: its cells in cols, trimmed and
+// joined by "/".
+func rowSeries(rec []string, cols []int) string {
+	parts := make([]string, len(cols))
+	for i, c := range cols {
+		parts[i] = strings.TrimSpace(rec[c])
+	}
+	return strings.Join(parts, "/")
 }
 
 // line returns the line of p's row, or 0 when there is none.

@@ -57,17 +57,7 @@ func ReadPlan(path string) (plan.TrackPlan, map[string]string, error) {
 	}
 	var sp savedPlan
 	if err := json.Unmarshal(src, &sp); err != nil {
-		pe := &data.ParseError{File: path, Err: err}
-		var se *json.SyntaxError
-		var te *json.UnmarshalTypeError
-		switch {
-		case errors.As(err, &se):
-			pe.Line, pe.Column = offsetPos(src, se.Offset)
-		case errors.As(err, &te):
-			pe.Line, pe.Column = offsetPos(src, te.Offset)
-			pe.Field, pe.Err = te.Field, fmt.Errorf("%w: %s where %s was expected", ErrNotAPlan, te.Value, te.Type)
-		}
-		return tp, nil, pe
+		return tp, nil, jsonError(path, src, err)
 	}
 	bad := func(field, format string, a ...any) error {
 		return &data.ParseError{File: path, Field: field, Err: fmt.Errorf("%w: "+format, append([]any{ErrNotAPlan}, a...)...)}
@@ -121,6 +111,23 @@ func ReadPlan(path string) (plan.TrackPlan, map[string]string, error) {
 		return tp, nil, &data.ParseError{File: path, Err: err}
 	}
 	return tp, sp.Inputs, nil
+}
+
+// jsonError turns an error of json.Unmarshal on src, the content of
+// path, into a *data.ParseError with the line and column of a syntax or
+// type error and the field of a type error.
+func jsonError(path string, src []byte, err error) error {
+	pe := &data.ParseError{File: path, Err: err}
+	var se *json.SyntaxError
+	var te *json.UnmarshalTypeError
+	switch {
+	case errors.As(err, &se):
+		pe.Line, pe.Column = offsetPos(src, se.Offset)
+	case errors.As(err, &te):
+		pe.Line, pe.Column = offsetPos(src, te.Offset)
+		pe.Field, pe.Err = te.Field, fmt.Errorf("%w: %s where %s was expected", ErrNotAPlan, te.Value, te.Type)
+	}
+	return pe
 }
 
 // offsetPos turns a byte offset of src into a 1-based line and column.

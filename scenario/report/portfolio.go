@@ -28,11 +28,32 @@ type portfolioJSON struct {
 	Units     string                  `json:"units,omitempty"`
 	Series    int                     `json:"series"`
 	Levels    []string                `json:"levels"`
+	History   portfolioHistoryJSON    `json:"history"`
+	Inputs    map[string]string       `json:"inputs"`
 	Periods   []string                `json:"periods"`
+	Baselines []seriesBaselineJSON    `json:"series_baselines"`
 	Scenarios []portfolioScenarioJSON `json:"scenarios"`
 	Notes     []string                `json:"notes"`
 	Caution   string                  `json:"caution"`
 	Warnings  []string                `json:"warnings"`
+}
+
+// portfolioHistoryJSON is the length of the history's periods and its
+// last period.
+type portfolioHistoryJSON struct {
+	Period string `json:"period"`
+	End    string `json:"end"`
+}
+
+// seriesBaselineJSON is one series' baseline per period and its in-sample
+// MAD and MSE (0 for a series that a scope creates, New), what tracking
+// needs of it besides each scenario's plan.
+type seriesBaselineJSON struct {
+	Series   string `json:"series"`
+	New      bool   `json:"new"`
+	MAD      Num    `json:"mad"`
+	MSE      Num    `json:"mse"`
+	Baseline []Num  `json:"baseline"`
 }
 
 type portfolioScenarioJSON struct {
@@ -52,6 +73,7 @@ type rollupJSON struct {
 	RiskWeighted []Num  `json:"risk_weighted"`
 	Lower        []Num  `json:"lower"`
 	Upper        []Num  `json:"upper"`
+	Var          []Num  `json:"var"`
 }
 
 // resourceJSON is one resource's load in a scenario.
@@ -67,12 +89,14 @@ type resourceJSON struct {
 	Shortfall   []Num  `json:"expected_shortfall"`
 }
 
-// seriesSumJSON is one series' totals over the horizon in a scenario.
+// seriesSumJSON is one series' totals over the horizon in a scenario,
+// and its plan per period.
 type seriesSumJSON struct {
-	Series   string `json:"series"`
-	Baseline Num    `json:"baseline"`
-	Adjusted Num    `json:"adjusted"`
-	Change   Num    `json:"change"`
+	Series          string `json:"series"`
+	Baseline        Num    `json:"baseline"`
+	Adjusted        Num    `json:"adjusted"`
+	Change          Num    `json:"change"`
+	AdjustedPeriods []Num  `json:"adjusted_periods"`
 }
 
 // A seriesChange is one series' totals over the horizon in a scenario.
@@ -396,9 +420,18 @@ func summaryCSV(pf *plan.Portfolio) *Table {
 func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoad) portfolioJSON {
 	p0 := pf.Plans[0]
 	doc := portfolioJSON{Version: PortfolioVersion, Kind: "portfolio", Plan: pf.File.Plan, Units: pf.File.Units,
-		Series: len(pf.Plans), Levels: List(pf.Levels), Notes: List(pf.Notes), Caution: Caution, Warnings: List(pf.Warnings)}
+		Series: len(pf.Plans), Levels: List(pf.Levels), Notes: List(pf.Notes), Caution: Caution, Warnings: List(pf.Warnings),
+		History: portfolioHistoryJSON{Period: p0.History.Freq().String(), End: p0.History.Period(p0.History.Len() - 1).String()},
+		Inputs:  p0.Digests}
 	for _, per := range p0.Periods {
 		doc.Periods = append(doc.Periods, per.String())
+	}
+	for _, p := range pf.Plans {
+		b := seriesBaselineJSON{Series: p.History.Name, New: p.Fit == nil, Baseline: Nums(p.Baseline)}
+		if p.Fit != nil {
+			b.MAD, b.MSE = Num(p.Fit.Accuracy.MAD), Num(p.Fit.Accuracy.MSE)
+		}
+		doc.Baselines = append(doc.Baselines, b)
 	}
 	cases := pf.File.Cases()
 	for k, sp := range p0.Scenarios {
@@ -406,7 +439,7 @@ func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoa
 		for _, ru := range rollups[k] {
 			sj.Rollups = append(sj.Rollups, rollupJSON{Level: ru.Level, Group: ru.Group, Members: len(ru.Members),
 				Baseline: Nums(ru.Baseline), Adjusted: Nums(ru.Adjusted), RiskWeighted: Nums(ru.RiskWeighted),
-				Lower: Nums(ru.Lower), Upper: Nums(ru.Upper)})
+				Lower: Nums(ru.Lower), Upper: Nums(ru.Upper), Var: Nums(ru.Var)})
 		}
 		for _, r := range res {
 			risk := r.Risk[k]
@@ -417,8 +450,9 @@ func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoa
 			}
 			sj.Resources = append(sj.Resources, rj)
 		}
-		for _, c := range changes(pf, k) {
-			sj.Series = append(sj.Series, seriesSumJSON{Series: c.name, Baseline: Num(c.baseline), Adjusted: Num(c.adjusted), Change: Num(c.change())})
+		for i, c := range changes(pf, k) {
+			sj.Series = append(sj.Series, seriesSumJSON{Series: c.name, Baseline: Num(c.baseline), Adjusted: Num(c.adjusted), Change: Num(c.change()),
+				AdjustedPeriods: Nums(pf.Plans[i].Scenarios[k].Adjusted)})
 		}
 		doc.Scenarios = append(doc.Scenarios, sj)
 	}

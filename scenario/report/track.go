@@ -1,7 +1,7 @@
 package report
 
 import (
-	"strings"
+	"slices"
 
 	"forelay/forecast"
 	"forelay/plots"
@@ -42,10 +42,9 @@ func ForTrack(t Track) *Report {
 // two decimals, the signal and the sigmas four.
 func trackCSV(t Track) *Table {
 	tr := t.Tracking
-	tb := &Table{Head: []string{"period", "actual", "plan", "baseline", "error", "cum_error", "mad", "tracking_signal", "sigmas", "verdict", "rules"}}
-	for i, p := range tr.Points {
-		tb.AddRow(tr.Periods[i].String(), CSV2(p.Actual), CSV2(p.Plan), CSV2(tr.Baseline[i]), CSV2(p.Error),
-			CSV2(p.CumError), CSV2(p.MAD), F4(p.TrackingSignal), F4(p.Sigmas), p.Verdict.String(), strings.Join(ruleNames(p.Rules), " "))
+	tb := &Table{Head: slices.Clone(trackHead)}
+	for i := range tr.Points {
+		tb.AddRow(trackRow(tr, i)...)
 	}
 	return tb
 }

@@ -65,20 +65,17 @@ func trackDoc(t Track) TrackDoc {
 	o := TrackDoc{Scenario: tr.Scenario, Plan: tp.Name, PlanSource: t.Source, Series: tp.Series, Units: tp.Units,
 		Signal: c.Signal.String(), TSLimit: Num(c.TSLimit), Z: Num(c.Z), MADSmoothing: Num(c.MADSmoothing),
 		MAD: Num(c.InitialMAD), MSE: Num(c.MSE), Sigma: Num(tr.Limits.Sigma), UCL: Num(tr.Limits.UCL), LCL: Num(tr.Limits.LCL),
-		Periods: []trackPeriodJSON{}, Warnings: List(t.Warnings),
+		Periods: trackPeriods(tr), FVA: fvaOf(tr.ValueAdded), Warnings: List(t.Warnings),
 	}
-	for i, p := range tr.Points {
-		o.Periods = append(o.Periods, trackPeriodJSON{Period: tr.Periods[i].String(), Actual: Num(p.Actual), Plan: Num(p.Plan),
-			Baseline: Num(tr.Baseline[i]), Error: Num(p.Error), CumError: Num(p.CumError), MAD: Num(p.MAD),
-			TrackingSignal: Num(p.TrackingSignal), SignalClean: Num(p.SignalWithoutOutliers), Sigmas: Num(p.Sigmas),
-			Verdict: p.Verdict.String(), Rules: ruleNames(p.Rules)})
-	}
-	va := tr.ValueAdded
-	o.FVA = fvaJSON{N: va.N, PlanMAD: Num(va.PlanMAD), BaselineMAD: Num(va.BaselineMAD), PlanBias: Num(va.PlanBias),
-		BaselineBias: Num(va.BaselineBias), Improvement: Num(va.Improvement), ImprovementShare: Num(va.ImprovementShare)}
 	per, last := tr.Latest()
 	o.Latest = latestJSON{Period: per.String(), Verdict: last.Verdict.String(), Message: latestText(t)}
 	return o
+}
+
+// fvaOf returns the forecast value added as JSON.
+func fvaOf(va forecast.ValueAdded) fvaJSON {
+	return fvaJSON{N: va.N, PlanMAD: Num(va.PlanMAD), BaselineMAD: Num(va.BaselineMAD), PlanBias: Num(va.PlanBias),
+		BaselineBias: Num(va.BaselineBias), Improvement: Num(va.Improvement), ImprovementShare: Num(va.ImprovementShare)}
 }
 
 // ruleNames returns the names of rules, an empty list for none.
