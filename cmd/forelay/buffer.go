@@ -54,6 +54,7 @@ func newCmdBuffer(f *Factory, runF func(*BufferOptions) error) *cobra.Command {
 		},
 	}
 	fl := cmd.Flags()
+	registerChartSize(fl, f.Shared)
 	fl.StringVar(&opts.Out, "out", "", "directory to write buffer.csv, buffer.json and the chart into")
 	fl.BoolVar(&opts.JSON, "json", false, "print buffer.json to standard output instead of the tables")
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip buffer.png and buffer.svg")

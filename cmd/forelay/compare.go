@@ -41,6 +41,7 @@ func newCmdCompare(f *Factory, runF func(*CompareOptions) error) *cobra.Command 
 		},
 	}
 	fl := cmd.Flags()
+	registerChartSize(fl, f.Shared)
 	fl.StringVar(&opts.Out, "out", "", "directory to write compare.csv, compare.json and the charts into")
 	fl.BoolVar(&opts.JSON, "json", false, "print compare.json to standard output instead of the tables")
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip the charts")

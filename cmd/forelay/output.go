@@ -38,6 +38,11 @@ func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart bool,
 	var set *report.Files
 	if out != "" {
 		set = report.NewFiles(out)
+		if shared != nil && shared.ChartSize.W > 0 {
+			if err := set.ChartSize(shared.ChartSize.W, shared.ChartSize.H); err != nil {
+				return &flagError{err: fmt.Errorf("--chart-size: %w", err)}
+			}
+		}
 		if r.CSV != nil {
 			csv, err := r.CSVBytes()
 			if err != nil {

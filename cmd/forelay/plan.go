@@ -52,6 +52,7 @@ func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
 		},
 	}
 	fl := cmd.Flags()
+	registerChartSize(fl, f.Shared)
 	fl.StringVar(&opts.Out, "out", "", "directory to write plan.csv, plan.json, plan.png and plan.svg into")
 	fl.BoolVar(&opts.JSON, "json", false, "print plan.json to standard output instead of the tables")
 	fl.BoolVar(&opts.Detail, "detail", false, "also print every period of every scenario")

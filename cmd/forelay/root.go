@@ -34,6 +34,9 @@ type sharedFlags struct {
 	Strict bool
 	// Limits bound the size of a run.
 	Limits bounds.Set
+	// ChartSize is the size of the charts written with --out (zero: the
+	// default), for the commands that take --chart-size.
+	ChartSize chartSize
 }
 
 // strict reports whether --strict is set; a nil s (a command built in a

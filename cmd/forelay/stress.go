@@ -44,6 +44,7 @@ func newCmdStress(f *Factory, runF func(*StressOptions) error) *cobra.Command {
 		},
 	}
 	fl := cmd.Flags()
+	registerChartSize(fl, f.Shared)
 	fl.StringVar(&opts.Out, "out", "", "directory to write stress.csv, stress.json and the charts into")
 	fl.BoolVar(&opts.JSON, "json", false, "print stress.json to standard output instead of the tables")
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip the charts")

@@ -70,6 +70,7 @@ func newCmdTrack(f *Factory, runF func(*TrackOptions) error) *cobra.Command {
 		},
 	}
 	fl := cmd.Flags()
+	registerChartSize(fl, f.Shared)
 	fl.StringVar(&opts.Actuals, "actuals", "", "CSV of new actuals (history layouts), starting at the first plan period")
 	fl.StringVar(&opts.Scenario, "scenario", "", `scenario to track (default: the only one, or the one called "plan")`)
 	fl.StringVar(&opts.PlanDir, "plan", "", "read the plan from DIR/plan.json instead of building it again")
