@@ -101,6 +101,8 @@ func TestPortfolioCorrelation(t *testing.T) {
 // and c in the first month are correlated by P(lag < 24) = 24/49 (their
 // errors have the same spread; the rare draws where both resample add
 // little): within 0.05 with 20,000 paths (standard error about 0.006).
+// The plan's variance of the sum, worked out by forecast.SumVariance on the
+// same model, matches the simulated total's within 5 %.
 func TestPortfolioWindows(t *testing.T) {
 	c := append([]float64(nil), walshA...)
 	for i := range 24 {
@@ -126,6 +128,18 @@ func TestPortfolioWindows(t *testing.T) {
 	cov /= float64(len(ra))
 	if r := cov / math.Sqrt(pathVar(a, 0)*pathVar(cc, 0)); math.Abs(r-24.0/49) > 0.05 {
 		t.Errorf("correlation of a and c in month 1: %.3f, want 24/49 = %.3f", r, 24.0/49)
+	}
+	// The plan's band of the sum (forecast.SumVariance) rests on the same
+	// model: the simulated total has its variance, within 5 %.
+	rs, err := pf.Rollups(pf.Plans[0].Scenarios[0].Name)
+	if err != nil {
+		t.Fatal(err)
+	}
+	tot := simulatePortfolio(t, pf, []Sum{TotalOf(pf)}, SimOptions{Paths: 20000, Seed: 13}).Scenarios[0][0]
+	for h := range tot.Demand {
+		if v, want := pathVar(tot, h), rs[0].Var[h]; math.Abs(v/want-1) > 0.05 {
+			t.Errorf("period %d: variance of the simulated total %v, the plan's %v", h, v, want)
+		}
 	}
 }
 
