@@ -164,13 +164,10 @@ func portfolioStressCSV(r *supply.PortfolioStressRun) *Table {
 	for k, tot := range r.Total {
 		rows := func(name string, rk supply.Risk, fz *supply.StockProjection) {
 			for t, pr := range rk.Periods {
-				row := []string{tot.Name, name, periods[t].String(), CSVNum(pr.Mean, 2), CSVNum(pr.P5, 2), CSVNum(pr.P10, 2),
-					CSVNum(pr.P50, 2), CSVNum(pr.P90, 2), CSVNum(pr.P95, 2), CSVNum(pr.Capacity, 2), CSVNum(pr.PBreach, 4),
-					CSVNum(pr.ExpectedShortfall, 2), CSVNum(pr.ShortfallIfBreach, 2), CSVNum(pr.UtilP50, 4), CSVNum(pr.UtilP90, 4)}
+				row := append([]string{tot.Name, name, periods[t].String()}, stressCells(pr)...)
 				switch {
 				case fz != nil:
-					row = append(row, CSVNum(fz.Production[t], 2), CSVNum(fz.Stock[t], 2), CSVNum(fz.StockP50[t], 2),
-						CSVNum(fz.StockP90[t], 2), CSVNum(fz.PShort[t], 4), CSVNum(fz.Idle[t], 2), CSVNum(fz.Overload[t], 2))
+					row = append(row, frozenCells(fz, t)...)
 				case r.Frozen != nil:
 					row = append(row, "", "", "", "", "", "", "")
 				}
