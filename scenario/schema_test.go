@@ -263,12 +263,14 @@ func anyCasePattern(words []string) string {
 
 // scenarioFiles returns the scenario files of the repository's examples
 // and test data, by name: the examples, the starter of forelay init, the
-// scenario test data and the YAML files inside the test scripts.
+// scenario test data, the catalogue of bad inputs (whose files the decoder
+// accepts are wrong in some other way) and the YAML files inside the test
+// scripts.
 func scenarioFiles(t *testing.T) map[string][]byte {
 	t.Helper()
 	files := map[string][]byte{}
 	var paths []string
-	for _, glob := range []string{"../examples/*/*.yaml", "../cmd/forelay/starter/*.yaml", "../testdata/scenario/*.yaml"} {
+	for _, glob := range []string{"../examples/*/*.yaml", "../cmd/forelay/starter/*.yaml", "../testdata/scenario/*.yaml", "../testdata/bad/*/*.yaml"} {
 		m, err := filepath.Glob(glob)
 		if err != nil {
 			t.Fatal(err)
