@@ -106,7 +106,7 @@ func bufferRun(opts *BufferOptions) error {
 	}
 	var mc *sim.Simulation
 	if opts.Demand == demandMC {
-		if mc, err = simulate(p, &opts.Sim); err != nil {
+		if mc, err = simulate(p, &opts.Sim, opts.Shared); err != nil {
 			return err
 		}
 	}
@@ -131,7 +131,7 @@ func portfolioBufferRun(opts *BufferOptions, pf *plan.Portfolio) error {
 	}
 	var mc *sim.PortfolioSimulation
 	if opts.Demand == demandMC {
-		if mc, err = simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim); err != nil {
+		if mc, err = simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim, opts.Shared); err != nil {
 			return err
 		}
 	}

@@ -67,13 +67,13 @@ func compareRun(opts *CompareOptions) error {
 	}
 	if pf != nil {
 		res := supply.PortfolioResources(pf)
-		mc, err := simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim)
+		mc, err := simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim, opts.Shared)
 		if err != nil {
 			return err
 		}
 		return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.PortfolioCompare(supply.ComparePortfolio(mc, res, opts.Service)))
 	}
-	mc, err := simulate(p, &opts.Sim)
+	mc, err := simulate(p, &opts.Sim, opts.Shared)
 	if err != nil {
 		return err
 	}

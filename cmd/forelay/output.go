@@ -74,7 +74,9 @@ func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart bool,
 			return err
 		}
 		for _, p := range paths {
-			fmt.Fprintf(ios.ErrOut, "wrote %s\n", p)
+			if !shared.quiet() {
+				fmt.Fprintf(ios.ErrOut, "wrote %s\n", p)
+			}
 		}
 	}
 	if asJSON {

@@ -90,7 +90,7 @@ func buildPlanOrPortfolio(path string, shared *sharedFlags, workers int) (*plan.
 		return nil, nil, &inputError{err: err}
 	}
 	if plan.WantsPortfolio(f, in) {
-		pf, err := plan.BuildPortfolio(f, in, workers)
+		pf, err := plan.BuildPortfolioProgress(f, in, workers, shared.progress("planning series"))
 		if err != nil {
 			return nil, nil, &inputError{err: err}
 		}
@@ -134,7 +134,7 @@ func portfolioRun(opts *PlanOptions, f *scenario.File, in *plan.Inputs) error {
 	if err != nil {
 		return err
 	}
-	pf, err := plan.BuildPortfolio(f, in, opts.Workers)
+	pf, err := plan.BuildPortfolioProgress(f, in, opts.Workers, opts.Shared.progress("planning series"))
 	if err != nil {
 		return &inputError{err: err}
 	}

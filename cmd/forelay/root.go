@@ -6,6 +6,7 @@ import (
 	"forelay/scenario/bounds"
 	"forelay/scenario/report"
 	"io"
+	"os"
 	"runtime/debug"
 	"time"
 
@@ -37,6 +38,13 @@ type sharedFlags struct {
 	// ChartSize is the size of the charts written with --out (zero: the
 	// default), for the commands that take --chart-size.
 	ChartSize chartSize
+	// Quiet drops the progress bars and the "wrote ..." lines.
+	Quiet bool
+	// bars is where progress bars go (standard error when it is a
+	// terminal; nil: nowhere), and colour whether they may use colour
+	// (see terminals in progress.go).
+	bars   io.Writer
+	colour bool
 }
 
 // strict reports whether --strict is set; a nil s (a command built in a
@@ -82,6 +90,8 @@ the applicable reliability standards, local codes and licensed practice.`,
 	pf := root.PersistentFlags()
 	pf.BoolVar(&f.Shared.Strict, "strict", false, "treat every warning as an error (exit code 2) and write nothing")
 	pf.Var(&bounds.Value{L: f.Shared.Limits}, "limit", "raise or lower a limit, NAME=N (repeatable); see 'forelay --help' for the limits")
+	pf.BoolVarP(&f.Shared.Quiet, "quiet", "q", false, "print no progress bar and no \"wrote ...\" lines (warnings and errors still)")
+	f.Shared.bars, f.Shared.colour = terminals(f.IO, os.Getenv, isTerminal)
 	root.SetOut(f.IO.Out)
 	root.SetErr(f.IO.ErrOut)
 	root.SetIn(f.IO.In)
@@ -98,6 +108,7 @@ the applicable reliability standards, local codes and licensed practice.`,
 		newCmdBuffer(f, nil),
 		newCmdCompare(f, nil),
 		newCmdTrack(f, nil),
+		newCmdSchema(f, nil),
 	)
 	registerCompletions(root)
 	return root

@@ -84,7 +84,7 @@ func stressRun(opts *StressOptions) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	mc, err := simulate(p, &opts.Sim)
+	mc, err := simulate(p, &opts.Sim, opts.Shared)
 	if err != nil {
 		return err
 	}
@@ -106,7 +106,7 @@ func portfolioStressRun(opts *StressOptions, pf *plan.Portfolio) error {
 		return &inputError{err: err}
 	}
 	res := supply.PortfolioResources(pf)
-	mc, err := simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim)
+	mc, err := simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim, opts.Shared)
 	if err != nil {
 		return err
 	}

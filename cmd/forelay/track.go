@@ -228,7 +228,7 @@ func loadPortfolioTrackPlan(opts *TrackOptions, f *scenario.File, in *plan.Input
 		}
 		return pt, source, warns, nil
 	}
-	pf, err := plan.BuildPortfolio(f, in, opts.Workers)
+	pf, err := plan.BuildPortfolioProgress(f, in, opts.Workers, opts.Shared.progress("planning series"))
 	if err != nil {
 		return nil, "", nil, &inputError{err: err}
 	}

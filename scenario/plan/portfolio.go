@@ -95,6 +95,13 @@ func WantsPortfolio(f *scenario.File, in *Inputs) bool {
 // plans (package supply). Errors are those of CheckPortfolio, then those of
 // Build.
 func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, error) {
+	return BuildPortfolioProgress(f, in, workers, nil)
+}
+
+// BuildPortfolioProgress is BuildPortfolio that tells progress of each
+// series whose history is cleaned and baseline fitted (the first pass; see
+// forecast.Progress); the portfolio is that of BuildPortfolio.
+func BuildPortfolioProgress(f *scenario.File, in *Inputs, workers int, progress forecast.Progress) (*Portfolio, error) {
 	series, warnings, err := CheckPortfolio(f, in)
 	if err != nil {
 		return nil, err
@@ -117,7 +124,9 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 	}
 	bases := make([][]float64, len(series))
 	name := func(i int) string { return series[i].Name }
+	tick := progress.Counter(len(series))
 	err = eachSeries(len(series), workers, name, func(i int) error {
+		defer tick()
 		ser := series[i]
 		one := &Inputs{History: in.History, Series: ser, Selected: []string{ser.Name}, Levels: in.Levels, Digests: in.Digests}
 		view := f.ForSeries(ser.Name, equal[ser.Name])

@@ -177,7 +177,7 @@ func SimulatePortfolio(pf *plan.Portfolio, sums []Sum, opt SimOptions) (*Portfol
 			ps.Scenarios[k] = append(ps.Scenarios[k], &PathSet{Name: s.Name, Demand: matrix(H, n), Spread: make([]Spread, H)})
 		}
 	}
-	run := &portfolioRun{ps: ps, draws: draws, ids: ids, H: H, K: K}
+	run := &portfolioRun{ps: ps, draws: draws, ids: ids, H: H, K: K, tick: opt.Progress.Counter((n + StreamBlock - 1) / StreamBlock)}
 	run.draw(opt.Workers)
 	var all []*PathSet
 	for _, row := range ps.Scenarios {
@@ -326,6 +326,7 @@ type portfolioRun struct {
 	draws []seriesDraw
 	ids   []string
 	H, K  int
+	tick  func() // after each block of paths
 	// The block being drawn: the lag j and the uniform v of each path and
 	// period (path-major), and each event's two uniform numbers per path.
 	lag      []int
@@ -388,6 +389,7 @@ func (r *portfolioRun) draw(workers int) {
 				}
 			}
 		}
+		r.tick()
 	}
 }
 
