@@ -25,9 +25,10 @@ func warnings(ios *IOStreams, shared *sharedFlags, list []string) error {
 
 // emit ends a command run the same way for every command: the warnings
 // first (under --strict they stop the run before anything is written),
-// then, with --out, the CSV, the JSON document and the charts, written all
-// together, then the JSON document or the text report on standard output.
-func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart bool, r *report.Report) error {
+// then, with --out, the CSV, the JSON document, the workbook (with xlsx)
+// and the charts, written all together, then the JSON document or the
+// text report on standard output.
+func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart, xlsx bool, r *report.Report) error {
 	if err := warnings(ios, shared, r.Warnings); err != nil {
 		return err
 	}
@@ -59,6 +60,13 @@ func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart bool,
 		}
 		if !r.NoJSONFile {
 			set.Add(r.Name+".json", js)
+		}
+		if xlsx {
+			book, err := r.XLSX()
+			if err != nil {
+				return err
+			}
+			set.Add(r.Name+".xlsx", book)
 		}
 		if !noChart {
 			for _, c := range r.Charts {

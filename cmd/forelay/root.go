@@ -155,7 +155,7 @@ func newCmdVersion(f *Factory) *cobra.Command {
 		RunE: func(cmd *cobra.Command, args []string) error {
 			rep := &report.Report{Name: "version", Compact: true, Doc: map[string]string{"version": version}}
 			fmt.Fprintf(&rep.Text, "forelay %s\n", version)
-			return emit(f.IO, f.Shared, "", asJSON, true, rep)
+			return emit(f.IO, f.Shared, "", asJSON, true, false, rep)
 		},
 	}
 	cmd.Flags().BoolVar(&asJSON, "json", false, "print the version as JSON")

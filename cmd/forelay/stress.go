@@ -20,6 +20,8 @@ type StressOptions struct {
 	Breach       float64
 	OpeningStock float64
 	Scenario     string
+	// XLSX also writes the workbook into Out.
+	XLSX bool
 }
 
 func newCmdStress(f *Factory, runF func(*StressOptions) error) *cobra.Command {
@@ -48,6 +50,7 @@ func newCmdStress(f *Factory, runF func(*StressOptions) error) *cobra.Command {
 	fl.StringVar(&opts.Out, "out", "", "directory to write stress.csv, stress.json and the charts into")
 	fl.BoolVar(&opts.JSON, "json", false, "print stress.json to standard output instead of the tables")
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip the charts")
+	addXLSXFlag(fl, &opts.XLSX, "stress")
 	opts.Sim.register(fl)
 	fl.Float64Var(&opts.Breach, "breach", 0.1, "report the first period whose probability of demand above capacity exceeds this")
 	fl.Float64Var(&opts.OpeningStock, "opening-stock", 0, "stock before the first period, for frozen production")
@@ -61,6 +64,9 @@ func (o *StressOptions) check() error {
 		return err
 	}
 	if err := checkUnit("breach", o.Breach); err != nil {
+		return err
+	}
+	if err := checkXLSX(o.XLSX, o.Out, "stress"); err != nil {
 		return err
 	}
 	return checkStock("opening-stock", o.OpeningStock)
@@ -92,7 +98,7 @@ func stressRun(opts *StressOptions) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.Stress(run, chart))
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, opts.XLSX, report.Stress(run, chart))
 }
 
 // portfolioStressRun simulates the total and the resources' loads of a
@@ -114,5 +120,5 @@ func portfolioStressRun(opts *StressOptions, pf *plan.Portfolio) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.PortfolioStress(run, chart))
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, opts.XLSX, report.PortfolioStress(run, chart))
 }

@@ -60,7 +60,7 @@ type StressDoc struct {
 func Stress(r *supply.StressRun, chart int) *Report {
 	notes := append(SimNotes(r.Plan), r.Notes...)
 	rep := &Report{Name: "stress", Warnings: r.Warnings, Doc: stressDoc(r, notes), CSV: stressCSV(r),
-		Charts: []Chart{{Name: "fan", Plot: fanChart(r, chart)}}}
+		Charts: []Chart{{Name: "fan", Plot: fanChart(r, chart)}}, MoreTables: planTables(r.Plan)}
 	if r.Frozen != nil {
 		rep.Charts = append(rep.Charts, Chart{Name: "stock", Plot: stockChart(r, chart)})
 	}
@@ -91,10 +91,11 @@ func stressDoc(r *supply.StressRun, notes []string) StressDoc {
 // Quantities have two decimals, probabilities and utilisations four; a
 // value that does not apply (no capacity) is an empty cell.
 func stressCSV(r *supply.StressRun) *Table {
-	tb := &Table{Head: []string{"scenario", "period", "mean", "p5", "p10", "p50", "p90", "p95", "capacity", "p_breach",
-		"expected_shortfall", "shortfall_if_breach", "util_p50", "util_p90"}}
+	tb := (&Table{Head: []string{"scenario", "period", "mean", "p5", "p10", "p50", "p90", "p95", "capacity", "p_breach",
+		"expected_shortfall", "shortfall_if_breach", "util_p50", "util_p90"}}).Typed(kindsOf([]Kind{Label, Label}, riskKinds)...)
 	if r.Frozen != nil {
 		tb.Head = append(tb.Head, "production", "stock", "stock_at_p50_demand", "stock_at_p90_demand", "p_short", "idle", "overload")
+		tb.Kinds = append(tb.Kinds, frozenKinds...)
 	}
 	for s, rk := range r.Risks {
 		for t, pr := range rk.Periods {
@@ -107,6 +108,13 @@ func stressCSV(r *supply.StressRun) *Table {
 	}
 	return tb
 }
+
+// riskKinds are the kinds of stress.csv's columns from mean to util_p90,
+// and frozenKinds those of its frozen-production columns.
+var (
+	riskKinds   = []Kind{Quantity, Quantity, Quantity, Quantity, Quantity, Quantity, Quantity, Share, Quantity, Quantity, Share, Share}
+	frozenKinds = []Kind{Quantity, Quantity, Quantity, Quantity, Share, Quantity, Quantity}
+)
 
 // writeStressText writes the text report of a stress run.
 func writeStressText(w *Text, r *supply.StressRun, notes []string) {
