@@ -95,6 +95,7 @@ the applicable reliability standards, local codes and licensed practice.`,
 		newCmdBuffer(f, nil),
 		newCmdCompare(f, nil),
 		newCmdTrack(f, nil),
+		newCmdReport(f, nil),
 	)
 	registerCompletions(root)
 	return root
