@@ -61,8 +61,8 @@ func TestReportInBrowser(t *testing.T) {
 			}
 			checkNotBlank(t, res.PNG)
 			// A plausible length: at least the cover and the sections,
-			// at most 40 pages (the dairy prints on about 13, the
-			// portfolio on about 27).
+			// at most 40 pages (the dairy prints on about 14 A4 pages, the
+			// portfolio on about 30).
 			if n := len(pdfPage.FindAll(res.PDF, -1)); n < 2 || n > 40 {
 				t.Errorf("the PDF has %d pages, want 2 to 40", n)
 			}

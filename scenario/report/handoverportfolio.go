@@ -5,6 +5,7 @@ import (
 	"strings"
 
 	"forelay/forecast"
+	"forelay/plots"
 	"forelay/scenario/plan"
 	"forelay/scenario/supply"
 )
@@ -82,7 +83,8 @@ func ForPortfolioHandover(h PortfolioHandover) (*Book, error) {
 	if err != nil {
 		return nil, err
 	}
-	b.add("scenarios", "Scenarios, resources and the most-changed series", "", captioned(r, portfolioCaption(p0.Scenarios[len(p0.Scenarios)-1].Name)))
+	r.Charts = append(scenarioTotals(pf, rollups), r.Charts[1:]...)
+	b.add("scenarios", "Scenarios, resources and the most-changed series", "", captioned(r, portfolioCaption))
 
 	if h.Compare != nil {
 		b.add("comparison", "Scenarios side by side", "The total and each resource in every scenario, from the Monte Carlo, and how each event adds to the total.", captioned(PortfolioCompare(h.Compare), compareCaption))
@@ -208,17 +210,33 @@ func everySeriesTable(pf *plan.Portfolio, d int) *Table {
 	return t
 }
 
-// portfolioCaption captions the charts of a portfolio plan; scenario is
-// the one the series charts show last.
-func portfolioCaption(scenario string) func(string) string {
-	return func(name string) string {
-		switch {
-		case name == "total":
-			return "The portfolio's total: history, baseline and each scenario with its band."
-		case strings.HasPrefix(name, "resource-"):
-			return "The load of resource " + strings.TrimPrefix(name, "resource-") + " in each scenario against its capacity."
-		}
-		s := strings.ReplaceAll(strings.TrimPrefix(name, "series-"), "--", "/")
-		return "Series " + s + ", one of those the events change most: history, baseline and each scenario."
+// portfolioCaption captions the charts of a portfolio plan by their
+// names.
+func portfolioCaption(name string) string {
+	if strings.HasPrefix(name, "resource-") {
+		return "The load of resource " + strings.TrimPrefix(name, "resource-") + " in each scenario against its capacity."
 	}
+	s := strings.ReplaceAll(strings.TrimPrefix(name, "series-"), "--", "/")
+	return "Series " + s + ", one of those the events change most: history, baseline and each scenario."
+}
+
+// scenarioTotals draws the portfolio's total once per scenario: the
+// summed history, the summed baseline and that scenario alone with the
+// band of the sum.
+func scenarioTotals(pf *plan.Portfolio, rollups [][]plan.Rollup) []Chart {
+	var out []Chart
+	cases := pf.File.Cases()
+	for k, rs := range rollups {
+		c := totalChart(pf, rollups)
+		c.Title = "Total of " + fmt.Sprint(len(pf.Plans)) + " series: scenario " + rs[0].Scenario
+		c.Scenarios = nil
+		if len(cases[k].Events) > 0 {
+			t := rs[0]
+			c.Scenarios = []plots.Curve{{Name: t.Scenario, Start: c.ForecastStart, Values: t.Adjusted, Lower: t.Lower, Upper: t.Upper}}
+		}
+		caption := fmt.Sprintf("The portfolio's total in scenario %s: the summed history, the summed baseline and the scenario with the band of the sum (%s).",
+			rs[0].Scenario, evsText(eventIDList(cases[k].Events)))
+		out = append(out, Chart{Name: "total-" + rs[0].Scenario, Plot: c, Caption: caption})
+	}
+	return out
 }
