@@ -34,8 +34,12 @@ type Section struct {
 	Intro string
 	// Text is the section's text report; nil for none.
 	Text *Text
-	// Charts are drawn after the text, one figure each.
-	Charts []Chart
+	// Charts are drawn after the text, one figure each; with
+	// ChartPerHeading, chart k is drawn at the end of the part the text's
+	// k-th heading opens (a scenario's chart under its figures), and the
+	// charts past the last heading after the text.
+	Charts          []Chart
+	ChartPerHeading bool
 }
 
 // add appends a section made of a report's text and charts, and takes its

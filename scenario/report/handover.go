@@ -68,6 +68,7 @@ func ForHandover(h Handover) *Book {
 	pr := ForPlan(p, false, nil)
 	pr.Charts = scenarioCharts(p)
 	b.add("scenarios", "Scenarios", "Each scenario is the baseline plus its events; the risk-weighted plan weighs each event by its probability.", pr)
+	b.Sections[len(b.Sections)-1].ChartPerHeading = true
 
 	if h.Compare != nil {
 		b.add("comparison", "Scenarios side by side", "The scenarios' key figures from the Monte Carlo, and how each event adds to each scenario's total.", captioned(Compare(h.Compare), compareCaption))
@@ -150,10 +151,13 @@ func evsText(ids []string) string {
 	return "events " + strings.Join(ids, ", ")
 }
 
-// captioned sets the captions of r's charts by their names and returns r.
+// captioned sets the captions of r's charts that have none, by their
+// names, and returns r.
 func captioned(r *Report, caption func(name string) string) *Report {
 	for i := range r.Charts {
-		r.Charts[i].Caption = caption(r.Charts[i].Name)
+		if r.Charts[i].Caption == "" {
+			r.Charts[i].Caption = caption(r.Charts[i].Name)
+		}
 	}
 	return r
 }
@@ -162,7 +166,7 @@ func compareCaption(name string) string {
 	if s, ok := strings.CutPrefix(name, "waterfall-"); ok {
 		return "How the events of scenario " + s + " take the baseline's total to the scenario's total, one step per event."
 	}
-	return "Each scenario's total over the plan, with the spread of the simulated totals."
+	return "Every scenario with events against the baseline, period by period (and the capacity above), with each one's change from the baseline below."
 }
 
 func stressCaption(scenario string) func(string) string {

@@ -85,6 +85,7 @@ func ForPortfolioHandover(h PortfolioHandover) (*Book, error) {
 	}
 	r.Charts = append(scenarioTotals(pf, rollups), r.Charts[1:]...)
 	b.add("scenarios", "Scenarios, resources and the most-changed series", "", captioned(r, portfolioCaption))
+	b.Sections[len(b.Sections)-1].ChartPerHeading = true
 
 	if h.Compare != nil {
 		b.add("comparison", "Scenarios side by side", "The total and each resource in every scenario, from the Monte Carlo, and how each event adds to the total.", captioned(PortfolioCompare(h.Compare), compareCaption))

@@ -35,13 +35,14 @@ type htmlSection struct {
 }
 
 // An htmlItem is one element of a section's text: a paragraph ("p"), a
-// note ("note"), a subheading ("h3"), a list of indented lines ("list")
-// or a table ("table").
+// note ("note"), a subheading ("h3"), a list of indented lines ("list"),
+// a table ("table") or a chart ("figure").
 type htmlItem struct {
-	Kind  string
-	Text  string
-	Lines []string
-	Table *htmlTable
+	Kind   string
+	Text   string
+	Lines  []string
+	Table  *htmlTable
+	Figure *htmlFigure
 }
 
 type htmlTable struct {
@@ -78,17 +79,23 @@ func (b *Book) HTML(paper Paper) ([]byte, error) {
 		Caution: []string{strings.ReplaceAll(Caution, "\n", " ")}}
 	for _, s := range b.Sections {
 		hs := htmlSection{ID: s.ID, Title: s.Title, Intro: s.Intro}
+		var items []htmlItem
 		if s.Text != nil {
-			hs.Items = htmlItems(s.Text)
+			items = htmlItems(s.Text)
 		}
+		var figs []htmlFigure
 		for i, c := range s.Charts {
 			id := fmt.Sprintf("%s-fig%d", s.ID, i+1)
 			fig, err := inlineSVG(c, id)
 			if err != nil {
 				return nil, fmt.Errorf("chart %s: %w", c.Name, err)
 			}
-			hs.Figures = append(hs.Figures, fig)
+			figs = append(figs, fig)
 		}
+		if s.ChartPerHeading {
+			items, figs = underHeadings(items, figs)
+		}
+		hs.Items, hs.Figures = items, figs
 		doc.Sections = append(doc.Sections, hs)
 	}
 	var out bytes.Buffer
@@ -96,6 +103,28 @@ func (b *Book) HTML(paper Paper) ([]byte, error) {
 		return nil, err
 	}
 	return out.Bytes(), nil
+}
+
+// underHeadings places figure k at the end of the part that the k-th
+// subheading of items opens (before any notes), and returns the figures left over (those past
+// the last subheading).
+func underHeadings(items []htmlItem, figs []htmlFigure) ([]htmlItem, []htmlFigure) {
+	var out []htmlItem
+	k, seen := 0, 0
+	for i, it := range items {
+		out = append(out, it)
+		if it.Kind == "h3" {
+			seen++
+		}
+		// A part ends before the next subheading, or before the notes
+		// that close the text, which are about the whole section.
+		end := i == len(items)-1 || items[i+1].Kind == "h3" || (items[i+1].Kind == "note" && it.Kind != "note")
+		if end && k < len(figs) && seen == k+1 {
+			out = append(out, htmlItem{Kind: "figure", Figure: &figs[k]})
+			k++
+		}
+	}
+	return out, figs[k:]
 }
 
 // htmlItems walks the blocks of a text report: each heading becomes a

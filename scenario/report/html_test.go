@@ -154,3 +154,27 @@ func TestParsePaper(t *testing.T) {
 		}
 	}
 }
+
+// TestUnderHeadings: with two headings and three charts, the first chart
+// ends the first heading's part, the second the second's (before the
+// closing note), and the third is left for after the text.
+func TestUnderHeadings(t *testing.T) {
+	items := []htmlItem{{Kind: "p", Text: "intro"}, {Kind: "h3", Text: "a"}, {Kind: "p", Text: "a1"},
+		{Kind: "h3", Text: "b"}, {Kind: "p", Text: "b1"}, {Kind: "note", Text: "n"}}
+	figs := []htmlFigure{{ID: "f1"}, {ID: "f2"}, {ID: "f3"}}
+	got, left := underHeadings(items, figs)
+	var order []string
+	for _, it := range got {
+		if it.Kind == "figure" {
+			order = append(order, it.Figure.ID)
+		} else {
+			order = append(order, it.Text)
+		}
+	}
+	if want := "intro a a1 f1 b b1 f2 n"; strings.Join(order, " ") != want {
+		t.Errorf("order %q, want %q", strings.Join(order, " "), want)
+	}
+	if len(left) != 1 || left[0].ID != "f3" {
+		t.Errorf("left %v, want f3", left)
+	}
+}
