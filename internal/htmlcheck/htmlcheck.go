@@ -22,8 +22,9 @@ type Summary struct {
 
 // Check parses page and returns what it holds, with one problem per
 // sentence for everything that breaks the rules: a src or href that is
-// not a fragment (#id) or a data: URL, a link or script element, a
-// style that imports or loads a URL, a figure without exactly one svg and
+// not a fragment (#id), an element that loads or embeds anything (link,
+// script, img, iframe, object, embed, base), a style that imports or
+// loads a URL, a figure without exactly one svg and
 // a figcaption, an svg without a title and aria-label, a table without a
 // head row of th scope="col" cells, and a body row without a th
 // scope="row".
