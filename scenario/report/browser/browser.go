@@ -93,7 +93,10 @@ func Print(ctx context.Context, exe string, html []byte, paper report.Paper, sho
 	}
 	actx, acancel := chromedp.NewExecAllocator(ctx, opts...)
 	defer acancel()
-	bctx, bcancel := chromedp.NewContext(actx)
+	// The browser's own log lines are dropped: every failure comes back
+	// as an error, and standard error is forelay's.
+	quiet := func(string, ...any) {}
+	bctx, bcancel := chromedp.NewContext(actx, chromedp.WithLogf(quiet), chromedp.WithErrorf(quiet))
 	defer bcancel()
 
 	res := &Result{ViewportWidth: w}
