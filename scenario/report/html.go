@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"html/template"
 	"strings"
+	"unicode"
 )
 
 // bookTemplate is the page of a Book, and bookCSS its style sheet, whose
@@ -43,6 +44,8 @@ type htmlItem struct {
 	Lines  []string
 	Table  *htmlTable
 	Figure *htmlFigure
+	// closed is set by a blank line after the item: no line goes on it.
+	closed bool
 }
 
 type htmlTable struct {
@@ -155,6 +158,9 @@ func lineItem(items []htmlItem, s string) []htmlItem {
 	trimmed := strings.TrimSpace(s)
 	switch {
 	case trimmed == "":
+		if n := len(items); n > 0 {
+			items[n-1].closed = true
+		}
 		return items
 	case strings.HasPrefix(s, " "):
 		line := strings.Join(strings.Fields(trimmed), " ")
@@ -165,8 +171,25 @@ func lineItem(items []htmlItem, s string) []htmlItem {
 		return append(items, htmlItem{Kind: "list", Lines: []string{line}})
 	case strings.HasPrefix(s, "Note: "):
 		return append(items, htmlItem{Kind: "note", Text: s})
+	case continues(items, s):
+		items[len(items)-1].Text += " " + s
+		return items
 	}
 	return append(items, htmlItem{Kind: "p", Text: s})
+}
+
+// continues reports whether line s goes on the paragraph that ends items,
+// a sentence the text report broke across lines: no blank line comes
+// between them, s starts with a lower-case letter and the paragraph ends
+// in a letter or a comma.
+func continues(items []htmlItem, s string) bool {
+	n := len(items)
+	if n == 0 || items[n-1].Kind != "p" || items[n-1].closed || s == "" || !unicode.IsLower(rune(s[0])) {
+		return false
+	}
+	prev := items[n-1].Text
+	last := rune(prev[len(prev)-1])
+	return unicode.IsLetter(last) || last == ','
 }
 
 // htmlTableOf lays out a table: the columns the text report aligns left

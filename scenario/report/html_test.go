@@ -113,10 +113,14 @@ func TestLineItem(t *testing.T) {
 		lines []string
 		want  []htmlItem
 	}{
-		{[]string{"a", "", "b"}, []htmlItem{{Kind: "p", Text: "a"}, {Kind: "p", Text: "b"}}},
+		{[]string{"a", "", "b"}, []htmlItem{{Kind: "p", Text: "a", closed: true}, {Kind: "p", Text: "b"}}},
 		{[]string{"head:", "  x   1", "  y 2"}, []htmlItem{{Kind: "p", Text: "head:"}, {Kind: "list", Lines: []string{"x 1", "y 2"}}}},
 		{[]string{"Note: n."}, []htmlItem{{Kind: "note", Text: "Note: n."}}},
 		{[]string{"  "}, nil},
+		// A sentence broken across lines is one paragraph; a line after
+		// a closed one starts its own.
+		{[]string{"the spread of the", "sum, in units"}, []htmlItem{{Kind: "p", Text: "the spread of the sum, in units"}}},
+		{[]string{"Tracking (litres)", "plan: from file"}, []htmlItem{{Kind: "p", Text: "Tracking (litres)"}, {Kind: "p", Text: "plan: from file"}}},
 	}
 	for _, tc := range tests {
 		var got []htmlItem
