@@ -60,6 +60,7 @@ func newCmdReport(f *Factory, runF func(*ReportOptions) error) *cobra.Command {
 	fl.Float64Var(&opts.Service, "service", 0.95, "cycle service level of the pre-build, between 0 and 1")
 	fl.Float64Var(&opts.Breach, "breach", 0.1, "report the first period whose probability of demand above capacity exceeds this")
 	fl.IntVar(&opts.Charts, "charts", 5, "in a plan of several series, chart this many of the most-changed series")
+	cmd.RegisterFlagCompletionFunc("paper", cobra.FixedCompletions([]string{"a4", "letter"}, cobra.ShellCompDirectiveNoFileComp))
 	return cmd
 }
 
