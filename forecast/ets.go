@@ -142,7 +142,9 @@ func fitETS(y []float64, m Method, cfg Config) (Model, error) {
 	c := dataScale(y)
 	f := newETSFitter(sh, scaleBy(y, c), fixed)
 	par, init, nEst := f.fit()
-	if !(f.bestF < math.Inf(1)) {
+	ok := f.bestF < math.Inf(1)
+	f.release()
+	if !ok {
 		return nil, fmt.Errorf("%s: the fit failed: no smoothing parameters in their bounds give a finite in-sample error", m)
 	}
 	init.level *= c
