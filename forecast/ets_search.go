@@ -81,9 +81,12 @@ func (f *etsFitter) evalGrid() []gridPoint {
 		sh := f.sh
 		sh.mult = false
 		lin = newETSFitter(sh, f.y, f.fixed)
+		defer lin.release()
 		lin.initialStates()
 	}
-	var pts []gridPoint
+	vals := f.gridValues()
+	// Room for every grid point and the two tries of phi.
+	pts := make([]gridPoint, 0, len(vals[etsAlpha])*len(vals[etsBeta])*len(vals[etsGamma])*len(vals[etsPhi])+2)
 	eval := func(par [4]float64, idx [4]int) {
 		u := lin.freeFor(par)
 		lin.setParams(u)
@@ -93,7 +96,6 @@ func (f *etsFitter) evalGrid() []gridPoint {
 			pts = append(pts, gridPoint{lin.par, idx, u, math.Max(sse-pred, 0)})
 		}
 	}
-	vals := f.gridValues()
 	for ia, a := range vals[etsAlpha] {
 		for ib, b := range vals[etsBeta] {
 			for ig, g := range vals[etsGamma] {
