@@ -332,13 +332,18 @@ func (f *etsFitter) setParams(u []float64) {
 // (clamped into their bounds); it sets f.par on the way.
 func (f *etsFitter) freeFor(par [4]float64) []float64 {
 	u := make([]float64, len(f.free))
+	f.freeTo(u, par)
+	return u
+}
+
+// freeTo is freeFor writing the free variables into u (len(f.free) long).
+func (f *etsFitter) freeTo(u []float64, par [4]float64) {
 	for j, i := range f.free {
 		iv, _, _ := f.paramInterval(i)
 		v := math.Max(iv.lo, math.Min(iv.hi, par[i]))
 		u[j] = iv.toFree(v)
 		f.par[i], _ = iv.fromFree(u[j])
 	}
-	return u
 }
 
 // solveStates replaces f.x by the best initial states for the current
