@@ -26,6 +26,7 @@ func TestScripts(t *testing.T) {
 		Dir:                 "testdata/script",
 		RequireExplicitExec: true,
 		UpdateScripts:       os.Getenv("FORELAY_UPDATE_SCRIPTS") != "",
+		Cmds:                scriptCmds,
 		Setup: func(env *testscript.Env) error {
 			env.Setenv("EXAMPLES", examplesDir())
 			return nil
