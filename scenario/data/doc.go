@@ -1,5 +1,9 @@
 // Package data reads what a plan is made from: histories, actuals and
-// production plans in CSV, wide or long, into forecast.Series.
+// production plans in CSV or in a workbook's sheet (.xlsx), wide or long,
+// into forecast.Series. OpenRows reads the rows of either kind of table
+// (the separator of a CSV file found from its header, decimal commas when
+// asked), so that every reader shares one set of rules; see "Workbooks"
+// and "CSV as spreadsheets save it".
 //
 // A wide file has a "period" column and one column per series (the header
 // cell is the series name); a long file has the columns "series", "period"

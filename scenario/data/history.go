@@ -1,7 +1,9 @@
 // # History files
 //
 // ReadHistory reads the past values of one or more series from a CSV file
-// (RFC 4180, comma delimiter). A UTF-8 byte order mark at the start is
+// (RFC 4180; the delimiter a comma, semicolon or tab, see "CSV as
+// spreadsheets save it") or a workbook's sheet (see "Workbooks", where rows
+// are lines and cells are named instead). A UTF-8 byte order mark at the start is
 // skipped, and so is every blank row (empty, spaces only, or only empty
 // cells). The first row left is the header; its cells are compared with
 // spaces trimmed and case ignored. It decides the layout:
