@@ -31,6 +31,10 @@ import (
 // file cannot expand without end.
 const unzipLimit = 1 << 30
 
+// maxStyles is the most cell styles a workbook may have (the spreadsheet
+// format's own limit, 64000, rounded up).
+const maxStyles = 1 << 16
+
 // sheetRows reads the rows of one sheet of a workbook.
 type sheetRows struct {
 	f      *excelize.File
@@ -41,9 +45,12 @@ type sheetRows struct {
 	width  int // cells in the first row that is not blank
 	cells  []string
 	date04 bool
-	// grain of each style met: the period a date format shows, or
-	// FreqUnknown for a style that is no date
-	grains map[int]dateGrain
+	// grain of each cell style of the workbook: what its number format
+	// shows of a date, or notDate
+	grains []dateGrain
+	// dates is whether any style is a date format; when none is, no cell
+	// style is looked up (which would load the whole sheet once more)
+	dates bool
 }
 
 // A dateGrain is what a date format shows of a date.
@@ -83,7 +90,16 @@ func openSheet(src []byte, file, sheet string) (*sheetRows, string, error) {
 	if err != nil {
 		return nil, "", &ParseError{File: file, Sheet: sheet, Err: fmt.Errorf("%w: %v", ErrDialect, err)}
 	}
-	sr := &sheetRows{f: f, file: file, name: sheet, rows: rows, grains: map[int]dateGrain{}}
+	sr := &sheetRows{f: f, file: file, name: sheet, rows: rows}
+	for id := 0; id < maxStyles; id++ {
+		st, err := f.GetStyle(id)
+		if err != nil {
+			break // past the last style
+		}
+		g := styleGrain(st)
+		sr.grains = append(sr.grains, g)
+		sr.dates = sr.dates || g != notDate
+	}
 	if props, err := f.GetWorkbookProps(); err == nil && props.Date1904 != nil {
 		sr.date04 = *props.Date1904
 	}
@@ -135,22 +151,14 @@ func (sr *sheetRows) read() ([]string, error) {
 // current row when its cell is formatted as a date, and v unchanged
 // otherwise.
 func (sr *sheetRows) dateLabel(col int, v string) string {
-	name := CellName(col, sr.row)
-	id, err := sr.f.GetCellStyle(sr.name, name)
-	if err != nil || id == 0 {
+	if !sr.dates {
 		return v
 	}
-	g, ok := sr.grains[id]
-	if !ok {
-		g = notDate
-		if st, err := sr.f.GetStyle(id); err == nil {
-			g = styleGrain(st)
-		}
-		sr.grains[id] = g
-	}
-	if g == notDate {
+	id, err := sr.f.GetCellStyle(sr.name, CellName(col, sr.row))
+	if err != nil || id < 0 || id >= len(sr.grains) || sr.grains[id] == notDate {
 		return v
 	}
+	g := sr.grains[id]
 	x, err := strconv.ParseFloat(v, 64)
 	if err != nil || x < 0 || x > 2958465 { // 9999-12-31
 		return v
