@@ -30,11 +30,11 @@ import (
 //	series        the series (or pattern) of one scope entry
 //	new           true when the entry creates a series
 //	units         effect in units
-//	percent       effect in percent of the baseline
+//	percent       effect in percent of the baseline (8 or 8%)
 //	split         baseline or equal
 //	ramp-periods  ramp.periods
 //	ramp-shape    ramp.shape
-//	probability   in [0, 1]
+//	probability   in [0, 1], or a percentage (70%)
 //	low, high     range.low and range.high
 //	owner         who keeps the event
 //	note          free text
@@ -84,7 +84,7 @@ func (d *decoder) eventsFile(f *File, at Pos) {
 		return
 	}
 	defer fh.Close()
-	rows, err := data.OpenRows(data.BoundedReader(fh, f.EventsFile, d.limits.Input), f.EventsFile, data.Format{Decimal: f.History.Decimal})
+	rows, err := data.OpenRows(data.BoundedReader(fh, f.EventsFile, d.limits.Input), f.EventsFile, data.Format{Decimal: f.History.Decimal, Percent: true})
 	if err != nil {
 		d.failRead(at, err)
 		return
@@ -373,17 +373,27 @@ func sub(n *yaml.Node, key string, at Pos) *yaml.Node {
 
 // scalarNode returns the YAML scalar of a cell of column col: a number
 // for the number columns (read with the decimal mark dec; a whole number
-// as an integer), true or false for new, text otherwise. A cell that does
-// not read as its column's type stays text, for the decoder to refuse
-// with its usual message.
+// as an integer), true or false for new, text otherwise. A percentage
+// (8%, or a workbook cell formatted as one) is read in percent in the
+// percent column and as a share in the probability column (70% is 0.7).
+// A cell that does not read as its column's type stays text, for the
+// decoder to refuse with its usual message.
 func scalarNode(col string, c dealCell, dec data.Decimal) *yaml.Node {
 	n := &yaml.Node{Kind: yaml.ScalarNode, Tag: "!!str", Value: c.text, Line: c.at.Line, Column: c.at.Column}
 	switch {
 	case numberColumns[col]:
-		x, err := data.ParseNumber(c.text, dec)
+		text, scale := c.text, 1.0
+		if t, ok := strings.CutSuffix(strings.TrimSpace(text), "%"); ok && (col == "percent" || col == "probability") {
+			text = t
+			if col == "probability" {
+				scale = 100
+			}
+		}
+		x, err := data.ParseNumber(text, dec)
 		if err != nil {
 			return n
 		}
+		x /= scale
 		if x == math.Trunc(x) && math.Abs(x) < 1e15 {
 			n.Tag, n.Value = "!!int", strconv.FormatInt(int64(x), 10)
 		} else {

@@ -208,6 +208,47 @@ func TestEventsFileErrors(t *testing.T) {
 	}
 }
 
+// Percentages as a spreadsheet shows them: a cell formatted as 0% that
+// holds 0.125 is 12.5 percent in the percent column, and one that holds
+// 0.7 a probability of 0.7; typed as text, 12.5% and 70% read the same.
+func TestEventsFilePercentages(t *testing.T) {
+	const yaml = "events:\n  - {id: fair, kind: pulse, start: 2027-08, effect: {percent: 12.5}, probability: 0.7, scope: [{series: milk/**}]}\n"
+	want, err := loadIn(t, map[string][]byte{"plan.yaml": []byte(scenarioHead + yaml)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	f := excelize.NewFile()
+	defer f.Close()
+	for i, v := range []any{"id", "kind", "start", "series", "percent", "probability", "fair", "pulse", "2027-08", "milk/**", 0.125, 0.7} {
+		if err := f.SetCellValue("Sheet1", data.CellName(i%6+1, i/6+1), v); err != nil {
+			t.Fatal(err)
+		}
+	}
+	pct, err := f.NewStyle(&excelize.Style{NumFmt: 10}) // 0.00%
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := f.SetCellStyle("Sheet1", "E2", "F2", pct); err != nil {
+		t.Fatal(err)
+	}
+	book, err := f.WriteToBuffer()
+	if err != nil {
+		t.Fatal(err)
+	}
+	for name, file := range map[string][]byte{
+		"deals.xlsx": book.Bytes(),
+		"deals.csv":  []byte("id,kind,start,series,percent,probability\nfair,pulse,2027-08,milk/**,12.5%,70%\n"),
+	} {
+		got, err := loadIn(t, map[string][]byte{"plan.yaml": []byte(scenarioHead + "events-file: " + name + "\n"), name: file})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if !reflect.DeepEqual(comparable(got.Events), comparable(want.Events)) {
+			t.Errorf("%s: events\n%+v\nwant\n%+v", name, comparable(got.Events), comparable(want.Events))
+		}
+	}
+}
+
 func TestOwnerInYAML(t *testing.T) {
 	f, err := Parse(strings.NewReader(scenarioHead+"events:\n  - {id: a, kind: pulse, start: 2027-01, effect: {units: 1}, scope: [{series: milk/**}], owner: dairy sales}\n"), "plan.yaml")
 	if err != nil {

@@ -71,6 +71,11 @@ type Format struct {
 	// Decimal is the decimal mark of the numbers of a CSV file, and of
 	// numbers a workbook holds as text.
 	Decimal Decimal
+	// Percent, when true, gives the numbers a workbook formats as
+	// percentages as text with a percent sign: "8%" for the 0.08 the
+	// cell holds (the events file reads them so). When false they are
+	// read as held.
+	Percent bool
 }
 
 // separatorName names a separator for messages and notes.

@@ -53,7 +53,7 @@ func OpenRows(r io.Reader, name string, format Format) (*Rows, error) {
 		if err != nil {
 			return nil, readError(name, err)
 		}
-		sr, sheet, err := openSheet(src, name, format.Sheet)
+		sr, sheet, err := openSheet(src, name, format.Sheet, format.Percent)
 		if err != nil {
 			return nil, err
 		}

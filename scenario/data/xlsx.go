@@ -46,14 +46,19 @@ type sheetRows struct {
 	cells  []string
 	date04 bool
 	// grain of each cell style of the workbook: what its number format
-	// shows of a date, or notDate
+	// shows of a date, percentShown, or notDate
 	grains []dateGrain
-	// dates is whether any style is a date format; when none is, no cell
-	// style is looked up (which would load the whole sheet once more)
+	// dates is whether any style is a date (or, with percent, a
+	// percentage) format; when none is, no cell style is looked up (which
+	// would load the whole sheet once more)
 	dates bool
+	// percent gives percentage cells as text with a percent sign (see
+	// Format.Percent)
+	percent bool
 }
 
-// A dateGrain is what a date format shows of a date.
+// A dateGrain is what a number format shows of a date, or that it shows
+// a percentage.
 type dateGrain int
 
 const (
@@ -61,12 +66,13 @@ const (
 	dayGrain
 	monthGrain
 	yearGrain
+	percentShown
 )
 
 // openSheet opens the workbook in src and starts reading the sheet called
 // sheet, or the first one when sheet is empty. It returns the name of the
 // sheet read.
-func openSheet(src []byte, file, sheet string) (*sheetRows, string, error) {
+func openSheet(src []byte, file, sheet string, percent bool) (*sheetRows, string, error) {
 	f, err := excelize.OpenReader(bytes.NewReader(src), excelize.Options{UnzipSizeLimit: unzipLimit})
 	if err != nil {
 		return nil, "", &ParseError{File: file, Err: fmt.Errorf("%w: not a workbook that can be read (%v); save it again as .xlsx, or as CSV", ErrDialect, err)}
@@ -90,7 +96,7 @@ func openSheet(src []byte, file, sheet string) (*sheetRows, string, error) {
 	if err != nil {
 		return nil, "", &ParseError{File: file, Sheet: sheet, Err: fmt.Errorf("%w: %v", ErrDialect, err)}
 	}
-	sr := &sheetRows{f: f, file: file, name: sheet, rows: rows}
+	sr := &sheetRows{f: f, file: file, name: sheet, rows: rows, percent: percent}
 	for id := 0; id < maxStyles; id++ {
 		st, err := f.GetStyle(id)
 		if err != nil {
@@ -98,7 +104,7 @@ func openSheet(src []byte, file, sheet string) (*sheetRows, string, error) {
 		}
 		g := styleGrain(st)
 		sr.grains = append(sr.grains, g)
-		sr.dates = sr.dates || g != notDate
+		sr.dates = sr.dates || g != notDate && (g != percentShown || percent)
 	}
 	if props, err := f.GetWorkbookProps(); err == nil && props.Date1904 != nil {
 		sr.date04 = *props.Date1904
@@ -148,8 +154,9 @@ func (sr *sheetRows) read() ([]string, error) {
 }
 
 // dateLabel returns the period label of the number v in column col of the
-// current row when its cell is formatted as a date, and v unchanged
-// otherwise.
+// current row when its cell is formatted as a date, the percentage with a
+// percent sign when it is formatted as one and sr.percent is set, and v
+// unchanged otherwise.
 func (sr *sheetRows) dateLabel(col int, v string) string {
 	if !sr.dates {
 		return v
@@ -160,6 +167,14 @@ func (sr *sheetRows) dateLabel(col int, v string) string {
 	}
 	g := sr.grains[id]
 	x, err := strconv.ParseFloat(v, 64)
+	if g == percentShown {
+		if !sr.percent || err != nil {
+			return v
+		}
+		// 12 significant digits, so that 0.07 shows as 7%, not as
+		// 7.000000000000001%.
+		return strconv.FormatFloat(x*100, 'g', 12, 64) + "%"
+	}
 	if err != nil || x < 0 || x > 2958465 { // 9999-12-31
 		return v
 	}
@@ -186,6 +201,8 @@ func styleGrain(st *excelize.Style) dateGrain {
 		return monthGrain
 	case n >= 14 && n <= 16, n == 22, n >= 27 && n <= 36, n >= 50 && n <= 58:
 		return dayGrain
+	case n == 9 || n == 10: // 0% and 0.00%
+		return percentShown
 	}
 	return notDate
 }
@@ -227,6 +244,8 @@ func formatGrain(code string) dateGrain {
 			return monthGrain
 		}
 		return yearGrain
+	case strings.Contains(s, "%"):
+		return percentShown
 	}
 	return notDate
 }

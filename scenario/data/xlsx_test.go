@@ -228,6 +228,8 @@ func TestFormatGrain(t *testing.T) {
 		`"day" 0`:          notDate,
 		"[$-407]mmmm yyyy": monthGrain,
 		"General":          notDate,
+		"0.0%":             percentShown,
+		`0" %"`:            notDate,
 	} {
 		if got := formatGrain(code); got != want {
 			t.Errorf("formatGrain(%q) = %v, want %v", code, got, want)
