@@ -24,7 +24,7 @@ type sheet struct {
 }
 
 // workbook writes a workbook with excelize, the library the reader uses.
-func workbook(t *testing.T, sheets ...sheet) []byte {
+func workbook(t testing.TB, sheets ...sheet) []byte {
 	t.Helper()
 	f := excelize.NewFile()
 	defer f.Close()
@@ -235,4 +235,16 @@ func TestFormatGrain(t *testing.T) {
 			t.Errorf("formatGrain(%q) = %v, want %v", code, got, want)
 		}
 	}
+}
+
+// A damaged workbook is an error, never a panic.
+func FuzzReadWorkbook(f *testing.F) {
+	f.Add(workbook(f, sheet{name: "demand", custom: "mmm yyyy", rows: [][]any{{"period", "a"}, {46023.0, 1}, {46054.0, 2}}}))
+	f.Add([]byte("PK\x03\x04"))
+	f.Fuzz(func(t *testing.T, src []byte) {
+		h, err := ReadHistory(bytes.NewReader(src), "h.xlsx", ReadOptions{})
+		if err == nil && len(h.Series) == 0 {
+			t.Error("no error and no series")
+		}
+	})
 }
