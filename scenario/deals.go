@@ -49,6 +49,12 @@ import (
 // the first row's value. Each event is then decoded and checked as the
 // same event under events: would be, and its errors name the file, the
 // sheet of a workbook, and the row and column of the cell.
+//
+// events-file is a path, or a mapping {file, sheet, decimal}: sheet names
+// the sheet of a workbook to read, decimal (point or comma) the decimal
+// mark of a CSV table, as for a history. A percentage (8%, or a workbook
+// cell formatted as one) reads as 8 in the percent column and as 0.08 in
+// the probability column.
 
 // dealColumns are the columns of an events file, in the order of the
 // documentation.
@@ -75,6 +81,39 @@ type dealRow struct {
 	cells map[string]dealCell
 }
 
+// eventsFileKeys are the keys of events-file when it is a mapping.
+var eventsFileKeys = []string{"file", "sheet", "decimal"}
+
+// eventsFileKey decodes events-file, a path or a mapping of file, sheet
+// and decimal, and reads the events of the file it names.
+func (d *decoder) eventsFileKey(m *mapping, f *File) {
+	v, ok := m.vals["events-file"]
+	if !ok {
+		return
+	}
+	if deref(v).Kind == yaml.MappingNode {
+		em := m.sub("events-file", eventsFileKeys)
+		if em == nil {
+			return
+		}
+		em.require("file")
+		em.str("sheet", &f.EventsFormat.Sheet)
+		typed(em, "decimal", "decimal mark", decimalValues, data.ParseDecimalMark, &f.EventsFormat.Decimal)
+		if !em.str("file", &f.EventsFile) {
+			return
+		}
+		d.pos["events-file"] = d.at(em.field("file"), d.position(em.node))
+	} else if !m.str("events-file", &f.EventsFile) {
+		return
+	}
+	if f.EventsFile == "" {
+		d.fail(d.at("events-file", Pos{}), "events-file", ErrValue, "must not be empty")
+		return
+	}
+	f.EventsFile = resolvePath(f.Dir, f.EventsFile)
+	d.eventsFile(f, d.at("events-file", Pos{}))
+}
+
 // eventsFile reads the events file f names and decodes its events into
 // f.Events. at is where the events-file key stands.
 func (d *decoder) eventsFile(f *File, at Pos) {
@@ -84,7 +123,7 @@ func (d *decoder) eventsFile(f *File, at Pos) {
 		return
 	}
 	defer fh.Close()
-	rows, err := data.OpenRows(data.BoundedReader(fh, f.EventsFile, d.limits.Input), f.EventsFile, data.Format{Decimal: f.History.Decimal, Percent: true})
+	rows, err := data.OpenRows(data.BoundedReader(fh, f.EventsFile, d.limits.Input), f.EventsFile, data.Format{Sheet: f.EventsFormat.Sheet, Decimal: f.EventsFormat.Decimal, Percent: true})
 	if err != nil {
 		d.failRead(at, err)
 		return
@@ -265,7 +304,7 @@ func (d *decoder) deal(id string, rows []dealRow, dec data.Decimal, i int) *Even
 		d.fail(idCell.at, "id", ErrDuplicate, "event id %q is already an event of the scenario file (line %d); an id names one event, in events or in the events file", id, line)
 		return nil
 	}
-	if !d.sameEventCells(id, rows) {
+	if !d.sameEventCells(id, rows) || !d.numberCells(id, rows, dec) {
 		return nil
 	}
 	n := mappingNode(first.at)
@@ -313,6 +352,36 @@ func (d *decoder) sameEventCells(id string, rows []dealRow) bool {
 		}
 	}
 	return ok
+}
+
+// numberCells checks the cells of the number columns, so that a number
+// that cannot be read is reported with what to write instead (a thousands
+// separator, a decimal comma) rather than as text where a number belongs.
+func (d *decoder) numberCells(id string, rows []dealRow, dec data.Decimal) bool {
+	ok := true
+	for _, r := range rows {
+		for _, col := range dealColumns {
+			c, has := r.cells[col]
+			if !has || !numberColumns[col] {
+				continue
+			}
+			text, _ := percentText(col, c.text)
+			if _, err := data.ParseNumberAs(text, dec, "decimal: comma under events-file (events-file: {file: NAME, decimal: comma})"); err != nil {
+				d.failErr(c.at, fmt.Sprintf("event %q: %s", id, col), err)
+				ok = false
+			}
+		}
+	}
+	return ok
+}
+
+// percentText strips the percent sign of a cell of the percent or
+// probability column, and says whether there was one.
+func percentText(col, text string) (string, bool) {
+	if col != "percent" && col != "probability" {
+		return text, false
+	}
+	return strings.CutSuffix(strings.TrimSpace(text), "%")
 }
 
 // dealScope returns the scope list node of an event's rows, or nil when
@@ -383,7 +452,7 @@ func scalarNode(col string, c dealCell, dec data.Decimal) *yaml.Node {
 	switch {
 	case numberColumns[col]:
 		text, scale := c.text, 1.0
-		if t, ok := strings.CutSuffix(strings.TrimSpace(text), "%"); ok && (col == "percent" || col == "probability") {
+		if t, ok := percentText(col, text); ok {
 			text = t
 			if col == "probability" {
 				scale = 100

@@ -134,9 +134,11 @@ func TestEventsFileSameAsYAML(t *testing.T) {
 		t.Run(tc.name, func(t *testing.T) {
 			head := scenarioHead
 			if tc.comma {
-				head = strings.Replace(head, "'milk/**'}", "'milk/**', decimal: comma}", 1)
+				head += "events-file: {file: " + tc.name + ", decimal: comma}\n"
+			} else {
+				head += "events-file: " + tc.name + "\n"
 			}
-			got, err := loadIn(t, map[string][]byte{"plan.yaml": []byte(head + "events-file: " + tc.name + "\n"), tc.name: tc.file})
+			got, err := loadIn(t, map[string][]byte{"plan.yaml": []byte(head), tc.name: tc.file})
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -169,7 +171,11 @@ func TestEventsFileErrors(t *testing.T) {
 		{"probability out of range", "", head + "a,step,2027-01,5,milk/**,70\n", true,
 			ErrValue, `deals.xlsx: sheet deals, cell F2: event "a": probability: must be in [0, 1], got 70`},
 		{"not a number", "", head + "a,step,2027-01,lots,milk/**,1\n", false,
-			ErrType, `deals.csv:2:16: event "a": effect.units: want a number, got "lots"`},
+			data.ErrNotDecimal, `deals.csv:2:16: event "a": units: not a plain decimal number: "lots"`},
+		{"decimal comma not asked for", "", strings.ReplaceAll(head, ",", ";") + "a;step;2027-01;5;milk/**;0,5\n", false,
+			data.ErrNotDecimal, `deals.csv:2:26: event "a": probability: not a plain decimal number: "0,5"; a decimal comma; read the file with decimal: comma under events-file (events-file: {file: NAME, decimal: comma}), or write a point`},
+		{"thousands in a workbook's text cell", "", head + "a,step,2027-01,9 000,milk/**,1\n", true,
+			data.ErrNotDecimal, `deals.xlsx: sheet deals, cell D2: event "a": units: not a plain decimal number: "9 000"; thousands separators are not read; write the digits without them, such as 9000`},
 		{"id shared with events", "events:\n  - {id: a, kind: pulse, start: 2027-01, scope: [{series: milk/**}], effect: {units: 1}}\n",
 			head + "a,step,2027-01,5,milk/**,1\n", false,
 			ErrDuplicate, `deals.csv:2:1: id: event id "a" is already an event of the scenario file (line 5)`},

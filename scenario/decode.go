@@ -655,10 +655,7 @@ func (d *decoder) file(root *yaml.Node, f *File) {
 			}
 		}
 	}
-	if m.str("events-file", &f.EventsFile) {
-		f.EventsFile = resolvePath(f.Dir, f.EventsFile)
-		d.eventsFile(f, d.at("events-file", Pos{}))
-	}
+	d.eventsFileKey(m, f)
 	if items, ok := m.list("scenarios"); ok {
 		for i, n := range items {
 			d.scenario(n, i, f)

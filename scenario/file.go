@@ -74,6 +74,10 @@ type File struct {
 	// none. Its events are in Events, their positions (Event.Pos and
 	// the positions of their values) in it.
 	EventsFile string
+	// EventsFormat is how the events file is read: the sheet of a
+	// workbook (empty: the first) and the decimal mark of a CSV file
+	// (events-file's sheet and decimal keys).
+	EventsFormat data.Format
 
 	// Scenarios are the scenarios the file names, in file order; nil
 	// when the file names none (see Cases).

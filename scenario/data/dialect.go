@@ -138,6 +138,16 @@ var thousandsPattern = regexp.MustCompile("^[+-]?[0-9]{1,3}([,. '\u00a0\u202f][0
 // to write the number, and so is a decimal comma when dec is
 // DecimalPoint.
 func ParseNumber(s string, dec Decimal) (float64, error) {
+	return ParseNumberAs(s, dec, HistoryDecimal)
+}
+
+// HistoryDecimal names the settings that read decimal commas in a
+// history or actuals file, for ParseNumber's messages.
+const HistoryDecimal = "--decimal comma (or decimal: comma under history in the scenario file)"
+
+// ParseNumberAs is ParseNumber with how naming, in its messages, the
+// setting that reads decimal commas in the file at hand.
+func ParseNumberAs(s string, dec Decimal, how string) (float64, error) {
 	t := strings.TrimSpace(s)
 	if dec == DecimalComma {
 		if strings.Contains(t, ".") {
@@ -146,7 +156,7 @@ func ParseNumber(s string, dec Decimal) (float64, error) {
 					fix: "thousands separators are not read; write the digits without them, such as " + strings.Replace(withoutThousands(t), ".", ",", 1)}
 			}
 			return 0, &numberError{kind: ErrNotDecimal, text: t,
-				fix: "the file is read with decimal commas (--decimal comma, or decimal: comma under history), so a point is not read; write 12,5"}
+				fix: "decimal commas were asked for, so a point is not read; write 12,5"}
 		}
 		u := strings.Replace(t, ",", ".", 1)
 		if strings.Contains(t, ",") && !isDecimal(u) {
@@ -160,19 +170,19 @@ func ParseNumber(s string, dec Decimal) (float64, error) {
 	if isDecimal(t) {
 		return ParseDecimal(t)
 	}
-	return 0, numberHint(t)
+	return 0, numberHint(t, how)
 }
 
 // numberHint builds the error for a cell that is not a plain decimal
 // number, naming the separators it may hold.
-func numberHint(t string) error {
+func numberHint(t, how string) error {
 	comma, point := strings.Contains(t, ","), strings.Contains(t, ".")
 	switch {
 	case thousandsPattern.MatchString(t) && comma && point && strings.LastIndex(t, ",") > strings.LastIndex(t, "."):
 		// 1.234,5: points for thousands, a comma for decimals.
 		return &numberError{kind: ErrNotDecimal, text: t, fix: fmt.Sprintf(
-			"thousands separators are not read; write %s, or %s and read the file with --decimal comma (decimal: comma under history)",
-			withoutThousands(t), strings.ReplaceAll(withoutThousands(t), ".", ","))}
+			"thousands separators are not read; write %s, or %s and read the file with %s",
+			withoutThousands(t), strings.ReplaceAll(withoutThousands(t), ".", ","), how)}
 	case thousandsPattern.MatchString(t) && (point || !comma):
 		// 1,234.5, 1 234 or 1.234 (points for thousands).
 		return &numberError{kind: ErrNotDecimal, text: t, fix: fmt.Sprintf(
@@ -180,11 +190,11 @@ func numberHint(t string) error {
 	case thousandsPattern.MatchString(t):
 		// 1,234: thousands, or a decimal comma.
 		return &numberError{kind: ErrNotDecimal, text: t, fix: fmt.Sprintf(
-			"if the comma separates thousands, write %s (thousands separators are not read); if it is a decimal comma, read the file with --decimal comma (decimal: comma under history)",
-			withoutThousands(t))}
+			"if the comma separates thousands, write %s (thousands separators are not read); if it is a decimal comma, read the file with %s",
+			withoutThousands(t), how)}
 	case comma && !point && isDecimal(strings.Replace(t, ",", ".", 1)):
 		return &numberError{kind: ErrNotDecimal, text: t,
-			fix: "a decimal comma; read the file with --decimal comma (or decimal: comma under history in the scenario file), or write a point"}
+			fix: "a decimal comma; read the file with " + how + ", or write a point"}
 	}
 	return notDecimal(t)
 }

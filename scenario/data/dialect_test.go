@@ -81,7 +81,7 @@ func TestReadHistoryDialectErrors(t *testing.T) {
 		{"thousands with decimal commas", "period;a\n2026-01;§1.234,5\n", comma,
 			ErrNotDecimal, `"1.234,5"; thousands separators are not read; write the digits without them, such as 1234,5`},
 		{"point with decimal commas", "period;a\n2026-01;§12.5\n", comma,
-			ErrNotDecimal, `"12.5"; the file is read with decimal commas (--decimal comma, or decimal: comma under history), so a point is not read`},
+			ErrNotDecimal, `"12.5"; decimal commas were asked for, so a point is not read; write 12,5`},
 		{"two commas with decimal commas", "period;a\n2026-01;§1,2,3\n", comma,
 			ErrNotDecimal, `"1,2,3"; write digits with an optional sign, comma and exponent`},
 		{"decimal comma asked of a comma file", "period,a\n2026-01,1\n", comma,
