@@ -7,6 +7,7 @@ import (
 	"fmt"
 	"io"
 	"strconv"
+	"strings"
 )
 
 // Rows reads the rows of a table file, a CSV file or one sheet of a
@@ -145,10 +146,23 @@ func (hr *historyReader) headerHint(cells int) string {
 	return fmt.Sprintf("; its cells were read as separated by %s, the separator found most on this line", separatorName(hr.rows.Separator))
 }
 
-// inSheet names the sheet in a *ParseError about a workbook's cells.
+// inSheet names the sheet in a *ParseError about a workbook's cells, and
+// calls the lines its message names rows, as a spreadsheet does.
 func (hr *historyReader) inSheet(err error) error {
 	if pe, ok := err.(*ParseError); ok && hr.rows != nil && hr.rows.Sheet != "" && pe.Sheet == "" && pe.File == hr.file {
 		pe.Sheet = hr.rows.Sheet
+		pe.Err = rowWords{pe.Err}
 	}
 	return err
 }
+
+// rowWords is an error whose message says "row" where the reader of a
+// CSV file says "line"; it wraps the error as it is.
+type rowWords struct{ err error }
+
+var lineToRow = strings.NewReplacer("(line ", "(row ", "on line ", "on row ", "between line ", "between rows ")
+
+func (e rowWords) Error() string { return lineToRow.Replace(e.err.Error()) }
+
+// Unwrap returns the error.
+func (e rowWords) Unwrap() error { return e.err }
