@@ -18,6 +18,13 @@ type Outcome struct {
 // in the order of the input, whatever order the work finished in, so output
 // built from them is reproducible.
 func FitAll(series []Series, spec Spec, workers int) []Outcome {
+	return FitAllProgress(series, spec, workers, nil)
+}
+
+// FitAllProgress is FitAll that tells progress of each series fitted (see
+// Progress); the outcomes are those of FitAll.
+func FitAllProgress(series []Series, spec Spec, workers int, progress Progress) []Outcome {
+	tick := progress.Counter(len(series))
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
 	}
@@ -30,6 +37,7 @@ func FitAll(series []Series, spec Spec, workers int) []Outcome {
 			defer wg.Done()
 			for i := range next {
 				out[i] = fitGuarded(series[i], spec)
+				tick()
 			}
 		}()
 	}

@@ -137,9 +137,8 @@ func (c CommonErrors) Row(t int, dst []float64) {
 }
 
 // SumVariance returns the forecast error variance at lead times 1..h of
-// the sum of the results' forecasts, and the common errors it rests on.
-// The sum's band is not a sum of bands: its spread depends on how the
-// series' errors move together.
+// the sum of the results' forecasts. The sum's band is not a sum of bands:
+// its spread depends on how the series' errors move together.
 //
 // Each series i keeps its own error variance v_ih (VarianceFrom with mode
 // and from, the variance behind its own bands) and its own way of carrying
@@ -147,42 +146,86 @@ func (c CommonErrors) Row(t int, dst []float64) {
 // of the Monte Carlo and of LeadTimeVariance:
 //
 //	e_ih = k_ih sum_{j=0}^{h-1} psi_ij eps_i,h-j,
-//	k_ih = sqrt(v_ih / (s_i² sum_{j<h} psi_ij²)),
+//	k_ih = sqrt(v_ih / (s_i² sum_{j<h} psi_ij²)).
 //
-// where the shocks eps_it of one period are the series' one-step errors
-// of one historical period taken together (AlignErrors: centred, on the
-// periods every series shares), s_i² their mean square, and shocks of
-// different periods are independent. Then
+// The shocks of one period come from one historical period drawn for all
+// the series together, uniformly over N periods (span, or, when span is
+// smaller, the periods from the first to the last with an error in any
+// series); each series takes its own centred one-step error there, or,
+// when it has none there (it starts later or ends earlier), the error at
+// place floor(u n_i) of its own n_i errors counted back from its last, u
+// a uniform number shared by all the series (the Monte Carlo of a
+// portfolio, sim.SimulatePortfolio). s_i² is the mean square of series
+// i's centred errors, and shocks of different periods are independent.
+// With e_it series i's centred error in period t (0 where it has none),
+// and r_ik its k-th error back from its last,
 //
-//	Var(sum_i e_ih) = sum_{j=0}^{h-1} (1/n) sum_t (sum_i k_ih psi_ij e_it)²,
+//	Var(sum_i e_ih) = sum_{j=0}^{h-1} [ (1/N) sum_t (sum_i c_ij e_it)²
+//	        + sum_L ((N − L)/N) (1/L) sum_{k<L} (sum_{i: n_i = L} c_ij r_ik)² ],
+//	c_ij = k_ih psi_ij:
 //
-// the variance of per-period sums of scaled one-step errors: it carries
-// every covariance between the series without forming a matrix, in
-// O(h² n m) operations for m series and n common periods. It is the
-// variance the Monte Carlo's whole-period bootstrap (CommonErrors.Draw)
-// gives the sum.
+// the variance of per-period sums of scaled one-step errors, which carries
+// every covariance between the series over the periods they share without
+// forming a matrix, plus the draws taken apart, where series with as many
+// errors (n_i = L) take the same place and so keep their correlation.
+// O(h² N m) operations for m series. (Series with different numbers of
+// errors take places apart that are counted as independent.)
 //
-// When the series carry surprises alike (same psi) it is
-// sum_i sum_j sqrt(v_ih v_jh) rho_ij with rho the correlation of the
-// one-step errors: the bottom-up forecast of a hierarchy with the h-step
-// error covariance taken proportional to the one-step covariance
-// estimated from the residuals (W_h = k_h W_1, Hyndman & Athanasopoulos,
-// Forecasting: Principles and Practice, 3rd ed., section 11.3; here with
-// each series' own k_ih). Two series with identical errors give exactly
-// twice the standard deviation of one, independent ones of equal variance
-// sqrt(2) times, a series and its negative zero.
+// When all the series have errors in the same periods and carry surprises
+// alike (same psi) it is sum_i sum_j sqrt(v_ih v_jh) rho_ij with rho the
+// correlation of the one-step errors: the bottom-up forecast of a
+// hierarchy with the h-step error covariance taken proportional to the
+// one-step covariance estimated from the residuals (W_h = k_h W_1, Hyndman
+// & Athanasopoulos, Forecasting: Principles and Practice, 3rd ed., section
+// 11.3; here with each series' own k_ih). Two series with identical errors
+// give exactly twice the standard deviation of one, independent ones of
+// equal variance sqrt(2) times, a series and its negative zero.
 //
-// A series whose common errors are all zero tells nothing of the joint
-// behaviour: its v_ih is added as if it were independent of the others.
-// It returns AlignErrors' errors, and an error when h < 1 or a series'
-// variance is negative or not finite.
-func SumVariance(results []*Result, h int, mode BandMode, from BandSource) ([]float64, CommonErrors, error) {
+// A series without errors, or whose errors are all zero, tells nothing of
+// the joint behaviour: its v_ih is added as if it were independent of the
+// others. It returns an error when the list is empty, when the
+// frequencies differ, when h < 1 or a series' variance is negative or not
+// finite.
+func SumVariance(results []*Result, h int, mode BandMode, from BandSource, span int) ([]float64, error) {
 	if h < 1 {
-		return nil, CommonErrors{}, fmt.Errorf("lead time %d: want at least 1", h)
+		return nil, fmt.Errorf("lead time %d: want at least 1", h)
 	}
-	c, err := AlignErrors(results)
+	if len(results) == 0 {
+		return nil, errors.New("no series to sum")
+	}
+	res, offset, total, err := errorSpan(results)
 	if err != nil {
-		return nil, CommonErrors{}, err
+		return nil, err
+	}
+	first, last := total, -1
+	for i, e := range res {
+		for k, x := range e {
+			if isFinite(x) {
+				first, last = min(first, offset[i]+k), max(last, offset[i]+k)
+			}
+		}
+	}
+	n := max(span, last-first+1, 1)
+	errs := make([][]float64, len(results))
+	own := make([][]float64, len(results))
+	for i, e := range res {
+		errs[i] = make([]float64, max(last-first+1, 0))
+		m, c := 0.0, 0
+		for _, x := range e {
+			if isFinite(x) {
+				m += x
+				c++
+			}
+		}
+		if c > 0 {
+			m /= float64(c)
+		}
+		for k := len(e) - 1; k >= 0; k-- {
+			if x := e[k]; isFinite(x) {
+				errs[i][offset[i]+k-first] = x - m
+				own[i] = append(own[i], x-m)
+			}
+		}
 	}
 	v := make([][]float64, len(results))
 	psi := make([][]float64, len(results))
@@ -190,29 +233,43 @@ func SumVariance(results []*Result, h int, mode BandMode, from BandSource) ([]fl
 		v[i], _ = r.VarianceFrom(h, mode, from)
 		for l, x := range v[i] {
 			if !isFinite(x) || x < 0 {
-				return nil, CommonErrors{}, fmt.Errorf("series %q has no usable error variance at lead time %d (%v)", r.Series.Name, l+1, x)
+				return nil, fmt.Errorf("series %q has no usable error variance at lead time %d (%v)", r.Series.Name, l+1, x)
 			}
 		}
 		psi[i] = append([]float64{1}, ImpulseWeights(r.Model, r.Series.Values, h)...)
 	}
-	return sumVariance(c.Errors, v, psi), c, nil
+	return sumVariance(errs, own, n, v, psi), nil
 }
 
 // sumVariance is SumVariance's formula on aligned centred errors
-// errs[i][t], variances v[i][l] (lead time l+1) and weights psi[i][j]
-// (psi[i][0] = 1).
-func sumVariance(errs, v, psi [][]float64) []float64 {
-	m, n, h := len(errs), len(errs[0]), len(v[0])
+// errs[i][t] (0 where series i has none), each series' own errors counted
+// back from its last, own[i], the number n of periods drawn over,
+// variances v[i][l] (lead time l+1) and weights psi[i][j] (psi[i][0] = 1).
+func sumVariance(errs, own [][]float64, n int, v, psi [][]float64) []float64 {
+	m, h := len(errs), len(v[0])
 	s2 := make([]float64, m)
-	for i, e := range errs {
+	byLen := map[int][]int{} // series by their number of errors
+	var lens []int
+	for i, e := range own {
 		for _, x := range e {
 			s2[i] += x * x
 		}
-		s2[i] /= float64(n)
+		if L := len(e); L > 0 {
+			s2[i] /= float64(L)
+			if L < n {
+				if _, ok := byLen[L]; !ok {
+					lens = append(lens, L)
+				}
+				byLen[L] = append(byLen[L], i)
+			}
+		}
 	}
 	out := make([]float64, h)
 	coef := make([]float64, m)
-	z := make([]float64, n)
+	var z []float64
+	if m > 0 {
+		z = make([]float64, len(errs[0]))
+	}
 	for l := range out {
 		k := errorScale(v, psi, s2, l)
 		for i := range m {
@@ -224,10 +281,26 @@ func sumVariance(errs, v, psi [][]float64) []float64 {
 			for i := range m {
 				coef[i] = k[i] * psi[i][j]
 			}
-			out[l] += meanSquareOfSums(errs, coef, z)
+			out[l] += sumOfSquaredSums(errs, coef, z) / float64(n)
+			for _, L := range lens {
+				out[l] += float64(n-L) / float64(n) / float64(L) * sumOfSquaredSumsOf(own, byLen[L], coef, L)
+			}
 		}
 	}
 	return out
+}
+
+// sumOfSquaredSumsOf returns sum_{k<L} (sum_{i in members} coef_i own_ik)².
+func sumOfSquaredSumsOf(own [][]float64, members []int, coef []float64, L int) float64 {
+	s := 0.0
+	for k := range L {
+		z := 0.0
+		for _, i := range members {
+			z += coef[i] * own[i][k]
+		}
+		s += z * z
+	}
+	return s
 }
 
 // errorScale returns k_i at lead time l+1 for every series: 0 where v or
@@ -246,9 +319,9 @@ func errorScale(v, psi [][]float64, s2 []float64, l int) []float64 {
 	return k
 }
 
-// meanSquareOfSums returns (1/n) sum_t (sum_i coef_i errs_it)², using z
-// (n values) as scratch.
-func meanSquareOfSums(errs [][]float64, coef, z []float64) float64 {
+// sumOfSquaredSums returns sum_t (sum_i coef_i errs_it)², using z (as
+// many values as errs[i]) as scratch.
+func sumOfSquaredSums(errs [][]float64, coef, z []float64) float64 {
 	clear(z)
 	for i, e := range errs {
 		if coef[i] == 0 {
@@ -262,5 +335,5 @@ func meanSquareOfSums(errs [][]float64, coef, z []float64) float64 {
 	for _, x := range z {
 		s += x * x
 	}
-	return s / float64(len(z))
+	return s
 }

@@ -14,16 +14,17 @@ import (
 func TestSumVarianceFormula(t *testing.T) {
 	r2 := math.Sqrt2
 	for _, c := range []struct {
-		name string
-		errs [][]float64
-		v    [][]float64
-		psi  [][]float64
-		want []float64
+		name   string
+		errs   [][]float64
+		counts []int // the errors of each series are its last counts[i]; nil: all
+		v      [][]float64
+		psi    [][]float64
+		want   []float64
 	}{
 		// One series gets back its own variance: s² = 1; lead 1:
 		// k = sqrt(2/1), 2·1 = 2; lead 2: k = sqrt(5/(1·1.25)) = 2,
 		// 2²·1 + (2·0.5)²·1 = 5.
-		{"one series", [][]float64{{1, -1}}, [][]float64{{2, 5}}, [][]float64{{1, 0.5}}, []float64{2, 5}},
+		{"one series", [][]float64{{1, -1}}, nil, [][]float64{{2, 5}}, [][]float64{{1, 0.5}}, []float64{2, 5}},
 		// Identical errors (rho = 1), variance 1 at both lead times, the
 		// first series a random walk (psi 1, 1), the second white noise
 		// (psi 1, 0). Lead 1: k = 1, 1, mean((e + e)²) = 4. Lead 2:
@@ -31,14 +32,28 @@ func TestSumVarianceFormula(t *testing.T) {
 		// j = 1: (1/√2 · 1)² = 0.5; total 2 + √2, less than the 4 of
 		// sqrt(v1 v2) rho summed, because the series carry a surprise
 		// forward differently.
-		{"different carry-over", [][]float64{{1, -1}, {1, -1}}, [][]float64{{1, 1}, {1, 1}}, [][]float64{{1, 1}, {1, 0}}, []float64{4, 2 + r2}},
+		{"different carry-over", [][]float64{{1, -1}, {1, -1}}, nil, [][]float64{{1, 1}, {1, 1}}, [][]float64{{1, 1}, {1, 0}}, []float64{4, 2 + r2}},
 		// Errors at right angles (rho = 0): the variances add, 1 + 4.
-		{"uncorrelated", [][]float64{{1, -1, 1, -1}, {1, 1, -1, -1}}, [][]float64{{1}, {4}}, [][]float64{{1}, {1}}, []float64{5}},
+		{"uncorrelated", [][]float64{{1, -1, 1, -1}, {1, 1, -1, -1}}, nil, [][]float64{{1}, {4}}, [][]float64{{1}, {1}}, []float64{5}},
 		// A series whose errors are all zero is taken as independent:
 		// 2 + 3.
-		{"zero errors", [][]float64{{1, -1}, {0, 0}}, [][]float64{{2}, {3}}, [][]float64{{1}, {1}}, []float64{5}},
+		{"zero errors", [][]float64{{1, -1}, {0, 0}}, nil, [][]float64{{2}, {3}}, [][]float64{{1}, {1}}, []float64{5}},
 		// Opposite errors of equal variance cancel: 0.
-		{"opposite", [][]float64{{2, -2}, {-2, 2}}, [][]float64{{3, 6}}, nil, []float64{0, 0}},
+		{"opposite", [][]float64{{2, -2}, {-2, 2}}, nil, [][]float64{{3, 6}}, nil, []float64{0, 0}},
+		// The second series has errors in the last two periods only
+		// (n_b = 2 of N = 4), where they equal the first's: s² = 1 for
+		// both, k = 1. Covariance (1/4)(1·1 + (−1)(−1)) = 0.5, so the
+		// variance is 1 + 1 + 2·0.5 = 3; by the formula, the squared sums
+		// 1, 1, 4, 4 over 4 give 2.5, and b's own draws, with chance
+		// (4 − 2)/4, add (1/2)(1 + 1)/2 = 0.5.
+		{"shorter window", [][]float64{{1, -1, 1, -1}, {0, 0, 1, -1}}, []int{4, 2}, [][]float64{{1}, {1}}, [][]float64{{1}, {1}}, []float64{3}},
+		// Two identical series with errors in the last two of N = 3
+		// periods (a method that makes no prediction for the first
+		// period): s² = 1, k = 1. Shared draws: (1/3)(0 + 4 + 4) = 8/3;
+		// draws taken apart (chance 1/3) take the same place in both:
+		// (1/3)(1/2)(4 + 4) = 4/3. Variance 4: twice one series' sd, as
+		// identical errors must give.
+		{"identical, shorter", [][]float64{{0, 1, -1}, {0, 1, -1}}, []int{2, 2}, [][]float64{{1}, {1}}, [][]float64{{1}, {1}}, []float64{4}},
 	} {
 		t.Run(c.name, func(t *testing.T) {
 			v, psi := c.v, c.psi
@@ -46,7 +61,17 @@ func TestSumVarianceFormula(t *testing.T) {
 				v = [][]float64{c.v[0], c.v[0]}
 				psi = [][]float64{{1, 1}, {1, 1}}
 			}
-			got := sumVariance(c.errs, v, psi)
+			own := make([][]float64, len(c.errs))
+			for i, e := range c.errs {
+				n := len(e)
+				if c.counts != nil {
+					n = c.counts[i]
+				}
+				for k := len(e) - 1; k >= len(e)-n; k-- {
+					own[i] = append(own[i], e[k])
+				}
+			}
+			got := sumVariance(c.errs, own, len(c.errs[0]), v, psi)
 			for l := range c.want {
 				if !scalar.EqualWithinAbsOrRel(got[l], c.want[l], 1e-12, 1e-12) {
 					t.Errorf("lead %d: got %v, want %v", l+1, got[l], c.want[l])
@@ -107,12 +132,9 @@ func TestSumVarianceKnownAnswers(t *testing.T) {
 
 	// Identical errors: sd of the sum = 2 sd, variance 4 v (exact up to
 	// rounding: the scaled errors of the two series are the same numbers).
-	v, c, err := SumVariance([]*Result{a, b}, h, Widening, Calibrated)
+	v, err := SumVariance([]*Result{a, b}, h, Widening, Calibrated, 0)
 	if err != nil {
 		t.Fatal(err)
-	}
-	if c.Skipped != 0 || len(c.Periods) != len(y)-1 { // naive has no prediction for the first point
-		t.Errorf("common periods %d, skipped %d; want %d, 0", len(c.Periods), c.Skipped, len(y)-1)
 	}
 	for l := range h {
 		if got, want := math.Sqrt(v[l]), 2*math.Sqrt(one[l]); !scalar.EqualWithinRel(got, want, 1e-12) {
@@ -122,7 +144,7 @@ func TestSumVarianceKnownAnswers(t *testing.T) {
 
 	// One series alone: its own variance (k² s² sum psi² = v by
 	// construction).
-	v, _, err = SumVariance([]*Result{a}, h, Widening, Calibrated)
+	v, err = SumVariance([]*Result{a}, h, Widening, Calibrated, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -133,7 +155,7 @@ func TestSumVarianceKnownAnswers(t *testing.T) {
 	}
 
 	// A series and its negative: the sum is known exactly, sd 0.
-	v, _, err = SumVariance([]*Result{a, n}, h, Widening, Calibrated)
+	v, err = SumVariance([]*Result{a, n}, h, Widening, Calibrated, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -161,7 +183,11 @@ func TestSumVarianceIndependent(t *testing.T) {
 	rng := rand.New(rand.NewPCG(3, 5))
 	a := fitRollupNaive(t, "a", start, rollupWalk(rollupNormals(rng, n)))
 	b := fitRollupNaive(t, "b", start, rollupWalk(rollupNormals(rng, n)))
-	v, c, err := SumVariance([]*Result{a, b}, h, Widening, Calibrated)
+	v, err := SumVariance([]*Result{a, b}, h, Widening, Calibrated, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := AlignErrors([]*Result{a, b})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -177,7 +203,7 @@ func TestSumVarianceIndependent(t *testing.T) {
 	// Equal variances by construction: the same errors with equal v.
 	vEq := [][]float64{{1, 2, 3, 4}, {1, 2, 3, 4}} // a random walk's v_h = h (unit shocks)
 	psi := [][]float64{{1, 1, 1, 1}, {1, 1, 1, 1}}
-	s := sumVariance(c.Errors, vEq, psi)
+	s := sumVariance(c.Errors, c.Errors, len(c.Periods), vEq, psi)
 	for l := range h {
 		got := math.Sqrt(s[l]) / math.Sqrt(vEq[0][l])
 		if math.Abs(got-math.Sqrt2) > math.Sqrt2*tol/2 {
@@ -191,13 +217,12 @@ func TestSumVarianceIndependent(t *testing.T) {
 // the sum's sd is the sum of the two sds at every lead time (both are
 // naive forecasts, psi_j = 1), which holds only if the periods line up.
 func TestAlignErrorsUnequalLengths(t *testing.T) {
-	const h = 3
 	start, _ := ParsePeriod("2020-01", Monthly)
 	rng := rand.New(rand.NewPCG(1, 9))
 	y := rollupWalk(rollupNormals(rng, 60)) // 2020-01 .. 2024-12
 	a := fitRollupNaive(t, "long", start, y)
 	b := fitRollupNaive(t, "short", start.Add(12), y[12:48]) // 2021-01 .. 2023-12
-	v, c, err := SumVariance([]*Result{a, b}, h, Widening, Calibrated)
+	c, err := AlignErrors([]*Result{a, b})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -212,13 +237,42 @@ func TestAlignErrorsUnequalLengths(t *testing.T) {
 			t.Fatalf("period %v: errors differ by %v", c.Periods[t0], d)
 		}
 	}
-	va, _ := a.Variance(h, Widening)
-	vb, _ := b.Variance(h, Widening)
-	for l := range h {
-		want := math.Sqrt(va[l]) + math.Sqrt(vb[l]) // rho = 1: sds add
-		if got := math.Sqrt(v[l]); !scalar.EqualWithinRel(got, want, 1e-9) {
-			t.Errorf("lead %d: sd %v, want %v", l+1, got, want)
-		}
+}
+
+// TestSumVarianceWindows checks series with errors in different periods
+// against a case worked by hand. The long series' naive errors are the
+// pattern 1, 1, −1, −1 over 48 months (2020-02 to 2024-01), mean 0; the
+// short one is months 13 to 36 of it, so its 24 errors (2021-01 to
+// 2022-12, six whole cycles, mean 0) equal the long one's in those
+// months. Periods drawn over N = 48 months: the two share the period
+// drawn with chance 24/48, so at lead 1 the correlation is 1/2 and
+// Var(sum) = v_a + v_b + 2 · (1/2) sqrt(v_a v_b). If the periods did not
+// line up by date, the shared errors would not match.
+func TestSumVarianceWindows(t *testing.T) {
+	start, _ := ParsePeriod("2020-01", Monthly)
+	steps := make([]float64, 49)
+	for i := 1; i < 49; i++ {
+		steps[i] = []float64{1, 1, -1, -1}[(i-1)%4]
+	}
+	y := rollupWalk(steps)
+	a := fitRollupNaive(t, "long", start, y)
+	b := fitRollupNaive(t, "short", start.Add(12), y[12:37])
+	v, err := SumVariance([]*Result{a, b}, 1, Widening, Calibrated, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	va, _ := a.VarianceFrom(1, Widening, Calibrated)
+	vb, _ := b.VarianceFrom(1, Widening, Calibrated)
+	if want := va[0] + vb[0] + math.Sqrt(va[0]*vb[0]); !scalar.EqualWithinRel(v[0], want, 1e-9) {
+		t.Errorf("variance %v, want v_a + v_b + sqrt(v_a v_b) = %v", v[0], want)
+	}
+	// Drawn over 96 months instead (span), the chance of sharing is 1/4.
+	v, err = SumVariance([]*Result{a, b}, 1, Widening, Calibrated, 96)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if want := va[0] + vb[0] + 0.5*math.Sqrt(va[0]*vb[0]); !scalar.EqualWithinRel(v[0], want, 1e-9) {
+		t.Errorf("span 96: variance %v, want v_a + v_b + sqrt(v_a v_b)/2 = %v", v[0], want)
 	}
 }
 
@@ -238,7 +292,7 @@ func TestAlignErrorsRejects(t *testing.T) {
 	if _, err := AlignErrors([]*Result{a, far}); !errors.Is(err, ErrFewCommonPeriods) {
 		t.Errorf("no shared period: got %v, want ErrFewCommonPeriods", err)
 	}
-	if _, _, err := SumVariance([]*Result{a}, 0, Widening, Calibrated); err == nil {
+	if _, err := SumVariance([]*Result{a}, 0, Widening, Calibrated, 0); err == nil {
 		t.Error("lead time 0: want an error")
 	}
 }
@@ -318,7 +372,11 @@ func TestSumVarianceMatchesDraws(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	want, c, err := SumVariance([]*Result{a, b}, h, Widening, Calibrated)
+	want, err := SumVariance([]*Result{a, b}, h, Widening, Calibrated, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := AlignErrors([]*Result{a, b})
 	if err != nil {
 		t.Fatal(err)
 	}

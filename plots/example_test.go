@@ -57,7 +57,7 @@ func ExamplePlanChart() {
 		log.Fatal(err)
 	}
 	fmt.Println(img.Bounds().Dx(), "x", img.Bounds().Dy(), "pixels")
-	// Output: 768 x 432 pixels
+	// Output: 1536 x 864 pixels
 }
 
 func ExampleWaterfall() {
@@ -135,7 +135,7 @@ func ExampleControlChart() {
 		log.Fatal(err)
 	}
 	fmt.Println(img.Bounds().Dx(), "x", img.Bounds().Dy(), "pixels")
-	// Output: 576 x 336 pixels
+	// Output: 1152 x 672 pixels
 }
 
 func ExampleLoadChart() {

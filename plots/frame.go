@@ -11,7 +11,8 @@ import (
 )
 
 // DefaultWidth and DefaultHeight are the size the charts are laid out for
-// until Render is given another (8 by 4.5 inches, 768 by 432 pixels in PNG).
+// until Render is given another (8 by 4.5 inches, 1536 by 864 pixels in PNG):
+// a size whose text reads in a printed report and on a slide.
 const (
 	DefaultWidth  = 8 * vg.Inch
 	DefaultHeight = 4.5 * vg.Inch

@@ -13,10 +13,13 @@ import (
 	"gonum.org/v1/plot/vg/vgsvg"
 )
 
-// DPI is the resolution of PNG output in dots per inch: a chart w by h
-// renders as round(w/inch*DPI) by round(h/inch*DPI) pixels, so the default
-// 8 by 4.5 inches gives 768 by 432.
-const DPI = 96
+// DPI is the resolution of PNG output in dots per inch, twice the 96 of
+// an ordinary screen, so that a PNG stays sharp on a slide, a projector or
+// a dense screen: a chart w by h renders as round(w/inch*DPI) by
+// round(h/inch*DPI) pixels, so the default 8 by 4.5 inches gives 1536 by
+// 864. Lines and text are sized in points, so they keep their size on the
+// page.
+const DPI = 192
 
 // MaxSide is the largest width or height Render accepts (40 inches).
 const MaxSide = 40 * vg.Inch

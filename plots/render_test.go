@@ -53,13 +53,13 @@ func TestRenderPNG(t *testing.T) {
 		w, h         vg.Length
 		wantW, wantH int
 	}{
-		// At 96 dots per inch (gonum's vgimg.DefaultDPI, our DPI):
-		// 8 in * 96 = 768, 4.5 in * 96 = 432.
-		{8 * vg.Inch, 4.5 * vg.Inch, 768, 432},
-		// 5 in * 96 = 480, 3 in * 96 = 288.
-		{5 * vg.Inch, 3 * vg.Inch, 480, 288},
-		// 400 pt = 400/72 in * 96 = 533.3 -> 533; 250 pt -> 333.3 -> 333.
-		{400, 250, 533, 333},
+		// At 192 dots per inch (our DPI, twice gonum's vgimg.DefaultDPI):
+		// 8 in * 192 = 1536, 4.5 in * 192 = 864.
+		{8 * vg.Inch, 4.5 * vg.Inch, 1536, 864},
+		// 5 in * 192 = 960, 3 in * 192 = 576.
+		{5 * vg.Inch, 3 * vg.Inch, 960, 576},
+		// 400 pt = 400/72 in * 192 = 1066.7 -> 1067; 250 pt -> 666.7 -> 667.
+		{400, 250, 1067, 667},
 	}
 	charts := demoCharts()
 	for _, name := range chartNames() {

@@ -34,7 +34,7 @@ var (
 	colIndigo = rgb(0x263f6a) // luma 60: baseline, median, capacity
 	colRust   = rgb(0xa8401a) // luma 91: first scenario, alarms, stock
 	colTeal   = rgb(0x36988a) // luma 121: second scenario
-	colOchre  = rgb(0xc4962a) // luma 152: third scenario
+	colOchre  = rgb(0xdfaa2f) // luma 172: third scenario
 	colPlum   = rgb(0x6b3070) // luma 73: fourth scenario
 	colMoss   = rgb(0x5f7a2e) // luma 104: fifth scenario
 	colSlate  = rgb(0x8a8f99) // luma 142: sixth scenario, guide lines

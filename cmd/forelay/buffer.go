@@ -24,6 +24,8 @@ type BufferOptions struct {
 	OpeningStock float64
 	Demand       string
 	Scenario     string
+	// XLSX also writes the workbook into Out.
+	XLSX bool
 }
 
 // The demand sources of --demand.
@@ -54,9 +56,11 @@ func newCmdBuffer(f *Factory, runF func(*BufferOptions) error) *cobra.Command {
 		},
 	}
 	fl := cmd.Flags()
+	registerChartSize(fl, f.Shared)
 	fl.StringVar(&opts.Out, "out", "", "directory to write buffer.csv, buffer.json and the chart into")
 	fl.BoolVar(&opts.JSON, "json", false, "print buffer.json to standard output instead of the tables")
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip buffer.png and buffer.svg")
+	addXLSXFlag(fl, &opts.XLSX, "buffer")
 	opts.Sim.register(fl)
 	fl.Float64Var(&opts.Service, "service", 0.95, "cycle service level, between 0 and 1 (not a fill rate)")
 	fl.Float64Var(&opts.LeadTime, "lead-time", 1, "replenishment lead time in periods, at least 1, for the safety stock")
@@ -69,6 +73,9 @@ func newCmdBuffer(f *Factory, runF func(*BufferOptions) error) *cobra.Command {
 // check validates the flags.
 func (o *BufferOptions) check() error {
 	if err := checkUnit("service", o.Service); err != nil {
+		return err
+	}
+	if err := checkXLSX(o.XLSX, o.Out, "buffer"); err != nil {
 		return err
 	}
 	if math.IsNaN(o.LeadTime) || math.IsInf(o.LeadTime, 0) || o.LeadTime < 1 {
@@ -105,7 +112,7 @@ func bufferRun(opts *BufferOptions) error {
 	}
 	var mc *sim.Simulation
 	if opts.Demand == demandMC {
-		if mc, err = simulate(p, &opts.Sim); err != nil {
+		if mc, err = simulate(p, &opts.Sim, opts.Shared); err != nil {
 			return err
 		}
 	}
@@ -114,7 +121,7 @@ func bufferRun(opts *BufferOptions) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.Buffer(run))
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, opts.XLSX, report.Buffer(run))
 }
 
 // portfolioBufferRun sizes the buffer of each resource of a portfolio
@@ -130,7 +137,7 @@ func portfolioBufferRun(opts *BufferOptions, pf *plan.Portfolio) error {
 	}
 	var mc *sim.PortfolioSimulation
 	if opts.Demand == demandMC {
-		if mc, err = simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim); err != nil {
+		if mc, err = simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim, opts.Shared); err != nil {
 			return err
 		}
 	}
@@ -139,5 +146,5 @@ func portfolioBufferRun(opts *BufferOptions, pf *plan.Portfolio) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.PortfolioBuffer(run))
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, opts.XLSX, report.PortfolioBuffer(run))
 }

@@ -52,11 +52,11 @@ func checkRun(opts *CheckOptions) error {
 			return &inputError{err: err}
 		}
 		rep := report.CheckPortfolio(opts.File, f, in, series, append(warnings, f.Lint(series[0])...))
-		return emit(opts.IO, opts.Shared, "", opts.JSON, true, rep)
+		return emit(opts.IO, opts.Shared, "", opts.JSON, true, false, rep)
 	}
 	if err := in.One(f); err != nil {
 		return &inputError{err: err}
 	}
 	rep := report.Check(opts.File, f, in.Series, f.Lint(in.Series))
-	return emit(opts.IO, opts.Shared, "", opts.JSON, true, rep)
+	return emit(opts.IO, opts.Shared, "", opts.JSON, true, false, rep)
 }

@@ -17,6 +17,8 @@ type CompareOptions struct {
 	NoChart bool
 	Sim     simFlags
 	Service float64
+	// XLSX also writes the workbook into Out.
+	XLSX bool
 }
 
 func newCmdCompare(f *Factory, runF func(*CompareOptions) error) *cobra.Command {
@@ -41,9 +43,11 @@ func newCmdCompare(f *Factory, runF func(*CompareOptions) error) *cobra.Command 
 		},
 	}
 	fl := cmd.Flags()
+	registerChartSize(fl, f.Shared)
 	fl.StringVar(&opts.Out, "out", "", "directory to write compare.csv, compare.json and the charts into")
 	fl.BoolVar(&opts.JSON, "json", false, "print compare.json to standard output instead of the tables")
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip the charts")
+	addXLSXFlag(fl, &opts.XLSX, "compare")
 	opts.Sim.register(fl)
 	fl.Float64Var(&opts.Service, "service", 0.95, "cycle service level of the pre-build need, between 0 and 1")
 	return cmd
@@ -52,6 +56,9 @@ func newCmdCompare(f *Factory, runF func(*CompareOptions) error) *cobra.Command 
 // check validates the flags.
 func (o *CompareOptions) check() error {
 	if err := o.Sim.check(o.Shared.limits()); err != nil {
+		return err
+	}
+	if err := checkXLSX(o.XLSX, o.Out, "compare"); err != nil {
 		return err
 	}
 	return checkUnit("service", o.Service)
@@ -66,15 +73,15 @@ func compareRun(opts *CompareOptions) error {
 	}
 	if pf != nil {
 		res := supply.PortfolioResources(pf)
-		mc, err := simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim)
+		mc, err := simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim, opts.Shared)
 		if err != nil {
 			return err
 		}
-		return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.PortfolioCompare(supply.ComparePortfolio(mc, res, opts.Service)))
+		return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, opts.XLSX, report.PortfolioCompare(supply.ComparePortfolio(mc, res, opts.Service)))
 	}
-	mc, err := simulate(p, &opts.Sim)
+	mc, err := simulate(p, &opts.Sim, opts.Shared)
 	if err != nil {
 		return err
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.Compare(supply.CompareScenarios(mc, opts.Service)))
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, opts.XLSX, report.Compare(supply.CompareScenarios(mc, opts.Service)))
 }

@@ -115,7 +115,7 @@ func fitRun(opts *FitOptions) error {
 			fmt.Fprintf(opts.IO.ErrOut, "note: %s\n", report.FillNote(opts.History, opts.Fill, fl))
 		}
 	}
-	outcomes := forecast.FitAll(series, spec, opts.Workers)
+	outcomes := forecast.FitAllProgress(series, spec, opts.Workers, opts.Shared.progress("fitting series"))
 	var warns []string
 	for _, oc := range outcomes {
 		if oc.Err == nil {

@@ -75,5 +75,5 @@ func initRun(opts *InitOptions) error {
 	}
 	starter := filepath.Join(opts.Dir, "plan.yaml")
 	fmt.Fprintf(&rep.Text, "next: forelay check %s, then forelay plan %s --out %s\n", starter, starter, filepath.Join(opts.Dir, "out"))
-	return emit(opts.IO, opts.Shared, "", opts.JSON, true, rep)
+	return emit(opts.IO, opts.Shared, "", opts.JSON, true, false, rep)
 }

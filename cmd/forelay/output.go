@@ -25,9 +25,10 @@ func warnings(ios *IOStreams, shared *sharedFlags, list []string) error {
 
 // emit ends a command run the same way for every command: the warnings
 // first (under --strict they stop the run before anything is written),
-// then, with --out, the CSV, the JSON document and the charts, written all
-// together, then the JSON document or the text report on standard output.
-func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart bool, r *report.Report) error {
+// then, with --out, the CSV, the JSON document, the workbook (with xlsx)
+// and the charts, written all together, then the JSON document or the
+// text report on standard output.
+func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart, xlsx bool, r *report.Report) error {
 	if err := warnings(ios, shared, r.Warnings); err != nil {
 		return err
 	}
@@ -38,6 +39,11 @@ func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart bool,
 	var set *report.Files
 	if out != "" {
 		set = report.NewFiles(out)
+		if shared != nil && shared.ChartSize.W > 0 {
+			if err := set.ChartSize(shared.ChartSize.W, shared.ChartSize.H); err != nil {
+				return &flagError{err: fmt.Errorf("--chart-size: %w", err)}
+			}
+		}
 		if r.CSV != nil {
 			csv, err := r.CSVBytes()
 			if err != nil {
@@ -55,6 +61,13 @@ func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart bool,
 		if !r.NoJSONFile {
 			set.Add(r.Name+".json", js)
 		}
+		if xlsx {
+			book, err := r.XLSX()
+			if err != nil {
+				return err
+			}
+			set.Add(r.Name+".xlsx", book)
+		}
 		if !noChart {
 			for _, c := range r.Charts {
 				if err := set.AddChart(c.Name, c.Plot); err != nil {
@@ -69,7 +82,9 @@ func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart bool,
 			return err
 		}
 		for _, p := range paths {
-			fmt.Fprintf(ios.ErrOut, "wrote %s\n", p)
+			if !shared.quiet() {
+				fmt.Fprintf(ios.ErrOut, "wrote %s\n", p)
+			}
 		}
 	}
 	if asJSON {

@@ -20,6 +20,8 @@ type PlanOptions struct {
 	JSON    bool
 	Detail  bool
 	NoChart bool
+	// XLSX also writes plan.xlsx into Out.
+	XLSX bool
 	// Event, when set, adds the period-by-period account of one event.
 	Event string
 	// Workers plans the series of a portfolio in parallel; 0: one per
@@ -45,6 +47,9 @@ func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
 			if cmd.Flags().Changed("workers") && opts.Workers < 1 {
 				return flagErrorf("--workers %d: must be at least 1 (leave it out for one worker per core)", opts.Workers)
 			}
+			if err := checkXLSX(opts.XLSX, opts.Out, "plan"); err != nil {
+				return err
+			}
 			if runF != nil {
 				return runF(opts)
 			}
@@ -52,10 +57,12 @@ func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
 		},
 	}
 	fl := cmd.Flags()
+	registerChartSize(fl, f.Shared)
 	fl.StringVar(&opts.Out, "out", "", "directory to write plan.csv, plan.json, plan.png and plan.svg into")
 	fl.BoolVar(&opts.JSON, "json", false, "print plan.json to standard output instead of the tables")
 	fl.BoolVar(&opts.Detail, "detail", false, "also print every period of every scenario")
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip plan.png and plan.svg")
+	addXLSXFlag(fl, &opts.XLSX, "plan")
 	fl.StringVar(&opts.Event, "event", "", "also show how this event adds up, period by period")
 	fl.StringVar(&opts.Charts, "charts", "5", "in a plan of several series, chart the total, each resource and this many of the most-changed series: a number, all or none (none also drops the total and the resources)")
 	fl.IntVar(&opts.Workers, "workers", 0, "series planned in parallel in a plan of several series, at least 1 (default: one per core); the plan is the same for any number")
@@ -89,7 +96,7 @@ func buildPlanOrPortfolio(path string, shared *sharedFlags, workers int) (*plan.
 		return nil, nil, &inputError{err: err}
 	}
 	if plan.WantsPortfolio(f, in) {
-		pf, err := plan.BuildPortfolio(f, in, workers)
+		pf, err := plan.BuildPortfolioProgress(f, in, workers, shared.progress("planning series"))
 		if err != nil {
 			return nil, nil, &inputError{err: err}
 		}
@@ -124,7 +131,7 @@ func planRun(opts *PlanOptions) error {
 			return flagErrorf("--event %q: %v", opts.Event, err)
 		}
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.ForPlan(p, opts.Detail, ev))
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, opts.XLSX, report.ForPlan(p, opts.Detail, ev))
 }
 
 // portfolioRun plans the several series of f.
@@ -133,7 +140,7 @@ func portfolioRun(opts *PlanOptions, f *scenario.File, in *plan.Inputs) error {
 	if err != nil {
 		return err
 	}
-	pf, err := plan.BuildPortfolio(f, in, opts.Workers)
+	pf, err := plan.BuildPortfolioProgress(f, in, opts.Workers, opts.Shared.progress("planning series"))
 	if err != nil {
 		return &inputError{err: err}
 	}
@@ -144,7 +151,7 @@ func portfolioRun(opts *PlanOptions, f *scenario.File, in *plan.Inputs) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart || noChart, r)
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart || noChart, opts.XLSX, r)
 }
 
 // chartCount reads --charts: a count of series charts, all

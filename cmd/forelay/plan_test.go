@@ -77,7 +77,7 @@ func TestNewCmdFit(t *testing.T) {
 // TestPlanRunDemo runs the demo scenario end to end and checks the files:
 // plan.csv against the committed golden (values within 0.01; rewrite with
 // FORELAY_UPDATE_GOLDEN=1 after a deliberate change), and plan.png decodes
-// at the stated size (8 x 4.5 inches at 96 dpi = 768 x 432 pixels) and is
+// at the stated size (8 x 4.5 inches at 192 dpi = 1536 x 864 pixels) and is
 // not blank. The golden of the calibrated bands (the default) is
 // dairy-plan.csv; the demo with bands: {from: model} must still give the
 // model's bands of the release before calibration, dairy-plan-model.csv.
@@ -135,8 +135,8 @@ func checkDemoPlan(t *testing.T, from, golden string) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if b := img.Bounds(); b.Dx() != 768 || b.Dy() != 432 {
-		t.Errorf("plan.png is %dx%d, want 768x432", b.Dx(), b.Dy())
+	if b := img.Bounds(); b.Dx() != 1536 || b.Dy() != 864 {
+		t.Errorf("plan.png is %dx%d, want 1536x864", b.Dx(), b.Dy())
 	}
 	dark := 0
 	b := img.Bounds()

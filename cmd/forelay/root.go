@@ -6,6 +6,7 @@ import (
 	"forelay/scenario/bounds"
 	"forelay/scenario/report"
 	"io"
+	"os"
 	"runtime/debug"
 	"time"
 
@@ -34,6 +35,16 @@ type sharedFlags struct {
 	Strict bool
 	// Limits bound the size of a run.
 	Limits bounds.Set
+	// ChartSize is the size of the charts written with --out (zero: the
+	// default), for the commands that take --chart-size.
+	ChartSize chartSize
+	// Quiet drops the progress bars and the "wrote ..." lines.
+	Quiet bool
+	// bars is where progress bars go (standard error when it is a
+	// terminal; nil: nowhere), and colour whether they may use colour
+	// (see terminals in progress.go).
+	bars   io.Writer
+	colour bool
 }
 
 // strict reports whether --strict is set; a nil s (a command built in a
@@ -79,6 +90,8 @@ the applicable reliability standards, local codes and licensed practice.`,
 	pf := root.PersistentFlags()
 	pf.BoolVar(&f.Shared.Strict, "strict", false, "treat every warning as an error (exit code 2) and write nothing")
 	pf.Var(&bounds.Value{L: f.Shared.Limits}, "limit", "raise or lower a limit, NAME=N (repeatable); see 'forelay --help' for the limits")
+	pf.BoolVarP(&f.Shared.Quiet, "quiet", "q", false, "print no progress bar and no \"wrote ...\" lines (warnings and errors still)")
+	f.Shared.bars, f.Shared.colour = terminals(f.IO, os.Getenv, isTerminal)
 	root.SetOut(f.IO.Out)
 	root.SetErr(f.IO.ErrOut)
 	root.SetIn(f.IO.In)
@@ -95,6 +108,7 @@ the applicable reliability standards, local codes and licensed practice.`,
 		newCmdBuffer(f, nil),
 		newCmdCompare(f, nil),
 		newCmdTrack(f, nil),
+		newCmdSchema(f, nil),
 	)
 	registerCompletions(root)
 	return root
@@ -141,7 +155,7 @@ func newCmdVersion(f *Factory) *cobra.Command {
 		RunE: func(cmd *cobra.Command, args []string) error {
 			rep := &report.Report{Name: "version", Compact: true, Doc: map[string]string{"version": version}}
 			fmt.Fprintf(&rep.Text, "forelay %s\n", version)
-			return emit(f.IO, f.Shared, "", asJSON, true, rep)
+			return emit(f.IO, f.Shared, "", asJSON, true, false, rep)
 		},
 	}
 	cmd.Flags().BoolVar(&asJSON, "json", false, "print the version as JSON")

@@ -20,6 +20,8 @@ type StressOptions struct {
 	Breach       float64
 	OpeningStock float64
 	Scenario     string
+	// XLSX also writes the workbook into Out.
+	XLSX bool
 }
 
 func newCmdStress(f *Factory, runF func(*StressOptions) error) *cobra.Command {
@@ -44,9 +46,11 @@ func newCmdStress(f *Factory, runF func(*StressOptions) error) *cobra.Command {
 		},
 	}
 	fl := cmd.Flags()
+	registerChartSize(fl, f.Shared)
 	fl.StringVar(&opts.Out, "out", "", "directory to write stress.csv, stress.json and the charts into")
 	fl.BoolVar(&opts.JSON, "json", false, "print stress.json to standard output instead of the tables")
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip the charts")
+	addXLSXFlag(fl, &opts.XLSX, "stress")
 	opts.Sim.register(fl)
 	fl.Float64Var(&opts.Breach, "breach", 0.1, "report the first period whose probability of demand above capacity exceeds this")
 	fl.Float64Var(&opts.OpeningStock, "opening-stock", 0, "stock before the first period, for frozen production")
@@ -60,6 +64,9 @@ func (o *StressOptions) check() error {
 		return err
 	}
 	if err := checkUnit("breach", o.Breach); err != nil {
+		return err
+	}
+	if err := checkXLSX(o.XLSX, o.Out, "stress"); err != nil {
 		return err
 	}
 	return checkStock("opening-stock", o.OpeningStock)
@@ -83,7 +90,7 @@ func stressRun(opts *StressOptions) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	mc, err := simulate(p, &opts.Sim)
+	mc, err := simulate(p, &opts.Sim, opts.Shared)
 	if err != nil {
 		return err
 	}
@@ -91,7 +98,7 @@ func stressRun(opts *StressOptions) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.Stress(run, chart))
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, opts.XLSX, report.Stress(run, chart))
 }
 
 // portfolioStressRun simulates the total and the resources' loads of a
@@ -105,7 +112,7 @@ func portfolioStressRun(opts *StressOptions, pf *plan.Portfolio) error {
 		return &inputError{err: err}
 	}
 	res := supply.PortfolioResources(pf)
-	mc, err := simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim)
+	mc, err := simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim, opts.Shared)
 	if err != nil {
 		return err
 	}
@@ -113,5 +120,5 @@ func portfolioStressRun(opts *StressOptions, pf *plan.Portfolio) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, report.PortfolioStress(run, chart))
+	return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, opts.XLSX, report.PortfolioStress(run, chart))
 }

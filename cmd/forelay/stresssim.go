@@ -51,17 +51,17 @@ func (s *simFlags) check(l bounds.Set) error {
 	return nil
 }
 
-// options returns the settings for sim.Simulate; check must have
-// passed.
-func (s *simFlags) options() sim.SimOptions {
+// options returns the settings for sim.Simulate, with the progress bar
+// of shared; check must have passed.
+func (s *simFlags) options(shared *sharedFlags) sim.SimOptions {
 	em, _ := sim.ParseErrorModel(s.Errors)
-	return sim.SimOptions{Paths: s.Paths, Seed: s.Seed, Errors: em, Workers: s.Workers}
+	return sim.SimOptions{Paths: s.Paths, Seed: s.Seed, Errors: em, Workers: s.Workers, Progress: shared.progress("drawing paths")}
 }
 
 // simulate runs the Monte Carlo; a plan whose errors cannot be drawn is
 // an input error.
-func simulate(p *plan.Plan, s *simFlags) (*sim.Simulation, error) {
-	mc, err := sim.Simulate(p, s.options())
+func simulate(p *plan.Plan, s *simFlags, shared *sharedFlags) (*sim.Simulation, error) {
+	mc, err := sim.Simulate(p, s.options(shared))
 	if err != nil {
 		if errors.Is(err, sim.ErrTooFewPaths) {
 			return nil, &flagError{err: err}
@@ -73,8 +73,8 @@ func simulate(p *plan.Plan, s *simFlags) (*sim.Simulation, error) {
 
 // simulatePortfolio runs the Monte Carlo of a portfolio's sums; normal
 // errors are a flag error, errors that cannot be drawn an input error.
-func simulatePortfolio(pf *plan.Portfolio, sums []sim.Sum, s *simFlags) (*sim.PortfolioSimulation, error) {
-	mc, err := sim.SimulatePortfolio(pf, sums, s.options())
+func simulatePortfolio(pf *plan.Portfolio, sums []sim.Sum, s *simFlags, shared *sharedFlags) (*sim.PortfolioSimulation, error) {
+	mc, err := sim.SimulatePortfolio(pf, sums, s.options(shared))
 	if err != nil {
 		if errors.Is(err, sim.ErrPortfolioNormal) {
 			return nil, &flagError{err: fmt.Errorf("--errors %s: %w", s.Errors, err)}

@@ -31,6 +31,8 @@ type TrackOptions struct {
 	Out string
 	// JSON prints the JSON report instead of the tables.
 	JSON bool
+	// XLSX also writes track.xlsx into Out.
+	XLSX bool
 	// TSLimit is the tracking signal's limit; zero means the signal's
 	// default (4, or Trigg's 95% limit for the smoothed signal).
 	TSLimit float64
@@ -70,6 +72,9 @@ func newCmdTrack(f *Factory, runF func(*TrackOptions) error) *cobra.Command {
 			if err := opts.Format.check(); err != nil {
 				return err
 			}
+			if err := checkXLSX(opts.XLSX, opts.Out, "track"); err != nil {
+				return err
+			}
 			if runF != nil {
 				return runF(opts)
 			}
@@ -77,11 +82,13 @@ func newCmdTrack(f *Factory, runF func(*TrackOptions) error) *cobra.Command {
 		},
 	}
 	fl := cmd.Flags()
+	registerChartSize(fl, f.Shared)
 	fl.StringVar(&opts.Actuals, "actuals", "", "new actuals, CSV or workbook (.xlsx) in the history layouts, starting at the first plan period")
 	fl.StringVar(&opts.Scenario, "scenario", "", `scenario to track (default: the only one, or the one called "plan")`)
 	fl.StringVar(&opts.PlanDir, "plan", "", "read the plan from DIR/plan.json instead of building it again")
 	fl.StringVar(&opts.Out, "out", "", "directory to write track.csv, control.png/.svg and signal.png/.svg into (and track-rollups.csv, track-summary.csv for several series)")
 	fl.BoolVar(&opts.JSON, "json", false, "print the report as JSON instead of the tables")
+	addXLSXFlag(fl, &opts.XLSX, "track")
 	fl.Float64Var(&opts.TSLimit, "ts-limit", 0, "tracking signal limit (default 4 for cumulative, Trigg's 95% limit for smoothed)")
 	fl.StringVar(&opts.Signal, "signal", "cumulative", "tracking signal: cumulative or smoothed (Trigg)")
 	fl.Float64Var(&opts.Z, "z", 3, "control limits in sigmas")
@@ -167,7 +174,7 @@ func trackRun(opts *TrackOptions) error {
 		return &inputError{err: err}
 	}
 	rep := report.ForTrack(report.Track{Plan: tp, Tracking: tr, Source: source, DefaultLimit: opts.TSLimit == 0, Warnings: warns})
-	if err := emit(opts.IO, opts.Shared, opts.Out, opts.JSON, false, rep); err != nil {
+	if err := emit(opts.IO, opts.Shared, opts.Out, opts.JSON, false, opts.XLSX, rep); err != nil {
 		return err
 	}
 	per, last := tr.Latest()
@@ -215,7 +222,7 @@ func portfolioTrackRun(opts *TrackOptions, f *scenario.File, in *plan.Inputs, cf
 	}
 	rep := report.ForPortfolioTrack(report.PortfolioTrack{Plan: pt, Tracking: tr, Source: source,
 		DefaultLimit: opts.TSLimit == 0, Warnings: append(warns, acts.Warnings...)})
-	if err := emit(opts.IO, opts.Shared, opts.Out, opts.JSON, false, rep); err != nil {
+	if err := emit(opts.IO, opts.Shared, opts.Out, opts.JSON, false, opts.XLSX, rep); err != nil {
 		return err
 	}
 	if msg := report.PortfolioAlert(tr, failOn, strings.ToLower(opts.FailOn)); msg != "" {
@@ -235,7 +242,7 @@ func loadPortfolioTrackPlan(opts *TrackOptions, f *scenario.File, in *plan.Input
 		}
 		return pt, source, warns, nil
 	}
-	pf, err := plan.BuildPortfolio(f, in, opts.Workers)
+	pf, err := plan.BuildPortfolioProgress(f, in, opts.Workers, opts.Shared.progress("planning series"))
 	if err != nil {
 		return nil, "", nil, &inputError{err: err}
 	}

@@ -32,6 +32,12 @@ type Portfolio struct {
 	Warnings []string
 	// Notes are remarks on the portfolio as a whole, one sentence each.
 	Notes []string
+	// Span is the number of periods from the earliest start among the
+	// series history.series selects (those left out included) to the
+	// first plan period: the longest a series' history can reach back,
+	// the same whichever of the series are planned in a run (see
+	// sim.SimulatePortfolio). Zero in a Portfolio built by hand.
+	Span int
 
 	// index maps each name of Names to its plan's index (BuildPortfolio
 	// sets it; nil in a Portfolio built by hand).
@@ -89,6 +95,13 @@ func WantsPortfolio(f *scenario.File, in *Inputs) bool {
 // plans (package supply). Errors are those of CheckPortfolio, then those of
 // Build.
 func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, error) {
+	return BuildPortfolioProgress(f, in, workers, nil)
+}
+
+// BuildPortfolioProgress is BuildPortfolio that tells progress of each
+// series whose history is cleaned and baseline fitted (the first pass; see
+// forecast.Progress); the portfolio is that of BuildPortfolio.
+func BuildPortfolioProgress(f *scenario.File, in *Inputs, workers int, progress forecast.Progress) (*Portfolio, error) {
 	series, warnings, err := CheckPortfolio(f, in)
 	if err != nil {
 		return nil, err
@@ -104,13 +117,16 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 	if err != nil {
 		return nil, err
 	}
-	pf := &Portfolio{File: f, Names: all, Levels: in.Levels, Plans: make([]*Plan, len(series)), index: make(map[string]int, len(all))}
+	pf := &Portfolio{File: f, Names: all, Levels: in.Levels, Plans: make([]*Plan, len(series)), index: make(map[string]int, len(all)),
+		Span: selectedSpan(in, first)}
 	for i, name := range all {
 		pf.index[name] = i
 	}
 	bases := make([][]float64, len(series))
 	name := func(i int) string { return series[i].Name }
+	tick := progress.Counter(len(series))
 	err = eachSeries(len(series), workers, name, func(i int) error {
+		defer tick()
 		ser := series[i]
 		one := &Inputs{History: in.History, Series: ser, Selected: []string{ser.Name}, Levels: in.Levels, Digests: in.Digests}
 		view := f.ForSeries(ser.Name, equal[ser.Name])
@@ -267,4 +283,20 @@ func CheckPortfolio(f *scenario.File, in *Inputs) ([]forecast.Series, []string, 
 		return nil, nil, err
 	}
 	return series, warnings, nil
+}
+
+// selectedSpan returns the number of periods from the earliest start of
+// the series in.Selected names to first.
+func selectedSpan(in *Inputs, first forecast.Period) int {
+	chosen := make(map[string]bool, len(in.Selected))
+	for _, n := range in.Selected {
+		chosen[n] = true
+	}
+	span := 0
+	for _, s := range in.History.Series {
+		if chosen[s.Name] {
+			span = max(span, first.Sub(s.Start))
+		}
+	}
+	return span
 }

@@ -156,7 +156,7 @@ func (pf *Portfolio) rollup(k int, members []int) (Rollup, error) {
 	v := make([]float64, hz)
 	if len(fits) > 0 {
 		var err error
-		if v, _, err = forecast.SumVariance(fits, hz, p0.Mode, p0.From); err != nil {
+		if v, err = forecast.SumVariance(fits, hz, p0.Mode, p0.From, pf.Span); err != nil {
 			return Rollup{}, err
 		}
 	}

@@ -56,7 +56,7 @@ func Buffer(r *supply.BufferRun) *Report {
 		notes = SimNotes(r.Plan)
 	}
 	rep := &Report{Name: "buffer", Warnings: r.Plan.Warnings, Doc: bufferDoc(r, notes), CSV: bufferCSV(r),
-		Charts: []Chart{{Name: "buffer", Plot: bufferChart(r)}}}
+		Charts: []Chart{{Name: "buffer", Plot: bufferChart(r)}}, MoreTables: planTables(r.Plan)}
 	writeBufferText(&rep.Text, r, notes)
 	return rep
 }
@@ -83,7 +83,8 @@ func bufferDoc(r *supply.BufferRun, notes []string) BufferDoc {
 
 // bufferCSV renders buffer.csv: one row per period.
 func bufferCSV(r *supply.BufferRun) *Table {
-	tb := &Table{Head: []string{"period", "demand", "capacity", "build", "stock", "required_start"}}
+	tb := (&Table{Head: []string{"period", "demand", "capacity", "build", "stock", "required_start"}}).
+		Typed(Label, Quantity, Quantity, Quantity, Quantity, Quantity)
 	b := r.Buffer
 	for t, per := range r.Plan.Periods {
 		tb.AddRow(per.String(), CSVNum(b.Demand[t], 2), CSVNum(b.Capacity[t], 2), CSVNum(b.Build[t], 2),

@@ -51,7 +51,7 @@ type CompareDoc struct {
 func Compare(r *supply.CompareRun) *Report {
 	notes := SimNotes(r.Plan)
 	rep := &Report{Name: "compare", Warnings: r.Plan.Warnings, Doc: compareDoc(r, notes), CSV: compareCSV(r),
-		Charts: []Chart{{Name: "compare", Plot: compareChart(r)}}}
+		Charts: []Chart{{Name: "compare", Plot: compareChart(r)}}, MoreTables: planTables(r.Plan)}
 	for _, c := range r.Rows {
 		if len(c.Contributions) > 0 {
 			rep.Charts = append(rep.Charts, Chart{Name: "waterfall-" + c.Name, Plot: waterfallChart(r, c)})
@@ -94,6 +94,7 @@ func compareCSV(r *supply.CompareRun) *Table {
 	for _, e := range p.Future {
 		tb.Head = append(tb.Head, e.ID)
 	}
+	tb.Typed(kindsOf(compareKinds, []Kind{Share, Quantity, Label}, repeatKind(Quantity, len(p.Future)))...)
 	for _, c := range r.Rows {
 		before := ""
 		if c.PrebuildAt >= 0 {
@@ -109,6 +110,10 @@ func compareCSV(r *supply.CompareRun) *Table {
 	}
 	return tb
 }
+
+// compareKinds are the kinds of compare.csv's first seven columns, from
+// scenario to p90_peak.
+var compareKinds = []Kind{Label, Quantity, Quantity, Label, Quantity, Label, Quantity}
 
 // zeroIfNaN returns v, or 0 when v is NaN.
 func zeroIfNaN(v float64) float64 {

@@ -7,8 +7,8 @@
 //
 // Report is the one model every command's run produces: the text for a
 // person as blocks (lines and tables), the JSON document, the CSV table,
-// the charts and the warnings; WriteText, JSON and CSVBytes are its
-// writers, and a new output format (HTML, XLSX) is one more writer of
-// Report. ForPlan, Stress, Buffer, Compare, ForTrack, Fits and Check
+// the charts and the warnings; WriteText, JSON, CSVBytes and XLSX (the
+// workbook, its cells typed by each table's column Kinds) are its
+// writers, and a new output format (HTML) is one more writer of Report. ForPlan, Stress, Buffer, Compare, ForTrack, Fits and Check
 // build the reports of the commands.
 package report

@@ -4,10 +4,13 @@ import (
 	"errors"
 	"fmt"
 	"io/fs"
+	"math"
 	"os"
 	"path/filepath"
 
 	"forelay/plots"
+
+	"gonum.org/v1/plot/vg"
 )
 
 // Files collects a run's output files in memory and writes them all at
@@ -16,7 +19,30 @@ type Files struct {
 	dir   string
 	names []string
 	data  map[string][]byte
+	// width and height are the size charts are drawn at (zero: the
+	// plots package's default).
+	width, height vg.Length
 }
+
+// ChartSize sets the size AddChart draws charts at, in inches; it
+// returns an error when a side is not finite or not within MinChartSide
+// and MaxChartSide.
+func (o *Files) ChartSize(width, height float64) error {
+	for _, v := range []float64{width, height} {
+		if math.IsNaN(v) || v < MinChartSide || v > MaxChartSide {
+			return fmt.Errorf("chart size %gx%g inches: each side must be between %g and %g inches", width, height, float64(MinChartSide), float64(MaxChartSide))
+		}
+	}
+	o.width, o.height = vg.Length(width)*vg.Inch, vg.Length(height)*vg.Inch
+	return nil
+}
+
+// The least and the most a chart's side may be, in inches: below 3 inches
+// the period labels and the key no longer fit; 40 is plots.MaxSide.
+const (
+	MinChartSide = 3
+	MaxChartSide = 40
+)
 
 // NewFiles returns an empty set of files to write into dir.
 func NewFiles(dir string) *Files {
@@ -141,16 +167,20 @@ func (o *Files) paths() []string {
 	return out
 }
 
-// renderBoth draws c as PNG and SVG at the default size.
-func renderBoth(c Plotter) (png, svg []byte, err error) {
+// renderBoth draws c as PNG and SVG, width by height (zero: the default
+// size).
+func renderBoth(c Plotter, width, height vg.Length) (png, svg []byte, err error) {
+	if width == 0 || height == 0 {
+		width, height = plots.DefaultWidth, plots.DefaultHeight
+	}
 	p, err := c.Plot()
 	if err != nil {
 		return nil, nil, err
 	}
-	if png, err = plots.Render(p, "png", plots.DefaultWidth, plots.DefaultHeight); err != nil {
+	if png, err = plots.Render(p, "png", width, height); err != nil {
 		return nil, nil, err
 	}
-	if svg, err = plots.Render(p, "svg", plots.DefaultWidth, plots.DefaultHeight); err != nil {
+	if svg, err = plots.Render(p, "svg", width, height); err != nil {
 		return nil, nil, err
 	}
 	return png, svg, nil
@@ -158,7 +188,7 @@ func renderBoth(c Plotter) (png, svg []byte, err error) {
 
 // AddChart renders c and adds base.png and base.svg to the set.
 func (o *Files) AddChart(base string, c Plotter) error {
-	png, svg, err := renderBoth(c)
+	png, svg, err := renderBoth(c, o.width, o.height)
 	if err != nil {
 		return err
 	}

@@ -29,6 +29,10 @@ type Report struct {
 	// MoreCSV are further tables written as their own CSV files with
 	// --out (rollup.csv beside plan.csv, say), in order.
 	MoreCSV []CSVFile
+	// MoreTables are further tables that are not written as CSV files
+	// but go into writers that hold several tables, such as the
+	// workbook: the events and the accuracy of the baselines, in order.
+	MoreTables []CSVFile
 	// NoJSONFile leaves Name.json out of --out (the document is still
 	// printed with --json).
 	NoJSONFile bool
@@ -160,6 +164,9 @@ type Table struct {
 	Rows [][]string
 	// LeftCols marks columns aligned left besides the first.
 	LeftCols map[int]bool
+	// Kinds says what each column holds, in the order of Head, for
+	// writers that store typed cells (see Kind); nil: all text.
+	Kinds []Kind
 }
 
 // NewTable returns a table with the given head.

@@ -16,7 +16,7 @@ import (
 // the plan chart and the plan's warnings.
 func ForPlan(p *plan.Plan, detail bool, event *scenario.Event) *Report {
 	r := &Report{Name: "plan", Warnings: p.Warnings, Doc: Plan(p), CSV: planCSV(p),
-		Charts: []Chart{{Name: "plan", Plot: PlanChart(p)}}}
+		Charts: []Chart{{Name: "plan", Plot: PlanChart(p)}}, MoreTables: planTables(p)}
 	planText(&r.Text, p, detail)
 	if event != nil {
 		eventText(&r.Text, p, event)
@@ -141,6 +141,9 @@ func eventText(w *Text, p *plan.Plan, e *scenario.Event) {
 	}
 }
 
+// planKinds are the kinds of plan.csv's columns before the events.
+var planKinds = []Kind{Label, Label, Quantity, Quantity, Quantity, Quantity, Quantity}
+
 // planCSV is plan.csv: one row per scenario and period with the columns
 // scenario, period, baseline, adjusted, risk_weighted, lower, upper and
 // then one column per future event holding its contribution, two
@@ -150,6 +153,7 @@ func planCSV(p *plan.Plan) *Table {
 	for _, e := range p.Future {
 		t.Head = append(t.Head, e.ID)
 	}
+	t.Typed(kindsOf(planKinds, repeatKind(Quantity, len(p.Future)))...)
 	for _, sp := range p.Scenarios {
 		for k, per := range p.Periods {
 			row := []string{sp.Name, per.String(), CSV2(p.Baseline[k]), CSV2(sp.Adjusted[k]),

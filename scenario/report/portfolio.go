@@ -136,7 +136,7 @@ func ForPortfolio(pf *plan.Portfolio, opt PortfolioOptions) (*Report, error) {
 	}
 	r := &Report{Name: "plan", Warnings: pf.Warnings, CSV: portfolioCSV(pf),
 		MoreCSV: []CSVFile{{"rollup", rollupCSV(pf, rollups)}, {"summary", summaryCSV(pf)}},
-		Doc:     portfolioDoc(pf, rollups, res)}
+		Doc:     portfolioDoc(pf, rollups, res), MoreTables: portfolioTables(pf)}
 	if len(res) > 0 {
 		r.MoreCSV = append(r.MoreCSV, CSVFile{"resources", resourcesCSV(pf, res)})
 	}
@@ -228,7 +228,8 @@ func resourcesText(w *Text, pf *plan.Portfolio, res []resourceLoad, k int) {
 // without capacity), load_sd, p_breach (4 decimals) and
 // expected_shortfall (supply.LoadRisk; empty without capacity).
 func resourcesCSV(pf *plan.Portfolio, res []resourceLoad) *Table {
-	t := &Table{Head: []string{"scenario", "resource", "period", "load", "capacity", "utilisation", "load_sd", "p_breach", "expected_shortfall"}}
+	t := (&Table{Head: []string{"scenario", "resource", "period", "load", "capacity", "utilisation", "load_sd", "p_breach", "expected_shortfall"}}).
+		Typed(Label, Label, Label, Quantity, Quantity, Share, Quantity, Share, Quantity)
 	for k, sp := range pf.Plans[0].Scenarios {
 		for _, r := range res {
 			risk := r.Risk[k]
@@ -349,6 +350,7 @@ func portfolioCSV(pf *plan.Portfolio) *Table {
 		}
 	}
 	t.Head = append(t.Head, ids...)
+	t.Typed(kindsOf([]Kind{Label}, planKinds, repeatKind(Quantity, len(ids)))...)
 	p0 := pf.Plans[0]
 	for k := range p0.Scenarios {
 		for _, p := range pf.Plans {
@@ -385,7 +387,8 @@ func pastOnly(pf *plan.Portfolio, id string) bool {
 // the columns scenario, level, group, period, baseline, adjusted,
 // risk_weighted, lower, upper; two decimals.
 func rollupCSV(pf *plan.Portfolio, rollups [][]plan.Rollup) *Table {
-	t := &Table{Head: []string{"scenario", "level", "group", "period", "baseline", "adjusted", "risk_weighted", "lower", "upper"}}
+	t := (&Table{Head: []string{"scenario", "level", "group", "period", "baseline", "adjusted", "risk_weighted", "lower", "upper"}}).
+		Typed(Label, Label, Label, Label, Quantity, Quantity, Quantity, Quantity, Quantity)
 	periods := pf.Plans[0].Periods
 	for _, rs := range rollups {
 		for _, ru := range rs {
@@ -403,7 +406,8 @@ func rollupCSV(pf *plan.Portfolio, rollups [][]plan.Rollup) *Table {
 // with the columns scenario, rank, series, baseline, adjusted, change,
 // change_pct (empty when the baseline total is 0); two decimals.
 func summaryCSV(pf *plan.Portfolio) *Table {
-	t := &Table{Head: []string{"scenario", "rank", "series", "baseline", "adjusted", "change", "change_pct"}}
+	t := (&Table{Head: []string{"scenario", "rank", "series", "baseline", "adjusted", "change", "change_pct"}}).
+		Typed(Label, Count, Label, Quantity, Quantity, Quantity, Percent)
 	for k, sp := range pf.Plans[0].Scenarios {
 		for i, c := range ranked(changes(pf, k)) {
 			pct := ""

@@ -56,7 +56,8 @@ func PortfolioBuffer(r *supply.PortfolioBufferRun) *Report {
 	} else {
 		notes = append(notes, "From the bands, the spread over the lead time is one period's times the square root of the lead time (independent errors)")
 	}
-	rep := &Report{Name: "buffer", Warnings: r.Portfolio.Warnings, Doc: portfolioBufferDoc(r, notes), CSV: portfolioBufferCSV(r)}
+	rep := &Report{Name: "buffer", Warnings: r.Portfolio.Warnings, Doc: portfolioBufferDoc(r, notes), CSV: portfolioBufferCSV(r),
+		MoreTables: portfolioTables(r.Portfolio)}
 	writePortfolioBufferText(&rep.Text, r, notes)
 	return rep
 }
@@ -91,7 +92,8 @@ func portfolioBufferDoc(r *supply.PortfolioBufferRun, notes []string) PortfolioB
 // portfolioBufferCSV renders buffer.csv of a portfolio: one row per
 // resource with a capacity and period; demand is the resource's load.
 func portfolioBufferCSV(r *supply.PortfolioBufferRun) *Table {
-	tb := &Table{Head: []string{"resource", "period", "demand", "capacity", "build", "stock", "required_start"}}
+	tb := (&Table{Head: []string{"resource", "period", "demand", "capacity", "build", "stock", "required_start"}}).
+		Typed(Label, Label, Quantity, Quantity, Quantity, Quantity, Quantity)
 	for _, rb := range r.Resources {
 		b := rb.Buffer
 		for t, per := range r.Portfolio.Plans[0].Periods {

@@ -57,7 +57,7 @@ func PortfolioCompare(r *supply.PortfolioCompareRun) *Report {
 	pf := r.Portfolio
 	notes := []string{"Totals are sums over every series; breach chances and pre-builds are each resource's, from its simulated load"}
 	rep := &Report{Name: "compare", Warnings: pf.Warnings, Doc: portfolioCompareDoc(r, notes), CSV: portfolioCompareCSV(r),
-		Charts: []Chart{{Name: "compare", Plot: portfolioCompareChart(r)}}}
+		Charts: []Chart{{Name: "compare", Plot: portfolioCompareChart(r)}}, MoreTables: portfolioTables(pf)}
 	for _, c := range r.Rows {
 		if len(c.Contributions) > 0 {
 			rep.Charts = append(rep.Charts, Chart{Name: "waterfall-" + c.Name, Plot: waterfallOf(pf.File.Plan, pf.File.Units, c)})
@@ -116,12 +116,14 @@ func futureIDs(r *supply.PortfolioCompareRun) []string {
 // single series' compare.csv); then one column per event.
 func portfolioCompareCSV(r *supply.PortfolioCompareRun) *Table {
 	periods := r.Portfolio.Plans[0].Periods
-	tb := &Table{Head: []string{"scenario", "total", "change", "peak_period", "peak", "p90_peak_period", "p90_peak"}}
+	tb := (&Table{Head: []string{"scenario", "total", "change", "peak_period", "peak", "p90_peak_period", "p90_peak"}}).Typed(compareKinds...)
 	for _, res := range r.Resources {
 		tb.Head = append(tb.Head, res.ID+"_breach_probability", res.ID+"_prebuild", res.ID+"_prebuild_before")
+		tb.Kinds = append(tb.Kinds, Share, Quantity, Label)
 	}
 	ids := futureIDs(r)
 	tb.Head = append(tb.Head, ids...)
+	tb.Kinds = append(tb.Kinds, repeatKind(Quantity, len(ids))...)
 	for k, c := range r.Rows {
 		row := []string{c.Name, CSVNum(c.Total, 2), CSVNum(c.Total-c.BaselineTotal, 2), periods[c.Peak].String(),
 			CSVNum(c.PeakValue, 2), periods[c.P90Peak].String(), CSVNum(c.P90PeakValue, 2)}

@@ -65,7 +65,8 @@ const portfolioErrors = "bootstrap of whole periods"
 func PortfolioStress(r *supply.PortfolioStressRun, chart int) *Report {
 	notes := []string{fmt.Sprintf("Errors drawn by whole historical periods (up to %d back, for the %s series with a baseline; a series with fewer resamples its own), so the sums keep the series' correlation; each event is drawn once per path for every series it moves",
 		r.Sim.Window, countText(r.Sim.Fitted))}
-	rep := &Report{Name: "stress", Warnings: r.Warnings, Doc: portfolioStressDoc(r, notes), CSV: portfolioStressCSV(r)}
+	rep := &Report{Name: "stress", Warnings: r.Warnings, Doc: portfolioStressDoc(r, notes), CSV: portfolioStressCSV(r),
+		MoreTables: portfolioTables(r.Portfolio)}
 	rep.Charts = append(rep.Charts, Chart{Name: "total", Plot: stressLoadChart(r, chart, -1)})
 	for j, res := range r.Resources {
 		rep.Charts = append(rep.Charts, Chart{Name: "resource-" + fileName(res.ID), Plot: stressLoadChart(r, chart, j)})
@@ -155,22 +156,20 @@ func portfolioStressDoc(r *supply.PortfolioStressRun, notes []string) PortfolioS
 // scenario, resource (the total first) and period, with the columns of a
 // single series' stress.csv after the resource.
 func portfolioStressCSV(r *supply.PortfolioStressRun) *Table {
-	tb := &Table{Head: []string{"scenario", "resource", "period", "mean", "p5", "p10", "p50", "p90", "p95", "capacity", "p_breach",
-		"expected_shortfall", "shortfall_if_breach", "util_p50", "util_p90"}}
+	tb := (&Table{Head: []string{"scenario", "resource", "period", "mean", "p5", "p10", "p50", "p90", "p95", "capacity", "p_breach",
+		"expected_shortfall", "shortfall_if_breach", "util_p50", "util_p90"}}).Typed(kindsOf([]Kind{Label, Label, Label}, riskKinds)...)
 	if r.Frozen != nil {
 		tb.Head = append(tb.Head, "production", "stock", "stock_at_p50_demand", "stock_at_p90_demand", "p_short", "idle", "overload")
+		tb.Kinds = append(tb.Kinds, frozenKinds...)
 	}
 	periods := r.Portfolio.Plans[0].Periods
 	for k, tot := range r.Total {
 		rows := func(name string, rk supply.Risk, fz *supply.StockProjection) {
 			for t, pr := range rk.Periods {
-				row := []string{tot.Name, name, periods[t].String(), CSVNum(pr.Mean, 2), CSVNum(pr.P5, 2), CSVNum(pr.P10, 2),
-					CSVNum(pr.P50, 2), CSVNum(pr.P90, 2), CSVNum(pr.P95, 2), CSVNum(pr.Capacity, 2), CSVNum(pr.PBreach, 4),
-					CSVNum(pr.ExpectedShortfall, 2), CSVNum(pr.ShortfallIfBreach, 2), CSVNum(pr.UtilP50, 4), CSVNum(pr.UtilP90, 4)}
+				row := append([]string{tot.Name, name, periods[t].String()}, stressCells(pr)...)
 				switch {
 				case fz != nil:
-					row = append(row, CSVNum(fz.Production[t], 2), CSVNum(fz.Stock[t], 2), CSVNum(fz.StockP50[t], 2),
-						CSVNum(fz.StockP90[t], 2), CSVNum(fz.PShort[t], 4), CSVNum(fz.Idle[t], 2), CSVNum(fz.Overload[t], 2))
+					row = append(row, frozenCells(fz, t)...)
 				case r.Frozen != nil:
 					row = append(row, "", "", "", "", "", "", "")
 				}

@@ -40,8 +40,9 @@ type PortfolioTrack struct {
 // and signal charts of the total (none when the total is not tracked).
 func ForPortfolioTrack(t PortfolioTrack) *Report {
 	r := &Report{Name: "track", NoJSONFile: true, Warnings: t.Warnings, Doc: portfolioTrackDoc(t),
-		CSV:     portfolioTrackCSV(t),
-		MoreCSV: []CSVFile{{"track-rollups", rollupTrackCSV(t)}, {"track-summary", trackSummaryCSV(t)}}}
+		CSV:        portfolioTrackCSV(t),
+		MoreCSV:    []CSVFile{{"track-rollups", rollupTrackCSV(t)}, {"track-summary", trackSummaryCSV(t)}},
+		MoreTables: portfolioTrackTables(t)}
 	if total := totalTrack(t); total != nil {
 		control, signal := trackCharts(*total)
 		r.Charts = []Chart{{Name: "control", Plot: control}, {Name: "signal", Plot: signal}}
@@ -85,14 +86,17 @@ func trackRow(tr *plan.Tracking, i int) []string {
 		CSV2(p.CumError), CSV2(p.MAD), F4(p.TrackingSignal), F4(p.Sigmas), p.Verdict.String(), strings.Join(ruleNames(p.Rules), " ")}
 }
 
-// trackHead is the head of trackRow's cells.
-var trackHead = []string{"period", "actual", "plan", "baseline", "error", "cum_error", "mad", "tracking_signal", "sigmas", "verdict", "rules"}
+// trackHead is the head of trackRow's cells, and trackKinds their kinds.
+var (
+	trackHead  = []string{"period", "actual", "plan", "baseline", "error", "cum_error", "mad", "tracking_signal", "sigmas", "verdict", "rules"}
+	trackKinds = []Kind{Label, Quantity, Quantity, Quantity, Quantity, Quantity, Quantity, Ratio, Ratio, Label, Label}
+)
 
 // portfolioTrackCSV is track.csv of a portfolio: one row per tracked
 // series and period, series in the portfolio's order, with the column
 // series before those of track.csv of one series.
 func portfolioTrackCSV(t PortfolioTrack) *Table {
-	tb := &Table{Head: append([]string{"series"}, trackHead...)}
+	tb := (&Table{Head: append([]string{"series"}, trackHead...)}).Typed(kindsOf([]Kind{Label}, trackKinds)...)
 	for _, s := range t.Tracking.Series {
 		for i := range s.Points {
 			tb.Rows = append(tb.Rows, append([]string{s.Plan.Series}, trackRow(s.Tracking, i)...))
@@ -105,7 +109,8 @@ func portfolioTrackCSV(t PortfolioTrack) *Table {
 // period, with the columns level, group, members, sigma, then those of
 // track.csv of one series.
 func rollupTrackCSV(t PortfolioTrack) *Table {
-	tb := &Table{Head: append([]string{"level", "group", "members", "sigma"}, trackHead...)}
+	tb := (&Table{Head: append([]string{"level", "group", "members", "sigma"}, trackHead...)}).
+		Typed(kindsOf([]Kind{Label, Label, Count, Quantity}, trackKinds)...)
 	for _, ru := range t.Tracking.Rollups {
 		for i := range ru.Points {
 			tb.Rows = append(tb.Rows, append([]string{ru.Level, ru.Group, fmt.Sprint(len(ru.Members)), CSV2(ru.Limits.Sigma)}, trackRow(ru.Tracking, i)...))
@@ -119,7 +124,7 @@ func rollupTrackCSV(t PortfolioTrack) *Table {
 // name), with the columns rank, series, periods (the number tracked),
 // then the latest period's cells as in track.csv.
 func trackSummaryCSV(t PortfolioTrack) *Table {
-	tb := &Table{Head: append([]string{"rank", "series", "periods"}, trackHead...)}
+	tb := (&Table{Head: append([]string{"rank", "series", "periods"}, trackHead...)}).Typed(kindsOf([]Kind{Count, Label, Count}, trackKinds)...)
 	for i, s := range rankedSeries(t.Tracking) {
 		n := len(s.Points)
 		tb.Rows = append(tb.Rows, append([]string{fmt.Sprint(i + 1), s.Plan.Series, fmt.Sprint(n)}, trackRow(s.Tracking, n-1)...))

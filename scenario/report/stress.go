@@ -60,7 +60,7 @@ type StressDoc struct {
 func Stress(r *supply.StressRun, chart int) *Report {
 	notes := append(SimNotes(r.Plan), r.Notes...)
 	rep := &Report{Name: "stress", Warnings: r.Warnings, Doc: stressDoc(r, notes), CSV: stressCSV(r),
-		Charts: []Chart{{Name: "fan", Plot: fanChart(r, chart)}}}
+		Charts: []Chart{{Name: "fan", Plot: fanChart(r, chart)}}, MoreTables: planTables(r.Plan)}
 	if r.Frozen != nil {
 		rep.Charts = append(rep.Charts, Chart{Name: "stock", Plot: stockChart(r, chart)})
 	}
@@ -77,12 +77,7 @@ func stressDoc(r *supply.StressRun, notes []string) StressDoc {
 		sj := stressScenarioJSON{Name: rk.Name, Events: eventIDList(p.Scenarios[s].Events),
 			FirstBreach: PeriodOrNull(p, rk.FirstBreach), TotalExpectedShortfall: Num(rk.TotalExpectedShortfall),
 			PAnyBreach: Num(rk.PAnyBreach)}
-		for t, pr := range rk.Periods {
-			sj.Periods = append(sj.Periods, stressPeriodJSON{Period: p.Periods[t].String(), Mean: Num(pr.Mean),
-				P5: Num(pr.P5), P10: Num(pr.P10), P50: Num(pr.P50), P90: Num(pr.P90), P95: Num(pr.P95),
-				Capacity: Num(pr.Capacity), PBreach: Num(pr.PBreach), ExpectedShortfall: Num(pr.ExpectedShortfall),
-				ShortfallIfBreach: Num(pr.ShortfallIfBreach), UtilP50: Num(pr.UtilP50), UtilP90: Num(pr.UtilP90)})
-		}
+		sj.Periods = stressPeriods(p.Periods, rk)
 		if r.Frozen != nil {
 			sj.Frozen = frozenDoc(p.Periods, r.Frozen[s], r.Source)
 		}
@@ -96,26 +91,30 @@ func stressDoc(r *supply.StressRun, notes []string) StressDoc {
 // Quantities have two decimals, probabilities and utilisations four; a
 // value that does not apply (no capacity) is an empty cell.
 func stressCSV(r *supply.StressRun) *Table {
-	tb := &Table{Head: []string{"scenario", "period", "mean", "p5", "p10", "p50", "p90", "p95", "capacity", "p_breach",
-		"expected_shortfall", "shortfall_if_breach", "util_p50", "util_p90"}}
+	tb := (&Table{Head: []string{"scenario", "period", "mean", "p5", "p10", "p50", "p90", "p95", "capacity", "p_breach",
+		"expected_shortfall", "shortfall_if_breach", "util_p50", "util_p90"}}).Typed(kindsOf([]Kind{Label, Label}, riskKinds)...)
 	if r.Frozen != nil {
 		tb.Head = append(tb.Head, "production", "stock", "stock_at_p50_demand", "stock_at_p90_demand", "p_short", "idle", "overload")
+		tb.Kinds = append(tb.Kinds, frozenKinds...)
 	}
 	for s, rk := range r.Risks {
 		for t, pr := range rk.Periods {
-			row := []string{rk.Name, r.Plan.Periods[t].String(), CSVNum(pr.Mean, 2), CSVNum(pr.P5, 2), CSVNum(pr.P10, 2),
-				CSVNum(pr.P50, 2), CSVNum(pr.P90, 2), CSVNum(pr.P95, 2), CSVNum(pr.Capacity, 2), CSVNum(pr.PBreach, 4),
-				CSVNum(pr.ExpectedShortfall, 2), CSVNum(pr.ShortfallIfBreach, 2), CSVNum(pr.UtilP50, 4), CSVNum(pr.UtilP90, 4)}
+			row := append([]string{rk.Name, r.Plan.Periods[t].String()}, stressCells(pr)...)
 			if r.Frozen != nil {
-				fz := r.Frozen[s]
-				row = append(row, CSVNum(fz.Production[t], 2), CSVNum(fz.Stock[t], 2), CSVNum(fz.StockP50[t], 2),
-					CSVNum(fz.StockP90[t], 2), CSVNum(fz.PShort[t], 4), CSVNum(fz.Idle[t], 2), CSVNum(fz.Overload[t], 2))
+				row = append(row, frozenCells(&r.Frozen[s], t)...)
 			}
 			tb.AddRow(row...)
 		}
 	}
 	return tb
 }
+
+// riskKinds are the kinds of stress.csv's columns from mean to util_p90,
+// and frozenKinds those of its frozen-production columns.
+var (
+	riskKinds   = []Kind{Quantity, Quantity, Quantity, Quantity, Quantity, Quantity, Quantity, Share, Quantity, Quantity, Share, Share}
+	frozenKinds = []Kind{Quantity, Quantity, Quantity, Quantity, Share, Quantity, Quantity}
+)
 
 // writeStressText writes the text report of a stress run.
 func writeStressText(w *Text, r *supply.StressRun, notes []string) {
@@ -170,4 +169,21 @@ func writeStressScenario(w *Text, r *supply.StressRun, s int) {
 	}
 	fmt.Fprintf(w, "Expected shortfall over the plan: %s%s; P(demand above capacity in at least one period): %s\n",
 		wholeNum(rk.TotalExpectedShortfall), unitsSuffix(p.File.Units), PctText(rk.PAnyBreach))
+}
+
+// stressCells returns the CSV cells of one period's risk: mean, P5 to
+// P95, capacity, P(breach), expected shortfall, shortfall if breach and
+// the P50 and P90 utilisation.
+func stressCells(pr supply.PeriodRisk) []string {
+	return []string{CSVNum(pr.Mean, 2), CSVNum(pr.P5, 2), CSVNum(pr.P10, 2),
+		CSVNum(pr.P50, 2), CSVNum(pr.P90, 2), CSVNum(pr.P95, 2), CSVNum(pr.Capacity, 2), CSVNum(pr.PBreach, 4),
+		CSVNum(pr.ExpectedShortfall, 2), CSVNum(pr.ShortfallIfBreach, 2), CSVNum(pr.UtilP50, 4), CSVNum(pr.UtilP90, 4)}
+}
+
+// frozenCells returns the CSV cells of period t of a stock projection:
+// production, stock, stock at P50 and P90 demand, P(short), idle and
+// overload.
+func frozenCells(fz *supply.StockProjection, t int) []string {
+	return []string{CSVNum(fz.Production[t], 2), CSVNum(fz.Stock[t], 2), CSVNum(fz.StockP50[t], 2),
+		CSVNum(fz.StockP90[t], 2), CSVNum(fz.PShort[t], 4), CSVNum(fz.Idle[t], 2), CSVNum(fz.Overload[t], 2)}
 }

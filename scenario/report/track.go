@@ -31,7 +31,7 @@ type Track struct {
 func ForTrack(t Track) *Report {
 	control, signal := trackCharts(t)
 	r := &Report{Name: "track", NoJSONFile: true, Warnings: t.Warnings, Doc: trackDoc(t), CSV: trackCSV(t),
-		Charts: []Chart{{Name: "control", Plot: control}, {Name: "signal", Plot: signal}}}
+		Charts: []Chart{{Name: "control", Plot: control}, {Name: "signal", Plot: signal}}, MoreTables: trackTables(t)}
 	trackText(&r.Text, t)
 	return r
 }
@@ -42,7 +42,7 @@ func ForTrack(t Track) *Report {
 // two decimals, the signal and the sigmas four.
 func trackCSV(t Track) *Table {
 	tr := t.Tracking
-	tb := &Table{Head: slices.Clone(trackHead)}
+	tb := (&Table{Head: slices.Clone(trackHead)}).Typed(trackKinds...)
 	for i := range tr.Points {
 		tb.AddRow(trackRow(tr, i)...)
 	}

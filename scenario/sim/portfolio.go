@@ -69,8 +69,10 @@ func TotalOf(pf *plan.Portfolio) Sum {
 // The series end in the same period but may start apart. A series' errors
 // are those of its last N_s periods with a finite one-step error (its
 // window, counted back from the end), centred; s2 is their mean square.
-// The period drawn is a lag j back from the end, uniform over the longest
-// window (N_max periods), with a second uniform number v: a series whose
+// The period drawn is a lag j back from the end, uniform over the N_max
+// periods the longest selected history covers (Portfolio.Span: fixed by
+// the file, not by the series of the run), with a second uniform number
+// v: a series whose
 // window holds lag j takes that period's error, and a shorter one takes
 // the error at lag floor(v N_s) of its own window. Each series thus
 // resamples its own errors uniformly, and any two series share the
@@ -96,19 +98,19 @@ func TotalOf(pf *plan.Portfolio) Sum {
 // then the uniform v; the draws of each event come from ("event", its id,
 // b), two uniform numbers per path as in Simulation. So the random
 // numbers depend on the seed, the path and the event only, and the lags
-// drawn on the longest window: a series' paths do not depend on which
-// other series are in the run as long as the longest window stays the
-// same (the usual case of series over the same periods).
+// drawn on N_max, which the file fixes: a series' paths do not depend on
+// which other series of the file are in the run.
 type PortfolioSimulation struct {
 	// Portfolio is the portfolio simulated.
 	Portfolio *plan.Portfolio
 	// Paths and Seed are the settings used.
 	Paths int
 	Seed  uint64
-	// Window is N_max, the longest window of one-step errors (in
-	// periods, back from the end of the history), and Fitted the number
-	// of series with a baseline, whose errors are drawn; both zero when no
-	// series has a baseline.
+	// Window is N_max, the number of periods the lags are drawn over:
+	// Portfolio.Span, the reach of the longest history history.series
+	// selects (or the longest window of errors, if longer), and Fitted
+	// the number of series with a baseline, whose errors are drawn; both
+	// zero when no series has a baseline.
 	Window, Fitted int
 	// Sums are the sums followed, in the order given.
 	Sums []Sum
@@ -175,7 +177,7 @@ func SimulatePortfolio(pf *plan.Portfolio, sums []Sum, opt SimOptions) (*Portfol
 			ps.Scenarios[k] = append(ps.Scenarios[k], &PathSet{Name: s.Name, Demand: matrix(H, n), Spread: make([]Spread, H)})
 		}
 	}
-	run := &portfolioRun{ps: ps, draws: draws, ids: ids, H: H, K: K}
+	run := &portfolioRun{ps: ps, draws: draws, ids: ids, H: H, K: K, tick: opt.Progress.Counter((n + StreamBlock - 1) / StreamBlock)}
 	run.draw(opt.Workers)
 	var all []*PathSet
 	for _, row := range ps.Scenarios {
@@ -207,6 +209,9 @@ func (ps *PortfolioSimulation) prepare(workers int) ([]string, []seriesDraw, err
 		}
 		ps.Window = max(ps.Window, len(cols[i]))
 		ps.Fitted++
+	}
+	if ps.Fitted > 0 {
+		ps.Window = max(ps.Window, pf.Span)
 	}
 	var ids []string
 	index := map[string]int{}
@@ -321,6 +326,7 @@ type portfolioRun struct {
 	draws []seriesDraw
 	ids   []string
 	H, K  int
+	tick  func() // after each block of paths
 	// The block being drawn: the lag j and the uniform v of each path and
 	// period (path-major), and each event's two uniform numbers per path.
 	lag      []int
@@ -383,6 +389,7 @@ func (r *portfolioRun) draw(workers int) {
 				}
 			}
 		}
+		r.tick()
 	}
 }
 

@@ -93,12 +93,16 @@ func TestPortfolioCorrelation(t *testing.T) {
 
 // TestPortfolioWindows checks how series of different lengths share their
 // errors: series c has the history of a from its 25th month only, so its
-// 24 one-step errors are a's last 24. The lag drawn is uniform over a's 48;
-// when it falls in c's 24 both take the same error, otherwise c resamples
-// its own. So c's paths keep the variance of its bands (within 5 %), and
-// the errors of a and c in the first month are correlated by
-// P(lag < 24) = 24/48 = 1/2 (their errors have the same spread): within
-// 0.05 with 20,000 paths (standard error about 0.006).
+// 24 one-step errors are a's last 24. The lag drawn is uniform over the 49
+// months of a's history (Portfolio.Span; a has 48 errors, the naive
+// method making no prediction for the first month); when it falls in c's
+// 24 both take the same error, otherwise c resamples its own. So c's
+// paths keep the variance of its bands (within 5 %), and the errors of a
+// and c in the first month are correlated by P(lag < 24) = 24/49 (their
+// errors have the same spread; the rare draws where both resample add
+// little): within 0.05 with 20,000 paths (standard error about 0.006).
+// The plan's variance of the sum, worked out by forecast.SumVariance on the
+// same model, matches the simulated total's within 5 %.
 func TestPortfolioWindows(t *testing.T) {
 	c := append([]float64(nil), walshA...)
 	for i := range 24 {
@@ -106,8 +110,8 @@ func TestPortfolioWindows(t *testing.T) {
 	}
 	pf := testplan.Portfolio(t, []string{"milk/a", "milk/c"}, [][]float64{walshA, c}, "")
 	mc := simulatePortfolio(t, pf, []Sum{one("a", 0), one("c", 1)}, SimOptions{Paths: 20000, Seed: 13})
-	if mc.Window != 48 || mc.Fitted != 2 {
-		t.Fatalf("window %d, fitted %d; want 48 and 2", mc.Window, mc.Fitted)
+	if mc.Window != 49 || mc.Fitted != 2 {
+		t.Fatalf("window %d, fitted %d; want 49 and 2", mc.Window, mc.Fitted)
 	}
 	a, cc := mc.Scenarios[0][0], mc.Scenarios[0][1]
 	for h := range cc.Demand {
@@ -122,8 +126,20 @@ func TestPortfolioWindows(t *testing.T) {
 		cov += (ra[i] - ma) * (rc[i] - mcc)
 	}
 	cov /= float64(len(ra))
-	if r := cov / math.Sqrt(pathVar(a, 0)*pathVar(cc, 0)); math.Abs(r-0.5) > 0.05 {
-		t.Errorf("correlation of a and c in month 1: %.3f, want 0.5", r)
+	if r := cov / math.Sqrt(pathVar(a, 0)*pathVar(cc, 0)); math.Abs(r-24.0/49) > 0.05 {
+		t.Errorf("correlation of a and c in month 1: %.3f, want 24/49 = %.3f", r, 24.0/49)
+	}
+	// The plan's band of the sum (forecast.SumVariance) rests on the same
+	// model: the simulated total has its variance, within 5 %.
+	rs, err := pf.Rollups(pf.Plans[0].Scenarios[0].Name)
+	if err != nil {
+		t.Fatal(err)
+	}
+	tot := simulatePortfolio(t, pf, []Sum{TotalOf(pf)}, SimOptions{Paths: 20000, Seed: 13}).Scenarios[0][0]
+	for h := range tot.Demand {
+		if v, want := pathVar(tot, h), rs[0].Var[h]; math.Abs(v/want-1) > 0.05 {
+			t.Errorf("period %d: variance of the simulated total %v, the plan's %v", h, v, want)
+		}
 	}
 }
 
@@ -195,6 +211,15 @@ func TestPortfolioStreams(t *testing.T) {
 	alone := simulatePortfolio(t, other, []Sum{one("a", 0)}, SimOptions{Paths: 3000, Seed: 11})
 	if !reflect.DeepEqual(alone.Scenarios[0][0].Demand, ref.Scenarios[0][0].Demand) {
 		t.Error("series a's paths depend on the other series of the run")
+	}
+	cut := append([]float64(nil), walshB...)
+	for i := range 30 {
+		cut[i] = math.NaN()
+	}
+	withShort := testplan.Portfolio(t, []string{"milk/a", "milk/s"}, [][]float64{walshA, cut}, "")
+	got := simulatePortfolio(t, withShort, []Sum{one("a", 0)}, SimOptions{Paths: 3000, Seed: 11})
+	if !reflect.DeepEqual(got.Scenarios[0][0].Demand, ref.Scenarios[0][0].Demand) {
+		t.Error("series a's paths depend on a shorter series beside it")
 	}
 }
 

@@ -85,6 +85,9 @@ type SimOptions struct {
 	// (GOMAXPROCS). The results are the same, bit for bit, whatever the
 	// number of workers.
 	Workers int
+	// Progress, when not nil, is told of each block of StreamBlock paths
+	// drawn (see forecast.Progress); it does not change the paths.
+	Progress forecast.Progress
 }
 
 // A Simulation holds sample paths of the demand of every scenario of a
@@ -344,8 +347,14 @@ func Simulate(p *plan.Plan, opt SimOptions) (*Simulation, error) {
 	s.Error = matrix(H, n)
 	s.Amount = matrix(len(p.Future), n)
 	d := s.newDraws(pool, resp)
-	inParallel(opt.Workers, (n+StreamBlock-1)/StreamBlock, func() func(int) {
-		return d.worker().block
+	blocks := (n + StreamBlock - 1) / StreamBlock
+	tick := opt.Progress.Counter(blocks)
+	inParallel(opt.Workers, blocks, func() func(int) {
+		w := d.worker()
+		return func(b int) {
+			w.block(b)
+			tick()
+		}
 	})
 	s.scenarioPaths(opt.Workers)
 	return s, nil
