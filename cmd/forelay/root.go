@@ -109,6 +109,7 @@ the applicable reliability standards, local codes and licensed practice.`,
 		newCmdCompare(f, nil),
 		newCmdTrack(f, nil),
 		newCmdSchema(f, nil),
+		newCmdReport(f, nil),
 	)
 	registerCompletions(root)
 	return root

@@ -26,8 +26,11 @@ type simFlags struct {
 // reproducible by default.
 const defaultSeed = 1
 
-func (s *simFlags) register(fl *pflag.FlagSet) {
-	fl.Var(newCountValue(&s.Paths, sim.DefaultPaths), "paths", fmt.Sprintf("number of Monte Carlo sample paths, at least %d; 2e5 is read as 200000", sim.MinPaths))
+func (s *simFlags) register(fl *pflag.FlagSet) { s.registerWith(fl, sim.DefaultPaths) }
+
+// registerWith registers the flags with paths as the default of --paths.
+func (s *simFlags) registerWith(fl *pflag.FlagSet, paths int) {
+	fl.Var(newCountValue(&s.Paths, paths), "paths", fmt.Sprintf("number of Monte Carlo sample paths, at least %d; 2e5 is read as 200000", sim.MinPaths))
 	fl.Uint64Var(&s.Seed, "seed", defaultSeed, "seed of the random streams; the same seed gives the same results")
 	fl.StringVar(&s.Errors, "errors", "bootstrap", "forecast errors: bootstrap (resample the in-sample one-step errors) or normal")
 	fl.Var(&givenInt{n: &s.Workers, given: &s.WorkersGiven}, "workers", "Monte Carlo blocks drawn at once, at least 1 (default: one per core); the results are the same for any number")

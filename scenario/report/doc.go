@@ -11,4 +11,8 @@
 // workbook, its cells typed by each table's column Kinds) are its
 // writers, and a new output format (HTML) is one more writer of Report. ForPlan, Stress, Buffer, Compare, ForTrack, Fits and Check
 // build the reports of the commands.
+//
+// A Book binds the reports of one plan (ForHandover, ForPortfolioHandover)
+// into one document for "forelay report", and Book.HTML writes it as one
+// self-contained HTML page laid out for A4 or Letter.
 package report

@@ -49,7 +49,7 @@ func writeScenarioHeading(t *Text, name string, ids []string) {
 		evs = "events: " + strings.Join(ids, ", ")
 	}
 	fmt.Fprintln(t)
-	fmt.Fprintf(t, "Scenario %s (%s)\n", name, evs)
+	t.Heading(fmt.Sprintf("Scenario %s (%s)", name, evs))
 }
 
 // writeNotesAndCaution writes the notes, a blank line first, one "Note: ...." line
@@ -62,7 +62,7 @@ func writeNotesAndCaution(t *Text, notes []string) {
 		}
 	}
 	fmt.Fprintln(t)
-	fmt.Fprintln(t, Caution)
+	t.caution()
 }
 
 // PeriodLabels returns the labels of the plan's periods, the x labels of

@@ -49,6 +49,10 @@ type Report struct {
 type Chart struct {
 	Name string
 	Plot Plotter
+	// Caption says in a sentence what the chart shows, for a document
+	// that prints it under the chart and gives it as the chart's text
+	// alternative; empty uses the chart's title.
+	Caption string
 }
 
 // Plotter is anything that lays out a gonum plot: the chart types of
