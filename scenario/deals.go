@@ -186,8 +186,8 @@ func (d *decoder) dealRows(rows *data.Rows) ([]dealRow, bool) {
 			if text == "" {
 				continue
 			}
-			if i >= len(header) {
-				d.fail(pos(i), "", ErrValue, "a cell beyond the header's %d columns; give the column a name, or empty the cell", len(header))
+			if i >= len(header) || header[i] == "" {
+				d.fail(pos(i), "", ErrValue, "a cell in column %d, which the header does not name; give the column a name, or empty the cell", i+1)
 				return nil, false
 			}
 			r.cells[header[i]] = dealCell{text: text, at: pos(i)}
