@@ -1,6 +1,7 @@
 package main
 
 import (
+	"fmt"
 	"os"
 	"testing"
 	"time"
@@ -15,6 +16,13 @@ func TestMain(m *testing.M) {
 	testscript.Main(m, map[string]func(){
 		"forelay": func() {
 			os.Exit(run(os.Args[1:], &IOStreams{In: os.Stdin, Out: os.Stdout, ErrOut: os.Stderr}, fixedNow))
+		},
+		// forelay-code runs forelay and ends its standard error with
+		// "exit code N", exiting 0, so that a script can check the code.
+		"forelay-code": func() {
+			code := run(os.Args[1:], &IOStreams{In: os.Stdin, Out: os.Stdout, ErrOut: os.Stderr}, fixedNow)
+			fmt.Fprintf(os.Stderr, "exit code %d\n", code)
+			os.Exit(0)
 		},
 	})
 }
