@@ -12,7 +12,9 @@
 // (2026-Q1) or years (2026). Every value is a plain decimal number
 // (ParseDecimal); an empty cell is a missing value, filled only when asked
 // (FillMode). Every problem is a *ParseError with the file, the 1-based
-// line and column and the column name, wrapping one of the sentinel errors.
+// line and column (in a workbook: the sheet, row and column, printed as a
+// cell name such as C14) and the column name, wrapping one of the sentinel
+// errors.
 // Readers are bounded (BoundedReader) so that a wrong file ends in an error
 // rather than a run that exhausts memory.
 package data
