@@ -98,24 +98,43 @@ func Measure(actual, predicted []float64, scale float64, div Divisor) Accuracy {
 	if len(actual) != len(predicted) {
 		panic(fmt.Sprintf("forecast: Measure: %d actuals but %d predictions", len(actual), len(predicted)))
 	}
-	a := Accuracy{Divisor: div}
-	var sumAbs, sumSq, sum, sumPct float64
+	var s accuracySums
 	for i, y := range actual {
-		f := predicted[i]
-		if math.IsNaN(y) || math.IsNaN(f) {
-			continue
-		}
-		e := y - f
-		a.N++
-		sumAbs += math.Abs(e)
-		sumSq += e * e
-		sum += e
-		if y == 0 {
-			a.MAPESkipped++
-		} else {
-			sumPct += math.Abs(e / y)
-		}
+		s.add(y, predicted[i])
 	}
+	return s.accuracy(scale, div)
+}
+
+// accuracySums accumulates the sums behind Measure pair by pair, so that a
+// caller holding its pairs elsewhere (a backtest's forecasts) needs no
+// copy of them: adding the pairs in Measure's order gives Measure's
+// result, bit for bit.
+type accuracySums struct {
+	n, skipped                 int
+	sumAbs, sumSq, sum, sumPct float64
+}
+
+// add takes in one pair; a pair where either side is NaN is skipped.
+func (s *accuracySums) add(y, f float64) {
+	if math.IsNaN(y) || math.IsNaN(f) {
+		return
+	}
+	e := y - f
+	s.n++
+	s.sumAbs += math.Abs(e)
+	s.sumSq += e * e
+	s.sum += e
+	if y == 0 {
+		s.skipped++
+	} else {
+		s.sumPct += math.Abs(e / y)
+	}
+}
+
+// accuracy returns the measures of the pairs taken in (see Measure).
+func (s *accuracySums) accuracy(scale float64, div Divisor) Accuracy {
+	a := Accuracy{Divisor: div, N: s.n, MAPESkipped: s.skipped}
+	sumAbs, sumSq, sum, sumPct := s.sumAbs, s.sumSq, s.sum, s.sumPct
 	nan := math.NaN()
 	if a.N == 0 {
 		a.MAD, a.MSE, a.RMSE, a.MAPE, a.MASE, a.Bias, a.TrackingSignal = nan, nan, nan, nan, nan, nan, nan

@@ -40,20 +40,34 @@ func selectionErrors(cands []Candidate, metric Metric, onlyCombination bool) [][
 	if O < 2 {
 		return nil
 	}
-	out := make([][]float64, 0, O-1)
+	// The rows are copied into one backing array: a row taken as it is
+	// would keep the whole backtest of its method alive in the Result.
+	total := 0
+	rows := make([][]float64, 0, O-1)
+	scores := make([]float64, len(singles))
+	order := make([]int, 0, len(singles))
 	for i := 1; i < O; i++ {
-		out = append(out, chooseAt(singles, i, metric, onlyCombination))
+		row := chooseAt(singles, i, metric, onlyCombination, scores, order)
+		rows = append(rows, row)
+		total += len(row)
 	}
-	return out
+	all := make([]float64, 0, total)
+	for j, row := range rows {
+		start := len(all)
+		all = append(all, row...)
+		rows[j] = all[start:len(all):len(all)]
+	}
+	return rows
 }
 
 // chooseAt returns the errors at origin i of the forecast chosen with the
-// errors known at i (see selectionErrors).
-func chooseAt(singles []*Backtest, i int, metric Metric, onlyCombination bool) []float64 {
-	scores := make([]float64, len(singles))
-	order := make([]int, 0, len(singles))
+// errors known at i (see selectionErrors): a row of a single method's
+// errors, or a new row for the combination. scores (as long as singles)
+// and order (room for as many) are work space.
+func chooseAt(singles []*Backtest, i int, metric Metric, onlyCombination bool, scores []float64, order []int) []float64 {
+	order = order[:0]
 	for s, bt := range singles {
-		scores[s] = knownScore(bt.Forecasts, bt.Errors, nil, i, metric) * FewOriginsFactor(bt.Origins)
+		scores[s] = knownScore(bt.Forecasts, bt.Errors, nil, nil, i, metric) * FewOriginsFactor(bt.Origins)
 		if !math.IsNaN(scores[s]) {
 			order = append(order, s)
 		}
@@ -63,10 +77,9 @@ func chooseAt(singles []*Backtest, i int, metric Metric, onlyCombination bool) [
 	}
 	sort.SliceStable(order, func(a, b int) bool { return scores[order[a]] < scores[order[b]] })
 	top := order[:min(CombineK, len(order))]
-	combined := meanForecasts(singles, top)
 	best := singles[order[0]]
 	if !onlyCombination && len(top) > 1 {
-		comb := knownScore(best.Forecasts, best.Errors, combined, i, metric)
+		comb := knownScore(best.Forecasts, best.Errors, singles, top, i, metric)
 		if !(comb < scores[order[0]]) {
 			return best.Errors[i]
 		}
@@ -78,44 +91,36 @@ func chooseAt(singles []*Backtest, i int, metric Metric, onlyCombination bool) [
 	// the actual being the best single method's forecast plus its error.
 	row := make([]float64, len(best.Errors[i]))
 	for k := range row {
-		row[k] = best.Forecasts[i][k] + best.Errors[i][k] - combined[i][k]
+		row[k] = best.Forecasts[i][k] + best.Errors[i][k] - meanAt(singles, top, i, k)
 	}
 	return row
 }
 
-// meanForecasts returns, origin by origin and lead by lead, the mean of
-// the forecasts of the singles at the indices top.
-func meanForecasts(singles []*Backtest, top []int) [][]float64 {
-	first := singles[top[0]]
-	out := make([][]float64, len(first.Forecasts))
-	for j, row := range first.Forecasts {
-		out[j] = make([]float64, len(row))
-		for k := range row {
-			sum := 0.0
-			for _, s := range top {
-				sum += singles[s].Forecasts[j][k]
-			}
-			out[j][k] = sum / float64(len(top))
-		}
+// meanAt returns the mean of the forecasts of the singles at the indices
+// top, made at origin j for lead time k+1 (summed in the order of top).
+func meanAt(singles []*Backtest, top []int, j, k int) float64 {
+	sum := 0.0
+	for _, s := range top {
+		sum += singles[s].Forecasts[j][k]
 	}
-	return out
+	return sum / float64(len(top))
 }
 
 // knownScore returns the metric over the errors known at origin i: those
-// of origins j < i at lead times k+1 with j + k < i. With alt nil the
+// of origins j < i at lead times k+1 with j + k < i. With top nil the
 // errors are errs; otherwise they are the actuals (forecasts plus errors)
-// minus alt's forecasts. MAD and MASE (a fixed scale apart) rank by the
+// minus the mean forecasts of the singles at the indices top (meanAt). MAD and MASE (a fixed scale apart) rank by the
 // mean absolute error, MSE by the mean square and MAPE by the mean
 // absolute percentage error (zero actuals left out). It returns NaN when
 // no error is known.
-func knownScore(fc, errs, alt [][]float64, i int, metric Metric) float64 {
+func knownScore(fc, errs [][]float64, singles []*Backtest, top []int, i int, metric Metric) float64 {
 	sum, n := 0.0, 0
 	for j := 0; j < i; j++ {
 		for k := 0; k < len(errs[j]) && j+k < i; k++ {
 			e := errs[j][k]
 			actual := fc[j][k] + e
-			if alt != nil {
-				e = actual - alt[j][k]
+			if top != nil {
+				e = actual - meanAt(singles, top, j, k)
 			}
 			if math.IsNaN(e) {
 				continue

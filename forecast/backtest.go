@@ -111,9 +111,10 @@ func scoreForecasts(bt *Backtest, y []float64, maxH, season int, div Divisor) {
 	for _, f := range bt.Forecasts {
 		total += len(f)
 	}
-	// One backing array for the error rows and one for each list.
+	// One backing array for the error rows; the accuracy is summed as the
+	// pairs go (Measure's sums, in Measure's order).
 	all := make([]float64, total)
-	act, pred := make([]float64, 0, total), make([]float64, 0, total)
+	var sums accuracySums
 	oneStep := make([]float64, 0, len(bt.Forecasts))
 	for i, f := range bt.Forecasts {
 		o := bt.Train + i
@@ -130,7 +131,7 @@ func scoreForecasts(bt *Backtest, y []float64, maxH, season int, div Divisor) {
 			if k == 0 {
 				oneStep = append(oneStep, e)
 			}
-			act, pred = append(act, y[o+k]), append(pred, f[k])
+			sums.add(y[o+k], f[k])
 		}
 		bt.Errors[i] = errs
 	}
@@ -141,7 +142,7 @@ func scoreForecasts(bt *Backtest, y []float64, maxH, season int, div Divisor) {
 			bt.HorizonMSE[k] = math.NaN()
 		}
 	}
-	bt.Accuracy = Measure(act, pred, MASEScale(y[:bt.Train], season), div)
+	bt.Accuracy = sums.accuracy(MASEScale(y[:bt.Train], season), div)
 	bt.Accuracy.TrackingSignal = math.NaN()
 	bt.Bias = BiasOf(oneStep)
 }

@@ -131,12 +131,24 @@ func (m *crostonModel) rate(z, p, alpha float64) float64 {
 // sse returns the in-sample one-step SSE for alpha, of the errors divided
 // by c (a power of two from dataScale, so that the squares neither
 // overflow nor underflow; the minimiser does not depend on c).
+//
+// It runs the recursion of run without storing the predictions, with the
+// same arithmetic in the same order.
 func (m *crostonModel) sse(y []float64, alpha, c float64) float64 {
-	pred, _, _ := m.run(y, alpha)
+	z, p := m.z0, m.p0
+	q := 0.0
 	s := 0.0
-	for t := m.first + 1; t < len(y); t++ {
-		e := (y[t] - pred[t]) / c
-		s += e * e
+	for t, v := range y {
+		if t > m.first {
+			e := (v - m.rate(z, p, alpha)) / c
+			s += e * e
+		}
+		q++
+		if v != 0 {
+			z += alpha * (v - z)
+			p += alpha * (q - p)
+			q = 0
+		}
 	}
 	return s
 }

@@ -142,7 +142,9 @@ func fitETS(y []float64, m Method, cfg Config) (Model, error) {
 	c := dataScale(y)
 	f := newETSFitter(sh, scaleBy(y, c), fixed)
 	par, init, nEst := f.fit()
-	if !(f.bestF < math.Inf(1)) {
+	ok := f.bestF < math.Inf(1)
+	f.release()
+	if !ok {
 		return nil, fmt.Errorf("%s: the fit failed: no smoothing parameters in their bounds give a finite in-sample error", m)
 	}
 	init.level *= c
@@ -152,17 +154,17 @@ func fitETS(y []float64, m Method, cfg Config) (Model, error) {
 			init.season[j] *= c
 		}
 	}
-	md := newETSModel(sh, par, init, y)
+	md, fitted := runETSModel(sh, par, init, y)
 	md.nEst = nEst
-	if err := md.checkFinite(); err != nil {
+	if err := md.checkFinite(fitted); err != nil {
 		return nil, fmt.Errorf("%s: the fit failed: %w", m, err)
 	}
 	return md, nil
 }
 
 // checkFinite returns an error if a parameter, a state or a fitted value
-// of the model is not finite.
-func (md *etsModel) checkFinite() error {
+// (of fitted, the model's one-step predictions) is not finite.
+func (md *etsModel) checkFinite(fitted []float64) error {
 	bad := func(v float64) bool { return math.IsNaN(v) || math.IsInf(v, 0) }
 	p := md.par
 	if bad(p.alpha) || bad(p.beta) || bad(p.gamma) || bad(p.phi) {
@@ -178,7 +180,7 @@ func (md *etsModel) checkFinite() error {
 			}
 		}
 	}
-	for i, v := range md.fitted {
+	for i, v := range fitted {
 		if bad(v) {
 			return fmt.Errorf("the one-step prediction at position %d is %v", i+1, v)
 		}
@@ -273,12 +275,16 @@ func etsCheckFixed(sh etsShape, fx Fixed) ([4]float64, error) {
 // with the seasonal state from before the last update; these follow the
 // recursion, as its ETSModel does.)
 type etsModel struct {
-	shape  etsShape
-	par    etsParams
-	init   etsStates // states at time 0
-	last   etsStates // states after the last observation
-	fitted []float64
-	nEst   int
+	shape etsShape
+	par   etsParams
+	init  etsStates // states at time 0
+	last  etsStates // states after the last observation
+	// y is the data the model was run over, the caller's (not copied),
+	// which must not change afterwards (as a Result's Series must not):
+	// Fitted runs the model over it again rather than keeping n
+	// predictions in every model a Result holds.
+	y    []float64
+	nEst int
 	// relVar is the mean squared relative one-step error (e_t/ŷ_t)², the σ²
 	// of the multiplicative-error reading used for the variance factors of
 	// the multiplicative season model.
@@ -286,9 +292,17 @@ type etsModel struct {
 }
 
 // newETSModel returns the model with the given parameters and initial
-// states run over y (fitted values and final states). It copies init. It
-// panics if the shape and the states disagree (programmer error).
+// states run over y (final states; Fitted runs it again for the fitted
+// values). It copies init, and keeps y. It panics if the shape and the
+// states disagree (programmer error).
 func newETSModel(sh etsShape, p etsParams, init etsStates, y []float64) *etsModel {
+	md, _ := runETSModel(sh, p, init, y)
+	return md
+}
+
+// runETSModel is newETSModel, returning also the one-step predictions of
+// the run.
+func runETSModel(sh etsShape, p etsParams, init etsStates, y []float64) (md *etsModel, fitted []float64) {
 	if len(init.season) != sh.season {
 		panic("forecast: seasonal states do not match the season length")
 	}
@@ -301,14 +315,15 @@ func newETSModel(sh etsShape, p etsParams, init etsStates, y []float64) *etsMode
 	if sh.season == 0 {
 		p.gamma = 0
 	}
-	md := &etsModel{shape: sh, par: p, init: init.clone(), fitted: make([]float64, len(y))}
+	md = &etsModel{shape: sh, par: p, init: init.clone(), y: y}
+	fitted = make([]float64, len(y))
 	md.last = init.clone()
-	etsRun(sh, p, &md.last, y, md.fitted)
+	etsRun(sh, p, &md.last, y, fitted)
 	if sh.mult {
 		var s float64
 		var k int
 		for i, v := range y {
-			if f := md.fitted[i]; !math.IsNaN(v) && f != 0 {
+			if f := fitted[i]; !math.IsNaN(v) && f != 0 {
 				r := (v - f) / f
 				s += r * r
 				k++
@@ -318,7 +333,7 @@ func newETSModel(sh etsShape, p etsParams, init etsStates, y []float64) *etsMode
 			md.relVar = s / float64(k)
 		}
 	}
-	return md
+	return md, fitted
 }
 
 // Method returns the method the model was fitted with.
@@ -360,8 +375,9 @@ func (md *etsModel) Describe() string {
 // normalisation).
 func (md *etsModel) NumParams() int { return md.nEst }
 
-// Fitted returns a copy of the one-step predictions ŷ_1..ŷ_n.
-func (md *etsModel) Fitted() []float64 { return append([]float64(nil), md.fitted...) }
+// Fitted returns the one-step predictions ŷ_1..ŷ_n, from a run of the
+// model over its data (the run that fitted it, so the same numbers).
+func (md *etsModel) Fitted() []float64 { return md.Filter(md.y) }
 
 // Forecast returns ŷ_{n+1}..ŷ_{n+h} from the states after the last
 // observation (formula on etsModel). It returns an empty slice

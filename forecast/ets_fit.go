@@ -1,6 +1,9 @@
 package forecast
 
-import "math"
+import (
+	"math"
+	"sync"
+)
 
 // Bounds of the estimated smoothing parameters (component form, see
 // ets.go). They are the usual region of HKOS (2008) for the innovations
@@ -110,6 +113,35 @@ type etsFitter struct {
 	// anchor, when not nil, is where every inner solve of a
 	// multiplicative season starts (see solveStates).
 	anchor []float64
+
+	// work backs the slices above (from etsWorkPool; see release).
+	work *[]float64
+}
+
+// etsWorkPool holds the work space of finished fits for the next ones: a
+// fit of a multiplicative season needs k*n numbers for its design, and a
+// portfolio runs several fits per series.
+var etsWorkPool sync.Pool
+
+// getETSWork returns a zeroed work space of size numbers, as make would.
+func getETSWork(size int) *[]float64 {
+	if w, ok := etsWorkPool.Get().(*[]float64); ok && cap(*w) >= size {
+		*w = (*w)[:size]
+		clear(*w)
+		return w
+	}
+	w := make([]float64, size)
+	return &w
+}
+
+// release hands the fitter's work space back to etsWorkPool. The fitter
+// must not be used after it; what it returned (result, grid points) does
+// not share the work space.
+func (f *etsFitter) release() {
+	if f.work != nil {
+		etsWorkPool.Put(f.work)
+		f.work = nil
+	}
 }
 
 // newETSFitter prepares the estimation of a model of shape sh on y (which
@@ -143,28 +175,42 @@ func newETSFitter(sh etsShape, y []float64, fixed [4]float64) *etsFitter {
 	}
 	f.k += f.m - 1
 	k, m := f.k, f.m
-	f.x = make([]float64, k)
-	f.seas = make([]float64, m)
-	f.dl = make([]float64, k)
-	f.db = make([]float64, k)
-	f.ds = make([]float64, m*k)
-	f.a = make([]float64, k*k)
-	f.a2 = make([]float64, k*k)
-	f.g = make([]float64, k)
-	f.xTry = make([]float64, k)
-	f.pds = make([]float64, m*4)
 	n := len(y)
-	f.ev = make([]float64, n)
-	if f.mult {
-		f.jm = make([]float64, k*n)
-	} else {
-		f.hl, f.hb, f.hs = make([]float64, n), make([]float64, n), make([]float64, n)
-		f.rp, f.rq, f.rg, f.rr = make([]float64, m), make([]float64, m), make([]float64, m), make([]float64, m*m)
-		if len(f.ds) < 3*m {
-			f.ds = make([]float64, 3*m)
-		}
+	nds := m * k
+	if !f.mult {
+		nds = max(nds, 3*m)
 	}
-	f.bestX = make([]float64, k)
+	size := 6*k + 2*k*k + m + nds + 4*m + n
+	if f.mult {
+		size += k * n
+	} else {
+		size += 3*n + 3*m + m*m
+	}
+	f.work = getETSWork(size)
+	w := *f.work
+	take := func(l int) []float64 {
+		s := w[:l:l]
+		w = w[l:]
+		return s
+	}
+	f.x = take(k)
+	f.seas = take(m)
+	f.dl = take(k)
+	f.db = take(k)
+	f.ds = take(nds)
+	f.a = take(k * k)
+	f.a2 = take(k * k)
+	f.g = take(k)
+	f.xTry = take(k)
+	f.pds = take(m * 4)
+	f.ev = take(n)
+	if f.mult {
+		f.jm = take(k * n)
+	} else {
+		f.hl, f.hb, f.hs = take(n), take(n), take(n)
+		f.rp, f.rq, f.rg, f.rr = take(m), take(m), take(m), take(m*m)
+	}
+	f.bestX = take(k)
 	f.bestF = math.Inf(1)
 	return f
 }
@@ -286,13 +332,18 @@ func (f *etsFitter) setParams(u []float64) {
 // (clamped into their bounds); it sets f.par on the way.
 func (f *etsFitter) freeFor(par [4]float64) []float64 {
 	u := make([]float64, len(f.free))
+	f.freeTo(u, par)
+	return u
+}
+
+// freeTo is freeFor writing the free variables into u (len(f.free) long).
+func (f *etsFitter) freeTo(u []float64, par [4]float64) {
 	for j, i := range f.free {
 		iv, _, _ := f.paramInterval(i)
 		v := math.Max(iv.lo, math.Min(iv.hi, par[i]))
 		u[j] = iv.toFree(v)
 		f.par[i], _ = iv.fromFree(u[j])
 	}
-	return u
 }
 
 // solveStates replaces f.x by the best initial states for the current

@@ -81,19 +81,25 @@ func (f *etsFitter) evalGrid() []gridPoint {
 		sh := f.sh
 		sh.mult = false
 		lin = newETSFitter(sh, f.y, f.fixed)
+		defer lin.release()
 		lin.initialStates()
 	}
-	var pts []gridPoint
+	vals := f.gridValues()
+	// Room for every grid point and the two tries of phi.
+	pts := make([]gridPoint, 0, len(vals[etsAlpha])*len(vals[etsBeta])*len(vals[etsGamma])*len(vals[etsPhi])+2)
+	// The points' free variables share one array, cut as they are kept.
+	us := make([]float64, cap(pts)*len(lin.free))
 	eval := func(par [4]float64, idx [4]int) {
-		u := lin.freeFor(par)
+		u := us[:len(lin.free):len(lin.free)]
+		lin.freeTo(u, par)
 		lin.setParams(u)
 		sse := lin.passStatesLinear()
 		pred, ok := lin.step()
 		if ok && sse < math.Inf(1) {
 			pts = append(pts, gridPoint{lin.par, idx, u, math.Max(sse-pred, 0)})
+			us = us[len(u):]
 		}
 	}
-	vals := f.gridValues()
 	for ia, a := range vals[etsAlpha] {
 		for ib, b := range vals[etsBeta] {
 			for ig, g := range vals[etsGamma] {
@@ -252,8 +258,9 @@ func (f *etsFitter) probe() bool {
 	x0 := append([]float64(nil), f.bestX...)
 	var cand, candX []float64
 	candF := best * (1 - 1e-6)
+	u := make([]float64, len(f.free)) // the point tried; cand keeps a copy
 	try := func(par [4]float64) {
-		u := f.freeFor(par)
+		f.freeTo(u, par)
 		copy(f.x, x0)
 		if f.mult {
 			f.anchor = append(f.anchor[:0], x0...)
@@ -264,13 +271,13 @@ func (f *etsFitter) probe() bool {
 		f.maxGN = 0
 		if v < candF {
 			candF = v
-			cand = u
+			cand = append(cand[:0], u...)
 			candX = append(candX[:0], f.x...)
 		}
 	}
 	// at returns par with free parameter q at fraction fr of its interval.
 	at := func(par [4]float64, q int, fr float64) [4]float64 {
-		f.freeFor(par) // sets f.par, on which gamma's interval depends
+		f.freeTo(u, par) // sets f.par, on which gamma's interval depends
 		iv, _, _ := f.paramInterval(f.free[q])
 		par[f.free[q]] = iv.lo + fr*(iv.hi-iv.lo)
 		return par

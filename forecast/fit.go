@@ -8,7 +8,9 @@ import (
 // FitMethod fits method m (not Auto, nor Combination, which Fit selects) to y. cfg.Season must be at least 1
 // (Spec resolves it from the frequency). It returns a *TooShortError when y
 // has fewer than MinPoints(m, cfg) values and an error for NaN values or
-// settings the method cannot use.
+// settings the method cannot use. The model may keep y without copying it
+// (an exponential smoothing model runs over it again for Fitted), so y must
+// not change while the model is in use.
 func FitMethod(y []float64, m Method, cfg Config) (Model, error) {
 	if cfg.Season < 1 {
 		cfg.Season = 1

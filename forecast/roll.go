@@ -30,7 +30,7 @@ type etsRoller struct{ md etsModel }
 func (md *etsModel) roller([]float64) roller {
 	r := &etsRoller{md: *md}
 	r.md.last = md.last.clone()
-	r.md.fitted = nil
+	r.md.y = nil
 	return r
 }
 

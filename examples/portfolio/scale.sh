@@ -1,7 +1,9 @@
 #!/usr/bin/env bash
 # Measures forelay plan on an invented portfolio of SERIES monthly series
 # (10,000 by default) of up to POINTS months (120 by default; method auto,
-# 18 months, two scoped events) and prints the wall time and peak memory.
+# 18 months, two scoped events) and prints the wall time, the processor
+# time (user and system: steadier than the wall time on a shared machine)
+# and the peak memory.
 # Usage, from the repository root:
 #
 #   bash examples/portfolio/scale.sh [SERIES] [WORKERS] [POINTS]
@@ -42,4 +44,4 @@ YAML
 /usr/bin/time -v "$dir/forelay" plan "$dir/plan.yaml" --out "$dir/out" --workers "$workers" \
   >/dev/null 2>"$dir/time.txt" || { grep -v '^warning' "$dir/time.txt" >&2; exit 1; }
 echo "forelay plan, $series series of up to $points months, $workers workers:"
-grep -E 'Elapsed|Maximum resident' "$dir/time.txt"
+grep -E 'User time|System time|Elapsed|Maximum resident' "$dir/time.txt"

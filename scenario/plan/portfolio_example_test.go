@@ -3,6 +3,7 @@ package plan
 import (
 	"path/filepath"
 	"reflect"
+	"runtime"
 	"strings"
 	"testing"
 
@@ -65,4 +66,28 @@ func BenchmarkBuildPortfolioExample(b *testing.B) {
 			b.Fatal(err)
 		}
 	}
+}
+
+// BenchmarkPortfolioKept plans the portfolio example as
+// BenchmarkBuildPortfolioExample does and reports the heap the portfolio
+// keeps, per plan, measured after a collection before and after the
+// build: what bounds the memory of a large portfolio (each plan keeps its
+// fit, with the backtest and the selection's errors its bands rest on).
+func BenchmarkPortfolioKept(b *testing.B) {
+	f, in := examplePortfolio(b)
+	kept := 0.0
+	for b.Loop() {
+		var before, after runtime.MemStats
+		runtime.GC()
+		runtime.ReadMemStats(&before)
+		pf, err := BuildPortfolio(f, in, 0)
+		if err != nil {
+			b.Fatal(err)
+		}
+		runtime.GC()
+		runtime.ReadMemStats(&after)
+		kept = (float64(after.HeapAlloc) - float64(before.HeapAlloc)) / float64(len(pf.Plans))
+		runtime.KeepAlive(pf)
+	}
+	b.ReportMetric(kept, "kept-B/plan")
 }
