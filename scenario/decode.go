@@ -136,11 +136,11 @@ func parse(r io.Reader, path string, l Limits) (*File, error) {
 // The keys allowed at each level, in the order the documentation gives
 // them (which is also the order "did you mean" prefers on a tie).
 var (
-	topKeys        = []string{"plan", "history", "horizon", "baseline", "bands", "units", "events", "scenarios", "capacity", "resources", "production"}
-	historyKeys    = []string{"file", "series", "key", "levels", "period", "fill"}
+	topKeys        = []string{"plan", "history", "horizon", "baseline", "bands", "units", "events", "events-file", "scenarios", "capacity", "resources", "production"}
+	historyKeys    = []string{"file", "series", "key", "levels", "period", "fill", "sheet", "decimal"}
 	baselineKeys   = []string{"method", "season", "metric", "select", "alpha", "beta", "gamma", "phi", "window", "weights", "dummies", "damped", "mse_divisor", "refit", "holdout"}
 	bandsKeys      = []string{"z", "coverage", "widen", "from", "floor"}
-	eventKeys      = []string{"id", "kind", "start", "end", "periods", "effect", "ramp", "probability", "range", "payback", "past", "scope", "note"}
+	eventKeys      = []string{"id", "kind", "start", "end", "periods", "effect", "ramp", "probability", "range", "payback", "past", "scope", "note", "owner"}
 	effectKeys     = []string{"units", "percent", "from", "split"}
 	rampKeys       = []string{"periods", "shape"}
 	rangeKeys      = []string{"low", "high"}
@@ -154,6 +154,7 @@ var (
 // The values allowed for the enumerated keys.
 var (
 	fillValues       = []string{"none", "zero", "interpolate"}
+	decimalValues    = []string{"point", "comma"}
 	metricValues     = []string{"mad", "mse", "mape", "mase"}
 	selectValues     = []string{"backtest", "aicc"}
 	divisorValues    = []string{"n-1", "n"}
@@ -177,18 +178,12 @@ type reporter struct {
 
 // fail records a problem at a position.
 func (r *reporter) fail(at Pos, field string, kind error, format string, args ...any) {
-	r.errs = append(r.errs, &data.ParseError{
-		File:   r.file,
-		Line:   at.Line,
-		Column: at.Column,
-		Field:  field,
-		Err:    &problem{kind: kind, msg: fmt.Sprintf(format, args...)},
-	})
+	r.failErr(at, field, &problem{kind: kind, msg: fmt.Sprintf(format, args...)})
 }
 
 // failErr records a problem whose error is already made.
 func (r *reporter) failErr(at Pos, field string, err error) {
-	r.errs = append(r.errs, &data.ParseError{File: r.file, Line: at.Line, Column: at.Column, Field: field, Err: err})
+	r.errs = append(r.errs, at.errorIn(r.file, field, err))
 }
 
 // given reports whether the value at a key path was decoded without error.
@@ -244,6 +239,10 @@ type decoder struct {
 	seenRes  map[string]int // resource id -> line of first use
 	refs     []caseRefs     // scenario event lists, linked after decoding
 	limits   Limits         // complete (see Limits.orDefaults)
+	// origin, when set, says that the nodes decoded were built from the
+	// cells of an events file: their Line and Column are the cell's, in
+	// origin's File and Sheet.
+	origin *Pos
 }
 
 // caseRefs are the event ids one scenario lists.
@@ -319,6 +318,10 @@ func (d *decoder) syntax(err error) {
 // parser counts columns in characters; this converts them to bytes.
 func (d *decoder) position(n *yaml.Node) Pos {
 	p := Pos{Line: n.Line, Column: n.Column}
+	if d.origin != nil {
+		p.File, p.Sheet = d.origin.File, d.origin.Sheet
+		return p
+	}
 	if n.Line < 1 || n.Line > len(d.lines) || n.Column < 1 {
 		return p
 	}
@@ -652,6 +655,7 @@ func (d *decoder) file(root *yaml.Node, f *File) {
 			}
 		}
 	}
+	d.eventsFileKey(m, f)
 	if items, ok := m.list("scenarios"); ok {
 		for i, n := range items {
 			d.scenario(n, i, f)
@@ -726,6 +730,8 @@ func (d *decoder) history(m *mapping, f *File) {
 		}
 	}
 	typed(m, "fill", "fill", fillValues, data.ParseFillMode, &h.Fill)
+	m.str("sheet", &h.Sheet)
+	typed(m, "decimal", "decimal mark", decimalValues, data.ParseDecimalMark, &h.Decimal)
 }
 
 // baseline decodes the baseline settings.
@@ -872,6 +878,7 @@ func (d *decoder) event(n *yaml.Node, i int) *Event {
 		d.scope(items, m, e)
 	}
 	m.str("note", &e.Note)
+	m.str("owner", &e.Owner)
 	return e
 }
 

@@ -7,10 +7,12 @@
 //
 //	plan: north-plant-2027     # required; the plan's name in outputs: a-z, 0-9 and '-', starting with a letter or digit
 //	history:                   # required; where the history comes from
-//	  file: history.csv        #   required; a history CSV, relative to the scenario file's directory
+//	  file: history.csv        #   required; a history CSV or workbook (.xlsx), relative to the scenario file's directory
 //	  series: bottled-l        #   the series to use; may be left out when the file holds one series
 //	  period: month            #   day, week, month, quarter or year; default: inferred from the labels
 //	  fill: none               #   gaps: none (gaps are errors), zero or interpolate; default none
+//	  sheet: demand            #   the sheet of a workbook; default the first
+//	  decimal: point           #   a CSV file's decimal mark: point or comma (12,5); default point
 //	horizon: 18                # required; periods to plan, at least 1
 //	baseline:                  # how the baseline is fitted (the options of the fit command)
 //	  method: auto             #   a method name (auto, naive, seasonal-naive, moving-average,
@@ -37,6 +39,8 @@
 //	                           #   a number, or none for no floor; default 0
 //	units: litres              # a label for tables and charts; default none
 //	events: [...]              # the events (see below)
+//	events-file: deals.xlsx    # more events from a table, CSV or workbook (see deals.go);
+//	                           # or {file: deals.csv, sheet: NAME, decimal: comma}
 //	scenarios: [...]           # named sets of events (see below)
 //	capacity:                  # a capacity limit per period
 //	  units: 540000            #   required; above 0
@@ -91,6 +95,7 @@
 //	    scope:                    # the series it moves (see below); default: the plan's only one
 //	      - {series: "milk/whole-1l/*"}
 //	    note: free text
+//	    owner: dairy sales        # who keeps the event, for reports
 //
 // An event needs an effect unless it lies wholly in the past (it is then
 // only cleaned out of the history) or it says from: past and lists past

@@ -11,10 +11,26 @@ import (
 // counts bytes. The zero Pos means "unknown" (a value built in code).
 type Pos struct {
 	Line, Column int
+	// File is the file the position is in when it is not the scenario
+	// file itself: the events file (File.EventsFile) for the events read
+	// from it. Empty means the scenario file.
+	File string
+	// Sheet names the sheet when File is a workbook; Line is then the row
+	// and Column the column (1 for A).
+	Sheet string
 }
 
 // String prints "line:column".
 func (p Pos) String() string { return fmt.Sprintf("%d:%d", p.Line, p.Column) }
+
+// errorIn returns err as a *data.ParseError at p, in file unless p names
+// its own file (an events file).
+func (p Pos) errorIn(file, field string, err error) *data.ParseError {
+	if p.File != "" {
+		file = p.File
+	}
+	return &data.ParseError{File: file, Sheet: p.Sheet, Line: p.Line, Column: p.Column, Field: field, Err: err}
+}
 
 // A File is a decoded and validated scenario file. Parse and Load fill
 // every default, so the zero values described on the fields only matter for
@@ -49,8 +65,19 @@ type File struct {
 	// means none.
 	Units string
 
-	// Events are the events in file order.
+	// Events are the events in file order: those of the events key, then
+	// those of the events file.
 	Events []*Event
+
+	// EventsFile is the table of events (a CSV file or a workbook) the
+	// file names under events-file, resolved against Dir; empty when
+	// none. Its events are in Events, their positions (Event.Pos and
+	// the positions of their values) in it.
+	EventsFile string
+	// EventsFormat is how the events file is read: the sheet of a
+	// workbook (empty: the first) and the decimal mark of a CSV file
+	// (events-file's sheet and decimal keys).
+	EventsFormat data.Format
 
 	// Scenarios are the scenarios the file names, in file order; nil
 	// when the file names none (see Cases).
@@ -105,6 +132,12 @@ type HistoryRef struct {
 	// Fill is what to do with gaps: data.FillNone (gaps are errors, the
 	// default), FillZero or FillInterpolate.
 	Fill data.FillMode
+	// Sheet names the sheet to read when the history is a workbook;
+	// empty reads the first one.
+	Sheet string
+	// Decimal is the decimal mark of a CSV history (data.DecimalComma
+	// for 12,5); data.DecimalPoint by default.
+	Decimal data.Decimal
 	// Pos is where the history key stands.
 	Pos Pos
 }
@@ -340,6 +373,9 @@ type Event struct {
 	Scope []ScopeEntry
 	// Note is free text.
 	Note string
+	// Owner names who keeps the event (a sales lead, say), for reports;
+	// empty when not given.
+	Owner string
 	// Pos is where the event's list item stands.
 	Pos Pos
 
@@ -443,8 +479,7 @@ func (f *File) ValueError(key string, at Pos, format string, args ...any) error 
 	if q, ok := f.pos[key]; ok {
 		at = q
 	}
-	return &data.ParseError{File: f.Path, Line: at.Line, Column: at.Column, Field: key,
-		Err: &problem{kind: ErrValue, msg: fmt.Sprintf(format, args...)}}
+	return at.errorIn(f.Path, key, &problem{kind: ErrValue, msg: fmt.Sprintf(format, args...)})
 }
 
 // Spec returns the forecast settings of the file's baseline block.
@@ -457,5 +492,5 @@ func (f *File) Spec() forecast.Spec {
 // ErrorAt returns err as a *data.ParseError at position p of the file,
 // naming field.
 func (f *File) ErrorAt(p Pos, field string, err error) error {
-	return &data.ParseError{File: f.Path, Line: p.Line, Column: p.Column, Field: field, Err: err}
+	return p.errorIn(f.Path, field, err)
 }

@@ -3,7 +3,6 @@ package scenario
 import (
 	"errors"
 	"fmt"
-	"forelay/scenario/data"
 	"strconv"
 
 	"forelay/forecast"
@@ -77,8 +76,7 @@ type lintNote struct {
 
 // warning prints a note the way errors are printed.
 func (f *File) warning(n *lintNote) string {
-	pe := &data.ParseError{File: f.Path, Line: n.at.Line, Column: n.at.Column, Field: n.field, Err: errors.New(n.msg)}
-	return pe.Error()
+	return n.at.errorIn(f.Path, n.field, errors.New(n.msg)).Error()
 }
 
 // place returns the position and key path of an event's key, or the

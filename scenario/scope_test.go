@@ -47,22 +47,22 @@ func TestParseScope(t *testing.T) {
 	exit, school := f.Events[0], f.Events[1]
 	// Positions are counted by hand in the text above: head has 3 lines,
 	// "events:" is line 4.
-	wantExit := []ScopeEntry{{Series: "*/*/grocer-north", Effect: &Effect{Percent: -100, IsPercent: true}, Pos: Pos{9, 9}}}
+	wantExit := []ScopeEntry{{Series: "*/*/grocer-north", Effect: &Effect{Percent: -100, IsPercent: true}, Pos: Pos{Line: 9, Column: 9}}}
 	if !reflect.DeepEqual(exit.Scope, wantExit) {
 		t.Errorf("grocer-exit scope %+v; want %+v", exit.Scope, wantExit)
 	}
 	if exit.Effect != (Effect{}) {
 		t.Errorf("grocer-exit effect %+v; want none", exit.Effect)
 	}
-	wantSchool := []ScopeEntry{{Series: "milk/whole-1l/*", Pos: Pos{16, 9}}, {Series: "milk/choc-250ml/schools", New: true, Effect: &Effect{Units: 2000}, Pos: Pos{17, 9}}}
+	wantSchool := []ScopeEntry{{Series: "milk/whole-1l/*", Pos: Pos{Line: 16, Column: 9}}, {Series: "milk/choc-250ml/schools", New: true, Effect: &Effect{Units: 2000}, Pos: Pos{Line: 17, Column: 9}}}
 	if !reflect.DeepEqual(school.Scope, wantSchool) {
 		t.Errorf("school-contract scope %+v; want %+v", school.Scope, wantSchool)
 	}
 	if want := (Effect{Units: 38000, Split: SplitBaseline}); school.Effect != want {
 		t.Errorf("school-contract effect %+v; want %+v", school.Effect, want)
 	}
-	wantRes := []Resource{{ID: "bottling-1", Series: "milk/**", PerUnit: 0.0012, Units: "line-hours", Pos: Pos{19, 5}, path: `resource "bottling-1": `,
-		Capacity: &Capacity{Units: 600, Pos: Pos{23, 15}, Changes: []CapacityChange{{From: f.Resources[0].Capacity.Changes[0].From, Units: 680, Pos: Pos{23, 38}}}}}}
+	wantRes := []Resource{{ID: "bottling-1", Series: "milk/**", PerUnit: 0.0012, Units: "line-hours", Pos: Pos{Line: 19, Column: 5}, path: `resource "bottling-1": `,
+		Capacity: &Capacity{Units: 600, Pos: Pos{Line: 23, Column: 15}, Changes: []CapacityChange{{From: f.Resources[0].Capacity.Changes[0].From, Units: 680, Pos: Pos{Line: 23, Column: 38}}}}}}
 	if !reflect.DeepEqual(f.Resources, wantRes) {
 		t.Errorf("resources %+v; want %+v", f.Resources, wantRes)
 	}

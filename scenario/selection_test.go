@@ -25,9 +25,9 @@ func TestParseSelection(t *testing.T) {
 		{"one name, as before", "{file: h.csv, series: milk/whole-1l}", "milk/whole-1l", nil, nil, nil},
 		// Positions: "history: " is 9 bytes, so the flow mapping opens at
 		// column 10 of line 2 and each value's column is counted from there.
-		{"one pattern", "{file: h.csv, series: 'milk/**'}", "", []Selector{{"milk/**", Pos{2, 32}}}, nil, nil},
+		{"one pattern", "{file: h.csv, series: 'milk/**'}", "", []Selector{{"milk/**", Pos{Line: 2, Column: 32}}}, nil, nil},
 		{"a list", "{file: h.csv, series: [milk/whole-1l, '*/skim-*']}", "",
-			[]Selector{{"milk/whole-1l", Pos{2, 33}}, {"*/skim-*", Pos{2, 48}}}, nil, nil},
+			[]Selector{{"milk/whole-1l", Pos{Line: 2, Column: 33}}, {"*/skim-*", Pos{Line: 2, Column: 48}}}, nil, nil},
 		{"key and levels", "{file: h.csv, key: [family, product], levels: [family, product]}", "", nil,
 			[]string{"family", "product"}, []string{"family", "product"}},
 		{"key trimmed", "{file: h.csv, key: [' Family ']}", "", nil, []string{"Family"}, nil},

@@ -13,8 +13,8 @@ import (
 // names: scenario names, event ids and resource ids read from the
 // scenario file on the command line, method names from the engine; and
 // the files and folders of the arguments and flags that take them: a
-// scenario file (*.yaml, *.yml) for FILE, a CSV for --history and
-// --actuals, a folder for --out and --plan. It walks the commands, so a
+// scenario file (*.yaml, *.yml) for FILE, a CSV file or workbook for
+// --history and --actuals, a folder for --out and --plan. It walks the commands, so a
 // new command gets the same completions by naming its flags and its
 // argument alike.
 func registerCompletions(root *cobra.Command) {
@@ -32,12 +32,15 @@ func registerCompletions(root *cobra.Command) {
 		if c.Flags().Lookup("method") != nil {
 			c.RegisterFlagCompletionFunc("method", cobra.FixedCompletions(forecast.Methods(), cobra.ShellCompDirectiveNoFileComp))
 		}
+		if c.Flags().Lookup("decimal") != nil {
+			c.RegisterFlagCompletionFunc("decimal", cobra.FixedCompletions([]string{"point", "comma"}, cobra.ShellCompDirectiveNoFileComp))
+		}
 	}
 }
 
 // fileCompletions completes the file and folder arguments of c: the
-// scenario file of a command whose usage names FILE, CSV files for the
-// flags that read one, folders for those that name one.
+// scenario file of a command whose usage names FILE, CSV files and
+// workbooks for the flags that read one, folders for those that name one.
 func fileCompletions(c *cobra.Command) {
 	if strings.Contains(c.Use, " FILE") && c.ValidArgsFunction == nil {
 		c.ValidArgsFunction = func(cmd *cobra.Command, args []string, prefix string) ([]string, cobra.ShellCompDirective) {
@@ -49,7 +52,7 @@ func fileCompletions(c *cobra.Command) {
 	}
 	for _, name := range []string{"history", "actuals"} {
 		if c.Flags().Lookup(name) != nil {
-			c.MarkFlagFilename(name, "csv")
+			c.MarkFlagFilename(name, "csv", "xlsx")
 		}
 	}
 	for _, name := range []string{"out", "plan"} {

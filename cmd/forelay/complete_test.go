@@ -43,8 +43,9 @@ func TestCompletions(t *testing.T) {
 		{"methods", []string{"fit", "--method", "holt"}, []string{"holt", "holt-winters-additive"}, cobra.ShellCompDirectiveNoFileComp},
 		{"scenario file", []string{"plan", ""}, []string{"yaml", "yml"}, cobra.ShellCompDirectiveFilterFileExt},
 		{"one file only", []string{"check", dairy, ""}, nil, cobra.ShellCompDirectiveNoFileComp},
-		{"history CSV", []string{"fit", "--history", ""}, []string{"csv"}, cobra.ShellCompDirectiveFilterFileExt},
-		{"actuals CSV", []string{"track", dairy, "--actuals", ""}, []string{"csv"}, cobra.ShellCompDirectiveFilterFileExt},
+		{"history CSV or workbook", []string{"fit", "--history", ""}, []string{"csv", "xlsx"}, cobra.ShellCompDirectiveFilterFileExt},
+		{"actuals CSV or workbook", []string{"track", dairy, "--actuals", ""}, []string{"csv", "xlsx"}, cobra.ShellCompDirectiveFilterFileExt},
+		{"decimal marks", []string{"fit", "--decimal", ""}, []string{"point", "comma"}, cobra.ShellCompDirectiveNoFileComp},
 		{"out folder", []string{"buffer", dairy, "--out", ""}, nil, cobra.ShellCompDirectiveFilterDirs},
 		{"no file, no names", []string{"stress", filepath.Join(t.TempDir(), "none.yaml"), "--scenario", ""}, nil, cobra.ShellCompDirectiveNoFileComp},
 	} {

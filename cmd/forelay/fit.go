@@ -25,6 +25,8 @@ type FitOptions struct {
 	JSON     bool
 	Workers  int
 	Baseline baselineFlags
+	// Format is --sheet and --decimal.
+	Format formatFlags
 }
 
 func newCmdFit(f *Factory, runF func(*FitOptions) error) *cobra.Command {
@@ -44,6 +46,9 @@ func newCmdFit(f *Factory, runF func(*FitOptions) error) *cobra.Command {
 			if cmd.Flags().Changed("workers") && opts.Workers < 1 {
 				return flagErrorf("--workers %d: must be at least 1 (leave it out for one worker per core)", opts.Workers)
 			}
+			if err := opts.Format.check(); err != nil {
+				return err
+			}
 			if l := opts.Shared.limits(); int64(opts.Baseline.Horizon) > l.Get("horizon") {
 				return &flagError{err: l.Exceeded("--horizon", "horizon", int64(opts.Baseline.Horizon))}
 			}
@@ -55,7 +60,7 @@ func newCmdFit(f *Factory, runF func(*FitOptions) error) *cobra.Command {
 		},
 	}
 	fl := cmd.Flags()
-	fl.StringVar(&opts.History, "history", "", "history CSV file (required)")
+	fl.StringVar(&opts.History, "history", "", "history file, CSV or workbook (.xlsx) (required)")
 	fl.StringVar(&opts.Series, "series", "", "fit only this series (default: every series in the file)")
 	fl.StringVar(&opts.Period, "period", "", "force the frequency: day, week, month, quarter or year (default: inferred)")
 	fl.StringVar(&opts.Fill, "fill", "none", "missing periods: none (an error), zero or interpolate")
@@ -63,12 +68,13 @@ func newCmdFit(f *Factory, runF func(*FitOptions) error) *cobra.Command {
 	fl.BoolVar(&opts.JSON, "json", false, "print one JSON object per series per line")
 	fl.IntVar(&opts.Workers, "workers", 0, "series fitted in parallel, at least 1 (default: one per core)")
 	opts.Baseline.register(fl)
+	opts.Format.register(fl, "history")
 	return cmd
 }
 
-// loadHistory reads a history file with the period and fill flags, under
-// the size limits.
-func loadHistory(path, period, fill string, l bounds.Set) (*data.History, error) {
+// loadHistory reads a history file with the period and fill flags, in
+// format, under the size limits.
+func loadHistory(path, period, fill string, format data.Format, l bounds.Set) (*data.History, error) {
 	freq, err := forecast.ParseFrequency(period)
 	if err != nil {
 		return nil, &flagError{err: fmt.Errorf("--period: %w", err)}
@@ -77,7 +83,7 @@ func loadHistory(path, period, fill string, l bounds.Set) (*data.History, error)
 	if err != nil {
 		return nil, &flagError{err: fmt.Errorf("--fill: %w", err)}
 	}
-	h, err := data.ReadFile(path, data.ReadOptions{Freq: freq, Fill: fm}, l.Input(), int(l.Get("name-length")))
+	h, err := data.ReadFile(path, data.ReadOptions{Freq: freq, Fill: fm, Format: format}, l.Input(), int(l.Get("name-length")))
 	if err != nil {
 		return nil, &inputError{err: err}
 	}
@@ -89,7 +95,7 @@ func fitRun(opts *FitOptions) error {
 	if err != nil {
 		return err
 	}
-	h, err := loadHistory(opts.History, opts.Period, opts.Fill, opts.Shared.limits())
+	h, err := loadHistory(opts.History, opts.Period, opts.Fill, opts.Format.format(data.DecimalPoint), opts.Shared.limits())
 	if err != nil {
 		return err
 	}
@@ -100,6 +106,9 @@ func fitRun(opts *FitOptions) error {
 			return &inputError{err: fmt.Errorf("%s: %w", opts.History, err)}
 		}
 		series = []forecast.Series{s}
+	}
+	if h.Read != "" {
+		fmt.Fprintf(opts.IO.ErrOut, "note: %s: read with %s\n", opts.History, h.Read)
 	}
 	for _, fl := range h.Filled {
 		if opts.Series == "" || fl.Series == opts.Series {

@@ -12,7 +12,7 @@ import (
 	"github.com/spf13/cobra"
 )
 
-//go:embed starter/plan.yaml starter/history.csv
+//go:embed starter/plan.yaml starter/history.csv starter/deals.csv
 var starterFiles embed.FS
 
 // InitOptions are the settings of "forelay init".
@@ -28,7 +28,7 @@ func newCmdInit(f *Factory, runF func(*InitOptions) error) *cobra.Command {
 	opts := &InitOptions{IO: f.IO, Shared: f.Shared}
 	cmd := &cobra.Command{
 		Use:     "init DIR",
-		Short:   "Write a starter scenario and history to edit",
+		Short:   "Write a starter scenario, history and events table to edit",
 		Long:    helpText("init"),
 		Example: `  forelay init my-plan && forelay plan my-plan/plan.yaml`,
 		Args:    cobra.ExactArgs(1),
@@ -46,7 +46,7 @@ func newCmdInit(f *Factory, runF func(*InitOptions) error) *cobra.Command {
 }
 
 func initRun(opts *InitOptions) error {
-	names := []string{"plan.yaml", "history.csv"}
+	names := []string{"plan.yaml", "history.csv", "deals.csv"}
 	if !opts.Force {
 		for _, n := range names {
 			p := filepath.Join(opts.Dir, n)

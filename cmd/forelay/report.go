@@ -27,6 +27,9 @@ type ReportOptions struct {
 	// Charts is how many of a portfolio's most-changed series get a
 	// chart.
 	Charts int
+	// Format is --sheet and --decimal for the actuals; without --decimal
+	// the scenario file's history.decimal applies.
+	Format formatFlags
 }
 
 func newCmdReport(f *Factory, runF func(*ReportOptions) error) *cobra.Command {
@@ -44,6 +47,9 @@ func newCmdReport(f *Factory, runF func(*ReportOptions) error) *cobra.Command {
 			if err := opts.check(); err != nil {
 				return err
 			}
+			if err := opts.Format.check(); err != nil {
+				return err
+			}
 			if runF != nil {
 				return runF(opts)
 			}
@@ -54,7 +60,8 @@ func newCmdReport(f *Factory, runF func(*ReportOptions) error) *cobra.Command {
 	fl.StringVar(&opts.Out, "out", "", "directory to write report.html (and report.pdf) into; required")
 	fl.BoolVar(&opts.PDF, "pdf", false, "also write report.pdf, printed by a headless Chromium")
 	fl.StringVar(&opts.Paper, "paper", "a4", "page size of the document: a4 or letter")
-	fl.StringVar(&opts.Actuals, "actuals", "", "CSV of new actuals to track against the plan (history layouts)")
+	fl.StringVar(&opts.Actuals, "actuals", "", "new actuals to track against the plan, CSV or workbook (.xlsx) in the history layouts")
+	opts.Format.register(fl, "actuals file")
 	fl.StringVar(&opts.Scenario, "scenario", "", "scenario to chart the risks of, size the pre-build for and track (default: the last one in the file)")
 	opts.Sim.registerWith(fl, reportPaths)
 	fl.Float64Var(&opts.Service, "service", 0.95, "cycle service level of the pre-build, between 0 and 1")

@@ -86,7 +86,7 @@ func planTracking(opts *ReportOptions, p *plan.Plan, name string) (*report.Track
 	if err != nil {
 		return nil, flagErrorf("--scenario: %v", err)
 	}
-	actual, err := tp.ReadActualsFile(opts.Actuals, opts.Shared.limits().Input())
+	actual, err := tp.ReadActualsFile(opts.Actuals, opts.Format.format(p.File.History.Decimal), opts.Shared.limits().Input())
 	if err != nil {
 		return nil, &inputError{err: err}
 	}
@@ -146,7 +146,7 @@ func portfolioTracking(opts *ReportOptions, pf *plan.Portfolio, name string) (*r
 	if err != nil {
 		return nil, &inputError{err: err}
 	}
-	acts, err := pt.ReadActualsFile(opts.Actuals, pf.File.History.Key, opts.Shared.limits().Input())
+	acts, err := pt.ReadActualsFile(opts.Actuals, pf.File.History.Key, opts.Format.format(pf.File.History.Decimal), opts.Shared.limits().Input())
 	if err != nil {
 		return nil, &inputError{err: err}
 	}

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"fmt"
 	"os"
 	"testing"
 	"time"
@@ -16,6 +17,13 @@ func TestMain(m *testing.M) {
 		"forelay": func() {
 			os.Exit(run(os.Args[1:], &IOStreams{In: os.Stdin, Out: os.Stdout, ErrOut: os.Stderr}, fixedNow))
 		},
+		// forelay-code runs forelay and ends its standard error with
+		// "exit code N", exiting 0, so that a script can check the code.
+		"forelay-code": func() {
+			code := run(os.Args[1:], &IOStreams{In: os.Stdin, Out: os.Stdout, ErrOut: os.Stderr}, fixedNow)
+			fmt.Fprintf(os.Stderr, "exit code %d\n", code)
+			os.Exit(0)
+		},
 	})
 }
 
@@ -26,6 +34,7 @@ func TestScripts(t *testing.T) {
 		Dir:                 "testdata/script",
 		RequireExplicitExec: true,
 		UpdateScripts:       os.Getenv("FORELAY_UPDATE_SCRIPTS") != "",
+		Cmds:                scriptCmds,
 		Setup: func(env *testscript.Env) error {
 			env.Setenv("EXAMPLES", examplesDir())
 			return nil

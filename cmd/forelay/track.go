@@ -10,6 +10,7 @@ import (
 
 	"forelay/forecast"
 	"forelay/scenario"
+	"forelay/scenario/data"
 	"forelay/scenario/plan"
 	"forelay/scenario/report"
 )
@@ -45,6 +46,9 @@ type TrackOptions struct {
 	// Workers plans the series of a portfolio in parallel; 0: one per
 	// core.
 	Workers int
+	// Format is --sheet and --decimal for the actuals; without --decimal
+	// the scenario file's history.decimal applies.
+	Format formatFlags
 }
 
 func newCmdTrack(f *Factory, runF func(*TrackOptions) error) *cobra.Command {
@@ -65,6 +69,9 @@ func newCmdTrack(f *Factory, runF func(*TrackOptions) error) *cobra.Command {
 			if cmd.Flags().Changed("workers") && opts.Workers < 1 {
 				return flagErrorf("--workers %d: must be at least 1 (leave it out for one worker per core)", opts.Workers)
 			}
+			if err := opts.Format.check(); err != nil {
+				return err
+			}
 			if err := checkXLSX(opts.XLSX, opts.Out, "track"); err != nil {
 				return err
 			}
@@ -76,7 +83,7 @@ func newCmdTrack(f *Factory, runF func(*TrackOptions) error) *cobra.Command {
 	}
 	fl := cmd.Flags()
 	registerChartSize(fl, f.Shared)
-	fl.StringVar(&opts.Actuals, "actuals", "", "CSV of new actuals (history layouts), starting at the first plan period")
+	fl.StringVar(&opts.Actuals, "actuals", "", "new actuals, CSV or workbook (.xlsx) in the history layouts, starting at the first plan period")
 	fl.StringVar(&opts.Scenario, "scenario", "", `scenario to track (default: the only one, or the one called "plan")`)
 	fl.StringVar(&opts.PlanDir, "plan", "", "read the plan from DIR/plan.json instead of building it again")
 	fl.StringVar(&opts.Out, "out", "", "directory to write track.csv, control.png/.svg and signal.png/.svg into (and track-rollups.csv, track-summary.csv for several series)")
@@ -88,6 +95,7 @@ func newCmdTrack(f *Factory, runF func(*TrackOptions) error) *cobra.Command {
 	fl.Float64Var(&opts.MADSmoothing, "mad-smoothing", 0.1, "smoothing constant of the running MAD, in (0, 1]")
 	fl.StringVar(&opts.FailOn, "fail-on", "", "exit with code 3 when the latest verdict (of any series, in a plan of several) is bias, outlier or any of the two")
 	fl.IntVar(&opts.Workers, "workers", 0, "series planned in parallel in a plan of several series, at least 1 (default: one per core); the report is the same for any number")
+	opts.Format.register(fl, "actuals file")
 	return cmd
 }
 
@@ -157,7 +165,7 @@ func trackRun(opts *TrackOptions) error {
 		}
 		return flagErrorf("%v (with --scenario)", err)
 	}
-	actual, err := readActuals(opts, tp)
+	actual, err := readActuals(opts, tp, opts.Format.format(f.History.Decimal))
 	if err != nil {
 		return err
 	}
@@ -201,7 +209,7 @@ func portfolioTrackRun(opts *TrackOptions, f *scenario.File, in *plan.Inputs, cf
 	if err != nil {
 		return err
 	}
-	acts, err := pt.ReadActualsFile(opts.Actuals, f.History.Key, opts.Shared.limits().Input())
+	acts, err := pt.ReadActualsFile(opts.Actuals, f.History.Key, opts.Format.format(f.History.Decimal), opts.Shared.limits().Input())
 	if err != nil {
 		return &inputError{err: err}
 	}
@@ -265,8 +273,8 @@ func loadTrackPlan(opts *TrackOptions) (tp plan.TrackPlan, source string, warns 
 
 // readActuals reads the actuals file under the size limits, aligned with
 // the plan's periods (see plan.TrackPlan.ReadActualsFile).
-func readActuals(opts *TrackOptions, tp plan.TrackPlan) ([]float64, error) {
-	actual, err := tp.ReadActualsFile(opts.Actuals, opts.Shared.limits().Input())
+func readActuals(opts *TrackOptions, tp plan.TrackPlan, format data.Format) ([]float64, error) {
+	actual, err := tp.ReadActualsFile(opts.Actuals, format, opts.Shared.limits().Input())
 	if err != nil {
 		return nil, &inputError{err: err}
 	}

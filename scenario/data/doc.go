@@ -1,5 +1,9 @@
 // Package data reads what a plan is made from: histories, actuals and
-// production plans in CSV, wide or long, into forecast.Series.
+// production plans in CSV or in a workbook's sheet (.xlsx), wide or long,
+// into forecast.Series. OpenRows reads the rows of either kind of table
+// (the separator of a CSV file found from its header, decimal commas when
+// asked), so that every reader shares one set of rules; see "Workbooks"
+// and "CSV as spreadsheets save it".
 //
 // A wide file has a "period" column and one column per series (the header
 // cell is the series name); a long file has the columns "series", "period"
@@ -8,7 +12,9 @@
 // (2026-Q1) or years (2026). Every value is a plain decimal number
 // (ParseDecimal); an empty cell is a missing value, filled only when asked
 // (FillMode). Every problem is a *ParseError with the file, the 1-based
-// line and column and the column name, wrapping one of the sentinel errors.
+// line and column (in a workbook: the sheet, row and column, printed as a
+// cell name such as C14) and the column name, wrapping one of the sentinel
+// errors.
 // Readers are bounded (BoundedReader) so that a wrong file ends in an error
 // rather than a run that exhausts memory.
 package data

@@ -1,7 +1,9 @@
 // # History files
 //
 // ReadHistory reads the past values of one or more series from a CSV file
-// (RFC 4180, comma delimiter). A UTF-8 byte order mark at the start is
+// (RFC 4180; the delimiter a comma, semicolon or tab, see "CSV as
+// spreadsheets save it") or a workbook's sheet (see "Workbooks", where rows
+// are lines and cells are named instead). A UTF-8 byte order mark at the start is
 // skipped, and so is every blank row (empty, spaces only, or only empty
 // cells). The first row left is the header; its cells are compared with
 // spaces trimmed and case ignored. It decides the layout:
@@ -101,8 +103,6 @@
 package data
 
 import (
-	"bufio"
-	"bytes"
 	"cmp"
 	"encoding/csv"
 	"errors"
@@ -136,6 +136,9 @@ type ReadOptions struct {
 	// Key names the columns whose values, joined by "/", name the series
 	// of a long file (see "Composite keys"); nil reads the series column.
 	Key []string
+	// Format names the sheet of a workbook and the decimal mark of a CSV
+	// file (see "Workbooks" and "CSV as spreadsheets save it").
+	Format
 }
 
 // A History is the content of one history file.
@@ -151,6 +154,11 @@ type History struct {
 	// Filled lists every value that a fill mode made up, by series in the
 	// order of Series and then by period. It is nil when nothing was filled.
 	Filled []Filled
+	// Read says how the file was read when it is not a CSV file separated
+	// by commas with decimal points: "cells separated by semicolons,
+	// decimal commas" or "sheet \"demand\"" (see Rows.Describe); empty
+	// otherwise.
+	Read string
 }
 
 // Lookup returns the series called name. An empty name picks the only
@@ -187,6 +195,12 @@ func ReadHistory(r io.Reader, name string, opt ReadOptions) (*History, error) {
 		panic(fmt.Sprintf("forecast: ReadHistory with %v", opt.Fill))
 	}
 	hr := &historyReader{file: name, opt: opt}
+	h, err := hr.read(r)
+	return h, hr.inSheet(err)
+}
+
+// read reads the file: rows, frequency, periods, series.
+func (hr *historyReader) read(r io.Reader) (*History, error) {
 	if err := hr.readRows(r); err != nil {
 		return nil, err
 	}
@@ -197,7 +211,11 @@ func ReadHistory(r io.Reader, name string, opt ReadOptions) (*History, error) {
 	if err := hr.parsePeriods(f); err != nil {
 		return nil, err
 	}
-	return hr.build()
+	h, err := hr.build()
+	if err == nil && !hr.rows.Standard() {
+		h.Read = hr.rows.Describe()
+	}
+	return h, err
 }
 
 // A cell is one field of the file with its 1-based position.
@@ -248,6 +266,7 @@ type slot struct {
 type historyReader struct {
 	file string
 	opt  ReadOptions
+	rows *Rows // the file's rows, CSV or a sheet
 
 	long   bool
 	header []cell
@@ -292,14 +311,11 @@ var utf8BOM = []byte{0xEF, 0xBB, 0xBF}
 // readRows reads the header and the data rows, checks each row and adds
 // its values to the series they belong to.
 func (hr *historyReader) readRows(r io.Reader) error {
-	br := bufio.NewReader(r)
-	if b, err := br.Peek(len(utf8BOM)); err == nil && bytes.Equal(b, utf8BOM) {
-		br.Discard(len(utf8BOM))
+	cr, err := OpenRows(r, hr.file, hr.opt.Format)
+	if err != nil {
+		return err
 	}
-	cr := csv.NewReader(br)
-	cr.FieldsPerRecord = -1 // checked here, so that blank rows of any width pass
-	cr.TrimLeadingSpace = true
-	cr.ReuseRecord = true
+	hr.rows = cr
 	lastRow := 0 // line of the last row read, for the no-data error
 	for {
 		rec, err := cr.Read()
@@ -351,13 +367,13 @@ func blankRecord(rec []string) bool {
 }
 
 // cellAt returns cell i of the record cr has just read.
-func cellAt(cr *csv.Reader, rec []string, i int) cell {
+func cellAt(cr *Rows, rec []string, i int) cell {
 	line, col := cr.FieldPos(i)
 	return cell{text: strings.TrimSpace(rec[i]), line: line, col: col}
 }
 
 // readRecord reads one row that is not blank: the header, or a data row.
-func (hr *historyReader) readRecord(cr *csv.Reader, rec []string) error {
+func (hr *historyReader) readRecord(cr *Rows, rec []string) error {
 	if hr.header == nil {
 		cells := make([]cell, len(rec))
 		for i := range rec {
@@ -403,7 +419,7 @@ func (hr *historyReader) setSlots() {
 
 // readLongRow checks the cells of a long data row from the left and adds
 // its value to its series.
-func (hr *historyReader) readLongRow(cr *csv.Reader, rec []string) error {
+func (hr *historyReader) readLongRow(cr *Rows, rec []string) error {
 	var pt point
 	for _, s := range hr.slots {
 		c := cellAt(cr, rec, s.col)
@@ -424,7 +440,7 @@ func (hr *historyReader) readLongRow(cr *csv.Reader, rec []string) error {
 			}
 			hr.keyText[s.key] = c.text
 		case slotValue:
-			v, err := parseValue(c.text)
+			v, err := hr.value(c.text)
 			if err != nil {
 				return hr.errAt(c, hr.valueField, err)
 			}
@@ -464,7 +480,7 @@ func (hr *historyReader) columnOf(name []byte) *column {
 
 // readWideRow checks the cells of a wide data row from the left and adds
 // one value to each series.
-func (hr *historyReader) readWideRow(cr *csv.Reader, rec []string) error {
+func (hr *historyReader) readWideRow(cr *Rows, rec []string) error {
 	label := cellAt(cr, rec, 0)
 	p, err := hr.parseLabel(label)
 	if err != nil {
@@ -472,7 +488,7 @@ func (hr *historyReader) readWideRow(cr *csv.Reader, rec []string) error {
 	}
 	for i, c := range hr.cols {
 		vc := cellAt(cr, rec, i+1)
-		v, err := parseValue(vc.text)
+		v, err := hr.value(vc.text)
 		if err != nil {
 			return hr.errAt(vc, c.field, err)
 		}
@@ -540,8 +556,8 @@ func (hr *historyReader) readHeader(cells []cell) error {
 		texts[i] = c.text
 	}
 	return hr.errAt(cell{line: cells[0].line, col: 1}, "", fmt.Errorf(
-		"%w: header %q: want columns series, period and value (long layout), or period first and then one column per series (wide layout)",
-		ErrMissingColumn, strings.Join(texts, ",")))
+		"%w: header %q: want columns series, period and value (long layout), or period first and then one column per series (wide layout)%s",
+		ErrMissingColumn, strings.Join(texts, ","), hr.headerHint(len(cells))))
 }
 
 // parseLabel reads the label of a row in its own form (so that a month 13,
@@ -569,15 +585,6 @@ func (hr *historyReader) parseLabel(c cell) (forecast.Period, error) {
 		hr.offDay, hr.offDayAt = &off, p
 	}
 	return p, nil
-}
-
-// parseValue reads one value cell with ParseDecimal; an empty cell is a
-// missing value and gives NaN.
-func parseValue(s string) (float64, error) {
-	if s == "" {
-		return math.NaN(), nil
-	}
-	return ParseDecimal(s)
 }
 
 // labelKind names a label form for messages: "a month" or "months".

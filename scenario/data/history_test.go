@@ -410,7 +410,7 @@ func TestReadHistoryErrors(t *testing.T) {
 			name:  "thousands separator in a quoted cell",
 			input: "series,period,value\na,2026-01,§\"1,000\"\n",
 			want:  []error{ErrNotDecimal},
-			msg:   `"1,000"; use a point for decimals and no thousands separators`,
+			msg:   `"1,000"; if the comma separates thousands, write 1000 (thousands separators are not read)`,
 		},
 		{
 			name:  "hexadecimal float",

@@ -73,14 +73,18 @@ func ReadSelection(f *scenario.File) (*Inputs, error) {
 	return in, nil
 }
 
-// An InputFile is a file a plan is built from and its role: "scenario"
-// or "history" (the keys of Plan.Digests).
+// An InputFile is a file a plan is built from and its role: "scenario",
+// "history" or "events" (the keys of Plan.Digests).
 type InputFile struct{ Role, Path string }
 
 // InputFiles returns the files a plan of f is built from: the scenario
-// file, then the history.
+// file, the history, then the events file when f names one.
 func InputFiles(f *scenario.File) []InputFile {
-	return []InputFile{{"scenario", f.Path}, {"history", f.History.File}}
+	files := []InputFile{{"scenario", f.Path}, {"history", f.History.File}}
+	if f.EventsFile != "" {
+		files = append(files, InputFile{"events", f.EventsFile})
+	}
+	return files
 }
 
 // InputChanges compares the digests a saved plan records (keyed by role,
@@ -125,7 +129,8 @@ func readHistory(f *scenario.File) (*data.History, error) {
 	defer fh.Close()
 	limits := f.EffectiveLimits()
 	h, err := data.ReadHistory(data.BoundedReader(fh, f.History.File, limits.Input), f.History.File,
-		data.ReadOptions{Freq: f.History.Period, Fill: f.History.Fill, Key: f.History.Key})
+		data.ReadOptions{Freq: f.History.Period, Fill: f.History.Fill, Key: f.History.Key,
+			Format: data.Format{Sheet: f.History.Sheet, Decimal: f.History.Decimal}})
 	if err != nil {
 		return nil, err
 	}

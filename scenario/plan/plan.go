@@ -235,6 +235,7 @@ func scoped(f *scenario.File, in *Inputs) (*scenario.File, error) {
 func newPlan(f *scenario.File, in *Inputs) (*Plan, forecast.Spec) {
 	ser := in.Series
 	p := &Plan{File: f, History: ser, Z: f.Bands.Z, Floor: f.Bands.Floor, Digests: maps.Clone(in.Digests), Warnings: f.Lint(ser)}
+	p.Notes = inputNotes(f, in.History)
 	for _, fl := range in.History.Filled {
 		if fl.Series == ser.Name {
 			p.Filled = append(p.Filled, fl)

@@ -166,6 +166,7 @@ func BuildPortfolioProgress(f *scenario.File, in *Inputs, workers int, progress 
 	if err != nil {
 		return nil, err
 	}
+	pf.Notes = append(pf.Notes, inputNotes(f, in.History)...)
 	if len(f.Resources) > 0 {
 		pf.Notes = append(pf.Notes, fmt.Sprintf("the loads of the file's %d resource(s) are those of the planned demand, and their breach chances take the load as normal with the scenario's events happening; forelay stress simulates them with the events' probabilities and ranges", len(f.Resources)))
 	}

@@ -148,6 +148,11 @@ type PortfolioActuals struct {
 // no actuals. A file with none of the planned series is an error wrapping
 // ErrNoPlannedSeries.
 func (pt *PortfolioTrackPlan) ReadActuals(r io.Reader, name string, key []string) (*PortfolioActuals, error) {
+	return pt.readActualsAs(r, name, key, data.Format{})
+}
+
+// readActualsAs is ReadActuals with the file read in format.
+func (pt *PortfolioTrackPlan) readActualsAs(r io.Reader, name string, key []string, format data.Format) (*PortfolioActuals, error) {
 	if len(pt.Series) == 0 || len(pt.Periods) == 0 {
 		return nil, fmt.Errorf("%w: the plan has no series or no periods", ErrTrackPlan)
 	}
@@ -155,7 +160,7 @@ func (pt *PortfolioTrackPlan) ReadActuals(r io.Reader, name string, key []string
 	if err != nil {
 		return nil, err
 	}
-	af, err := readActuals(src, name, pt.Periods[0].Freq, key, "")
+	af, err := readActuals(src, name, format, pt.Periods[0].Freq, key, "")
 	if err != nil {
 		return nil, err
 	}
@@ -180,9 +185,8 @@ func (pt *PortfolioTrackPlan) ReadActuals(r io.Reader, name string, key []string
 		}
 	}
 	if found == 0 {
-		return nil, &data.ParseError{File: name, Line: af.finder("").headerLine, Column: 1,
-			Err: fmt.Errorf("%w: none of the file's %d series is planned (the first is %s); name the series as the plan does (history.key joined by \"/\", such as %q)",
-				ErrNoPlannedSeries, len(af.h.Series), unknown[0], pt.Series[0].Series)}
+		return nil, af.finder("").errHeader(fmt.Errorf("%w: none of the file's %d series is planned (the first is %s); name the series as the plan does (history.key joined by \"/\", such as %q)",
+			ErrNoPlannedSeries, len(af.h.Series), unknown[0], pt.Series[0].Series))
 	}
 	if len(unknown) > 0 {
 		const shown = 3
@@ -196,15 +200,15 @@ func (pt *PortfolioTrackPlan) ReadActuals(r io.Reader, name string, key []string
 	return out, nil
 }
 
-// ReadActualsFile is ReadActuals of the file at path, read under the size
-// limits.
-func (pt *PortfolioTrackPlan) ReadActualsFile(path string, key []string, limits data.SizeLimits) (*PortfolioActuals, error) {
+// ReadActualsFile is ReadActuals of the file at path, a CSV file or a
+// workbook read in format, under the size limits.
+func (pt *PortfolioTrackPlan) ReadActualsFile(path string, key []string, format data.Format, limits data.SizeLimits) (*PortfolioActuals, error) {
 	fh, err := os.Open(path)
 	if err != nil {
 		return nil, err
 	}
 	defer fh.Close()
-	return pt.ReadActuals(data.BoundedReader(fh, path, limits), path, key)
+	return pt.readActualsAs(data.BoundedReader(fh, path, limits), path, key, format)
 }
 
 // PortfolioTracking is the result of following a portfolio's actuals

@@ -2,7 +2,6 @@ package plan
 
 import (
 	"bytes"
-	"encoding/csv"
 	"errors"
 	"fmt"
 	"forelay/scenario"
@@ -184,6 +183,11 @@ func (tp TrackPlan) Choose(name string) (PlanLine, error) {
 // counts as a skipped period). An error from r is returned as it is, and
 // one wrapping ErrTrackPlan if tp fails Check.
 func (tp TrackPlan) ReadActuals(r io.Reader, name string) ([]float64, error) {
+	return tp.readActualsAs(r, name, data.Format{})
+}
+
+// readActualsAs is ReadActuals with the file read in format.
+func (tp TrackPlan) readActualsAs(r io.Reader, name string, format data.Format) ([]float64, error) {
 	if err := tp.Check(); err != nil {
 		return nil, err
 	}
@@ -191,7 +195,7 @@ func (tp TrackPlan) ReadActuals(r io.Reader, name string) ([]float64, error) {
 	if err != nil {
 		return nil, err
 	}
-	af, err := readActuals(src, name, tp.Periods[0].Freq, nil, tp.Series)
+	af, err := readActuals(src, name, format, tp.Periods[0].Freq, nil, tp.Series)
 	if err != nil {
 		return nil, err
 	}
@@ -201,8 +205,8 @@ func (tp TrackPlan) ReadActuals(r io.Reader, name string) ([]float64, error) {
 		for i, c := range af.h.Series {
 			names[i] = fmt.Sprintf("%q", c.Name)
 		}
-		return nil, &data.ParseError{File: name, Line: af.finder(tp.Series).headerLine, Column: 1, Err: fmt.Errorf("%w: the plan's series %q is not in the file (it has %s)",
-			data.ErrNoSeries, tp.Series, strings.Join(names, ", "))}
+		return nil, af.finder(tp.Series).errHeader(fmt.Errorf("%w: the plan's series %q is not in the file (it has %s)",
+			data.ErrNoSeries, tp.Series, strings.Join(names, ", ")))
 	}
 	return af.align(tp, s)
 }
@@ -210,10 +214,11 @@ func (tp TrackPlan) ReadActuals(r io.Reader, name string) ([]float64, error) {
 // An actualsFile is a file of actuals read once, in the plan's frequency,
 // with what aligning each of its series needs.
 type actualsFile struct {
-	name string
-	src  []byte
-	key  []string
-	h    *data.History
+	name   string
+	format data.Format
+	src    []byte
+	key    []string
+	h      *data.History
 	// byName indexes the series of h by name; filled lists the values the
 	// reader filled in, by series.
 	byName map[string]forecast.Series
@@ -226,16 +231,16 @@ type actualsFile struct {
 // without it: wide, or long with a series column). The labels are read in the frequency they
 // give; dates are read again as weeks when freq is weekly. An error about
 // the frequency points at the first row of series ("" for any series).
-func readActuals(src []byte, name string, freq forecast.Frequency, key []string, series string) (*actualsFile, error) {
-	opt := data.ReadOptions{Fill: data.FillZero}
-	if hasColumns(src, key) {
+func readActuals(src []byte, name string, format data.Format, freq forecast.Frequency, key []string, series string) (*actualsFile, error) {
+	opt := data.ReadOptions{Fill: data.FillZero, Format: format}
+	if hasColumns(src, name, format, key) {
 		opt.Key = key
 	}
 	h, err := data.ReadHistory(bytes.NewReader(src), name, opt)
 	if err != nil && opt.Key == nil && len(key) > 0 && errors.Is(err, data.ErrMissingColumn) {
 		// Neither wide nor long with a series column: say what a file
 		// with the key needs.
-		if _, kerr := data.ReadHistory(bytes.NewReader(src), name, data.ReadOptions{Fill: data.FillZero, Key: key}); kerr != nil {
+		if _, kerr := data.ReadHistory(bytes.NewReader(src), name, data.ReadOptions{Fill: data.FillZero, Key: key, Format: format}); kerr != nil {
 			err = kerr
 		}
 	}
@@ -249,11 +254,11 @@ func readActuals(src []byte, name string, freq forecast.Frequency, key []string,
 				return nil, err
 			}
 		} else {
-			loc := newRowFinder(src, name, series, key)
+			loc := newRowFinder(src, name, format, series, key)
 			return nil, loc.errAtFirst(fmt.Errorf("%w: the actuals are by %s but the plan is by %s", forecast.ErrBadPeriod, got, freq))
 		}
 	}
-	af := &actualsFile{name: name, src: src, key: key, h: h,
+	af := &actualsFile{name: name, format: format, src: src, key: key, h: h,
 		byName: make(map[string]forecast.Series, len(h.Series)), filled: map[string][]data.Filled{}}
 	for _, s := range h.Series {
 		af.byName[s.Name] = s
@@ -267,12 +272,14 @@ func readActuals(src []byte, name string, freq forecast.Frequency, key []string,
 // hasColumns reports whether the header of src, its first row that is not
 // blank, names every column of key (compared as data.ReadHistory does).
 // An empty key is always there.
-func hasColumns(src []byte, key []string) bool {
+func hasColumns(src []byte, name string, format data.Format, key []string) bool {
 	if len(key) == 0 {
 		return true
 	}
-	cr := csv.NewReader(bytes.NewReader(bytes.TrimPrefix(src, []byte("\ufeff"))))
-	cr.FieldsPerRecord = -1
+	cr, err := data.OpenRows(bytes.NewReader(src), name, format)
+	if err != nil {
+		return false
+	}
 	for {
 		rec, err := cr.Read()
 		if err != nil {
@@ -292,7 +299,7 @@ func hasColumns(src []byte, key []string) bool {
 
 // finder returns the rows of series in the file, for error messages.
 func (af *actualsFile) finder(series string) *rowFinder {
-	return newRowFinder(af.src, af.name, series, af.key)
+	return newRowFinder(af.src, af.name, af.format, series, af.key)
 }
 
 // align returns the values of s, a series of the file, aligned with the
@@ -352,6 +359,7 @@ func samePeriod(a, b forecast.Period) bool {
 // data.ReadHistory has already accepted, for error messages.
 type rowFinder struct {
 	file       string
+	sheet      string
 	headerLine int
 	firstLine  int
 	rows       []foundRow
@@ -365,11 +373,13 @@ type foundRow struct {
 // newRowFinder finds the rows of series ("" for every series) in src; key
 // names the columns that make a series' name in a long file (nil: the
 // series column).
-func newRowFinder(src []byte, file, series string, key []string) *rowFinder {
+func newRowFinder(src []byte, file string, format data.Format, series string, key []string) *rowFinder {
 	rf := &rowFinder{file: file}
-	cr := csv.NewReader(bytes.NewReader(bytes.TrimPrefix(src, []byte("\ufeff"))))
-	cr.FieldsPerRecord = -1
-	cr.TrimLeadingSpace = true
+	cr, err := data.OpenRows(bytes.NewReader(src), file, format)
+	if err != nil {
+		return rf // not reached: the file was read before
+	}
+	rf.sheet = cr.Sheet
 	periodCol := 0
 	var seriesCols []int
 	for {
@@ -454,7 +464,12 @@ func (rf *rowFinder) pos(p forecast.Period) (line, col int) {
 // errAt returns a ParseError at the row of p (no line when it has none).
 func (rf *rowFinder) errAt(p forecast.Period, err error) error {
 	line, col := rf.pos(p)
-	return &data.ParseError{File: rf.file, Line: line, Column: col, Field: "period", Err: err}
+	return &data.ParseError{File: rf.file, Sheet: rf.sheet, Line: line, Column: col, Field: "period", Err: err}
+}
+
+// errHeader returns a ParseError at the header row.
+func (rf *rowFinder) errHeader(err error) error {
+	return &data.ParseError{File: rf.file, Sheet: rf.sheet, Line: rf.headerLine, Column: 1, Err: err}
 }
 
 // errAtFirst returns a ParseError at the first data row.
@@ -463,7 +478,7 @@ func (rf *rowFinder) errAtFirst(err error) error {
 	if rf.firstLine > 0 {
 		col = rf.rows[0].col
 	}
-	return &data.ParseError{File: rf.file, Line: rf.firstLine, Column: col, Field: "period", Err: err}
+	return &data.ParseError{File: rf.file, Sheet: rf.sheet, Line: rf.firstLine, Column: col, Field: "period", Err: err}
 }
 
 // Tracking is the result of following actuals against one scenario of a
@@ -558,13 +573,13 @@ func (t *Tracking) Latest() (forecast.Period, forecast.TrackPoint) {
 	return t.Periods[n], t.Points[n]
 }
 
-// ReadActualsFile is ReadActuals of the file at path, read under the size
-// limits.
-func (tp TrackPlan) ReadActualsFile(path string, limits data.SizeLimits) ([]float64, error) {
+// ReadActualsFile is ReadActuals of the file at path, a CSV file or a
+// workbook read in format, under the size limits.
+func (tp TrackPlan) ReadActualsFile(path string, format data.Format, limits data.SizeLimits) ([]float64, error) {
 	fh, err := os.Open(path)
 	if err != nil {
 		return nil, err
 	}
 	defer fh.Close()
-	return tp.ReadActuals(data.BoundedReader(fh, path, limits), path)
+	return tp.readActualsAs(data.BoundedReader(fh, path, limits), path, format)
 }

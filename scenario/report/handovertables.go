@@ -45,12 +45,10 @@ func factsTable(rows ...[2]string) *Table {
 }
 
 // eventOwner returns who answers for an event: the owner the scenario file
-// gives it, or "" when it gives none. The scenario file has no owner key
-// yet; until it has, every event has no owner and the events table has no
-// owner column.
+// (or its events file) gives it, or "" when it gives none. When no event
+// has an owner the events table has no owner column.
 func eventOwner(e *scenario.Event) string {
-	_ = e
-	return ""
+	return e.Owner
 }
 
 // eventsTable lists the events of f in file order: id, kind, timing,

@@ -3,6 +3,9 @@ package report
 import (
 	"strings"
 	"testing"
+
+	"forelay/forecast"
+	"forelay/scenario"
 )
 
 const eventsBody = `plan: ev
@@ -55,5 +58,35 @@ func TestEventsTable(t *testing.T) {
 				t.Errorf("row %s, %s: got %q, want %q", row[0], tb.Head[j], tb.Rows[i][j], cell)
 			}
 		}
+	}
+}
+
+// An event with an owner (from owner: or an events file's owner column)
+// gives the events table an owner column; events without one leave it
+// empty.
+func TestEventsTableOwner(t *testing.T) {
+	f, err := scenario.Parse(strings.NewReader(`plan: p
+history: {file: h.csv}
+horizon: 3
+events:
+  - {id: big-order, kind: step, start: 2027-01, effect: {units: 10}, owner: institutional sales}
+  - {id: fair, kind: pulse, start: 2027-02, effect: {units: 5}}
+`), "plan.yaml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	next, err := forecast.ParsePeriod("2027-01", forecast.Monthly)
+	if err != nil {
+		t.Fatal(err)
+	}
+	tb := eventsTable(f, nil, next, 0)
+	if got := strings.Join(tb.Head, "|"); got != "id|kind|timing|effect|probability|range|scope|note|owner" {
+		t.Errorf("head %q", got)
+	}
+	if got := tb.Rows[0][len(tb.Rows[0])-1]; got != "institutional sales" {
+		t.Errorf("owner of big-order %q", got)
+	}
+	if got := tb.Rows[1][len(tb.Rows[1])-1]; got != "" {
+		t.Errorf("owner of fair %q, want none", got)
 	}
 }

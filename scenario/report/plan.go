@@ -55,6 +55,7 @@ type eventJSON struct {
 	Prorated    bool   `json:"prorated"`
 	Total       Num    `json:"total"`
 	Note        string `json:"note,omitempty"`
+	Owner       string `json:"owner,omitempty"`
 }
 
 type planPeriodJSON struct {
@@ -130,7 +131,7 @@ func Plan(p *plan.Plan) PlanDoc {
 	first := p.Periods[0]
 	for _, e := range p.Future {
 		ej := eventJSON{ID: e.ID, Kind: e.Kind.String(), Start: e.Start.Label, Probability: Num(e.Probability),
-			Prorated: e.Prorated(first), FromPast: e.Effect.FromPast, Note: e.Note}
+			Prorated: e.Prorated(first), FromPast: e.Effect.FromPast, Note: e.Note, Owner: e.Owner}
 		if e.HasEnd {
 			ej.End = e.End.Label
 		}
