@@ -98,6 +98,7 @@ the applicable reliability standards, local codes and licensed practice.`,
 		newCmdBuffer(f, nil),
 		newCmdCompare(f, nil),
 		newCmdTrack(f, nil),
+		newCmdMerge(f, nil),
 	)
 	registerCompletions(root)
 	return root

@@ -1,0 +1,118 @@
+package main
+
+import (
+	"bytes"
+	"encoding/csv"
+	"fmt"
+	"math"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+// portfolioDir holds the generated portfolio (go run ./examples/generate
+// -kind portfolio) and its scenario file.
+const portfolioDir = "../../examples/portfolio"
+
+// runOK runs forelay with args in dir and fails the test on a non-zero
+// exit.
+func runOK(t *testing.T, dir string, args ...string) string {
+	t.Helper()
+	t.Chdir(dir)
+	var stdout, stderr bytes.Buffer
+	if code := run(args, &IOStreams{In: strings.NewReader(""), Out: &stdout, ErrOut: &stderr}, fixedNow); code != 0 {
+		t.Fatalf("forelay %s: exit %d\n%s", strings.Join(args, " "), code, stderr.String())
+	}
+	return stdout.String()
+}
+
+// portfolioCopy copies the example portfolio into a fresh directory.
+func portfolioCopy(t *testing.T) string {
+	t.Helper()
+	dir := t.TempDir()
+	for _, name := range []string{"plan.yaml", "history.csv"} {
+		b, err := os.ReadFile(filepath.Join(portfolioDir, name))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(filepath.Join(dir, name), b, 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	return dir
+}
+
+// TestShardsMergeToWhole plans the generated portfolio whole, then as N
+// shards merged, for N = 1, 2, 3 and 7, and checks that the merge writes
+// the files of the whole run: the per-series files (plan.csv, summary.csv)
+// identical byte for byte, and the roll-ups and resources equal within
+// 1e-9 relative or half a cent (the files hold two decimals, so a sum that
+// differs in its 16th digit may round the other way).
+func TestShardsMergeToWhole(t *testing.T) {
+	dir := portfolioCopy(t)
+	runOK(t, dir, "plan", "plan.yaml", "--out", "whole", "--charts", "none")
+	for _, n := range []int{1, 2, 3, 7} {
+		t.Run(fmt.Sprint(n), func(t *testing.T) {
+			var shards []string
+			for k := range n {
+				out := fmt.Sprintf("s%d-%d", n, k)
+				runOK(t, dir, "plan", "plan.yaml", "--shard", fmt.Sprintf("%d/%d", k, n), "--out", out)
+				shards = append(shards, out)
+			}
+			merged := fmt.Sprintf("merged%d", n)
+			runOK(t, dir, append([]string{"merge", "--out", merged}, shards...)...)
+			for _, name := range []string{"plan.csv", "summary.csv"} {
+				want, got := readFile(t, dir, "whole", name), readFile(t, dir, merged, name)
+				if !bytes.Equal(want, got) {
+					t.Errorf("%s differs from the whole run's", name)
+				}
+			}
+			for _, name := range []string{"rollup.csv", "resources.csv"} {
+				sameNumbers(t, name, readFile(t, dir, "whole", name), readFile(t, dir, merged, name))
+			}
+		})
+	}
+}
+
+func readFile(t *testing.T, parts ...string) []byte {
+	t.Helper()
+	b, err := os.ReadFile(filepath.Join(parts...))
+	if err != nil {
+		t.Fatal(err)
+	}
+	return b
+}
+
+// sameNumbers compares two CSV files cell by cell: text cells equal, number
+// cells within 1e-9 relative or 0.005 absolute (two decimals rounded).
+func sameNumbers(t *testing.T, name string, want, got []byte) {
+	t.Helper()
+	w, err1 := csv.NewReader(bytes.NewReader(want)).ReadAll()
+	g, err2 := csv.NewReader(bytes.NewReader(got)).ReadAll()
+	if err1 != nil || err2 != nil {
+		t.Fatalf("%s: %v %v", name, err1, err2)
+	}
+	if len(w) != len(g) {
+		t.Fatalf("%s: %d rows, want %d", name, len(g), len(w))
+	}
+	for i := range w {
+		if len(w[i]) != len(g[i]) {
+			t.Fatalf("%s row %d: %d cells, want %d", name, i+1, len(g[i]), len(w[i]))
+		}
+		for j := range w[i] {
+			a, errA := strconv.ParseFloat(w[i][j], 64)
+			b, errB := strconv.ParseFloat(g[i][j], 64)
+			if errA != nil || errB != nil {
+				if w[i][j] != g[i][j] {
+					t.Errorf("%s row %d col %d: %q, want %q", name, i+1, j+1, g[i][j], w[i][j])
+				}
+				continue
+			}
+			if d := math.Abs(a - b); d > 0.005+1e-9 && d > 1e-9*math.Abs(a) {
+				t.Errorf("%s row %d col %d: %v, want %v", name, i+1, j+1, b, a)
+			}
+		}
+	}
+}
