@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"strconv"
 
 	"forelay/scenario"
 	"forelay/scenario/plan"
@@ -86,5 +87,28 @@ func planShardRun(opts *PlanOptions, s shard.Spec) error {
 		return &inputError{err: err}
 	}
 	m := shard.NewManifest(version, "plan", s, in.Digests, []string{"plan", opts.File})
+	return writeShard(opts.IO, opts.Shared, opts.Out, m, pf.Warnings, files)
+}
+
+// stressShardRun simulates shard s of the portfolio of opts.File.
+func stressShardRun(opts *StressOptions, s shard.Spec) error {
+	f, in, err := readShard(opts.File, opts.Shared, s)
+	if err != nil {
+		return err
+	}
+	if opts.Sim.Errors != "bootstrap" {
+		return flagErrorf("--errors %s: a plan of several series draws bootstrap errors only", opts.Sim.Errors)
+	}
+	pf, err := plan.BuildPortfolio(f, in, opts.Sim.Workers)
+	if err != nil {
+		return &inputError{err: err}
+	}
+	o := opts.Sim.options()
+	files, err := shard.StressFiles(pf, o, opts.Breach)
+	if err != nil {
+		return &inputError{err: err}
+	}
+	m := shard.NewManifest(version, "stress", s, in.Digests, []string{"stress", opts.File, "--breach", strconv.FormatFloat(opts.Breach, 'g', -1, 64)})
+	m.Seed, m.Paths = o.Seed, o.Paths
 	return writeShard(opts.IO, opts.Shared, opts.Out, m, pf.Warnings, files)
 }

@@ -76,6 +76,29 @@ func TestShardsMergeToWhole(t *testing.T) {
 	}
 }
 
+// TestStressShardsMergeToWhole simulates the generated portfolio whole,
+// then as N shards merged, for N = 1, 2, 3 and 7, and checks that
+// stress.csv is the whole run's: the paths of each sum are added path by
+// path, so the quantiles are the same up to the order of the additions
+// (1e-9 relative, or half a cent for the two decimals of the file).
+func TestStressShardsMergeToWhole(t *testing.T) {
+	dir := portfolioCopy(t)
+	runOK(t, dir, "stress", "plan.yaml", "--paths", "500", "--out", "whole", "--no-chart")
+	for _, n := range []int{1, 2, 3, 7} {
+		t.Run(fmt.Sprint(n), func(t *testing.T) {
+			var shards []string
+			for k := range n {
+				out := fmt.Sprintf("s%d-%d", n, k)
+				runOK(t, dir, "stress", "plan.yaml", "--paths", "500", "--shard", fmt.Sprintf("%d/%d", k, n), "--out", out)
+				shards = append(shards, out)
+			}
+			merged := fmt.Sprintf("merged%d", n)
+			runOK(t, dir, append([]string{"merge", "--out", merged}, shards...)...)
+			sameNumbers(t, "stress.csv", readFile(t, dir, "whole", "stress.csv"), readFile(t, dir, merged, "stress.csv"))
+		})
+	}
+}
+
 func readFile(t *testing.T, parts ...string) []byte {
 	t.Helper()
 	b, err := os.ReadFile(filepath.Join(parts...))

@@ -437,7 +437,10 @@ func resourcesTable(sums []*PlanSums) (*report.Table, error) {
 	}
 	for k, name := range s0.Scenarios {
 		for j, res := range s0.Resources {
-			r := supply.Resource{ID: res.ID, Units: res.Units, PerUnit: res.PerUnit, Capacity: res.Capacity}
+			r := supply.Resource{ID: res.ID, Units: res.Units, PerUnit: res.PerUnit}
+			if len(res.Capacity) > 0 {
+				r.Capacity = res.Capacity
+			}
 			ru, err := merged[j].rollup(s0, k)
 			if err != nil {
 				return nil, err
@@ -453,7 +456,7 @@ func resourcesTable(sums []*PlanSums) (*report.Table, error) {
 					sd = res.PerUnit * math.Sqrt(ru.Var[i])
 				}
 				capacity := ""
-				if res.Capacity != nil {
+				if r.Capacity != nil {
 					capacity = report.CSV2(res.Capacity[i])
 					pb, sf = supply.NormalBreach(load[i], sd, res.Capacity[i])
 				}
