@@ -54,6 +54,8 @@ func mergeRun(opts *MergeOptions) error {
 		m, err = shard.MergePlan(opts.Shards)
 	case "stress":
 		m, err = shard.MergeStress(opts.Shards)
+	case "fit":
+		m, err = shard.MergeFit(opts.Shards)
 	default:
 		err = fmt.Errorf("%s: shards of forelay %s cannot be merged by this version", opts.Shards[0], command)
 	}

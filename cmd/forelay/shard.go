@@ -1,7 +1,12 @@
 package main
 
 import (
+	"errors"
 	"fmt"
+	"forelay/forecast"
+	"forelay/scenario/data"
+	"github.com/spf13/cobra"
+	"github.com/spf13/pflag"
 	"strconv"
 
 	"forelay/scenario"
@@ -111,4 +116,68 @@ func stressShardRun(opts *StressOptions, s shard.Spec) error {
 	m := shard.NewManifest(version, "stress", s, in.Digests, []string{"stress", opts.File, "--breach", strconv.FormatFloat(opts.Breach, 'g', -1, 64)})
 	m.Seed, m.Paths = o.Seed, o.Paths
 	return writeShard(opts.IO, opts.Shared, opts.Out, m, pf.Warnings, files)
+}
+
+// givenFlags returns the flags given to cmd, as --name=value, less those
+// that do not change a shard's output (--out, --shard, --workers).
+func givenFlags(cmd *cobra.Command) []string {
+	var out []string
+	cmd.Flags().Visit(func(f *pflag.Flag) {
+		switch f.Name {
+		case "out", "shard", "workers":
+			return
+		}
+		out = append(out, "--"+f.Name+"="+f.Value.String())
+	})
+	return out
+}
+
+// fitShardRun fits shard s of the series of opts.History.
+func fitShardRun(opts *FitOptions, s shard.Spec) error {
+	if opts.Series != "" {
+		return flagErrorf("--series %s: --shard fits a slice of every series of the file; leave out one of them", opts.Series)
+	}
+	spec, bands, err := opts.Baseline.spec()
+	if err != nil {
+		return err
+	}
+	h, err := loadHistoryKeep(opts.History, opts.Period, opts.Fill, opts.Shared.limits(), s.Owns)
+	if err != nil {
+		return err
+	}
+	var series []forecast.Series
+	var own []int
+	for i, ser := range h.Series {
+		if s.Owns(ser.Name) {
+			series = append(series, ser)
+			own = append(own, i)
+		}
+	}
+	outcomes := forecast.FitAll(series, spec, opts.Workers)
+	var warns []string
+	for _, oc := range outcomes {
+		if oc.Err == nil {
+			warns = append(warns, oc.Result.Warnings()...)
+		}
+	}
+	out, failed, err := report.Fits(opts.History, series, outcomes, spec.Horizon, bands, opts.Units, true)
+	if err != nil {
+		return err
+	}
+	files, err := shard.FitFiles([]byte(out.String()), len(h.Series), own)
+	if err != nil {
+		return err
+	}
+	digest, err := data.Digest(opts.History)
+	if err != nil {
+		return &inputError{err: err}
+	}
+	m := shard.NewManifest(version, "fit", s, map[string]string{"history": digest}, append([]string{"fit"}, opts.Args...))
+	if err := writeShard(opts.IO, opts.Shared, opts.Out, m, warns, files); err != nil {
+		return err
+	}
+	if len(failed) > 0 {
+		return &inputError{err: errors.Join(failed...)}
+	}
+	return nil
 }

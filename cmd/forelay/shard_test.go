@@ -99,6 +99,38 @@ func TestStressShardsMergeToWhole(t *testing.T) {
 	}
 }
 
+// TestFitShardsMergeToWhole fits a long history of 12 invented series
+// whole (--json) and as N shards merged, for N = 1, 2, 3 and 7: the merged
+// fit.jsonl is the whole run's standard output, byte for byte.
+func TestFitShardsMergeToWhole(t *testing.T) {
+	dir := t.TempDir()
+	var b strings.Builder
+	b.WriteString("series,period,value\n")
+	for i := range 12 {
+		for m := range 36 {
+			v := 100 + 10*float64(i) + 20*math.Sin(float64(m)*0.5+float64(i)) + float64((m*7+i*3)%11)
+			fmt.Fprintf(&b, "farm-%02d,%d-%02d,%.0f\n", i, 2022+m/12, m%12+1, v)
+		}
+	}
+	if err := os.WriteFile(filepath.Join(dir, "h.csv"), []byte(b.String()), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	whole := runOK(t, dir, "fit", "--history", "h.csv", "--json", "--method", "ses")
+	for _, n := range []int{1, 2, 3, 7} {
+		var shards []string
+		for k := range n {
+			out := fmt.Sprintf("f%d-%d", n, k)
+			runOK(t, dir, "fit", "--history", "h.csv", "--method", "ses", "--shard", fmt.Sprintf("%d/%d", k, n), "--out", out)
+			shards = append(shards, out)
+		}
+		merged := fmt.Sprintf("merged%d", n)
+		runOK(t, dir, append([]string{"merge", "--out", merged}, shards...)...)
+		if got := readFile(t, dir, merged, "fit.jsonl"); string(got) != whole {
+			t.Errorf("N = %d: fit.jsonl differs from the whole run's output", n)
+		}
+	}
+}
+
 func readFile(t *testing.T, parts ...string) []byte {
 	t.Helper()
 	b, err := os.ReadFile(filepath.Join(parts...))
