@@ -63,7 +63,7 @@ func TestShardsMergeToWhole(t *testing.T) {
 			}
 			merged := fmt.Sprintf("merged%d", n)
 			runOK(t, dir, append([]string{"merge", "--out", merged}, shards...)...)
-			for _, name := range []string{"plan.csv", "summary.csv"} {
+			for _, name := range []string{"plan.csv", "summary.csv", "plan.json"} {
 				want, got := readFile(t, dir, "whole", name), readFile(t, dir, merged, name)
 				if !bytes.Equal(want, got) {
 					t.Errorf("%s differs from the whole run's", name)

@@ -172,7 +172,7 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 		pf.Notes = append(pf.Notes, fmt.Sprintf("the loads of the file's %d resource(s) are those of the planned demand, and their breach chances take the load as normal with the scenario's events happening; forelay stress simulates them with the events' probabilities and ranges", len(f.Resources)))
 	}
 	if in.shard != nil {
-		pf.keepShard(in.shard, first)
+		pf.keepShard(in.shard, first, in.Digests)
 	}
 	lint := f.Lint(series[0])
 	pf.Warnings = append(append(pf.Warnings, warnings...), lint...)

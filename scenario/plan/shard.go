@@ -15,6 +15,8 @@ type ShardOf struct {
 	Index []int
 	// First is the first plan period.
 	First forecast.Period
+	// Inputs are the digests of the input files (Inputs.Digests).
+	Inputs map[string]string
 }
 
 // ReadShard reads the inputs of f like ReadSelection for a portfolio that
@@ -58,8 +60,8 @@ func (in *Inputs) plans(name string) bool { return in.shard == nil || in.shard(n
 
 // keepShard keeps only the plans of the shard's own series, in order, and
 // records where they stand in the whole portfolio.
-func (pf *Portfolio) keepShard(mine func(string) bool, first forecast.Period) {
-	sh := &ShardOf{All: pf.Names, First: first}
+func (pf *Portfolio) keepShard(mine func(string) bool, first forecast.Period, inputs map[string]string) {
+	sh := &ShardOf{All: pf.Names, First: first, Inputs: inputs}
 	var names []string
 	var plans []*Plan
 	index := map[string]int{}

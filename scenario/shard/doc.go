@@ -21,13 +21,17 @@
 // A JSON document, version 1 (SumsVersion), whose arrays of numbers are
 // strings: the numbers as little-endian IEEE 754 float64, base64 (standard
 // alphabet, padded), so that nothing is lost to decimal printing. Fields:
-// version, kind ("plan"), series (the number the whole portfolio plans),
+// version, kind ("plan"), plan, units, freq, end (the history's last
+// period), inputs (the digests), notes and case_events (the events of each
+// scenario), which plan.json repeats, series (the number the whole
+// portfolio plans),
 // depth (of its deepest name), levels, periods, scenarios, events (every
 // event of the file, in file order, and whether a series of the shard
 // plans it: future), z, floor (whether the plan has a floor), warnings
 // (those of the file, the same in every shard), own (each series of the
 // shard: name, index in the whole portfolio, baseline total, adjusted
-// total per scenario, its warnings), groups (the total and each group of
+// total per scenario, its warnings, new, mad, mse, baseline_periods and
+// adjusted_periods, what plan.json holds of it), groups (the total and each group of
 // each level over the shard's series: level, depth, group, first (index of
 // its first member), members, floor (sum of the members' floors), var (the
 // variance parts: h, n, z, own, indep) and per scenario baseline,

@@ -72,15 +72,15 @@ func MergePlan(dirs []string) (*Merged, error) {
 		name string
 		t    *report.Table
 	}{{"rollup.csv", rollupTable(s0, groups)}, {"summary.csv", summaryTable(s0, own)}}
+	loads, err := resourceLoads(sums)
+	if err != nil {
+		return nil, err
+	}
 	if len(s0.Resources) > 0 {
-		rt, err := resourcesTable(sums)
-		if err != nil {
-			return nil, err
-		}
 		tables = append(tables, struct {
 			name string
 			t    *report.Table
-		}{"resources.csv", rt})
+		}{"resources.csv", resourcesTable(s0, loads)})
 	}
 	for _, t := range tables {
 		b, err := t.t.CSVBytes()
@@ -89,6 +89,11 @@ func MergePlan(dirs []string) (*Merged, error) {
 		}
 		m.Files = append(m.Files, File{t.name, b})
 	}
+	js, err := planJSON(s0, own, groups, loads, m.Warnings)
+	if err != nil {
+		return nil, err
+	}
+	m.Files = append(m.Files, File{"plan.json", js})
 	m.Text = fmt.Sprintf("merged %d shards of forelay %s: %d series, %d scenario(s), %d periods\n", ms[0].Shard.N, strings.Join(ms[0].Args, " "), s0.Series, len(s0.Scenarios), len(s0.Periods))
 	return m, nil
 }
@@ -419,11 +424,16 @@ func summaryTable(s0 *PlanSums, own []OwnSeries) *report.Table {
 	return t
 }
 
-// resourcesTable is resources.csv (report's resourcesCSV) of the merged
-// resources.
-func resourcesTable(sums []*PlanSums) (*report.Table, error) {
+// A resourceLoad is a resource's merged load in one scenario, with its
+// spread and normal breach risk (supply.PortfolioLoadRisk).
+type resourceLoad struct {
+	members                            int
+	load, util, sd, pBreach, shortfall []float64
+}
+
+// resourceLoads returns each scenario's merged resource loads.
+func resourceLoads(sums []*PlanSums) ([][]resourceLoad, error) {
 	s0 := sums[0]
-	t := &report.Table{Head: []string{"scenario", "resource", "period", "load", "capacity", "utilisation", "load_sd", "p_breach", "expected_shortfall"}}
 	merged := make([]*mergedGroup, len(s0.Resources))
 	for j := range s0.Resources {
 		m := &mergedGroup{}
@@ -435,7 +445,8 @@ func resourcesTable(sums []*PlanSums) (*report.Table, error) {
 		}
 		merged[j] = m
 	}
-	for k, name := range s0.Scenarios {
+	out := make([][]resourceLoad, len(s0.Scenarios))
+	for k := range s0.Scenarios {
 		for j, res := range s0.Resources {
 			r := supply.Resource{ID: res.ID, Units: res.Units, PerUnit: res.PerUnit}
 			if len(res.Capacity) > 0 {
@@ -445,25 +456,41 @@ func resourcesTable(sums []*PlanSums) (*report.Table, error) {
 			if err != nil {
 				return nil, err
 			}
-			load := make([]float64, len(s0.Periods))
-			for i := range load {
-				load[i] = ru.Adjusted[i] * res.PerUnit
-			}
-			util := r.Utilisation(load)
-			for i, per := range s0.Periods {
-				sd, pb, sf := 0.0, math.NaN(), math.NaN()
-				if merged[j].Members > 0 {
-					sd = res.PerUnit * math.Sqrt(ru.Var[i])
+			n := len(s0.Periods)
+			l := resourceLoad{members: merged[j].Members, load: make([]float64, n), sd: make([]float64, n), pBreach: make([]float64, n), shortfall: make([]float64, n)}
+			for i := range n {
+				l.load[i] = ru.Adjusted[i] * res.PerUnit
+				if l.members > 0 {
+					l.sd[i] = res.PerUnit * math.Sqrt(ru.Var[i])
 				}
-				capacity := ""
+				l.pBreach[i], l.shortfall[i] = math.NaN(), math.NaN()
 				if r.Capacity != nil {
-					capacity = report.CSV2(res.Capacity[i])
-					pb, sf = supply.NormalBreach(load[i], sd, res.Capacity[i])
+					l.pBreach[i], l.shortfall[i] = supply.NormalBreach(l.load[i], l.sd[i], r.Capacity[i])
 				}
-				t.Rows = append(t.Rows, []string{name, res.ID, per, report.CSV2(load[i]), capacity, report.CSVNum(util[i], 4),
-					report.CSVNum(sd, 2), report.CSVNum(pb, 4), report.CSVNum(sf, 2)})
+			}
+			l.util = r.Utilisation(l.load)
+			out[k] = append(out[k], l)
+		}
+	}
+	return out, nil
+}
+
+// resourcesTable is resources.csv (report's resourcesCSV) of the merged
+// resources.
+func resourcesTable(s0 *PlanSums, loads [][]resourceLoad) *report.Table {
+	t := &report.Table{Head: []string{"scenario", "resource", "period", "load", "capacity", "utilisation", "load_sd", "p_breach", "expected_shortfall"}}
+	for k, name := range s0.Scenarios {
+		for j, res := range s0.Resources {
+			l := loads[k][j]
+			for i, per := range s0.Periods {
+				capacity := ""
+				if len(res.Capacity) > 0 {
+					capacity = report.CSV2(res.Capacity[i])
+				}
+				t.Rows = append(t.Rows, []string{name, res.ID, per, report.CSV2(l.load[i]), capacity, report.CSVNum(l.util[i], 4),
+					report.CSVNum(l.sd[i], 2), report.CSVNum(l.pBreach[i], 4), report.CSVNum(l.shortfall[i], 2)})
 			}
 		}
 	}
-	return t, nil
+	return t
 }

@@ -16,20 +16,30 @@ const SumsVersion = 1
 // PlanSums is sums.json of a shard of a portfolio plan (see the package
 // documentation).
 type PlanSums struct {
-	Version   int           `json:"version"`
-	Kind      string        `json:"kind"`
-	Series    int           `json:"series"`
-	Depth     int           `json:"depth"`
-	Levels    []string      `json:"levels"`
-	Periods   []string      `json:"periods"`
-	Scenarios []string      `json:"scenarios"`
-	Events    []EventUse    `json:"events"`
-	Z         float64       `json:"z"`
-	Floor     bool          `json:"floor"`
-	Warnings  []string      `json:"warnings"`
-	Own       []OwnSeries   `json:"own"`
-	Groups    []GroupSums   `json:"groups"`
-	Resources []ResourceSum `json:"resources"`
+	Version int    `json:"version"`
+	Kind    string `json:"kind"`
+	// Plan, Units, Freq (the period's name), End (the history's last
+	// period), Inputs (the digests), Notes and CaseEvents (the events of
+	// each scenario) are what plan.json says of the whole portfolio.
+	Plan       string            `json:"plan"`
+	Units      string            `json:"units"`
+	Freq       string            `json:"freq"`
+	End        string            `json:"end"`
+	Inputs     map[string]string `json:"inputs"`
+	Notes      []string          `json:"notes"`
+	CaseEvents [][]string        `json:"case_events"`
+	Series     int               `json:"series"`
+	Depth      int               `json:"depth"`
+	Levels     []string          `json:"levels"`
+	Periods    []string          `json:"periods"`
+	Scenarios  []string          `json:"scenarios"`
+	Events     []EventUse        `json:"events"`
+	Z          float64           `json:"z"`
+	Floor      bool              `json:"floor"`
+	Warnings   []string          `json:"warnings"`
+	Own        []OwnSeries       `json:"own"`
+	Groups     []GroupSums       `json:"groups"`
+	Resources  []ResourceSum     `json:"resources"`
 }
 
 // An EventUse is an event of the file and whether a series of the shard
@@ -47,6 +57,14 @@ type OwnSeries struct {
 	Baseline float64  `json:"baseline"`
 	Adjusted Floats   `json:"adjusted"`
 	Warnings []string `json:"warnings"`
+	// New marks a series a scope creates; MAD and MSE are its in-sample
+	// accuracy (0 when New), BaselinePeriods its baseline and
+	// AdjustedPeriods its plan in each scenario, per period.
+	New             bool     `json:"new"`
+	MAD             float64  `json:"mad"`
+	MSE             float64  `json:"mse"`
+	BaselinePeriods Floats   `json:"baseline_periods"`
+	AdjustedPeriods []Floats `json:"adjusted_periods"`
 }
 
 // GroupSums are the partial sums of a group of series over the shard's
@@ -141,7 +159,17 @@ func NewPlanSums(pf *plan.Portfolio) (*PlanSums, error) {
 	}
 	for _, c := range f.Cases() {
 		s.Scenarios = append(s.Scenarios, c.Name)
+		ids := []string{}
+		for _, e := range c.Events {
+			ids = append(ids, e.ID)
+		}
+		s.CaseEvents = append(s.CaseEvents, ids)
 	}
+	s.Plan, s.Units, s.Inputs, s.Notes = f.Plan, f.Units, pf.Shard.Inputs, pf.Notes
+	if s.Notes == nil {
+		s.Notes = []string{}
+	}
+	s.Freq, s.End = sh.First.Freq.String(), sh.First.Add(-1).String()
 	for _, e := range f.Events {
 		use := EventUse{ID: e.ID}
 		for _, p := range pf.Plans {
@@ -156,9 +184,14 @@ func NewPlanSums(pf *plan.Portfolio) (*PlanSums, error) {
 	mine := map[string]int{}
 	for i, p := range pf.Plans {
 		mine[p.History.Name] = i
-		o := OwnSeries{Name: p.History.Name, Index: sh.Index[i], Baseline: plan.Total(p.Baseline), Warnings: []string{}}
+		o := OwnSeries{Name: p.History.Name, Index: sh.Index[i], Baseline: plan.Total(p.Baseline), Warnings: []string{},
+			New: p.Fit == nil, BaselinePeriods: p.Baseline}
+		if p.Fit != nil {
+			o.MAD, o.MSE = p.Fit.Accuracy.MAD, p.Fit.Accuracy.MSE
+		}
 		for _, sp := range p.Scenarios {
 			o.Adjusted = append(o.Adjusted, plan.Total(sp.Adjusted))
+			o.AdjustedPeriods = append(o.AdjustedPeriods, sp.Adjusted)
 		}
 		s.Own = append(s.Own, o)
 	}
