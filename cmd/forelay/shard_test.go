@@ -80,7 +80,8 @@ func TestShardsMergeToWhole(t *testing.T) {
 // then as N shards merged, for N = 1, 2, 3 and 7, and checks that
 // stress.csv is the whole run's: the paths of each sum are added path by
 // path, so the quantiles are the same up to the order of the additions
-// (1e-9 relative, or half a cent for the two decimals of the file).
+// (1e-9 relative, or half a cent for the two decimals of the file), and
+// stress.json (10 significant digits) is the whole run's byte for byte.
 func TestStressShardsMergeToWhole(t *testing.T) {
 	dir := portfolioCopy(t)
 	runOK(t, dir, "stress", "plan.yaml", "--paths", "500", "--out", "whole", "--no-chart")
@@ -95,6 +96,9 @@ func TestStressShardsMergeToWhole(t *testing.T) {
 			merged := fmt.Sprintf("merged%d", n)
 			runOK(t, dir, append([]string{"merge", "--out", merged}, shards...)...)
 			sameNumbers(t, "stress.csv", readFile(t, dir, "whole", "stress.csv"), readFile(t, dir, merged, "stress.csv"))
+			if !bytes.Equal(readFile(t, dir, "whole", "stress.json"), readFile(t, dir, merged, "stress.json")) {
+				t.Error("stress.json differs from the whole run's")
+			}
 		})
 	}
 }

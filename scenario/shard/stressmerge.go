@@ -1,6 +1,7 @@
 package shard
 
 import (
+	"encoding/json"
 	"errors"
 	"fmt"
 	"slices"
@@ -51,6 +52,9 @@ func MergeStress(dirs []string) (*Merged, error) {
 			total.Window = s.Window
 		}
 		series += s.Fitted
+		for j := range s.Sums {
+			total.Sums[j].Members += s.Sums[j].Members
+		}
 		for k := range s.Demand {
 			for j := range s.Demand[k] {
 				for t := range s.Demand[k][j] {
@@ -60,17 +64,18 @@ func MergeStress(dirs []string) (*Merged, error) {
 		}
 	}
 	total.Fitted = series
-	t, err := stressTable(total)
+	run := stressRun(total)
+	b, err := stressTable(total, run).CSVBytes()
 	if err != nil {
 		return nil, err
 	}
-	b, err := t.CSVBytes()
+	js, err := json.MarshalIndent(report.MergedStressDoc(run), "", "  ")
 	if err != nil {
 		return nil, err
 	}
 	text := fmt.Sprintf("merged %d shards of forelay stress: %d series, %d paths, seed %d, errors drawn over %d periods\n",
 		ms[0].Shard.N, total.Series, total.Paths, total.Seed, total.Window)
-	return &Merged{Files: []File{{"stress.csv", b}}, Text: text, Warnings: total.Warnings}, nil
+	return &Merged{Files: []File{{"stress.csv", b}, {"stress.json", append(js, '\n')}}, Text: text, Warnings: total.Warnings}, nil
 }
 
 // checkShape checks that the paths of s have the lengths its settings say.
@@ -101,23 +106,48 @@ func checkShape(s *StressSums) error {
 	return nil
 }
 
-// stressTable is stress.csv of a portfolio (report's portfolioStressCSV,
-// without frozen production) from the added paths.
-func stressTable(s *StressSums) (*report.Table, error) {
-	tb := &report.Table{Head: []string{"scenario", "resource", "period", "mean", "p5", "p10", "p50", "p90", "p95", "capacity", "p_breach",
-		"expected_shortfall", "shortfall_if_breach", "util_p50", "util_p90"}}
+// stressRun works out the risks of the added paths: each sum's mean,
+// quantiles and breach risks against its capacity (supply.CapacityRisk).
+func stressRun(s *StressSums) *report.MergedStress {
+	m := &report.MergedStress{Plan: s.Plan, Units: s.Units, Series: s.Series, Fitted: s.Fitted, Paths: s.Paths, Window: s.Window,
+		Seed: s.Seed, Breach: s.Breach, Inputs: s.Inputs, Warnings: s.Warnings, Periods: s.Periods, Scenarios: s.Scenarios, CaseEvents: s.CaseEvents}
+	for _, sum := range s.Sums[1:] {
+		m.Resources = append(m.Resources, report.MergedResource{ID: sum.Name, Units: sum.Units, PerUnit: sum.PerUnit, Series: sum.Members})
+	}
 	for k, name := range s.Scenarios {
+		var risks []supply.Risk
 		for j, sum := range s.Sums {
 			demand := make([][]float64, len(s.Periods))
 			for t := range demand {
 				demand[t] = s.Demand[k][j][t]
 			}
-			ps := sim.NewPathSet(name, demand)
 			var capacity []float64
 			if len(sum.Capacity) > 0 {
 				capacity = sum.Capacity
 			}
-			rk := supply.CapacityRisk(ps, capacity, s.Breach)
+			rk := supply.CapacityRisk(sim.NewPathSet(name, demand), capacity, s.Breach)
+			if j == 0 {
+				m.Total = append(m.Total, rk)
+			} else {
+				risks = append(risks, rk)
+			}
+		}
+		m.Risks = append(m.Risks, risks)
+	}
+	return m
+}
+
+// stressTable is stress.csv of a portfolio (report's portfolioStressCSV,
+// without frozen production) of the merged run.
+func stressTable(s *StressSums, m *report.MergedStress) *report.Table {
+	tb := &report.Table{Head: []string{"scenario", "resource", "period", "mean", "p5", "p10", "p50", "p90", "p95", "capacity", "p_breach",
+		"expected_shortfall", "shortfall_if_breach", "util_p50", "util_p90"}}
+	for k, name := range s.Scenarios {
+		for j, sum := range s.Sums {
+			rk := m.Total[k]
+			if j > 0 {
+				rk = m.Risks[k][j-1]
+			}
 			for t, pr := range rk.Periods {
 				tb.AddRow(name, sum.Name, s.Periods[t], report.CSVNum(pr.Mean, 2), report.CSVNum(pr.P5, 2), report.CSVNum(pr.P10, 2),
 					report.CSVNum(pr.P50, 2), report.CSVNum(pr.P90, 2), report.CSVNum(pr.P95, 2), report.CSVNum(pr.Capacity, 2), report.CSVNum(pr.PBreach, 4),
@@ -125,5 +155,5 @@ func stressTable(s *StressSums) (*report.Table, error) {
 			}
 		}
 	}
-	return tb, nil
+	return tb
 }

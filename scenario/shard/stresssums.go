@@ -6,6 +6,7 @@ import (
 
 	"forelay/scenario"
 	"forelay/scenario/plan"
+	"forelay/scenario/series"
 	"forelay/scenario/sim"
 	"forelay/scenario/supply"
 )
@@ -14,17 +15,23 @@ import (
 // of the shard's part of each sum (the total, then each resource's load),
 // per scenario, sum and period, to be added path by path.
 type StressSums struct {
-	Version   int      `json:"version"`
-	Kind      string   `json:"kind"`
-	Series    int      `json:"series"`
-	Periods   []string `json:"periods"`
-	Scenarios []string `json:"scenarios"`
-	Paths     int      `json:"paths"`
-	Seed      uint64   `json:"seed"`
-	Window    int      `json:"window"`
-	Fitted    int      `json:"fitted"`
-	Breach    float64  `json:"breach"`
-	Warnings  []string `json:"warnings"`
+	Version int    `json:"version"`
+	Kind    string `json:"kind"`
+	// Plan, Units, Inputs and CaseEvents (each scenario's events) are
+	// what stress.json says of the whole run.
+	Plan       string            `json:"plan"`
+	Units      string            `json:"units"`
+	Inputs     map[string]string `json:"inputs"`
+	CaseEvents [][]string        `json:"case_events"`
+	Series     int               `json:"series"`
+	Periods    []string          `json:"periods"`
+	Scenarios  []string          `json:"scenarios"`
+	Paths      int               `json:"paths"`
+	Seed       uint64            `json:"seed"`
+	Window     int               `json:"window"`
+	Fitted     int               `json:"fitted"`
+	Breach     float64           `json:"breach"`
+	Warnings   []string          `json:"warnings"`
 	// Sums names the sums: sim.TotalSum, then each resource's id, with
 	// its capacity per period (empty for the total or without one).
 	Sums []StressSum `json:"sums"`
@@ -36,6 +43,11 @@ type StressSums struct {
 type StressSum struct {
 	Name     string `json:"name"`
 	Capacity Floats `json:"capacity"`
+	// Units and PerUnit are a resource's, Members the number of the
+	// shard's series it loads.
+	Units   string  `json:"units"`
+	PerUnit float64 `json:"per_unit"`
+	Members int     `json:"members"`
 }
 
 // NewStressSums simulates the shard's part of each sum of a portfolio
@@ -61,10 +73,21 @@ func NewStressSums(pf *plan.Portfolio, opt sim.SimOptions, breach float64) (*Str
 	}
 	for _, c := range f.Cases() {
 		s.Scenarios = append(s.Scenarios, c.Name)
+		ids := []string{}
+		for _, e := range c.Events {
+			ids = append(ids, e.ID)
+		}
+		s.CaseEvents = append(s.CaseEvents, ids)
 	}
-	s.Sums = append(s.Sums, StressSum{Name: sim.TotalSum})
+	s.Plan, s.Units, s.Inputs = f.Plan, f.Units, pf.Shard.Inputs
+	s.Sums = append(s.Sums, StressSum{Name: sim.TotalSum, Members: len(pf.Plans)})
 	for _, r := range f.AllResources() {
-		ss := StressSum{Name: r.ID}
+		ss := StressSum{Name: r.ID, Units: r.Units, PerUnit: r.PerUnit}
+		for _, n := range pf.Names {
+			if series.Match(r.Series, n) {
+				ss.Members++
+			}
+		}
 		if r.Capacity != nil {
 			for t := range hz {
 				ss.Capacity = append(ss.Capacity, r.Capacity.At(pf.Shard.First.Add(t)))
