@@ -76,6 +76,43 @@ func TestShardsMergeToWhole(t *testing.T) {
 	}
 }
 
+// TestShardsWithoutSeries plans 74 series of the generated portfolio in
+// 20 shards, some of which get no series at all (the hash puts none of the
+// 74 in shard 5): an empty shard adds nothing, and the merge is still the
+// whole run's, byte for byte.
+func TestShardsWithoutSeries(t *testing.T) {
+	dir := portfolioCopy(t)
+	yml := string(readFile(t, dir, "plan.yaml"))
+	sel := `series: ["milk/*/grocer-hill", "milk/*/cafe-*", "cream/*/cafe-*", "yoghurt/*/farm-shop", "*/*/grocer-east"]`
+	if !strings.Contains(yml, `series: "**"`) {
+		t.Fatal(`plan.yaml: no series: "**" to narrow`)
+	}
+	if err := os.WriteFile(filepath.Join(dir, "plan.yaml"), []byte(strings.Replace(yml, `series: "**"`, sel, 1)), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	runOK(t, dir, "plan", "plan.yaml", "--out", "whole", "--charts", "none")
+	const n = 20
+	var shards []string
+	empty := 0
+	for k := range n {
+		out := fmt.Sprintf("s%d", k)
+		runOK(t, dir, "plan", "plan.yaml", "--shard", fmt.Sprintf("%d/%d", k, n), "--out", out)
+		if bytes.Count(readFile(t, dir, out, "plan.csv"), []byte("\n")) == 1 {
+			empty++
+		}
+		shards = append(shards, out)
+	}
+	if empty == 0 {
+		t.Fatal("no shard is empty: the test does not test what it says")
+	}
+	runOK(t, dir, append([]string{"merge", "--out", "merged"}, shards...)...)
+	for _, name := range []string{"plan.csv", "summary.csv", "rollup.csv", "resources.csv", "plan.json"} {
+		if !bytes.Equal(readFile(t, dir, "whole", name), readFile(t, dir, "merged", name)) {
+			t.Errorf("%s differs from the whole run's", name)
+		}
+	}
+}
+
 // TestStressShardsMergeToWhole simulates the generated portfolio whole,
 // then as N shards merged, for N = 1, 2, 3 and 7, and checks that
 // stress.csv is the whole run's: the paths of each sum are added path by
