@@ -4,8 +4,11 @@
 # one after another on this machine, each on WORKERS workers (2, as a
 # two-core pod), then merged. Prints, per shard, the wall time, the
 # processor time (user + sys) and the peak resident memory (GNU time), the
-# merge's, and the projection for TARGET series (1,000,000) on PODS pods
-# (50). Usage, from the repository root:
+# merge's, the cost of reading the whole file (a shard of 1/1000 of the
+# series), and the projection for TARGET series (1,000,000) on PODS
+# two-core pods (50): each pod reads the whole file (TARGET/SERIES times
+# this one) on one core and plans TARGET/PODS series on two. Usage, from
+# the repository root:
 #
 #   bash examples/kubernetes/bench.sh [SERIES] [N] [WORKERS] [POINTS]
 #
@@ -60,11 +63,15 @@ for ((k = 0; k < n; k++)); do
   shards+=("$dir/s$k")
 done
 measure merge "$dir/forelay" merge --out "$dir/merged" "${shards[@]}"
+measure "read only" "$dir/forelay" "${limit[@]}" plan "$dir/plan.yaml" --shard 0/1000 --out "$dir/r" --workers "$workers"
 awk -v n="$n" -v s="$series" -v t="$target" -v p="$pods" '
   NR <= n { w += $1; c += $2; if ($3 > m) m = $3 }
-  NR == n + 1 { mw = $1 }
+  NR == n + 1 { mw = $1; mc = $2; mm = $3 }
+  NR == n + 2 { rc = $2; rm = $3 }
   END {
-    per = c / s
-    printf "per series: %.2f ms of processor time; shards: %.1f s wall in all, peak %.0f MB\n", 1000 * per, w, m / 1024
-    printf "projection, %d series on %d two-core pods (%d series each, 2 cores per pod): %.0f s per pod plus the merge (%.1f s here for %d series)\n", t, p, t / p, per * t / p / 2, mw, s
+    plan = (c - n * rc) / s           # processor time per series, reading left out
+    read = rc * t / s                 # reading the whole file of t series, one core
+    pod = read + plan * t / p / 2     # then t/p series on two cores
+    printf "per series: %.2f ms of processor time to plan; reading the file: %.1f s per shard; shards: %.0f s wall in all, peak %.0f MB; merge: %.1f s wall, %.1f s cpu, %.0f MB\n", 1000 * plan, rc, w, m / 1024, mw, mc, mm / 1024
+    printf "projection, %d series on %d two-core pods (%d series each): %.0f s to read + %.0f s to plan = about %.0f s per pod, then the merge (%.1f s here for %d series, growing with the series)\n", t, p, t / p, read, plan * t / p / 2, pod, mw, s
   }' "$dir/all.txt"
