@@ -91,7 +91,7 @@ func planShardRun(opts *PlanOptions, s shard.Spec) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	m := shard.NewManifest(version, "plan", s, in.Digests, []string{"plan", opts.File})
+	m := shard.NewManifest(version, "plan", s, in.Digests, []string{"plan"})
 	return writeShard(opts.IO, opts.Shared, opts.Out, m, pf.Warnings, files)
 }
 
@@ -113,7 +113,7 @@ func stressShardRun(opts *StressOptions, s shard.Spec) error {
 	if err != nil {
 		return &inputError{err: err}
 	}
-	m := shard.NewManifest(version, "stress", s, in.Digests, []string{"stress", opts.File, "--breach", strconv.FormatFloat(opts.Breach, 'g', -1, 64)})
+	m := shard.NewManifest(version, "stress", s, in.Digests, []string{"stress", "--breach=" + strconv.FormatFloat(opts.Breach, 'g', -1, 64)})
 	m.Seed, m.Paths = o.Seed, o.Paths
 	return writeShard(opts.IO, opts.Shared, opts.Out, m, pf.Warnings, files)
 }

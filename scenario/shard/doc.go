@@ -43,7 +43,8 @@
 //
 // version (1), forelay (the tool's version), command (plan, stress or
 // fit), shard {k, n}, inputs (the digests of the scenario and history
-// files), seed and paths (stress), and args (the command line less --out
-// and --shard). Shards belong together when all of these but k agree and
-// every k from 0 to n-1 is there once.
+// files), seed and paths (stress), and args (the command and the settings
+// that change the output; the input files are known by their digests).
+// Shards belong together when all of these but k agree and every k from 0
+// to n-1 is there once.
 package shard

@@ -34,7 +34,8 @@ type Manifest struct {
 }
 
 // NewManifest returns the manifest of shard s of a run of command with the
-// inputs' digests and args (the command line less --out and --shard).
+// inputs' digests and args (the command and the settings that change the
+// output, not --out, --shard or --workers).
 func NewManifest(forelay, command string, s Spec, inputs map[string]string, args []string) *Manifest {
 	m := &Manifest{Version: ManifestVersion, Forelay: forelay, Command: command, Inputs: maps.Clone(inputs), Args: args}
 	if m.Args == nil {

@@ -68,10 +68,14 @@ func MergePlan(dirs []string) (*Merged, error) {
 		return nil, err
 	}
 	s0 := sums[0]
+	rt, err := rollupTable(s0, groups)
+	if err != nil {
+		return nil, err
+	}
 	tables := []struct {
 		name string
 		t    *report.Table
-	}{{"rollup.csv", rollupTable(s0, groups)}, {"summary.csv", summaryTable(s0, own)}}
+	}{{"rollup.csv", rt}, {"summary.csv", summaryTable(s0, own)}}
 	loads, err := resourceLoads(sums)
 	if err != nil {
 		return nil, err
@@ -94,7 +98,7 @@ func MergePlan(dirs []string) (*Merged, error) {
 		return nil, err
 	}
 	m.Files = append(m.Files, File{"plan.json", js})
-	m.Text = fmt.Sprintf("merged %d shards of forelay %s: %d series, %d scenario(s), %d periods\n", ms[0].Shard.N, strings.Join(ms[0].Args, " "), s0.Series, len(s0.Scenarios), len(s0.Periods))
+	m.Text = fmt.Sprintf("merged %d shards of forelay plan %s: %d series, %d scenario(s), %d periods\n", ms[0].Shard.N, s0.Plan, s0.Series, len(s0.Scenarios), len(s0.Periods))
 	return m, nil
 }
 
@@ -379,13 +383,13 @@ func (m *mergedGroup) rollup(s0 *PlanSums, k int) (plan.Rollup, error) {
 }
 
 // rollupTable is rollup.csv (report's rollupCSV) of the merged groups.
-func rollupTable(s0 *PlanSums, groups []*mergedGroup) *report.Table {
+func rollupTable(s0 *PlanSums, groups []*mergedGroup) (*report.Table, error) {
 	t := &report.Table{Head: []string{"scenario", "level", "group", "period", "baseline", "adjusted", "risk_weighted", "lower", "upper"}}
 	for k := range s0.Scenarios {
 		for _, g := range groups {
 			ru, err := g.rollup(s0, k)
 			if err != nil {
-				continue // checked when added
+				return nil, fmt.Errorf("group %q: %w", g.Group, err)
 			}
 			for j, per := range s0.Periods {
 				t.Rows = append(t.Rows, []string{ru.Scenario, ru.Level, ru.Group, per, report.CSV2(ru.Baseline[j]),
@@ -393,7 +397,7 @@ func rollupTable(s0 *PlanSums, groups []*mergedGroup) *report.Table {
 			}
 		}
 	}
-	return t
+	return t, nil
 }
 
 // summaryTable is summary.csv (report's summaryCSV): every series in every
