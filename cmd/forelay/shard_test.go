@@ -113,6 +113,69 @@ func TestShardsWithoutSeries(t *testing.T) {
 	}
 }
 
+// TestShardsAgreeOnStaleSeries plans a long history of 9 invented series
+// in which one ends a year early and two start late, whole and in 3
+// shards: every shard leaves the stale series out with the whole run's
+// warning (it learns the series' extent without keeping its values), plans
+// to the same end, and the merge gives the whole run's files and warning.
+func TestShardsAgreeOnStaleSeries(t *testing.T) {
+	dir := t.TempDir()
+	var b strings.Builder
+	b.WriteString("series,period,value\n")
+	for i := range 9 {
+		first, last := 0, 48
+		switch i {
+		case 4:
+			last = 36 // stale: ends a year before the others
+		case 2, 7:
+			first = 12 + 6*i/7 // start late
+		}
+		for m := first; m < last; m++ {
+			v := 300 + 20*float64(i) + 30*math.Sin(float64(m)*0.52+float64(i)) + float64((m*5+i*7)%13)
+			fmt.Fprintf(&b, "dairy/line-%d,%d-%02d,%.0f\n", i, 2021+m/12, m%12+1, v)
+		}
+	}
+	yml := "plan: stale\nhistory: {file: h.csv, series: \"dairy/*\"}\nhorizon: 6\nbaseline: {method: ses}\n"
+	for name, text := range map[string]string{"h.csv": b.String(), "p.yaml": yml} {
+		if err := os.WriteFile(filepath.Join(dir, name), []byte(text), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	var stderr bytes.Buffer
+	t.Chdir(dir)
+	if code := run([]string{"plan", "p.yaml", "--out", "whole", "--charts", "none"}, &IOStreams{In: strings.NewReader(""), Out: &bytes.Buffer{}, ErrOut: &stderr}, fixedNow); code != 0 {
+		t.Fatalf("whole: exit %d: %s", code, stderr.String())
+	}
+	warn := stderr.String()
+	if !strings.Contains(warn, `1 of 9 series end before`) {
+		t.Fatalf("no stale warning in the whole run: %s", warn)
+	}
+	var shards []string
+	for k := range 3 {
+		out := fmt.Sprintf("s%d", k)
+		stderr.Reset()
+		if code := run([]string{"plan", "p.yaml", "--shard", fmt.Sprintf("%d/3", k), "--out", out}, &IOStreams{In: strings.NewReader(""), Out: &bytes.Buffer{}, ErrOut: &stderr}, fixedNow); code != 0 {
+			t.Fatalf("shard %d: exit %d: %s", k, code, stderr.String())
+		}
+		if !strings.Contains(stderr.String(), `1 of 9 series end before 2024-12, the last period of the others`) {
+			t.Errorf("shard %d: no stale warning: %s", k, stderr.String())
+		}
+		shards = append(shards, out)
+	}
+	stderr.Reset()
+	if code := run(append([]string{"merge", "--out", "merged"}, shards...), &IOStreams{In: strings.NewReader(""), Out: &bytes.Buffer{}, ErrOut: &stderr}, fixedNow); code != 0 {
+		t.Fatalf("merge: exit %d: %s", code, stderr.String())
+	}
+	if !strings.Contains(stderr.String(), `1 of 9 series end before 2024-12`) {
+		t.Errorf("merge: no stale warning: %s", stderr.String())
+	}
+	for _, name := range []string{"plan.csv", "summary.csv", "rollup.csv", "plan.json"} {
+		if !bytes.Equal(readFile(t, dir, "whole", name), readFile(t, dir, "merged", name)) {
+			t.Errorf("%s differs from the whole run's", name)
+		}
+	}
+}
+
 // TestStressShardsMergeToWhole simulates the generated portfolio whole,
 // then as N shards merged, for N = 1, 2, 3 and 7, and checks that
 // stress.csv is the whole run's: the paths of each sum are added path by
