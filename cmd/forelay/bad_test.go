@@ -84,7 +84,8 @@ func runBadCase(t *testing.T, name string, args []string, code int, frag string)
 	}
 }
 
-// copyDir copies the regular files of src into dst.
+// copyDir copies the regular files of src into dst, and its folders (the
+// shards of a merge case) with theirs.
 func copyDir(t *testing.T, src, dst string) {
 	t.Helper()
 	entries, err := os.ReadDir(src)
@@ -92,6 +93,13 @@ func copyDir(t *testing.T, src, dst string) {
 		t.Fatal(err)
 	}
 	for _, e := range entries {
+		if e.IsDir() {
+			if err := os.MkdirAll(filepath.Join(dst, e.Name()), 0o755); err != nil {
+				t.Fatal(err)
+			}
+			copyDir(t, filepath.Join(src, e.Name()), filepath.Join(dst, e.Name()))
+			continue
+		}
 		if !e.Type().IsRegular() {
 			continue
 		}

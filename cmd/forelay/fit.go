@@ -27,6 +27,10 @@ type FitOptions struct {
 	Baseline baselineFlags
 	// Format is --sheet and --decimal.
 	Format formatFlags
+	// Shard, when set, is K/N: fit shard K of N of the history's series
+	// into Out; Args are the flags given, for its manifest.
+	Shard, Out string
+	Args       []string
 }
 
 func newCmdFit(f *Factory, runF func(*FitOptions) error) *cobra.Command {
@@ -53,6 +57,7 @@ func newCmdFit(f *Factory, runF func(*FitOptions) error) *cobra.Command {
 				return &flagError{err: l.Exceeded("--horizon", "horizon", int64(opts.Baseline.Horizon))}
 			}
 			opts.Baseline.record(cmd)
+			opts.Args = givenFlags(cmd)
 			if runF != nil {
 				return runF(opts)
 			}
@@ -67,6 +72,8 @@ func newCmdFit(f *Factory, runF func(*FitOptions) error) *cobra.Command {
 	fl.StringVar(&opts.Units, "units", "", "unit of the values, for the tables (e.g. litres)")
 	fl.BoolVar(&opts.JSON, "json", false, "print one JSON object per series per line")
 	fl.IntVar(&opts.Workers, "workers", 0, "series fitted in parallel, at least 1 (default: one per core)")
+	fl.StringVar(&opts.Shard, "shard", "", "fit shard K of N (K from 0): the series whose FNV-1a hash of the name mod N is K, as JSON lines into --out; forelay merge joins the shards")
+	fl.StringVar(&opts.Out, "out", "", "with --shard, the directory to write the shard into")
 	opts.Baseline.register(fl)
 	opts.Format.register(fl, "history")
 	return cmd
@@ -75,6 +82,12 @@ func newCmdFit(f *Factory, runF func(*FitOptions) error) *cobra.Command {
 // loadHistory reads a history file with the period and fill flags, in
 // format, under the size limits.
 func loadHistory(path, period, fill string, format data.Format, l bounds.Set) (*data.History, error) {
+	return loadHistoryKeep(path, period, fill, format, l, nil)
+}
+
+// loadHistoryKeep is loadHistory keeping whole only the series keep says
+// (nil: all; see data.ReadOptions.Keep).
+func loadHistoryKeep(path, period, fill string, format data.Format, l bounds.Set, keep func(string) bool) (*data.History, error) {
 	freq, err := forecast.ParseFrequency(period)
 	if err != nil {
 		return nil, &flagError{err: fmt.Errorf("--period: %w", err)}
@@ -83,7 +96,7 @@ func loadHistory(path, period, fill string, format data.Format, l bounds.Set) (*
 	if err != nil {
 		return nil, &flagError{err: fmt.Errorf("--fill: %w", err)}
 	}
-	h, err := data.ReadFile(path, data.ReadOptions{Freq: freq, Fill: fm, Format: format}, l.Input(), int(l.Get("name-length")))
+	h, err := data.ReadFile(path, data.ReadOptions{Freq: freq, Fill: fm, Format: format, Keep: keep}, l.Input(), int(l.Get("name-length")))
 	if err != nil {
 		return nil, &inputError{err: err}
 	}
@@ -91,6 +104,15 @@ func loadHistory(path, period, fill string, format data.Format, l bounds.Set) (*
 }
 
 func fitRun(opts *FitOptions) error {
+	if s, ok, err := parseShard(opts.Shard, opts.Out); err != nil || ok {
+		if err != nil {
+			return err
+		}
+		return fitShardRun(opts, s)
+	}
+	if opts.Out != "" {
+		return flagErrorf("--out %s: fit writes to standard output; --out goes with --shard", opts.Out)
+	}
 	spec, bands, err := opts.Baseline.spec()
 	if err != nil {
 		return err

@@ -30,6 +30,8 @@ type PlanOptions struct {
 	// Charts is how many of a portfolio's most-changed series get a
 	// chart besides the total: a number, all or none.
 	Charts string
+	// Shard, when set, is K/N: plan shard K of N of a portfolio.
+	Shard string
 }
 
 func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
@@ -65,6 +67,7 @@ func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
 	addXLSXFlag(fl, &opts.XLSX, "plan")
 	fl.StringVar(&opts.Event, "event", "", "also show how this event adds up, period by period")
 	fl.StringVar(&opts.Charts, "charts", "5", "in a plan of several series, chart the total, each resource and this many of the most-changed series: a number, all or none (none also drops the total and the resources)")
+	fl.StringVar(&opts.Shard, "shard", "", shardFlagHelp)
 	fl.IntVar(&opts.Workers, "workers", 0, "series planned in parallel in a plan of several series, at least 1 (default: one per core); the plan is the same for any number")
 	return cmd
 }
@@ -110,6 +113,12 @@ func buildPlanOrPortfolio(path string, shared *sharedFlags, workers int) (*plan.
 }
 
 func planRun(opts *PlanOptions) error {
+	if s, ok, err := parseShard(opts.Shard, opts.Out); err != nil || ok {
+		if err != nil {
+			return err
+		}
+		return planShardRun(opts, s)
+	}
 	f, err := scenario.LoadLimited(opts.File, opts.Shared.limits().Scenario())
 	if err != nil {
 		return &inputError{err: err}

@@ -110,6 +110,7 @@ the applicable reliability standards, local codes and licensed practice.`,
 		newCmdTrack(f, nil),
 		newCmdSchema(f, nil),
 		newCmdReport(f, nil),
+		newCmdMerge(f, nil),
 	)
 	registerCompletions(root)
 	return root

@@ -22,6 +22,8 @@ type StressOptions struct {
 	Scenario     string
 	// XLSX also writes the workbook into Out.
 	XLSX bool
+	// Shard, when set, is K/N: simulate shard K of N of a portfolio.
+	Shard string
 }
 
 func newCmdStress(f *Factory, runF func(*StressOptions) error) *cobra.Command {
@@ -54,6 +56,7 @@ func newCmdStress(f *Factory, runF func(*StressOptions) error) *cobra.Command {
 	opts.Sim.register(fl)
 	fl.Float64Var(&opts.Breach, "breach", 0.1, "report the first period whose probability of demand above capacity exceeds this")
 	fl.Float64Var(&opts.OpeningStock, "opening-stock", 0, "stock before the first period, for frozen production")
+	fl.StringVar(&opts.Shard, "shard", "", shardFlagHelp)
 	fl.StringVar(&opts.Scenario, "scenario", "", "scenario to chart (default: the last one in the file)")
 	return cmd
 }
@@ -75,6 +78,12 @@ func (o *StressOptions) check() error {
 // stressRun loads the plan, simulates it, sets it against capacity and
 // frozen production, and emits the report.
 func stressRun(opts *StressOptions) error {
+	if s, ok, err := parseShard(opts.Shard, opts.Out); err != nil || ok {
+		if err != nil {
+			return err
+		}
+		return stressShardRun(opts, s)
+	}
 	p, pf, err := buildPlanOrPortfolio(opts.File, opts.Shared, opts.Sim.Workers)
 	if err != nil {
 		return err

@@ -3,6 +3,7 @@ package data
 import (
 	"crypto/sha256"
 	"encoding/hex"
+	"io"
 	"os"
 )
 
@@ -10,10 +11,14 @@ import (
 // form plan.json records its inputs by, so that a later run can tell
 // whether an input changed.
 func Digest(path string) (string, error) {
-	b, err := os.ReadFile(path)
+	f, err := os.Open(path)
 	if err != nil {
 		return "", err
 	}
-	sum := sha256.Sum256(b)
-	return "sha256:" + hex.EncodeToString(sum[:]), nil
+	defer f.Close()
+	h := sha256.New() // streamed: a large history is never held whole
+	if _, err := io.Copy(h, f); err != nil {
+		return "", err
+	}
+	return "sha256:" + hex.EncodeToString(h.Sum(nil)), nil
 }

@@ -139,6 +139,11 @@ type ReadOptions struct {
 	// Format names the sheet of a workbook and the decimal mark of a CSV
 	// file (see "Workbooks" and "CSV as spreadsheets save it").
 	Format
+	// Keep, when set, says which series of a long file to keep whole; of
+	// the others only the extent is kept (see extent.go): their Values
+	// are zeros of the right length that share one array, never to be
+	// written to. Nil keeps every series.
+	Keep func(name string) bool
 }
 
 // A History is the content of one history file.
@@ -243,6 +248,13 @@ type column struct {
 	header cell
 	field  string
 	pts    []point
+	// extent marks a series read for its extent only (ReadOptions.Keep):
+	// pts holds its first and last point with a value, and gap the
+	// smallest step between its rows' periods.
+	extent bool
+	gap    int
+	prev   forecast.Period
+	rows   int
 }
 
 // A slotKind says what a cell of a long row holds.
@@ -288,6 +300,8 @@ type historyReader struct {
 	// long layout: the key cells of this row, trimmed, in key order
 	keyText []string
 	nrows   int // data rows read
+	// zeros are the values of every series read for its extent only
+	zeros []float64
 
 	form     forecast.Frequency // frequency of the label form
 	formCell cell               // first label, where the form was set
@@ -452,8 +466,7 @@ func (hr *historyReader) readLongRow(cr *Rows, rec []string) error {
 	} else {
 		hr.name = appendKey(hr.name[:0], hr.keyText)
 	}
-	c := hr.columnOf(hr.name)
-	c.pts = append(c.pts, pt)
+	hr.add(hr.columnOf(hr.name), pt)
 	return nil
 }
 
@@ -467,7 +480,8 @@ func (hr *historyReader) columnOf(name []byte) *column {
 	c := hr.byName[string(name)]
 	if c == nil {
 		c = &column{name: string(name), field: hr.valueField}
-		if hr.last != nil {
+		c.extent = hr.opt.Keep != nil && !hr.opt.Keep(c.name)
+		if hr.last != nil && !c.extent {
 			// Series tend to have the same length.
 			c.pts = make([]point, 0, len(hr.last.pts))
 		}
@@ -625,6 +639,9 @@ func (hr *historyReader) frequency() (forecast.Frequency, error) {
 	// decides between days and weeks.
 	minGap := 0
 	for _, c := range hr.cols {
+		if c.extent && c.gap > 0 && (minGap == 0 || c.gap < minGap) {
+			minGap = c.gap
+		}
 		for i := 1; i < len(c.pts); i++ {
 			if d := c.pts[i].period.Sub(c.pts[i-1].period); d > 0 && (minGap == 0 || d < minGap) {
 				minGap = d
@@ -743,6 +760,9 @@ func (hr *historyReader) checkOrder(c *column) *ParseError {
 
 // series turns one column into a Series, checking and filling its gaps.
 func (hr *historyReader) series(c *column) (forecast.Series, []Filled, *ParseError) {
+	if c.extent {
+		return hr.extentSeries(c)
+	}
 	lo, hi := -1, -1 // first and last point with a value
 	for i, pt := range c.pts {
 		if !math.IsNaN(pt.v) {

@@ -24,6 +24,9 @@ type Inputs struct {
 	// level1, level2, ... up to the deepest selected name.
 	Levels  []string
 	Digests map[string]string
+
+	// shard, when set, says which series a portfolio plans (ReadShard).
+	shard func(name string) bool
 }
 
 // Read reads the inputs of f, under f's limits, and makes the checks of f
@@ -47,7 +50,13 @@ func Read(f *scenario.File) (*Inputs, error) {
 // only when there is one. File.Resolve is checked against the first one
 // selected (all series of a file share their frequency).
 func ReadSelection(f *scenario.File) (*Inputs, error) {
-	h, err := readHistory(f)
+	return readSelection(f, nil)
+}
+
+// readSelection is ReadSelection, keeping whole only the series keep says
+// (nil: all of them; see data.ReadOptions.Keep).
+func readSelection(f *scenario.File, keep func(string) bool) (*Inputs, error) {
+	h, err := readHistory(f, keep)
 	if err != nil {
 		return nil, err
 	}
@@ -121,7 +130,7 @@ func Load(f *scenario.File) (*Plan, error) {
 }
 
 // readHistory reads the history file f names, under f's limits.
-func readHistory(f *scenario.File) (*data.History, error) {
+func readHistory(f *scenario.File, keep func(string) bool) (*data.History, error) {
 	fh, err := os.Open(f.History.File)
 	if err != nil {
 		return nil, f.ErrorAt(f.History.Pos, "history.file", err)
@@ -129,7 +138,7 @@ func readHistory(f *scenario.File) (*data.History, error) {
 	defer fh.Close()
 	limits := f.EffectiveLimits()
 	h, err := data.ReadHistory(data.BoundedReader(fh, f.History.File, limits.Input), f.History.File,
-		data.ReadOptions{Freq: f.History.Period, Fill: f.History.Fill, Key: f.History.Key,
+		data.ReadOptions{Freq: f.History.Period, Fill: f.History.Fill, Key: f.History.Key, Keep: keep,
 			Format: data.Format{Sheet: f.History.Sheet, Decimal: f.History.Decimal}})
 	if err != nil {
 		return nil, err

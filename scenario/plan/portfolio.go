@@ -39,6 +39,11 @@ type Portfolio struct {
 	// sim.SimulatePortfolio). Zero in a Portfolio built by hand.
 	Span int
 
+	// Shard is set in the plan of one shard of a portfolio (ReadShard):
+	// the names the whole portfolio plans, and where the shard's own
+	// series stand among them.
+	Shard *ShardOf
+
 	// index maps each name of Names to its plan's index (BuildPortfolio
 	// sets it; nil in a Portfolio built by hand).
 	index map[string]int
@@ -128,6 +133,9 @@ func BuildPortfolioProgress(f *scenario.File, in *Inputs, workers int, progress 
 	err = eachSeries(len(series), workers, name, func(i int) error {
 		defer tick()
 		ser := series[i]
+		if !in.fits(f, ser) {
+			return nil // another shard's series, not needed for a split
+		}
 		one := &Inputs{History: in.History, Series: ser, Selected: []string{ser.Name}, Levels: in.Levels, Digests: in.Digests}
 		view := f.ForSeries(ser.Name, equal[ser.Name])
 		if ser.Len() == 0 { // created by a scope: no history to clean or fit
@@ -159,6 +167,9 @@ func BuildPortfolioProgress(f *scenario.File, in *Inputs, workers int, progress 
 	}
 	err = eachSeries(len(series), workers, name, func(i int) error {
 		p := pf.Plans[i]
+		if p == nil || !in.plans(p.History.Name) {
+			return nil // planned by another shard (fitted here for a split only)
+		}
 		p.retarget(f.ForSeries(p.History.Name, shares[p.History.Name]))
 		p.lay()
 		return nil
@@ -169,6 +180,9 @@ func BuildPortfolioProgress(f *scenario.File, in *Inputs, workers int, progress 
 	pf.Notes = append(pf.Notes, inputNotes(f, in.History)...)
 	if len(f.Resources) > 0 {
 		pf.Notes = append(pf.Notes, fmt.Sprintf("the loads of the file's %d resource(s) are those of the planned demand, and their breach chances take the load as normal with the scenario's events happening; forelay stress simulates them with the events' probabilities and ranges", len(f.Resources)))
+	}
+	if in.shard != nil {
+		pf.keepShard(in.shard, first, in.Digests)
 	}
 	lint := f.Lint(series[0])
 	pf.Warnings = append(append(pf.Warnings, warnings...), lint...)

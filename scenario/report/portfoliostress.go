@@ -63,8 +63,7 @@ const portfolioErrors = "bootstrap of whole periods"
 // every scenario with the P5 to P95 band of scenario chart (an index into
 // the scenarios). It panics if chart is out of range.
 func PortfolioStress(r *supply.PortfolioStressRun, chart int) *Report {
-	notes := []string{fmt.Sprintf("Errors drawn by whole historical periods (up to %d back, for the %s series with a baseline; a series with fewer resamples its own), so the sums keep the series' correlation; each event is drawn once per path for every series it moves",
-		r.Sim.Window, countText(r.Sim.Fitted))}
+	notes := portfolioStressNotes(r.Sim.Window, r.Sim.Fitted)
 	rep := &Report{Name: "stress", Warnings: r.Warnings, Doc: portfolioStressDoc(r, notes), CSV: portfolioStressCSV(r),
 		MoreTables: portfolioTables(r.Portfolio)}
 	rep.Charts = append(rep.Charts, Chart{Name: "total", Plot: stressLoadChart(r, chart, -1)})
@@ -78,6 +77,13 @@ func PortfolioStress(r *supply.PortfolioStressRun, chart int) *Report {
 // stressLoadChart draws the simulated total (j < 0) or resource j's load:
 // the median of each scenario, the P5 to P95 band of scenario chart, and
 // the resource's capacity.
+// portfolioStressNotes are the notes of a portfolio's stress run whose
+// errors are drawn over window periods for fitted series.
+func portfolioStressNotes(window, fitted int) []string {
+	return []string{fmt.Sprintf("Errors drawn by whole historical periods (up to %d back, for the %s series with a baseline; a series with fewer resamples its own), so the sums keep the series' correlation; each event is drawn once per path for every series it moves",
+		window, countText(fitted))}
+}
+
 func stressLoadChart(r *supply.PortfolioStressRun, chart, j int) plots.LoadChart {
 	pf := r.Portfolio
 	p0 := pf.Plans[0]
