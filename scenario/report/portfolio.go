@@ -20,35 +20,36 @@ const PortfolioVersion = 1
 // events change most.
 const MostChanged = 10
 
-// portfolioJSON is plan.json of a portfolio.
-type portfolioJSON struct {
-	Version   int                     `json:"version"`
-	Kind      string                  `json:"kind"`
-	Plan      string                  `json:"plan"`
-	Units     string                  `json:"units,omitempty"`
-	Series    int                     `json:"series"`
-	Levels    []string                `json:"levels"`
-	History   portfolioHistoryJSON    `json:"history"`
-	Inputs    map[string]string       `json:"inputs"`
-	Periods   []string                `json:"periods"`
-	Baselines []seriesBaselineJSON    `json:"series_baselines"`
-	Scenarios []portfolioScenarioJSON `json:"scenarios"`
-	Notes     []string                `json:"notes"`
-	Caution   string                  `json:"caution"`
-	Warnings  []string                `json:"warnings"`
+// PortfolioDoc is plan.json of a portfolio (kind "portfolio"); the
+// merge of shards (package shard) writes the same document.
+type PortfolioDoc struct {
+	Version   int                    `json:"version"`
+	Kind      string                 `json:"kind"`
+	Plan      string                 `json:"plan"`
+	Units     string                 `json:"units,omitempty"`
+	Series    int                    `json:"series"`
+	Levels    []string               `json:"levels"`
+	History   PortfolioHistoryDoc    `json:"history"`
+	Inputs    map[string]string      `json:"inputs"`
+	Periods   []string               `json:"periods"`
+	Baselines []SeriesBaselineDoc    `json:"series_baselines"`
+	Scenarios []PortfolioScenarioDoc `json:"scenarios"`
+	Notes     []string               `json:"notes"`
+	Caution   string                 `json:"caution"`
+	Warnings  []string               `json:"warnings"`
 }
 
-// portfolioHistoryJSON is the length of the history's periods and its
+// PortfolioHistoryDoc is the length of the history's periods and its
 // last period.
-type portfolioHistoryJSON struct {
+type PortfolioHistoryDoc struct {
 	Period string `json:"period"`
 	End    string `json:"end"`
 }
 
-// seriesBaselineJSON is one series' baseline per period and its in-sample
+// SeriesBaselineDoc is one series' baseline per period and its in-sample
 // MAD and MSE (0 for a series that a scope creates, New), what tracking
 // needs of it besides each scenario's plan.
-type seriesBaselineJSON struct {
+type SeriesBaselineDoc struct {
 	Series   string `json:"series"`
 	New      bool   `json:"new"`
 	MAD      Num    `json:"mad"`
@@ -56,15 +57,17 @@ type seriesBaselineJSON struct {
 	Baseline []Num  `json:"baseline"`
 }
 
-type portfolioScenarioJSON struct {
-	Name      string          `json:"name"`
-	Events    []string        `json:"events"`
-	Rollups   []rollupJSON    `json:"rollups"`
-	Resources []resourceJSON  `json:"resources,omitempty"`
-	Series    []seriesSumJSON `json:"series"`
+// PortfolioScenarioDoc is one scenario of plan.json of a portfolio.
+type PortfolioScenarioDoc struct {
+	Name      string         `json:"name"`
+	Events    []string       `json:"events"`
+	Rollups   []RollupDoc    `json:"rollups"`
+	Resources []ResourceDoc  `json:"resources,omitempty"`
+	Series    []SeriesSumDoc `json:"series"`
 }
 
-type rollupJSON struct {
+// RollupDoc is one roll-up of a scenario, per period.
+type RollupDoc struct {
 	Level        string `json:"level"`
 	Group        string `json:"group"`
 	Members      int    `json:"members"`
@@ -76,8 +79,8 @@ type rollupJSON struct {
 	Var          []Num  `json:"var"`
 }
 
-// resourceJSON is one resource's load in a scenario.
-type resourceJSON struct {
+// ResourceDoc is one resource's load in a scenario.
+type ResourceDoc struct {
 	ID          string `json:"id"`
 	Units       string `json:"units,omitempty"`
 	Series      int    `json:"series"`
@@ -89,9 +92,9 @@ type resourceJSON struct {
 	Shortfall   []Num  `json:"expected_shortfall"`
 }
 
-// seriesSumJSON is one series' totals over the horizon in a scenario,
+// SeriesSumDoc is one series' totals over the horizon in a scenario,
 // and its plan per period.
-type seriesSumJSON struct {
+type SeriesSumDoc struct {
 	Series          string `json:"series"`
 	Baseline        Num    `json:"baseline"`
 	Adjusted        Num    `json:"adjusted"`
@@ -421,17 +424,17 @@ func summaryCSV(pf *plan.Portfolio) *Table {
 }
 
 // portfolioDoc is plan.json of a portfolio.
-func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoad) portfolioJSON {
+func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoad) PortfolioDoc {
 	p0 := pf.Plans[0]
-	doc := portfolioJSON{Version: PortfolioVersion, Kind: "portfolio", Plan: pf.File.Plan, Units: pf.File.Units,
+	doc := PortfolioDoc{Version: PortfolioVersion, Kind: "portfolio", Plan: pf.File.Plan, Units: pf.File.Units,
 		Series: len(pf.Plans), Levels: List(pf.Levels), Notes: List(pf.Notes), Caution: Caution, Warnings: List(pf.Warnings),
-		History: portfolioHistoryJSON{Period: p0.History.Freq().String(), End: p0.History.Period(p0.History.Len() - 1).String()},
+		History: PortfolioHistoryDoc{Period: p0.History.Freq().String(), End: p0.History.Period(p0.History.Len() - 1).String()},
 		Inputs:  p0.Digests}
 	for _, per := range p0.Periods {
 		doc.Periods = append(doc.Periods, per.String())
 	}
 	for _, p := range pf.Plans {
-		b := seriesBaselineJSON{Series: p.History.Name, New: p.Fit == nil, Baseline: Nums(p.Baseline)}
+		b := SeriesBaselineDoc{Series: p.History.Name, New: p.Fit == nil, Baseline: Nums(p.Baseline)}
 		if p.Fit != nil {
 			b.MAD, b.MSE = Num(p.Fit.Accuracy.MAD), Num(p.Fit.Accuracy.MSE)
 		}
@@ -439,15 +442,15 @@ func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoa
 	}
 	cases := pf.File.Cases()
 	for k, sp := range p0.Scenarios {
-		sj := portfolioScenarioJSON{Name: sp.Name, Events: eventIDList(cases[k].Events)}
+		sj := PortfolioScenarioDoc{Name: sp.Name, Events: eventIDList(cases[k].Events)}
 		for _, ru := range rollups[k] {
-			sj.Rollups = append(sj.Rollups, rollupJSON{Level: ru.Level, Group: ru.Group, Members: len(ru.Members),
+			sj.Rollups = append(sj.Rollups, RollupDoc{Level: ru.Level, Group: ru.Group, Members: len(ru.Members),
 				Baseline: Nums(ru.Baseline), Adjusted: Nums(ru.Adjusted), RiskWeighted: Nums(ru.RiskWeighted),
 				Lower: Nums(ru.Lower), Upper: Nums(ru.Upper), Var: Nums(ru.Var)})
 		}
 		for _, r := range res {
 			risk := r.Risk[k]
-			rj := resourceJSON{ID: r.ID, Units: r.Units, Series: len(r.Series), Load: Nums(risk.Load), Utilisation: Nums(r.Utilisation(risk.Load)),
+			rj := ResourceDoc{ID: r.ID, Units: r.Units, Series: len(r.Series), Load: Nums(risk.Load), Utilisation: Nums(r.Utilisation(risk.Load)),
 				LoadSD: Nums(risk.SD), PBreach: Nums(risk.PBreach), Shortfall: Nums(risk.Shortfall)}
 			if r.Capacity != nil {
 				rj.Capacity = Nums(r.Capacity)
@@ -455,7 +458,7 @@ func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoa
 			sj.Resources = append(sj.Resources, rj)
 		}
 		for i, c := range changes(pf, k) {
-			sj.Series = append(sj.Series, seriesSumJSON{Series: c.name, Baseline: Num(c.baseline), Adjusted: Num(c.adjusted), Change: Num(c.change()),
+			sj.Series = append(sj.Series, SeriesSumDoc{Series: c.name, Baseline: Num(c.baseline), Adjusted: Num(c.adjusted), Change: Num(c.change()),
 				AdjustedPeriods: Nums(pf.Plans[i].Scenarios[k].Adjusted)})
 		}
 		doc.Scenarios = append(doc.Scenarios, sj)
