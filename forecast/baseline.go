@@ -405,9 +405,11 @@ func scoreAICc(y []float64, c *Candidate, cfg Config) (float64, error) {
 }
 
 // scoreCandidate backtests c's method on y, records the backtest in c and
-// returns its penalised error on spec.Metric.
+// returns its penalised error on spec.Metric. The backtest's fits are
+// fitScoring's: holt-winters-multiplicative runs one descent instead of
+// three.
 func scoreCandidate(y []float64, c *Candidate, cfg Config, spec Spec) (float64, error) {
-	bt, err := RunBacktest(y, c.Method, cfg, spec.Holdout, spec.Horizon, spec.Refit, spec.Divisor)
+	bt, err := runBacktest(y, c.Method, cfg, spec.Holdout, spec.Horizon, spec.Refit, spec.Divisor, fitScoring)
 	if err != nil {
 		return math.NaN(), err
 	}

@@ -64,5 +64,26 @@ func fitWarm(y []float64, m Method, cfg Config, from Model) (Model, error) {
 		return nil, &TooShortError{Method: m, Need: need, Have: len(y)}
 	}
 	start := md.par
-	return fitETSFrom(y, m, cfg, &start)
+	return fitETSFrom(y, m, cfg, &start, false)
+}
+
+// fitScoring fits method m to y with cfg for auto's scoring of the
+// candidates (their backtests): as FitMethod does, except that
+// holt-winters-multiplicative runs its descent from the best of the grid
+// points it evaluates and not the two further descents from grid points
+// spread away from it (see etsFitter.fit). Its inner solves make it the
+// dearest candidate by far; the further descents rarely change the ranking
+// of the candidates, and the winner's final fit on all the data starts
+// from this one (fitWarm).
+func fitScoring(y []float64, m Method, cfg Config) (Model, error) {
+	if m != HoltWintersMultiplicative {
+		return FitMethod(y, m, cfg)
+	}
+	if cfg.Season < 1 {
+		cfg.Season = 1
+	}
+	if need := MinPoints(m, cfg); len(y) < need {
+		return nil, &TooShortError{Method: m, Need: need, Have: len(y)}
+	}
+	return fitETSFrom(y, m, cfg, nil, true)
 }
