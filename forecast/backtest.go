@@ -65,6 +65,13 @@ func DefaultHoldout(n int) int {
 // It returns a *TooShortError when the training window is shorter than the
 // method needs.
 func RunBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit bool, div Divisor) (*Backtest, error) {
+	return runBacktest(y, m, cfg, holdout, maxH, refit, div, FitMethod)
+}
+
+// runBacktest is RunBacktest with the fits done by fit (FitMethod, or
+// auto's fitScoring).
+func runBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit bool, div Divisor,
+	fit func([]float64, Method, Config) (Model, error)) (*Backtest, error) {
 	n := len(y)
 	if holdout < 1 || holdout >= n {
 		return nil, &TooShortError{Method: m, Need: MinPoints(m, cfg) + 1, Have: n}
@@ -73,7 +80,7 @@ func RunBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit boo
 		maxH = 1
 	}
 	train := n - holdout
-	base, err := FitMethod(y[:train], m, cfg)
+	base, err := fit(y[:train], m, cfg)
 	if err != nil {
 		return nil, err
 	}
@@ -86,7 +93,7 @@ func RunBacktest(y []float64, m Method, cfg Config, holdout, maxH int, refit boo
 		var model interface{ Forecast(h int) []float64 } = base
 		switch {
 		case refit && o > train:
-			if model, err = FitMethod(y[:o], m, cfg); err != nil {
+			if model, err = fit(y[:o], m, cfg); err != nil {
 				return nil, err
 			}
 		case o > train && roll != nil:

@@ -192,7 +192,12 @@ func Fit(ser Series, spec Spec) (*Result, error) {
 }
 
 // fitSelected scores the candidates, records them in r with the winner's
-// method, settings and backtest, and fits the winner to all of y.
+// method, settings and backtest, and fits the winner to all of y. The
+// final fit of an exponential smoothing method (the winner or a member of
+// the winning combination) starts from its parameters on the backtest's
+// first training window and runs one local descent (see fitWarm), rather
+// than the full search again: on most of the same data the minimum is
+// close to the one already found.
 func (r *Result) fitSelected(y []float64, spec Spec) (Model, error) {
 	cands, best, err := selectMethod(y, spec)
 	r.Candidates = cands
@@ -212,11 +217,15 @@ func (r *Result) fitSelected(y []float64, spec Spec) (Model, error) {
 		}
 	}
 	seasonal := seasonsEnough(len(y), spec)
+	var from Model
+	if win.bt != nil {
+		from = win.bt.Model
+	}
 	if win.Method == Combination {
-		return fitCombination(y, win.Members, spec.Config, seasonal)
+		return fitCombination(y, win.Members, Members(from), spec.Config, seasonal)
 	}
 	r.Config = candidateConfig(win.Method, spec.Config, seasonal)
-	return FitMethod(y, win.Method, r.Config)
+	return fitWarm(y, win.Method, r.Config, from)
 }
 
 // memberMethods returns the methods a chosen combination averages, nil
@@ -396,9 +405,11 @@ func scoreAICc(y []float64, c *Candidate, cfg Config) (float64, error) {
 }
 
 // scoreCandidate backtests c's method on y, records the backtest in c and
-// returns its penalised error on spec.Metric.
+// returns its penalised error on spec.Metric. The backtest's fits are
+// fitScoring's: holt-winters-multiplicative runs one descent instead of
+// three.
 func scoreCandidate(y []float64, c *Candidate, cfg Config, spec Spec) (float64, error) {
-	bt, err := RunBacktest(y, c.Method, cfg, spec.Holdout, spec.Horizon, spec.Refit, spec.Divisor)
+	bt, err := runBacktest(y, c.Method, cfg, spec.Holdout, spec.Horizon, spec.Refit, spec.Divisor, fitScoring)
 	if err != nil {
 		return math.NaN(), err
 	}

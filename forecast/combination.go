@@ -162,14 +162,21 @@ func combineBacktests(y []float64, members []*Backtest, season int, div Divisor)
 }
 
 // fitCombination fits every member method to all of y with its candidate
-// settings and combines them.
-func fitCombination(y []float64, members []Method, cfg Config, seasonal bool) (Model, error) {
+// settings and combines them. from holds the members' models on the
+// backtest's first training window, in the order of members, which their
+// fits start from (see fitWarm); nil, or a shorter slice, leaves the rest
+// to FitMethod's full fit.
+func fitCombination(y []float64, members []Method, from []Model, cfg Config, seasonal bool) (Model, error) {
 	if len(members) == 0 {
 		return nil, fmt.Errorf("%s: no member method could be scored", Combination)
 	}
 	models := make([]Model, len(members))
 	for j, m := range members {
-		md, err := FitMethod(y, m, candidateConfig(m, cfg, seasonal))
+		var start Model
+		if j < len(from) {
+			start = from[j]
+		}
+		md, err := fitWarm(y, m, candidateConfig(m, cfg, seasonal), start)
 		if err != nil {
 			return nil, fmt.Errorf("%s: member %s: %w", Combination, m, err)
 		}

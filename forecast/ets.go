@@ -113,6 +113,14 @@ func etsMinPoints(m Method, season int) int {
 // near 1; the model is in the units of y. It panics if m is not one of
 // the five methods.
 func fitETS(y []float64, m Method, cfg Config) (Model, error) {
+	return fitETSFrom(y, m, cfg, nil, false)
+}
+
+// fitETSFrom is fitETS with the full search of the smoothing parameters
+// (etsFitter.fit) when start is nil, and otherwise one local descent from
+// the parameters *start (etsFitter.fitFrom). oneStart leaves out the full
+// search's descents from further grid points (see fitScoring).
+func fitETSFrom(y []float64, m Method, cfg Config, start *etsParams, oneStart bool) (Model, error) {
 	sh, err := etsShapeFor(m, cfg)
 	if err != nil {
 		return nil, err
@@ -141,7 +149,15 @@ func fitETS(y []float64, m Method, cfg Config) (Model, error) {
 	// to the units of y.
 	c := dataScale(y)
 	f := newETSFitter(sh, scaleBy(y, c), fixed)
-	par, init, nEst := f.fit()
+	var par etsParams
+	var init etsStates
+	var nEst int
+	f.oneStart = oneStart
+	if start != nil {
+		par, init, nEst = f.fitFrom(*start)
+	} else {
+		par, init, nEst = f.fit()
+	}
 	ok := f.bestF < math.Inf(1)
 	f.release()
 	if !ok {

@@ -76,6 +76,9 @@ type etsFitter struct {
 	y    []float64
 	m    int  // season length used by the passes: sh.season, or 1 (held at 0)
 	mult bool // multiplicative season
+	// oneStart skips the descents from further grid points (step 3 of
+	// fit): auto's scoring of the multiplicative season (see fitScoring).
+	oneStart bool
 
 	// Free initial states x: x[0] = l0, x[kb] = b0 when kb > 0, and
 	// x[ks+j] = s_{j+1-m} for j < m-1; s_0 follows from the normalisation.

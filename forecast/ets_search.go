@@ -206,7 +206,11 @@ func (f *etsFitter) fit() (etsParams, etsStates, int) {
 		}
 	}
 	f.descend(f.bestU)
-	for _, p := range f.spreadStarts(pts, etsStarts-1) {
+	more := etsStarts - 1
+	if f.oneStart {
+		more = 0
+	}
+	for _, p := range f.spreadStarts(pts, more) {
 		copy(f.x, f.bestX)
 		if f.mult {
 			f.bestInner(p.u)
