@@ -58,6 +58,7 @@ func initRun(opts *InitOptions) error {
 		}
 	}
 	set := report.NewFiles(opts.Dir)
+	defer set.Discard()
 	for _, n := range names {
 		b, err := starterFiles.ReadFile("starter/" + n)
 		if err != nil {

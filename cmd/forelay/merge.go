@@ -69,6 +69,7 @@ func mergeRun(opts *MergeOptions) error {
 		return err
 	}
 	set := report.NewFiles(opts.Out)
+	defer set.Discard()
 	for _, f := range m.Files {
 		set.Add(f.Name, f.Data)
 	}

@@ -39,6 +39,7 @@ func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart, xlsx
 	var set *report.Files
 	if out != "" {
 		set = report.NewFiles(out)
+		defer set.Discard()
 		if shared != nil && shared.ChartSize.W > 0 {
 			if err := set.ChartSize(shared.ChartSize.W, shared.ChartSize.H); err != nil {
 				return &flagError{err: fmt.Errorf("--chart-size: %w", err)}

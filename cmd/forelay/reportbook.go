@@ -178,6 +178,7 @@ func writeBook(ios *IOStreams, dir string, book *report.Book, paper report.Paper
 		return err
 	}
 	set := report.NewFiles(dir)
+	defer set.Discard()
 	set.Add("report.html", page)
 	if exe != "" {
 		res, err := browser.Print(context.Background(), exe, page, paper, false)

@@ -62,6 +62,7 @@ func writeShard(ios *IOStreams, shared *sharedFlags, out string, m *shard.Manife
 		return err
 	}
 	set := report.NewFiles(out)
+	defer set.Discard()
 	for _, f := range files {
 		set.Add(f.Name, f.Data)
 	}

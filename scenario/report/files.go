@@ -13,12 +13,19 @@ import (
 	"gonum.org/v1/plot/vg"
 )
 
-// Files collects a run's output files in memory and writes them all at
-// the end, each atomically, so a run that fails part-way writes nothing.
+// Files writes a run's output files as they are produced into a staging
+// directory beside the output directory, and moves them all into place at
+// the end (Commit), so a run that fails part-way writes nothing: the bytes
+// of a file are not kept once it is written. A run that does not commit
+// must Discard the set.
 type Files struct {
 	dir   string
 	names []string
-	data  map[string][]byte
+	seen  map[string]bool
+	// stage is the staging directory, made at the first Add; err is the
+	// first failure to write into it, returned by Commit.
+	stage string
+	err   error
 	// width and height are the size charts are drawn at (zero: the
 	// plots package's default).
 	width, height vg.Length
@@ -44,39 +51,75 @@ const (
 	MaxChartSide = 40
 )
 
-// NewFiles returns an empty set of files to write into dir.
+// NewFiles returns an empty set of files to write into dir. Nothing is
+// made on disk until the first Add.
 func NewFiles(dir string) *Files {
-	return &Files{dir: dir, data: map[string][]byte{}}
+	return &Files{dir: dir, seen: map[string]bool{}}
 }
 
-// Add adds a file; a second file of the same name replaces the first.
+// Add writes a file into the staging directory (made beside dir at the
+// first Add); a second file of the same name replaces the first. A failure
+// to write is kept and returned by Commit, and the files after it are not
+// written.
 func (o *Files) Add(name string, data []byte) {
-	if _, ok := o.data[name]; !ok {
+	if o.err != nil {
+		return
+	}
+	if o.err = o.makeStage(); o.err != nil {
+		return
+	}
+	if err := os.WriteFile(filepath.Join(o.stage, name), data, 0o644); err != nil {
+		o.err = fmt.Errorf("writing %s: %w", filepath.Join(o.dir, name), err)
+		return
+	}
+	if !o.seen[name] {
+		o.seen[name] = true
 		o.names = append(o.names, name)
 	}
-	o.data[name] = data
 }
 
-// Commit writes every file into the directory, all or nothing. The files
-// are first written into a staging directory beside it; only when all are
-// written are they moved into place. When a move fails, the files already
-// moved are put back as they were, so a failed run leaves the directory as
-// it found it. It returns the paths written, in the order they were added.
-func (o *Files) Commit() ([]string, error) {
+// makeStage makes the staging directory, beside the output directory,
+// unless it is made already.
+func (o *Files) makeStage() error {
+	if o.stage != "" {
+		return nil
+	}
 	parent := filepath.Dir(filepath.Clean(o.dir))
 	if err := os.MkdirAll(parent, 0o755); err != nil {
-		return nil, err
+		return err
 	}
 	stage, err := os.MkdirTemp(parent, "."+filepath.Base(filepath.Clean(o.dir))+".stage-*")
 	if err != nil {
+		return err
+	}
+	o.stage = stage
+	return nil
+}
+
+// Discard removes the staging directory and what was written into it; the
+// output directory is left as it was. It does nothing after Commit, and
+// may be deferred.
+func (o *Files) Discard() {
+	if o.stage != "" {
+		os.RemoveAll(o.stage)
+		o.stage = ""
+	}
+}
+
+// Commit moves every file written into place, all or nothing: only when
+// all were written are they moved. When a move fails, the files already
+// moved are put back as they were, so a failed run leaves the directory as
+// it found it. It returns the paths written, in the order they were added,
+// or the first failure of Add.
+func (o *Files) Commit() ([]string, error) {
+	defer o.Discard()
+	if o.err != nil {
+		return nil, o.err
+	}
+	if err := o.makeStage(); err != nil {
 		return nil, err
 	}
-	defer os.RemoveAll(stage)
-	for _, n := range o.names {
-		if err := os.WriteFile(filepath.Join(stage, n), o.data[n], 0o644); err != nil {
-			return nil, fmt.Errorf("writing %s: %w", filepath.Join(o.dir, n), err)
-		}
-	}
+	stage := o.stage
 	if err := o.checkTargets(); err != nil {
 		return nil, err
 	}

@@ -91,3 +91,38 @@ func assertNoStage(t *testing.T, dir string) {
 		}
 	}
 }
+
+// TestFilesWrittenAsProduced checks that each file is written into the
+// staging directory when it is added, not kept until the end, that a run
+// that stops without committing leaves nothing once discarded, and that a
+// failure to write is returned by Commit with nothing moved.
+func TestFilesWrittenAsProduced(t *testing.T) {
+	parent := t.TempDir()
+	dir := filepath.Join(parent, "out")
+	set := NewFiles(dir)
+	assertNoStage(t, parent) // nothing on disk before the first file
+	set.Add("plan.csv", []byte("a\n"))
+	stages, _ := filepath.Glob(filepath.Join(parent, ".out.stage-*"))
+	if len(stages) != 1 {
+		t.Fatalf("staging directories %v after one Add, want one", stages)
+	}
+	if b, err := os.ReadFile(filepath.Join(stages[0], "plan.csv")); err != nil || string(b) != "a\n" {
+		t.Fatalf("staged plan.csv = %q, %v; want it written at Add", b, err)
+	}
+	set.Discard()
+	assertNoStage(t, parent)
+	if _, err := os.Stat(dir); !os.IsNotExist(err) {
+		t.Errorf("the output directory exists after Discard (stat err %v)", err)
+	}
+
+	bad := NewFiles(filepath.Join(parent, "out2"))
+	bad.Add("sub/plan.csv", []byte("a\n")) // no such folder in the staging directory
+	bad.Add("plan.json", []byte("{}\n"))
+	if _, err := bad.Commit(); err == nil || !strings.Contains(err.Error(), "sub/plan.csv") {
+		t.Fatalf("commit after a failed Add: err = %v, want the failure naming sub/plan.csv", err)
+	}
+	assertNoStage(t, parent)
+	if _, err := os.Stat(filepath.Join(parent, "out2")); !os.IsNotExist(err) {
+		t.Errorf("out2 exists after a failed run (stat err %v)", err)
+	}
+}
