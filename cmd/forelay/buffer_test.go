@@ -1,11 +1,9 @@
 package main
 
 import (
-	"bytes"
 	"encoding/json"
 	"os"
 	"path/filepath"
-	"reflect"
 	"strings"
 	"testing"
 )
@@ -39,26 +37,7 @@ func TestNewCmdBuffer(t *testing.T) {
 		{"stock", []string{"plan.yaml", "--opening-stock", "-1"}, def, "--opening-stock -1"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			f, _, _ := testFactory()
-			var got *BufferOptions
-			cmd := newCmdBuffer(f, func(o *BufferOptions) error { got = o; return nil })
-			cmd.SetArgs(tc.args)
-			cmd.SetOut(&bytes.Buffer{})
-			cmd.SetErr(&bytes.Buffer{})
-			err := cmd.Execute()
-			if tc.wantErr != "" {
-				if err == nil || !strings.Contains(err.Error(), tc.wantErr) {
-					t.Fatalf("error %v, want %q", err, tc.wantErr)
-				}
-				return
-			}
-			if err != nil {
-				t.Fatal(err)
-			}
-			got.IO = nil
-			if !reflect.DeepEqual(*got, tc.want) {
-				t.Errorf("options\n got %+v\nwant %+v", *got, tc.want)
-			}
+			checkOptions(t, newCmdBuffer, tc.args, tc.want, tc.wantErr, func(o *BufferOptions) { o.IO = nil })
 		})
 	}
 }

@@ -5,8 +5,6 @@ import (
 	"encoding/json"
 	"os"
 	"path/filepath"
-	"reflect"
-	"strings"
 	"testing"
 )
 
@@ -25,26 +23,7 @@ func TestNewCmdCompare(t *testing.T) {
 		{"paths", []string{"plan.yaml", "--paths", "0"}, def, "--paths 0: at least 100"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			f, _, _ := testFactory()
-			var got *CompareOptions
-			cmd := newCmdCompare(f, func(o *CompareOptions) error { got = o; return nil })
-			cmd.SetArgs(tc.args)
-			cmd.SetOut(&bytes.Buffer{})
-			cmd.SetErr(&bytes.Buffer{})
-			err := cmd.Execute()
-			if tc.wantErr != "" {
-				if err == nil || !strings.Contains(err.Error(), tc.wantErr) {
-					t.Fatalf("error %v, want %q", err, tc.wantErr)
-				}
-				return
-			}
-			if err != nil {
-				t.Fatal(err)
-			}
-			got.IO = nil
-			if !reflect.DeepEqual(*got, tc.want) {
-				t.Errorf("options\n got %+v\nwant %+v", *got, tc.want)
-			}
+			checkOptions(t, newCmdCompare, tc.args, tc.want, tc.wantErr, func(o *CompareOptions) { o.IO = nil })
 		})
 	}
 }

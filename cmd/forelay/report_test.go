@@ -4,7 +4,6 @@ import (
 	"bytes"
 	"os"
 	"path/filepath"
-	"reflect"
 	"strings"
 	"testing"
 
@@ -30,26 +29,7 @@ func TestNewCmdReport(t *testing.T) {
 		{"charts", []string{"plan.yaml", "--out", "o", "--charts", "-1"}, def, "--charts -1"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			f, _, _ := testFactory()
-			var got *ReportOptions
-			cmd := newCmdReport(f, func(o *ReportOptions) error { got = o; return nil })
-			cmd.SetArgs(tc.args)
-			cmd.SetOut(&bytes.Buffer{})
-			cmd.SetErr(&bytes.Buffer{})
-			err := cmd.Execute()
-			if tc.wantErr != "" {
-				if err == nil || !strings.Contains(err.Error(), tc.wantErr) {
-					t.Fatalf("error %v, want %q", err, tc.wantErr)
-				}
-				return
-			}
-			if err != nil {
-				t.Fatal(err)
-			}
-			got.IO = nil
-			if !reflect.DeepEqual(*got, tc.want) {
-				t.Errorf("options\n got %+v\nwant %+v", *got, tc.want)
-			}
+			checkOptions(t, newCmdReport, tc.args, tc.want, tc.wantErr, func(o *ReportOptions) { o.IO = nil })
 		})
 	}
 }

@@ -5,7 +5,6 @@ import (
 	"encoding/json"
 	"os"
 	"path/filepath"
-	"reflect"
 	"strings"
 	"testing"
 
@@ -60,29 +59,7 @@ func TestNewCmdStress(t *testing.T) {
 		{"no file", []string{}, def, "accepts 1 arg(s), received 0"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			f, _, _ := testFactory()
-			var got *StressOptions
-			cmd := newCmdStress(f, func(o *StressOptions) error { got = o; return nil })
-			cmd.SetArgs(tc.args)
-			cmd.SetOut(&bytes.Buffer{})
-			cmd.SetErr(&bytes.Buffer{})
-			err := cmd.Execute()
-			if tc.wantErr != "" {
-				if err == nil || !strings.Contains(err.Error(), tc.wantErr) {
-					t.Fatalf("error %v, want %q", err, tc.wantErr)
-				}
-				if got != nil {
-					t.Error("runF was called despite the error")
-				}
-				return
-			}
-			if err != nil {
-				t.Fatal(err)
-			}
-			got.IO = nil
-			if !reflect.DeepEqual(*got, tc.want) {
-				t.Errorf("options\n got %+v\nwant %+v", *got, tc.want)
-			}
+			checkOptions(t, newCmdStress, tc.args, tc.want, tc.wantErr, func(o *StressOptions) { o.IO = nil })
 		})
 	}
 }
