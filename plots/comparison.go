@@ -125,22 +125,8 @@ func (c ComparisonChart) check() error {
 	if err := finiteOrNaN("baseline", c.Baseline); err != nil {
 		return err
 	}
-	for k, s := range c.Scenarios {
-		what := fmt.Sprintf("scenario %d", k+1)
-		if s.Name != "" {
-			what = fmt.Sprintf("scenario %q", s.Name)
-		}
-		if err := s.check(what, n); err != nil {
-			return err
-		}
+	if err := checkScenarios(c.Scenarios, n, false); err != nil {
+		return err
 	}
-	if c.Capacity != nil {
-		if err := sameLength("capacity", c.Capacity, n, "label"); err != nil {
-			return err
-		}
-		if err := finiteOrNaN("capacity", c.Capacity); err != nil {
-			return err
-		}
-	}
-	return nil
+	return checkCapacity(c.Capacity, n)
 }

@@ -113,3 +113,34 @@ func extent(vs ...[]float64) (lo, hi float64, ok bool) {
 	}
 	return lo, hi, ok
 }
+
+// checkScenarios checks each scenario curve against a chart of n labels
+// (Curve.check), naming it by its name or else its place; with
+// needValues, a scenario without values is an error wrapping ErrNoData.
+func checkScenarios(scenarios []Curve, n int, needValues bool) error {
+	for k, s := range scenarios {
+		what := fmt.Sprintf("scenario %d", k+1)
+		if s.Name != "" {
+			what = fmt.Sprintf("scenario %q", s.Name)
+		}
+		if needValues && len(s.Values) == 0 {
+			return fmt.Errorf("%s: %w", what, ErrNoData)
+		}
+		if err := s.check(what, n); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// checkCapacity checks a capacity per label: nil (none), or n values,
+// each finite or NaN (no capacity in that period).
+func checkCapacity(capacity []float64, n int) error {
+	if capacity == nil {
+		return nil
+	}
+	if err := sameLength("capacity", capacity, n, "label"); err != nil {
+		return err
+	}
+	return finiteOrNaN("capacity", capacity)
+}

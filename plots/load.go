@@ -218,33 +218,14 @@ func (c LoadChart) check() error {
 	if err := c.Baseline.check("baseline", n); err != nil {
 		return err
 	}
-	hasLoad := len(c.Baseline.Values) > 0
-	for k, s := range c.Scenarios {
-		what := fmt.Sprintf("scenario %d", k+1)
-		if s.Name != "" {
-			what = fmt.Sprintf("scenario %q", s.Name)
-		}
-		if len(s.Values) == 0 {
-			return fmt.Errorf("%s: %w", what, ErrNoData)
-		}
-		if err := s.check(what, n); err != nil {
-			return err
-		}
-		hasLoad = true
+	if err := checkScenarios(c.Scenarios, n, true); err != nil {
+		return err
 	}
-	if !hasLoad {
+	if len(c.Baseline.Values) == 0 && len(c.Scenarios) == 0 {
 		return fmt.Errorf("no load has values: %w", ErrNoData)
 	}
 	if m := len(c.Scenarios); c.Highlight < 0 || c.Highlight >= max(m, 1) {
 		return fmt.Errorf("highlight %d is not an index of the %d scenarios: %w", c.Highlight, m, ErrRange)
 	}
-	if c.Capacity != nil {
-		if err := sameLength("capacity", c.Capacity, n, "label"); err != nil {
-			return err
-		}
-		if err := finiteOrNaN("capacity", c.Capacity); err != nil {
-			return err
-		}
-	}
-	return nil
+	return checkCapacity(c.Capacity, n)
 }

@@ -162,21 +162,10 @@ func (c PlanChart) check() error {
 	if err := c.Baseline.check("baseline", n); err != nil {
 		return err
 	}
-	any := len(c.History.Values) > 0 || len(c.Baseline.Values) > 0
-	for k, s := range c.Scenarios {
-		what := fmt.Sprintf("scenario %d", k+1)
-		if s.Name != "" {
-			what = fmt.Sprintf("scenario %q", s.Name)
-		}
-		if len(s.Values) == 0 {
-			return fmt.Errorf("%s: %w", what, ErrNoData)
-		}
-		if err := s.check(what, n); err != nil {
-			return err
-		}
-		any = true
+	if err := checkScenarios(c.Scenarios, n, true); err != nil {
+		return err
 	}
-	if !any {
+	if len(c.History.Values) == 0 && len(c.Baseline.Values) == 0 && len(c.Scenarios) == 0 {
 		return fmt.Errorf("no curve has values: %w", ErrNoData)
 	}
 	for k, w := range c.Windows {
