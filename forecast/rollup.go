@@ -210,16 +210,7 @@ func SumVariance(results []*Result, h int, mode BandMode, from BandSource, span 
 	own := make([][]float64, len(results))
 	for i, e := range res {
 		errs[i] = make([]float64, max(last-first+1, 0))
-		m, c := 0.0, 0
-		for _, x := range e {
-			if isFinite(x) {
-				m += x
-				c++
-			}
-		}
-		if c > 0 {
-			m /= float64(c)
-		}
+		m, _ := finiteMean(e)
 		for k := len(e) - 1; k >= 0; k-- {
 			if x := e[k]; isFinite(x) {
 				errs[i][offset[i]+k-first] = x - m
@@ -230,15 +221,40 @@ func SumVariance(results []*Result, h int, mode BandMode, from BandSource, span 
 	v := make([][]float64, len(results))
 	psi := make([][]float64, len(results))
 	for i, r := range results {
-		v[i], _ = r.VarianceFrom(h, mode, from)
-		for l, x := range v[i] {
-			if !isFinite(x) || x < 0 {
-				return nil, fmt.Errorf("series %q has no usable error variance at lead time %d (%v)", r.Series.Name, l+1, x)
-			}
+		if v[i], err = usableVariance(r, h, mode, from); err != nil {
+			return nil, err
 		}
 		psi[i] = append([]float64{1}, ImpulseWeights(r.Model, r.Series.Values, h)...)
 	}
 	return sumVariance(errs, own, n, v, psi), nil
+}
+
+// finiteMean returns the mean of the finite values of e and their count
+// (0 and 0 when there is none).
+func finiteMean(e []float64) (mean float64, count int) {
+	for _, x := range e {
+		if isFinite(x) {
+			mean += x
+			count++
+		}
+	}
+	if count > 0 {
+		mean /= float64(count)
+	}
+	return mean, count
+}
+
+// usableVariance returns r's error variance at lead times 1..h
+// (VarianceFrom), or an error naming the series when one is negative or
+// not finite.
+func usableVariance(r *Result, h int, mode BandMode, from BandSource) ([]float64, error) {
+	v, _ := r.VarianceFrom(h, mode, from)
+	for l, x := range v {
+		if !isFinite(x) || x < 0 {
+			return nil, fmt.Errorf("series %q has no usable error variance at lead time %d (%v)", r.Series.Name, l+1, x)
+		}
+	}
+	return v, nil
 }
 
 // sumVariance is SumVariance's formula on aligned centred errors

@@ -76,16 +76,7 @@ func (p *VarianceParts) addSeries(r *Result, end Period, mode BandMode, from Ban
 		return fmt.Errorf("series %q ends in %s, not in %s with the others", r.Series.Name, r.Series.Next().Add(-1), end.Add(-1))
 	}
 	e := r.Residuals()
-	m, c := 0.0, 0
-	for _, x := range e {
-		if isFinite(x) {
-			m += x
-			c++
-		}
-	}
-	if c > 0 {
-		m /= float64(c)
-	}
+	m, c := finiteMean(e)
 	var own []float64 // counted back from the last
 	back := make([]int, 0, c)
 	for k := len(e) - 1; k >= 0; k-- {
@@ -98,11 +89,9 @@ func (p *VarianceParts) addSeries(r *Result, end Period, mode BandMode, from Ban
 			back = append(back, t)
 		}
 	}
-	v, _ := r.VarianceFrom(p.H, mode, from)
-	for l, x := range v {
-		if !isFinite(x) || x < 0 {
-			return fmt.Errorf("series %q has no usable error variance at lead time %d (%v)", r.Series.Name, l+1, x)
-		}
+	v, err := usableVariance(r, p.H, mode, from)
+	if err != nil {
+		return err
 	}
 	psi := append([]float64{1}, ImpulseWeights(r.Model, r.Series.Values, p.H)...)
 	s2 := 0.0
