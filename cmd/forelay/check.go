@@ -5,8 +5,6 @@ import (
 	"forelay/scenario/report"
 
 	"github.com/spf13/cobra"
-
-	"forelay/scenario"
 )
 
 // CheckOptions are the settings of "forelay check".
@@ -38,13 +36,9 @@ func newCmdCheck(f *Factory, runF func(*CheckOptions) error) *cobra.Command {
 }
 
 func checkRun(opts *CheckOptions) error {
-	f, err := scenario.LoadLimited(opts.File, opts.Shared.limits().Scenario())
+	f, in, err := loadSelection(opts.File, opts.Shared)
 	if err != nil {
-		return &inputError{err: err}
-	}
-	in, err := plan.ReadSelection(f)
-	if err != nil {
-		return &inputError{err: err}
+		return err
 	}
 	if plan.WantsPortfolio(f, in) {
 		series, warnings, err := plan.CheckPortfolio(f, in)

@@ -72,12 +72,36 @@ func newCmdPlan(f *Factory, runF func(*PlanOptions) error) *cobra.Command {
 	return cmd
 }
 
-// buildPlan loads a scenario file and builds its plan; every failure is an
+// loadFile loads a scenario file under the run's limits; a failure is an
 // input error (exit code 2).
-func buildPlan(path string, shared *sharedFlags) (*plan.Plan, error) {
+func loadFile(path string, shared *sharedFlags) (*scenario.File, error) {
 	f, err := scenario.LoadLimited(path, shared.limits().Scenario())
 	if err != nil {
 		return nil, &inputError{err: err}
+	}
+	return f, nil
+}
+
+// loadSelection loads a scenario file and reads its history and the
+// series it selects (plan.ReadSelection); failures are input errors.
+func loadSelection(path string, shared *sharedFlags) (*scenario.File, *plan.Inputs, error) {
+	f, err := loadFile(path, shared)
+	if err != nil {
+		return nil, nil, err
+	}
+	in, err := plan.ReadSelection(f)
+	if err != nil {
+		return nil, nil, &inputError{err: err}
+	}
+	return f, in, nil
+}
+
+// buildPlan loads a scenario file and builds its plan; every failure is an
+// input error (exit code 2).
+func buildPlan(path string, shared *sharedFlags) (*plan.Plan, error) {
+	f, err := loadFile(path, shared)
+	if err != nil {
+		return nil, err
 	}
 	p, err := plan.Load(f)
 	if err != nil {
@@ -90,13 +114,9 @@ func buildPlan(path string, shared *sharedFlags) (*plan.Plan, error) {
 // portfolio (on workers goroutines) when it plans several series; every
 // failure is an input error (exit code 2).
 func buildPlanOrPortfolio(path string, shared *sharedFlags, workers int) (*plan.Plan, *plan.Portfolio, error) {
-	f, err := scenario.LoadLimited(path, shared.limits().Scenario())
+	f, in, err := loadSelection(path, shared)
 	if err != nil {
-		return nil, nil, &inputError{err: err}
-	}
-	in, err := plan.ReadSelection(f)
-	if err != nil {
-		return nil, nil, &inputError{err: err}
+		return nil, nil, err
 	}
 	if plan.WantsPortfolio(f, in) {
 		pf, err := plan.BuildPortfolioProgress(f, in, workers, shared.progress("planning series"))
@@ -119,13 +139,9 @@ func planRun(opts *PlanOptions) error {
 		}
 		return planShardRun(opts, s)
 	}
-	f, err := scenario.LoadLimited(opts.File, opts.Shared.limits().Scenario())
+	f, in, err := loadSelection(opts.File, opts.Shared)
 	if err != nil {
-		return &inputError{err: err}
-	}
-	in, err := plan.ReadSelection(f)
-	if err != nil {
-		return &inputError{err: err}
+		return err
 	}
 	if plan.WantsPortfolio(f, in) {
 		return portfolioRun(opts, f, in)

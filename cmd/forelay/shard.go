@@ -37,9 +37,9 @@ func parseShard(value, out string) (shard.Spec, bool, error) {
 // readShard loads a scenario file and reads the inputs of shard s of its
 // portfolio; a file that plans one series is refused.
 func readShard(path string, shared *sharedFlags, s shard.Spec) (*scenario.File, *plan.Inputs, error) {
-	f, err := scenario.LoadLimited(path, shared.limits().Scenario())
+	f, err := loadFile(path, shared)
 	if err != nil {
-		return nil, nil, &inputError{err: err}
+		return nil, nil, err
 	}
 	in, err := plan.ReadShard(f, s.Owns)
 	if err != nil {

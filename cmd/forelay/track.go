@@ -190,9 +190,8 @@ func trackRun(opts *TrackOptions) error {
 // portfolio: with --plan DIR, whether DIR/plan.json is a portfolio's;
 // without, whether the series it selects make one (in is then read).
 func trackFile(opts *TrackOptions) (f *scenario.File, in *plan.Inputs, portfolio bool, err error) {
-	f, err = scenario.LoadLimited(opts.File, opts.Shared.limits().Scenario())
-	if err != nil {
-		return nil, nil, false, &inputError{err: err}
+	if f, err = loadFile(opts.File, opts.Shared); err != nil {
+		return nil, nil, false, err
 	}
 	if opts.PlanDir != "" {
 		return f, nil, report.IsPortfolioPlan(opts.PlanDir), nil
