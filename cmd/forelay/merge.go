@@ -1,7 +1,6 @@
 package main
 
 import (
-	"errors"
 	"fmt"
 
 	"github.com/spf13/cobra"
@@ -12,10 +11,12 @@ import (
 
 // MergeOptions are the settings of "forelay merge".
 type MergeOptions struct {
-	IO     *IOStreams
-	Shared *sharedFlags
-	Out    string
-	Shards []string
+	IO      *IOStreams
+	Shared  *sharedFlags
+	Out     string
+	Shards  []string
+	JSON    bool
+	NoChart bool
 }
 
 func newCmdMerge(f *Factory, runF func(*MergeOptions) error) *cobra.Command {
@@ -39,7 +40,11 @@ func newCmdMerge(f *Factory, runF func(*MergeOptions) error) *cobra.Command {
 			return mergeRun(opts)
 		},
 	}
-	cmd.Flags().StringVar(&opts.Out, "out", "", "directory to write the merged files into")
+	fl := cmd.Flags()
+	fl.StringVar(&opts.Out, "out", "", "directory to write the merged files into")
+	fl.BoolVar(&opts.JSON, "json", false, "print the merged plan.json or stress.json to standard output instead of the tables")
+	fl.BoolVar(&opts.NoChart, "no-chart", false, "skip the charts")
+	registerChartSize(fl, f.Shared)
 	return cmd
 }
 
@@ -47,6 +52,9 @@ func mergeRun(opts *MergeOptions) error {
 	command, err := shard.Command(opts.Shards[0])
 	if err != nil {
 		return &inputError{err: err}
+	}
+	if opts.JSON && command == "fit" {
+		return flagErrorf("merge --json: shards of forelay fit have no JSON document; fit.jsonl is their output")
 	}
 	var m *shard.Merged
 	switch command {
@@ -59,14 +67,11 @@ func mergeRun(opts *MergeOptions) error {
 	default:
 		err = fmt.Errorf("%s: shards of forelay %s cannot be merged by this version", opts.Shards[0], command)
 	}
-	if errors.Is(err, shard.ErrApart) {
-		return &inputError{err: err}
-	}
 	if err != nil {
 		return &inputError{err: err}
 	}
-	if err := warnings(opts.IO, opts.Shared, m.Warnings); err != nil {
-		return err
+	if m.Report != nil {
+		return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart || m.NoChart, false, m.Report)
 	}
 	set := report.NewFiles(opts.Out)
 	defer set.Discard()
@@ -78,7 +83,9 @@ func mergeRun(opts *MergeOptions) error {
 		return err
 	}
 	for _, p := range paths {
-		fmt.Fprintf(opts.IO.ErrOut, "wrote %s\n", p)
+		if !opts.Shared.quiet() {
+			fmt.Fprintf(opts.IO.ErrOut, "wrote %s\n", p)
+		}
 	}
 	_, err = fmt.Fprint(opts.IO.Out, m.Text)
 	return err

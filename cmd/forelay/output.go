@@ -51,6 +51,8 @@ func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart, xlsx
 				return err
 			}
 			set.Add(r.Name+".csv", csv)
+		} else if r.CSVData != nil {
+			set.Add(r.Name+".csv", r.CSVData)
 		}
 		for _, more := range r.MoreCSV {
 			csv, err := more.Table.CSVBytes()

@@ -13,6 +13,7 @@ import (
 	"forelay/scenario/plan"
 	"forelay/scenario/report"
 	"forelay/scenario/shard"
+	"forelay/scenario/supply"
 )
 
 // shardFlagHelp is the help of --shard on every command that takes it.
@@ -84,15 +85,22 @@ func planShardRun(opts *PlanOptions, s shard.Spec) error {
 	if err != nil {
 		return err
 	}
+	charts, noChart, err := chartCount(opts.Charts)
+	if err != nil {
+		return err
+	}
+	if noChart {
+		charts = shard.NoCharts
+	}
 	pf, err := plan.BuildPortfolio(f, in, opts.Workers)
 	if err != nil {
 		return &inputError{err: err}
 	}
-	files, err := shard.PlanFiles(pf)
+	files, err := shard.PlanFiles(pf, charts)
 	if err != nil {
 		return &inputError{err: err}
 	}
-	m := shard.NewManifest(version, "plan", s, in.Digests, []string{"plan"})
+	m := shard.NewManifest(version, "plan", s, in.Digests, []string{"plan", "--charts=" + opts.Charts})
 	return writeShard(opts.IO, opts.Shared, opts.Out, m, pf.Warnings, files)
 }
 
@@ -105,16 +113,21 @@ func stressShardRun(opts *StressOptions, s shard.Spec) error {
 	if opts.Sim.Errors != "bootstrap" {
 		return flagErrorf("--errors %s: a plan of several series draws bootstrap errors only", opts.Sim.Errors)
 	}
+	chart, err := plan.CaseIndex(f, opts.Scenario)
+	if err != nil {
+		return flagErrorf("--scenario %v", err)
+	}
 	pf, err := plan.BuildPortfolio(f, in, opts.Sim.Workers)
 	if err != nil {
 		return &inputError{err: err}
 	}
 	o := opts.Sim.options(opts.Shared)
-	files, err := shard.StressFiles(pf, o, opts.Breach)
+	files, err := shard.StressFiles(pf, o, supply.StressSettings{Breach: opts.Breach, Opening: opts.OpeningStock}, chart)
 	if err != nil {
 		return &inputError{err: err}
 	}
-	m := shard.NewManifest(version, "stress", s, in.Digests, []string{"stress", "--breach=" + strconv.FormatFloat(opts.Breach, 'g', -1, 64)})
+	m := shard.NewManifest(version, "stress", s, in.Digests, []string{"stress", "--breach=" + strconv.FormatFloat(opts.Breach, 'g', -1, 64),
+		"--scenario=" + f.Cases()[chart].Name, "--opening-stock=" + strconv.FormatFloat(opts.OpeningStock, 'g', -1, 64)})
 	m.Seed, m.Paths = o.Seed, o.Paths
 	return writeShard(opts.IO, opts.Shared, opts.Out, m, pf.Warnings, files)
 }

@@ -7,6 +7,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -46,33 +47,62 @@ func portfolioCopy(t *testing.T) string {
 
 // TestShardsMergeToWhole plans the generated portfolio whole, then as N
 // shards merged, for N = 1, 2, 3 and 7, and checks that the merge writes
-// the files of the whole run: the per-series files (plan.csv, summary.csv)
-// identical byte for byte, and the roll-ups and resources equal within
-// 1e-9 relative or half a cent (the files hold two decimals, so a sum that
-// differs in its 16th digit may round the other way).
+// the files of the whole run and prints its text (sameRun).
 func TestShardsMergeToWhole(t *testing.T) {
 	dir := portfolioCopy(t)
-	runOK(t, dir, "plan", "plan.yaml", "--out", "whole", "--charts", "none")
+	whole := runOK(t, dir, "plan", "plan.yaml", "--out", "whole", "--charts", "3")
 	for _, n := range []int{1, 2, 3, 7} {
 		t.Run(fmt.Sprint(n), func(t *testing.T) {
 			var shards []string
 			for k := range n {
 				out := fmt.Sprintf("s%d-%d", n, k)
-				runOK(t, dir, "plan", "plan.yaml", "--shard", fmt.Sprintf("%d/%d", k, n), "--out", out)
+				runOK(t, dir, "plan", "plan.yaml", "--shard", fmt.Sprintf("%d/%d", k, n), "--out", out, "--charts", "3")
 				shards = append(shards, out)
 			}
 			merged := fmt.Sprintf("merged%d", n)
-			runOK(t, dir, append([]string{"merge", "--out", merged}, shards...)...)
-			for _, name := range []string{"plan.csv", "summary.csv", "plan.json"} {
-				want, got := readFile(t, dir, "whole", name), readFile(t, dir, merged, name)
-				if !bytes.Equal(want, got) {
-					t.Errorf("%s differs from the whole run's", name)
-				}
-			}
-			for _, name := range []string{"rollup.csv", "resources.csv"} {
-				sameNumbers(t, name, readFile(t, dir, "whole", name), readFile(t, dir, merged, name))
-			}
+			text := runOK(t, dir, append([]string{"merge", "--out", merged}, shards...)...)
+			sameRun(t, dir, "whole", merged, whole, text)
 		})
+	}
+}
+
+// sameRun checks that directory got holds the files of directory want and
+// that text is the whole run's: every file identical byte for byte (the
+// per-series files, plan.json and stress.json, whose numbers have 10
+// significant digits, and the charts), but the CSV files of sums
+// (rollup.csv, resources.csv, stress.csv), which are equal within 1e-9
+// relative or half a cent (they hold two decimals, so a sum that differs
+// in its 16th digit may round the other way).
+func sameRun(t *testing.T, dir, want, got, wantText, gotText string) {
+	t.Helper()
+	names := func(d string) []string {
+		es, err := os.ReadDir(filepath.Join(dir, d))
+		if err != nil {
+			t.Fatal(err)
+		}
+		var out []string
+		for _, e := range es {
+			out = append(out, e.Name())
+		}
+		return out
+	}
+	wn, gn := names(want), names(got)
+	if !slices.Equal(wn, gn) {
+		t.Fatalf("files %q, want those of the whole run: %q", gn, wn)
+	}
+	for _, name := range wn {
+		w, g := readFile(t, dir, want, name), readFile(t, dir, got, name)
+		switch name {
+		case "rollup.csv", "resources.csv", "stress.csv":
+			sameNumbers(t, name, w, g)
+		default:
+			if !bytes.Equal(w, g) {
+				t.Errorf("%s differs from the whole run's", name)
+			}
+		}
+	}
+	if gotText != wantText {
+		t.Errorf("the merge prints\n%s\nthe whole run\n%s", gotText, wantText)
 	}
 }
 
@@ -177,27 +207,46 @@ func TestShardsAgreeOnStaleSeries(t *testing.T) {
 }
 
 // TestStressShardsMergeToWhole simulates the generated portfolio whole,
-// then as N shards merged, for N = 1, 2, 3 and 7, and checks that
-// stress.csv is the whole run's: the paths of each sum are added path by
-// path, so the quantiles are the same up to the order of the additions
-// (1e-9 relative, or half a cent for the two decimals of the file), and
-// stress.json (10 significant digits) is the whole run's byte for byte.
+// then as N shards merged, for N = 1, 2, 3 and 7, and checks that the
+// merge writes the whole run's files and text (sameRun): the paths of
+// each sum are added path by path, so the quantiles are the same up to
+// the order of the additions. With production frozen (N = 3), each
+// resource's stock is projected from the added baseline and planned loads
+// as the whole run projects it.
 func TestStressShardsMergeToWhole(t *testing.T) {
 	dir := portfolioCopy(t)
-	runOK(t, dir, "stress", "plan.yaml", "--paths", "500", "--out", "whole", "--no-chart")
-	for _, n := range []int{1, 2, 3, 7} {
-		t.Run(fmt.Sprint(n), func(t *testing.T) {
+	yml := string(readFile(t, dir, "plan.yaml"))
+	frozen := strings.Replace(yml, "\nhorizon:", "\nproduction: {mode: frozen}\nhorizon:", 1)
+	if frozen == yml {
+		t.Fatal("plan.yaml: no horizon line to put production before")
+	}
+	if err := os.WriteFile(filepath.Join(dir, "frozen.yaml"), []byte(frozen), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	cases := []struct {
+		file string
+		n    int
+		args []string
+	}{
+		{"plan.yaml", 1, nil}, {"plan.yaml", 2, nil}, {"plan.yaml", 3, nil}, {"plan.yaml", 7, nil},
+		{"frozen.yaml", 3, []string{"--opening-stock", "40", "--scenario", "committed"}},
+	}
+	for _, c := range cases {
+		t.Run(fmt.Sprintf("%s-%d", c.file, c.n), func(t *testing.T) {
+			args := append([]string{"stress", c.file, "--paths", "500"}, c.args...)
+			whole := fmt.Sprintf("whole-%s-%d", c.file, c.n)
+			wantText := runOK(t, dir, append(args, "--out", whole)...)
 			var shards []string
-			for k := range n {
-				out := fmt.Sprintf("s%d-%d", n, k)
-				runOK(t, dir, "stress", "plan.yaml", "--paths", "500", "--shard", fmt.Sprintf("%d/%d", k, n), "--out", out)
+			for k := range c.n {
+				out := fmt.Sprintf("s-%s-%d-%d", c.file, c.n, k)
+				runOK(t, dir, append(args, "--shard", fmt.Sprintf("%d/%d", k, c.n), "--out", out)...)
 				shards = append(shards, out)
 			}
-			merged := fmt.Sprintf("merged%d", n)
-			runOK(t, dir, append([]string{"merge", "--out", merged}, shards...)...)
-			sameNumbers(t, "stress.csv", readFile(t, dir, "whole", "stress.csv"), readFile(t, dir, merged, "stress.csv"))
-			if !bytes.Equal(readFile(t, dir, "whole", "stress.json"), readFile(t, dir, merged, "stress.json")) {
-				t.Error("stress.json differs from the whole run's")
+			merged := fmt.Sprintf("merged-%s-%d", c.file, c.n)
+			text := runOK(t, dir, append([]string{"merge", "--out", merged}, shards...)...)
+			sameRun(t, dir, whole, merged, wantText, text)
+			if c.file == "frozen.yaml" && !bytes.Contains(readFile(t, dir, merged, "stress.csv"), []byte(",production,stock,")) {
+				t.Error("stress.csv of frozen production has no stock columns")
 			}
 		})
 	}

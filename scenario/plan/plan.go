@@ -161,6 +161,25 @@ func (p *Plan) ScenarioIndex(name string) (int, error) {
 	return 0, fmt.Errorf("%q: %s has no such scenario (it has %s)", name, p.File.Path, strings.Join(names, ", "))
 }
 
+// CaseIndex returns the index of the scenario called name in f's
+// scenarios (what ScenarioIndex gives for a plan of several series, whose
+// plans each hold every scenario once), the last one when name is empty,
+// or an error naming the scenarios there are.
+func CaseIndex(f *scenario.File, name string) (int, error) {
+	cases := f.Cases()
+	if name == "" {
+		return len(cases) - 1, nil
+	}
+	names := make([]string, len(cases))
+	for i, c := range cases {
+		if c.Name == name {
+			return i, nil
+		}
+		names[i] = c.Name
+	}
+	return 0, fmt.Errorf("%q: %s has no such scenario (it has %s)", name, f.Path, strings.Join(names, ", "))
+}
+
 // Total returns the sum of v.
 func Total(v []float64) float64 {
 	s := 0.0

@@ -49,14 +49,11 @@ func ForPortfolioHandover(h PortfolioHandover) (*Book, error) {
 		p0.Periods[0], p0.Periods[len(p0.Periods)-1], InUnits(f.Units))
 	b := &Book{Title: "Plan " + f.Plan, Lead: []string{lead}}
 
-	rollups := make([][]plan.Rollup, len(p0.Scenarios))
-	for k, sp := range p0.Scenarios {
-		rs, err := pf.Rollups(sp.Name)
-		if err != nil {
-			return nil, err
-		}
-		rollups[k] = rs
+	sum, err := newPortfolioSummary(pf, h.Charts)
+	if err != nil {
+		return nil, err
 	}
+	rollups := sum.Rollups
 
 	var in Text
 	in.Add(factsTable(portfolioFacts(pf)...))
@@ -79,11 +76,9 @@ func ForPortfolioHandover(h PortfolioHandover) (*Book, error) {
 	b.Sections = append(b.Sections, Section{ID: "levels", Title: "Totals per level",
 		Intro: "The plan summed over the horizon for every group of each level, the baseline and each scenario.", Text: &lv})
 
-	r, err := ForPortfolio(pf, PortfolioOptions{Charts: h.Charts})
-	if err != nil {
-		return nil, err
-	}
-	r.Charts = append(scenarioTotals(pf, rollups), r.Charts[1:]...)
+	r := PortfolioSummaryReport(sum)
+	r.CSV = portfolioCSV(pf)
+	r.Charts = append(scenarioTotals(sum), r.Charts[1:]...)
 	b.add("scenarios", "Scenarios, resources and the most-changed series", "", captioned(r, portfolioCaption))
 	b.Sections[len(b.Sections)-1].ChartPerHeading = true
 
@@ -224,19 +219,18 @@ func portfolioCaption(name string) string {
 // scenarioTotals draws the portfolio's total once per scenario: the
 // summed history, the summed baseline and that scenario alone with the
 // band of the sum.
-func scenarioTotals(pf *plan.Portfolio, rollups [][]plan.Rollup) []Chart {
+func scenarioTotals(s *PortfolioSummary) []Chart {
 	var out []Chart
-	cases := pf.File.Cases()
-	for k, rs := range rollups {
-		c := totalChart(pf, rollups)
-		c.Title = "Total of " + fmt.Sprint(len(pf.Plans)) + " series: scenario " + rs[0].Scenario
+	for k, rs := range s.Rollups {
+		c := totalChart(s)
+		c.Title = "Total of " + fmt.Sprint(len(s.Series)) + " series: scenario " + rs[0].Scenario
 		c.Scenarios = nil
-		if len(cases[k].Events) > 0 {
+		if len(s.CaseEvents[k]) > 0 {
 			t := rs[0]
 			c.Scenarios = []plots.Curve{{Name: t.Scenario, Start: c.ForecastStart, Values: t.Adjusted, Lower: t.Lower, Upper: t.Upper}}
 		}
 		caption := fmt.Sprintf("The portfolio's total in scenario %s: the summed history, the summed baseline and the scenario with the band of the sum (%s).",
-			rs[0].Scenario, evsText(eventIDList(cases[k].Events)))
+			rs[0].Scenario, evsText(s.CaseEvents[k]))
 		out = append(out, Chart{Name: "total-" + rs[0].Scenario, Plot: c, Caption: caption})
 	}
 	return out

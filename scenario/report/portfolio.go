@@ -124,27 +124,15 @@ func (c seriesChange) change() float64 { return c.adjusted - c.baseline }
 // in the forecast periods is an error wrapping ErrNoPortfolioEvent. It returns the error of
 // Portfolio.Rollups.
 func ForPortfolio(pf *plan.Portfolio, opt PortfolioOptions) (*Report, error) {
-	p0 := pf.Plans[0]
-	rollups := make([][]plan.Rollup, len(p0.Scenarios))
-	for k, sp := range p0.Scenarios {
-		rs, err := pf.Rollups(sp.Name)
-		if err != nil {
-			return nil, err
-		}
-		rollups[k] = rs
-	}
-	res, err := resourceLoads(pf)
+	s, err := newPortfolioSummary(pf, opt.Charts)
 	if err != nil {
 		return nil, err
 	}
-	r := &Report{Name: "plan", Warnings: pf.Warnings, CSV: portfolioCSV(pf),
-		MoreCSV: []CSVFile{{"rollup", rollupCSV(pf, rollups)}, {"summary", summaryCSV(pf)}},
-		Doc:     portfolioDoc(pf, rollups, res), MoreTables: portfolioTables(pf)}
-	if len(res) > 0 {
-		r.MoreCSV = append(r.MoreCSV, CSVFile{"resources", resourcesCSV(pf, res)})
+	if opt.Detail {
+		s.detail = func(w *Text, k int) { portfolioDetailText(w, pf, s.Rollups[k][0]) }
 	}
-	r.Charts = portfolioCharts(pf, rollups, res, opt.Charts)
-	portfolioText(&r.Text, pf, rollups, res, opt.Detail)
+	r := PortfolioSummaryReport(s)
+	r.CSV = portfolioCSV(pf)
 	if opt.Event != "" {
 		if err := portfolioEventText(&r.Text, pf, opt.Event); err != nil {
 			return nil, err
@@ -153,30 +141,19 @@ func ForPortfolio(pf *plan.Portfolio, opt PortfolioOptions) (*Report, error) {
 	return r, nil
 }
 
-// A resourceLoad is a resource with its load in each scenario.
-type resourceLoad struct {
-	supply.Resource
-	// Risk holds the load per period of each scenario, in scenario order,
-	// with its spread and breach risk.
-	Risk []*supply.LoadRisk
-}
-
-// resourceLoads returns the portfolio's resources with their loads and
-// risks, or the error of supply.PortfolioLoadRisk.
-func resourceLoads(pf *plan.Portfolio) ([]resourceLoad, error) {
-	var out []resourceLoad
-	for _, r := range supply.PortfolioResources(pf) {
-		rl := resourceLoad{Resource: r}
-		for k := range pf.Plans[0].Scenarios {
-			risk, err := supply.PortfolioLoadRisk(pf, r, k)
-			if err != nil {
-				return nil, err
-			}
-			rl.Risk = append(rl.Risk, risk)
-		}
-		out = append(out, rl)
+// PortfolioSummaryReport returns the report of a portfolio plan from its
+// summary, as ForPortfolio documents it, but for plan.csv: the caller
+// sets the report's CSV or CSVData.
+func PortfolioSummaryReport(s *PortfolioSummary) *Report {
+	r := &Report{Name: "plan", Warnings: s.Warnings,
+		MoreCSV: []CSVFile{{"rollup", rollupCSV(s)}, {"summary", summaryCSV(s)}},
+		Doc:     portfolioDoc(s), MoreTables: s.MoreTables}
+	if len(s.Resources) > 0 {
+		r.MoreCSV = append(r.MoreCSV, CSVFile{"resources", resourcesCSV(s)})
 	}
-	return out, nil
+	r.Charts = portfolioCharts(s)
+	portfolioText(&r.Text, s)
+	return r
 }
 
 // maxBreach returns the period index of a risk's largest breach chance,
@@ -194,13 +171,12 @@ func maxBreach(risk *supply.LoadRisk) int {
 // resourcesText writes, for scenario k, each resource's peak load, the
 // capacity and utilisation in that period, and the periods the planned
 // load exceeds capacity.
-func resourcesText(w *Text, pf *plan.Portfolio, res []resourceLoad, k int) {
-	if len(res) == 0 {
+func resourcesText(w *Text, s *PortfolioSummary, k int) {
+	if len(s.Resources) == 0 {
 		return
 	}
-	periods := pf.Plans[0].Periods
 	t := NewTable("resource", "series", "peak load", "in", "capacity", "utilisation", "periods over capacity", "max breach chance")
-	for _, r := range res {
+	for _, r := range s.Resources {
 		load := r.Risk[k].Load
 		i, peak := plan.Peak(load)
 		d := forecast.Decimals(load)
@@ -217,9 +193,9 @@ func resourcesText(w *Text, pf *plan.Portfolio, res []resourceLoad, k int) {
 		}
 		breach := "-"
 		if j := maxBreach(r.Risk[k]); j >= 0 {
-			breach = PctText(r.Risk[k].PBreach[j]) + " in " + periods[j].String()
+			breach = PctText(r.Risk[k].PBreach[j]) + " in " + s.Periods[j].String()
 		}
-		t.AddRow(r.ID, fmt.Sprint(len(r.Series)), num(peak, d)+unitsSuffix(r.Units), periods[i].String(), capText, utilText, fmt.Sprint(over), breach)
+		t.AddRow(r.ID, fmt.Sprint(r.Size), num(peak, d)+unitsSuffix(r.Units), s.Periods[i].String(), capText, utilText, fmt.Sprint(over), breach)
 	}
 	fmt.Fprintln(w, "Resources (load of the planned demand; breach chance if the scenario's events happen, load taken as normal with the spread of the sums):")
 	w.Add(t)
@@ -230,19 +206,19 @@ func resourcesText(w *Text, pf *plan.Portfolio, res []resourceLoad, k int) {
 // (empty without one), utilisation (load / capacity, 4 decimals; empty
 // without capacity), load_sd, p_breach (4 decimals) and
 // expected_shortfall (supply.LoadRisk; empty without capacity).
-func resourcesCSV(pf *plan.Portfolio, res []resourceLoad) *Table {
+func resourcesCSV(s *PortfolioSummary) *Table {
 	t := (&Table{Head: []string{"scenario", "resource", "period", "load", "capacity", "utilisation", "load_sd", "p_breach", "expected_shortfall"}}).
 		Typed(Label, Label, Label, Quantity, Quantity, Share, Quantity, Share, Quantity)
-	for k, sp := range pf.Plans[0].Scenarios {
-		for _, r := range res {
+	for k, name := range s.Scenarios {
+		for _, r := range s.Resources {
 			risk := r.Risk[k]
 			util := r.Utilisation(risk.Load)
-			for j, per := range pf.Plans[0].Periods {
+			for j, per := range s.Periods {
 				capacity := ""
 				if r.Capacity != nil {
 					capacity = CSV2(r.Capacity[j])
 				}
-				t.Rows = append(t.Rows, []string{sp.Name, r.ID, per.String(), CSV2(risk.Load[j]), capacity, CSVNum(util[j], 4),
+				t.Rows = append(t.Rows, []string{name, r.ID, per.String(), CSV2(risk.Load[j]), capacity, CSVNum(util[j], 4),
 					CSVNum(risk.SD[j], 2), CSVNum(risk.PBreach[j], 4), CSVNum(risk.Shortfall[j], 2)})
 			}
 		}
@@ -251,11 +227,11 @@ func resourcesCSV(pf *plan.Portfolio, res []resourceLoad) *Table {
 }
 
 // changes returns each series' totals in scenario k, in the order of
-// Names.
-func changes(pf *plan.Portfolio, k int) []seriesChange {
-	out := make([]seriesChange, len(pf.Plans))
-	for i, p := range pf.Plans {
-		out[i] = seriesChange{p.History.Name, plan.Total(p.Baseline), plan.Total(p.Scenarios[k].Adjusted)}
+// the series.
+func changes(s *PortfolioSummary, k int) []seriesChange {
+	out := make([]seriesChange, len(s.Series))
+	for i, ss := range s.Series {
+		out[i] = seriesChange{ss.Name, plan.Total(ss.Baseline), plan.Total(ss.Adjusted[k])}
 	}
 	return out
 }
@@ -276,20 +252,17 @@ func ranked(cs []seriesChange) []seriesChange {
 // portfolioText writes the summary: what was planned, then per scenario
 // the total and the groups of the widest level, and the series the events
 // change most.
-func portfolioText(w *Text, pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoad, detail bool) {
-	p0 := pf.Plans[0]
-	f := pf.File
-	units := unitsSuffix(f.Units)
-	fmt.Fprintf(w, "Plan %s: %d series, %d %s periods %s to %s%s\n", f.Plan, len(pf.Plans), len(p0.Periods), p0.History.Freq(),
-		p0.Periods[0], p0.Periods[len(p0.Periods)-1], InUnits(f.Units))
-	fmt.Fprintf(w, "Bands: plan +- %.3g x standard error; bands of sums come from the series' joint errors, not from adding bands\n", p0.Z)
-	cases := f.Cases()
-	for k, sp := range p0.Scenarios {
-		writeScenarioHeading(w, sp.Name, eventIDList(cases[k].Events))
-		last := len(p0.Periods) - 1
-		t := NewTable("group", "series", "baseline"+units, "plan"+units, "vs baseline", "change", fmt.Sprintf("band %s", p0.Periods[last]))
+func portfolioText(w *Text, s *PortfolioSummary) {
+	units := unitsSuffix(s.Units)
+	last := len(s.Periods) - 1
+	fmt.Fprintf(w, "Plan %s: %d series, %d %s periods %s to %s%s\n", s.Plan, len(s.Series), len(s.Periods), s.Periods[0].Freq,
+		s.Periods[0], s.Periods[last], InUnits(s.Units))
+	fmt.Fprintf(w, "Bands: plan +- %.3g x standard error; bands of sums come from the series' joint errors, not from adding bands\n", s.Z)
+	for k, name := range s.Scenarios {
+		writeScenarioHeading(w, name, s.CaseEvents[k])
+		t := NewTable("group", "series", "baseline"+units, "plan"+units, "vs baseline", "change", fmt.Sprintf("band %s", s.Periods[last]))
 		t.Left(0)
-		for _, ru := range rollups[k] {
+		for g, ru := range s.Rollups[k] {
 			if ru.Depth > 1 {
 				continue
 			}
@@ -299,15 +272,15 @@ func portfolioText(w *Text, pf *plan.Portfolio, rollups [][]plan.Rollup, res []r
 			if ru.Depth == 1 {
 				label = ru.Level + " " + ru.Group
 			}
-			t.AddRow(label, fmt.Sprint(len(ru.Members)), num(base, d), num(adj, d), Signed(adj-base, d), Pct(adj-base, base),
+			t.AddRow(label, fmt.Sprint(s.GroupSizes[g]), num(base, d), num(adj, d), Signed(adj-base, d), Pct(adj-base, base),
 				num(ru.Lower[last], d)+" to "+num(ru.Upper[last], d))
 		}
 		w.Add(t)
-		if detail {
-			portfolioDetailText(w, pf, rollups[k][0])
+		if s.detail != nil {
+			s.detail(w, k)
 		}
-		resourcesText(w, pf, res, k)
-		top := ranked(changes(pf, k))
+		resourcesText(w, s, k)
+		top := ranked(changes(s, k))
 		n := 0
 		for _, c := range top {
 			if c.change() != 0 && n < MostChanged {
@@ -325,7 +298,7 @@ func portfolioText(w *Text, pf *plan.Portfolio, rollups [][]plan.Rollup, res []r
 		}
 		w.Add(mt)
 	}
-	writeNotesAndCaution(w, pf.Notes)
+	writeNotesAndCaution(w, s.Notes)
 }
 
 // countChanged counts the series whose plan differs from the baseline.
@@ -389,13 +362,12 @@ func pastOnly(pf *plan.Portfolio, id string) bool {
 // rollupCSV is rollup.csv: one row per scenario, roll-up and period, with
 // the columns scenario, level, group, period, baseline, adjusted,
 // risk_weighted, lower, upper; two decimals.
-func rollupCSV(pf *plan.Portfolio, rollups [][]plan.Rollup) *Table {
+func rollupCSV(s *PortfolioSummary) *Table {
 	t := (&Table{Head: []string{"scenario", "level", "group", "period", "baseline", "adjusted", "risk_weighted", "lower", "upper"}}).
 		Typed(Label, Label, Label, Label, Quantity, Quantity, Quantity, Quantity, Quantity)
-	periods := pf.Plans[0].Periods
-	for _, rs := range rollups {
+	for _, rs := range s.Rollups {
 		for _, ru := range rs {
-			for k, per := range periods {
+			for k, per := range s.Periods {
 				t.Rows = append(t.Rows, []string{ru.Scenario, ru.Level, ru.Group, per.String(), CSV2(ru.Baseline[k]),
 					CSV2(ru.Adjusted[k]), CSV2(ru.RiskWeighted[k]), CSV2(ru.Lower[k]), CSV2(ru.Upper[k])})
 			}
@@ -408,58 +380,52 @@ func rollupCSV(pf *plan.Portfolio, rollups [][]plan.Rollup) *Table {
 // size of its change over the horizon (rank 1 the largest; ties by name),
 // with the columns scenario, rank, series, baseline, adjusted, change,
 // change_pct (empty when the baseline total is 0); two decimals.
-func summaryCSV(pf *plan.Portfolio) *Table {
+func summaryCSV(s *PortfolioSummary) *Table {
 	t := (&Table{Head: []string{"scenario", "rank", "series", "baseline", "adjusted", "change", "change_pct"}}).
 		Typed(Label, Count, Label, Quantity, Quantity, Quantity, Percent)
-	for k, sp := range pf.Plans[0].Scenarios {
-		for i, c := range ranked(changes(pf, k)) {
+	for k, name := range s.Scenarios {
+		for i, c := range ranked(changes(s, k)) {
 			pct := ""
 			if c.baseline != 0 {
 				pct = CSV2(100 * c.change() / c.baseline)
 			}
-			t.Rows = append(t.Rows, []string{sp.Name, fmt.Sprint(i + 1), c.name, CSV2(c.baseline), CSV2(c.adjusted), CSV2(c.change()), pct})
+			t.Rows = append(t.Rows, []string{name, fmt.Sprint(i + 1), c.name, CSV2(c.baseline), CSV2(c.adjusted), CSV2(c.change()), pct})
 		}
 	}
 	return t
 }
 
 // portfolioDoc is plan.json of a portfolio.
-func portfolioDoc(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoad) PortfolioDoc {
-	p0 := pf.Plans[0]
-	doc := PortfolioDoc{Version: PortfolioVersion, Kind: "portfolio", Plan: pf.File.Plan, Units: pf.File.Units,
-		Series: len(pf.Plans), Levels: List(pf.Levels), Notes: List(pf.Notes), Caution: Caution, Warnings: List(pf.Warnings),
-		History: PortfolioHistoryDoc{Period: p0.History.Freq().String(), End: p0.History.Period(p0.History.Len() - 1).String()},
-		Inputs:  p0.Digests}
-	for _, per := range p0.Periods {
+func portfolioDoc(s *PortfolioSummary) PortfolioDoc {
+	doc := PortfolioDoc{Version: PortfolioVersion, Kind: "portfolio", Plan: s.Plan, Units: s.Units,
+		Series: len(s.Series), Levels: List(s.Levels), Notes: List(s.Notes), Caution: Caution, Warnings: List(s.Warnings),
+		History: PortfolioHistoryDoc{Period: s.Periods[0].Freq.String(), End: s.HistoryEnd},
+		Inputs:  s.Inputs}
+	for _, per := range s.Periods {
 		doc.Periods = append(doc.Periods, per.String())
 	}
-	for _, p := range pf.Plans {
-		b := SeriesBaselineDoc{Series: p.History.Name, New: p.Fit == nil, Baseline: Nums(p.Baseline)}
-		if p.Fit != nil {
-			b.MAD, b.MSE = Num(p.Fit.Accuracy.MAD), Num(p.Fit.Accuracy.MSE)
-		}
-		doc.Baselines = append(doc.Baselines, b)
+	for _, ss := range s.Series {
+		doc.Baselines = append(doc.Baselines, SeriesBaselineDoc{Series: ss.Name, New: ss.New, MAD: Num(ss.MAD), MSE: Num(ss.MSE), Baseline: Nums(ss.Baseline)})
 	}
-	cases := pf.File.Cases()
-	for k, sp := range p0.Scenarios {
-		sj := PortfolioScenarioDoc{Name: sp.Name, Events: eventIDList(cases[k].Events)}
-		for _, ru := range rollups[k] {
-			sj.Rollups = append(sj.Rollups, RollupDoc{Level: ru.Level, Group: ru.Group, Members: len(ru.Members),
+	for k, name := range s.Scenarios {
+		sj := PortfolioScenarioDoc{Name: name, Events: s.CaseEvents[k]}
+		for g, ru := range s.Rollups[k] {
+			sj.Rollups = append(sj.Rollups, RollupDoc{Level: ru.Level, Group: ru.Group, Members: s.GroupSizes[g],
 				Baseline: Nums(ru.Baseline), Adjusted: Nums(ru.Adjusted), RiskWeighted: Nums(ru.RiskWeighted),
 				Lower: Nums(ru.Lower), Upper: Nums(ru.Upper), Var: Nums(ru.Var)})
 		}
-		for _, r := range res {
+		for _, r := range s.Resources {
 			risk := r.Risk[k]
-			rj := ResourceDoc{ID: r.ID, Units: r.Units, Series: len(r.Series), Load: Nums(risk.Load), Utilisation: Nums(r.Utilisation(risk.Load)),
+			rj := ResourceDoc{ID: r.ID, Units: r.Units, Series: r.Size, Load: Nums(risk.Load), Utilisation: Nums(r.Utilisation(risk.Load)),
 				LoadSD: Nums(risk.SD), PBreach: Nums(risk.PBreach), Shortfall: Nums(risk.Shortfall)}
 			if r.Capacity != nil {
 				rj.Capacity = Nums(r.Capacity)
 			}
 			sj.Resources = append(sj.Resources, rj)
 		}
-		for i, c := range changes(pf, k) {
+		for i, c := range changes(s, k) {
 			sj.Series = append(sj.Series, SeriesSumDoc{Series: c.name, Baseline: Num(c.baseline), Adjusted: Num(c.adjusted), Change: Num(c.change()),
-				AdjustedPeriods: Nums(pf.Plans[i].Scenarios[k].Adjusted)})
+				AdjustedPeriods: Nums(s.Series[i].Adjusted[k])})
 		}
 		doc.Scenarios = append(doc.Scenarios, sj)
 	}

@@ -1,14 +1,10 @@
 package report
 
 import (
-	"cmp"
 	"fmt"
-	"math"
-	"slices"
 	"strings"
 
 	"forelay/plots"
-	"forelay/scenario/plan"
 	"forelay/scenario/supply"
 )
 
@@ -18,39 +14,15 @@ const AllCharts = -1
 // portfolioCharts returns the charts of a portfolio: the total (its
 // summed history, baseline and each scenario with events, with the bands
 // of the sums), then one chart per resource against its capacity, in
-// file order (resources are few, so each has its chart whatever n is),
-// then the plans of the n series the events change most (the largest
-// change in any scenario first; all of them for AllCharts).
-func portfolioCharts(pf *plan.Portfolio, rollups [][]plan.Rollup, res []resourceLoad, n int) []Chart {
-	charts := []Chart{{Name: "total", Plot: totalChart(pf, rollups)}}
-	for _, r := range res {
-		charts = append(charts, Chart{Name: "resource-" + r.ID, Plot: resourceChart(pf, r)})
+// file order (resources are few, so each has its chart whatever the
+// number of series charts), then the plans of the series the events
+// change most (SeriesCharts).
+func portfolioCharts(s *PortfolioSummary) []Chart {
+	charts := []Chart{{Name: "total", Plot: totalChart(s)}}
+	for _, r := range s.Resources {
+		charts = append(charts, Chart{Name: "resource-" + r.ID, Plot: resourceChart(s, r)})
 	}
-	if n == AllCharts {
-		n = len(pf.Plans)
-	}
-	for _, i := range mostChanged(pf)[:min(n, len(pf.Plans))] {
-		p := pf.Plans[i]
-		charts = append(charts, Chart{Name: "series-" + fileName(p.History.Name), Plot: PlanChart(p)})
-	}
-	return charts
-}
-
-// mostChanged returns the indexes of the portfolio's series ordered by the
-// largest absolute change of their total over the horizon in any
-// scenario, largest first, ties in the order of Names.
-func mostChanged(pf *plan.Portfolio) []int {
-	size := make([]float64, len(pf.Plans))
-	order := make([]int, len(pf.Plans))
-	for i, p := range pf.Plans {
-		order[i] = i
-		base := plan.Total(p.Baseline)
-		for _, sp := range p.Scenarios {
-			size[i] = max(size[i], math.Abs(plan.Total(sp.Adjusted)-base))
-		}
-	}
-	slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(size[b], size[a]) })
-	return order
+	return append(charts, s.SeriesCharts...)
 }
 
 // fileName turns a series name into part of a file name: each "/" becomes
@@ -60,47 +32,27 @@ func fileName(series string) string { return strings.ReplaceAll(series, "/", "--
 // totalChart draws the total: the summed history over the periods every
 // series with history covers (at most ChartHistory of them), the summed
 // baseline and each scenario with events with the bands of the sums.
-func totalChart(pf *plan.Portfolio, rollups [][]plan.Rollup) plots.PlanChart {
-	p0 := pf.Plans[0]
-	freq := p0.Periods[0].Freq
-	common := math.MaxInt
-	for _, p := range pf.Plans {
-		if p.History.Len() > 0 {
-			common = min(common, p.History.Len())
-		}
-	}
-	if common == math.MaxInt {
-		common = 0
-	}
-	show := min(common, ChartHistory(freq))
-	hist := make([]float64, show)
+func totalChart(s *PortfolioSummary) plots.PlanChart {
+	first := s.Periods[0]
+	show := len(s.HistoryTail)
 	var labels []string
 	for i := range show {
-		labels = append(labels, p0.Periods[0].Add(i-show).String())
+		labels = append(labels, first.Add(i-show).String())
 	}
-	for _, p := range pf.Plans {
-		n := p.History.Len()
-		for i := range show {
-			if n > 0 {
-				hist[i] += p.History.Values[n-show+i]
-			}
-		}
-	}
-	for _, per := range p0.Periods {
+	for _, per := range s.Periods {
 		labels = append(labels, per.String())
 	}
-	total := rollups[0][0]
+	total := s.Rollups[0][0]
 	c := plots.PlanChart{
-		Title:         fmt.Sprintf("Plan %s: total of %d series", pf.File.Plan, len(pf.Plans)),
-		Units:         UnitsLabel(pf.File.Units, freq.String()),
+		Title:         fmt.Sprintf("Plan %s: total of %d series", s.Plan, len(s.Series)),
+		Units:         UnitsLabel(s.Units, first.Freq.String()),
 		Labels:        labels,
-		History:       plots.Curve{Name: "History", Values: hist},
+		History:       plots.Curve{Name: "History", Values: s.HistoryTail},
 		Baseline:      plots.Curve{Name: "Baseline", Start: show, Values: total.Baseline},
 		ForecastStart: show,
 	}
-	cases := pf.File.Cases()
-	for k, rs := range rollups {
-		if len(cases[k].Events) == 0 {
+	for k, rs := range s.Rollups {
+		if len(s.CaseEvents[k]) == 0 {
 			continue
 		}
 		t := rs[0]
@@ -116,23 +68,21 @@ func totalChart(pf *plan.Portfolio, rollups [][]plan.Rollup) plots.PlanChart {
 // events (the baseline's load when none has any) is highlighted with a
 // band of the plan's z standard deviations of the load either side,
 // clipped at 0: load ± z·SD, from supply.LoadRisk.
-func resourceChart(pf *plan.Portfolio, r resourceLoad) plots.LoadChart {
-	p0 := pf.Plans[0]
-	labels := make([]string, len(p0.Periods))
-	for t, per := range p0.Periods {
+func resourceChart(s *PortfolioSummary, r ResourceLoad) plots.LoadChart {
+	labels := make([]string, len(s.Periods))
+	for t, per := range s.Periods {
 		labels[t] = per.String()
 	}
 	c := plots.LoadChart{
-		Title:    fmt.Sprintf("Plan %s: %s against its capacity", pf.File.Plan, r.ID),
-		Units:    UnitsLabel(r.Units, p0.Periods[0].Freq.String()),
+		Title:    fmt.Sprintf("Plan %s: %s against its capacity", s.Plan, r.ID),
+		Units:    UnitsLabel(r.Units, s.Periods[0].Freq.String()),
 		Labels:   labels,
 		Capacity: r.Capacity,
 	}
-	cases := pf.File.Cases()
 	band := -1 // the scenario whose load carries the band
 	for k, risk := range r.Risk {
-		if len(cases[k].Events) > 0 {
-			c.Scenarios = append(c.Scenarios, plots.Curve{Name: p0.Scenarios[k].Name, Values: risk.Load})
+		if len(s.CaseEvents[k]) > 0 {
+			c.Scenarios = append(c.Scenarios, plots.Curve{Name: s.Scenarios[k], Values: risk.Load})
 			band = k
 		} else if c.Baseline.Values == nil {
 			c.Baseline = plots.Curve{Name: "Baseline", Values: risk.Load}
@@ -146,8 +96,8 @@ func resourceChart(pf *plan.Portfolio, r resourceLoad) plots.LoadChart {
 		c.Highlight = len(c.Scenarios) - 1
 		focus = &c.Scenarios[c.Highlight]
 	}
-	focus.Name += fmt.Sprintf(", band ± %s SD", G3(p0.Z))
-	focus.Lower, focus.Upper = loadBand(r.Risk[band], p0.Z)
+	focus.Name += fmt.Sprintf(", band ± %s SD", G3(s.Z))
+	focus.Lower, focus.Upper = loadBand(r.Risk[band], s.Z)
 	return c
 }
 

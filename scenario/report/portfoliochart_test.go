@@ -138,11 +138,11 @@ func TestResourceCharts(t *testing.T) {
 	}
 	// The band is load ± z SD with the file's z = 1.5 and the SD of the
 	// load risk, the lower edge clipped at 0 (the band's definition).
-	res, err := resourceLoads(pf)
+	sum, err := newPortfolioSummary(pf, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
-	risk := res[0].Risk[1]
+	risk := sum.Resources[0].Risk[1]
 	for j, l := range risk.Load {
 		if risk.SD[j] <= 0 {
 			t.Fatalf("period %d: load SD %v, want a spread", j, risk.SD[j])

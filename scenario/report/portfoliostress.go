@@ -63,20 +63,23 @@ const portfolioErrors = "bootstrap of whole periods"
 // every scenario with the P5 to P95 band of scenario chart (an index into
 // the scenarios). It panics if chart is out of range.
 func PortfolioStress(r *supply.PortfolioStressRun, chart int) *Report {
-	notes := portfolioStressNotes(r.Sim.Window, r.Sim.Fitted)
-	rep := &Report{Name: "stress", Warnings: r.Warnings, Doc: portfolioStressDoc(r, notes), CSV: portfolioStressCSV(r),
-		MoreTables: portfolioTables(r.Portfolio)}
-	rep.Charts = append(rep.Charts, Chart{Name: "total", Plot: stressLoadChart(r, chart, -1)})
-	for j, res := range r.Resources {
-		rep.Charts = append(rep.Charts, Chart{Name: "resource-" + fileName(res.ID), Plot: stressLoadChart(r, chart, j)})
+	return StressSummaryReport(stressSummary(r), chart)
+}
+
+// StressSummaryReport returns the report of a portfolio's stress run
+// from its summary, as PortfolioStress documents it.
+func StressSummaryReport(m *StressSummary, chart int) *Report {
+	notes := portfolioStressNotes(m.Window, m.Fitted)
+	rep := &Report{Name: "stress", Warnings: m.Warnings, Doc: portfolioStressDoc(m, notes), CSV: portfolioStressCSV(m),
+		MoreTables: m.MoreTables}
+	rep.Charts = append(rep.Charts, Chart{Name: "total", Plot: stressLoadChart(m, chart, -1)})
+	for j, res := range m.Resources {
+		rep.Charts = append(rep.Charts, Chart{Name: "resource-" + fileName(res.ID), Plot: stressLoadChart(m, chart, j)})
 	}
-	writePortfolioStressText(&rep.Text, r, notes)
+	writePortfolioStressText(&rep.Text, m, notes)
 	return rep
 }
 
-// stressLoadChart draws the simulated total (j < 0) or resource j's load:
-// the median of each scenario, the P5 to P95 band of scenario chart, and
-// the resource's capacity.
 // portfolioStressNotes are the notes of a portfolio's stress run whose
 // errors are drawn over window periods for fitted series.
 func portfolioStressNotes(window, fitted int) []string {
@@ -84,31 +87,36 @@ func portfolioStressNotes(window, fitted int) []string {
 		window, countText(fitted))}
 }
 
-func stressLoadChart(r *supply.PortfolioStressRun, chart, j int) plots.LoadChart {
-	pf := r.Portfolio
-	p0 := pf.Plans[0]
-	c := plots.LoadChart{Labels: PeriodLabels(p0), Highlight: chart}
-	risks := r.Total
+// stressLoadChart draws the simulated total (j < 0) or resource j's load:
+// the median of each scenario, the P5 to P95 band of scenario chart, and
+// the resource's capacity.
+func stressLoadChart(m *StressSummary, chart, j int) plots.LoadChart {
+	labels := make([]string, len(m.Periods))
+	for t, per := range m.Periods {
+		labels[t] = per.String()
+	}
+	c := plots.LoadChart{Labels: labels, Highlight: chart}
+	risks := m.Total
 	if j < 0 {
-		c.Title = fmt.Sprintf("Stress %s: total demand", pf.File.Plan)
-		c.Units = UnitsLabel(pf.File.Units, p0.History.Freq().String())
+		c.Title = fmt.Sprintf("Stress %s: total demand", m.Plan)
+		c.Units = UnitsLabel(m.Units, m.freq())
 	} else {
-		res := r.Resources[j]
-		c.Title = fmt.Sprintf("Stress %s: %s against its capacity", pf.File.Plan, res.ID)
-		c.Units = UnitsLabel(res.Units, p0.History.Freq().String())
+		res := m.Resources[j]
+		c.Title = fmt.Sprintf("Stress %s: %s against its capacity", m.Plan, res.ID)
+		c.Units = UnitsLabel(res.Units, m.freq())
 		c.Capacity = res.Capacity
-		risks = make([]supply.Risk, len(r.Risks))
-		for k := range r.Risks {
-			risks[k] = r.Risks[k][j]
+		risks = make([]supply.Risk, len(m.Risks))
+		for k := range m.Risks {
+			risks[k] = m.Risks[k][j]
 		}
 	}
 	for k, rk := range risks {
-		cv := plots.Curve{Name: p0.Scenarios[k].Name + ", median", Values: make([]float64, len(rk.Periods))}
+		cv := plots.Curve{Name: m.Scenarios[k] + ", median", Values: make([]float64, len(rk.Periods))}
 		for t, pr := range rk.Periods {
 			cv.Values[t] = pr.P50
 		}
 		if k == chart {
-			cv.Name = p0.Scenarios[k].Name + ", median and P5 to P95"
+			cv.Name = m.Scenarios[k] + ", median and P5 to P95"
 			cv.Lower, cv.Upper = make([]float64, len(rk.Periods)), make([]float64, len(rk.Periods))
 			for t, pr := range rk.Periods {
 				cv.Lower[t], cv.Upper[t] = pr.P5, pr.P95
@@ -131,25 +139,23 @@ func stressPeriods(periods []forecast.Period, rk supply.Risk) []stressPeriodJSON
 	return out
 }
 
-func portfolioStressDoc(r *supply.PortfolioStressRun, notes []string) PortfolioStressDoc {
-	pf, mc := r.Portfolio, r.Sim
-	p0 := pf.Plans[0]
-	o := PortfolioStressDoc{Plan: pf.File.Plan, Kind: "portfolio", Units: pf.File.Units, Series: len(pf.Plans), Paths: mc.Paths,
-		Seed: mc.Seed, Errors: portfolioErrors, ErrorWindow: mc.Window, Quantiles: quantileDefinition,
-		BreachThreshold: Num(r.Settings.Breach), Inputs: p0.Digests, Notes: notes, Warnings: List(r.Warnings), Caution: Caution}
-	for k, tot := range r.Total {
-		sj := portfolioStressScenarioJSON{Name: tot.Name, Events: eventIDList(pf.File.Cases()[k].Events),
-			Total: portfolioStressSumJSON{Resource: sim.TotalSum, Units: pf.File.Units, Series: len(pf.Plans),
-				Periods: stressPeriods(p0.Periods, tot), FirstBreach: periodOrNull(p0.Periods, tot.FirstBreach),
+func portfolioStressDoc(m *StressSummary, notes []string) PortfolioStressDoc {
+	o := PortfolioStressDoc{Plan: m.Plan, Kind: "portfolio", Units: m.Units, Series: m.Series, Paths: m.Paths,
+		Seed: m.Seed, Errors: portfolioErrors, ErrorWindow: m.Window, Quantiles: quantileDefinition,
+		BreachThreshold: Num(m.Breach), Inputs: m.Inputs, Notes: notes, Warnings: List(m.Warnings), Caution: Caution}
+	for k, tot := range m.Total {
+		sj := portfolioStressScenarioJSON{Name: m.Scenarios[k], Events: List(m.CaseEvents[k]),
+			Total: portfolioStressSumJSON{Resource: sim.TotalSum, Units: m.Units, Series: m.Series,
+				Periods: stressPeriods(m.Periods, tot), FirstBreach: periodOrNull(m.Periods, tot.FirstBreach),
 				TotalExpectedShortfall: Num(tot.TotalExpectedShortfall), PAnyBreach: Num(tot.PAnyBreach)},
 			Resources: []portfolioStressSumJSON{}}
-		for j, res := range r.Resources {
-			rk := r.Risks[k][j]
-			rj := portfolioStressSumJSON{Resource: res.ID, Units: res.Units, PerUnit: Num(res.PerUnit), Series: len(res.Series),
-				Periods: stressPeriods(p0.Periods, rk), FirstBreach: periodOrNull(p0.Periods, rk.FirstBreach),
+		for j, res := range m.Resources {
+			rk := m.Risks[k][j]
+			rj := portfolioStressSumJSON{Resource: res.ID, Units: res.Units, PerUnit: Num(res.PerUnit), Series: res.Series,
+				Periods: stressPeriods(m.Periods, rk), FirstBreach: periodOrNull(m.Periods, rk.FirstBreach),
 				TotalExpectedShortfall: Num(rk.TotalExpectedShortfall), PAnyBreach: Num(rk.PAnyBreach)}
-			if r.Frozen != nil {
-				rj.Frozen = frozenDoc(p0.Periods, r.Frozen[k][j], baselineLoad)
+			if m.Frozen != nil {
+				rj.Frozen = frozenDoc(m.Periods, m.Frozen[k][j], baselineLoad)
 			}
 			sj.Resources = append(sj.Resources, rj)
 		}
@@ -161,34 +167,33 @@ func portfolioStressDoc(r *supply.PortfolioStressRun, notes []string) PortfolioS
 // portfolioStressCSV renders stress.csv of a portfolio: one row per
 // scenario, resource (the total first) and period, with the columns of a
 // single series' stress.csv after the resource.
-func portfolioStressCSV(r *supply.PortfolioStressRun) *Table {
+func portfolioStressCSV(m *StressSummary) *Table {
 	tb := (&Table{Head: []string{"scenario", "resource", "period", "mean", "p5", "p10", "p50", "p90", "p95", "capacity", "p_breach",
 		"expected_shortfall", "shortfall_if_breach", "util_p50", "util_p90"}}).Typed(kindsOf([]Kind{Label, Label, Label}, riskKinds)...)
-	if r.Frozen != nil {
+	if m.Frozen != nil {
 		tb.Head = append(tb.Head, "production", "stock", "stock_at_p50_demand", "stock_at_p90_demand", "p_short", "idle", "overload")
 		tb.Kinds = append(tb.Kinds, frozenKinds...)
 	}
-	periods := r.Portfolio.Plans[0].Periods
-	for k, tot := range r.Total {
+	for k := range m.Total {
 		rows := func(name string, rk supply.Risk, fz *supply.StockProjection) {
 			for t, pr := range rk.Periods {
-				row := append([]string{tot.Name, name, periods[t].String()}, stressCells(pr)...)
+				row := append([]string{m.Scenarios[k], name, m.Periods[t].String()}, stressCells(pr)...)
 				switch {
 				case fz != nil:
 					row = append(row, frozenCells(fz, t)...)
-				case r.Frozen != nil:
+				case m.Frozen != nil:
 					row = append(row, "", "", "", "", "", "", "")
 				}
 				tb.AddRow(row...)
 			}
 		}
-		rows(sim.TotalSum, tot, nil)
-		for j, res := range r.Resources {
+		rows(sim.TotalSum, m.Total[k], nil)
+		for j, res := range m.Resources {
 			var fz *supply.StockProjection
-			if r.Frozen != nil {
-				fz = &r.Frozen[k][j]
+			if m.Frozen != nil {
+				fz = &m.Frozen[k][j]
 			}
-			rows(res.ID, r.Risks[k][j], fz)
+			rows(res.ID, m.Risks[k][j], fz)
 		}
 	}
 	return tb
@@ -196,31 +201,30 @@ func portfolioStressCSV(r *supply.PortfolioStressRun) *Table {
 
 // writePortfolioStressText writes the text report of a portfolio's
 // stress run.
-func writePortfolioStressText(w *Text, r *supply.PortfolioStressRun, notes []string) {
-	pf, mc := r.Portfolio, r.Sim
-	p0 := pf.Plans[0]
-	fmt.Fprintf(w, "Stress test %s: %s series, %d %s periods %s to %s%s\n", pf.File.Plan, countText(len(pf.Plans)),
-		len(p0.Periods), p0.History.Freq(), p0.Periods[0], p0.Periods[len(p0.Periods)-1], InUnits(pf.File.Units))
+func writePortfolioStressText(w *Text, m *StressSummary, notes []string) {
+	last := len(m.Periods) - 1
+	fmt.Fprintf(w, "Stress test %s: %s series, %d %s periods %s to %s%s\n", m.Plan, countText(m.Series),
+		len(m.Periods), m.Periods[0].Freq, m.Periods[0], m.Periods[last], InUnits(m.Units))
 	fmt.Fprintf(w, "Monte Carlo: %s paths, seed %d, errors drawn by whole historical periods (up to %d back); quantiles by Hyndman-Fan type 7\n",
-		countText(mc.Paths), mc.Seed, mc.Window)
-	if len(r.Resources) == 0 {
+		countText(m.Paths), m.Seed, m.Window)
+	if len(m.Resources) == 0 {
 		fmt.Fprintln(w, "Resources: none given (add resources or a capacity block to the scenario file to see breaches)")
 	} else {
-		fmt.Fprintf(w, "Breach threshold %s\n", PctText(r.Settings.Breach))
+		fmt.Fprintf(w, "Breach threshold %s\n", PctText(m.Breach))
 	}
-	for k, tot := range r.Total {
-		writeScenarioHeading(w, tot.Name, eventIDList(pf.File.Cases()[k].Events))
-		fmt.Fprintf(w, "Total demand%s:\n", InUnits(pf.File.Units))
+	for k, tot := range m.Total {
+		writeScenarioHeading(w, m.Scenarios[k], m.CaseEvents[k])
+		fmt.Fprintf(w, "Total demand%s:\n", InUnits(m.Units))
 		t := NewTable("period", "mean", "P5", "P10", "P50", "P90", "P95")
 		for i, pr := range tot.Periods {
-			t.AddRow(p0.Periods[i].String(), wholeNum(pr.Mean), wholeNum(pr.P5), wholeNum(pr.P10),
+			t.AddRow(m.Periods[i].String(), wholeNum(pr.Mean), wholeNum(pr.P5), wholeNum(pr.P10),
 				wholeNum(pr.P50), wholeNum(pr.P90), wholeNum(pr.P95))
 		}
 		w.Add(t)
-		for j, res := range r.Resources {
-			writeResourceStress(w, r, k, j)
-			if r.Frozen != nil {
-				writeFrozenText(w, p0.Periods, res.Units, r.Frozen[k][j], baselineLoad)
+		for j, res := range m.Resources {
+			writeResourceStress(w, m, k, j)
+			if m.Frozen != nil {
+				writeFrozenText(w, m.Periods, res.Units, m.Frozen[k][j], baselineLoad)
 			}
 		}
 	}
@@ -229,11 +233,10 @@ func writePortfolioStressText(w *Text, r *supply.PortfolioStressRun, notes []str
 
 // writeResourceStress writes resource j's simulated load in scenario k
 // against its capacity.
-func writeResourceStress(w *Text, r *supply.PortfolioStressRun, k, j int) {
-	res, rk := r.Resources[j], r.Risks[k][j]
-	periods := r.Portfolio.Plans[0].Periods
+func writeResourceStress(w *Text, m *StressSummary, k, j int) {
+	res, rk := m.Resources[j], m.Risks[k][j]
 	fmt.Fprintf(w, "\nResource %s%s: %g per unit of demand of %s series\n", res.ID, InUnits(res.Units), res.PerUnit,
-		countText(len(res.Series)))
+		countText(res.Series))
 	hasCap := res.Capacity != nil
 	head := []string{"period", "mean", "P10", "P50", "P90"}
 	if hasCap {
@@ -241,7 +244,7 @@ func writeResourceStress(w *Text, r *supply.PortfolioStressRun, k, j int) {
 	}
 	t := NewTable(head...)
 	for i, pr := range rk.Periods {
-		row := []string{periods[i].String(), wholeNum(pr.Mean), wholeNum(pr.P10), wholeNum(pr.P50), wholeNum(pr.P90)}
+		row := []string{m.Periods[i].String(), wholeNum(pr.Mean), wholeNum(pr.P10), wholeNum(pr.P50), wholeNum(pr.P90)}
 		if hasCap {
 			row = append(row, wholeNum(pr.Capacity), PctText(pr.PBreach), wholeNum(pr.ExpectedShortfall),
 				PctText(pr.UtilP50), PctText(pr.UtilP90))
@@ -253,10 +256,10 @@ func writeResourceStress(w *Text, r *supply.PortfolioStressRun, k, j int) {
 		fmt.Fprintln(w, "No capacity given: load only")
 		return
 	}
-	breach := PctText(r.Settings.Breach)
+	breach := PctText(m.Breach)
 	if rk.FirstBreach >= 0 {
 		fmt.Fprintf(w, "First period with P(breach) above %s: %s (%s)\n", breach,
-			periods[rk.FirstBreach], PctText(rk.Periods[rk.FirstBreach].PBreach))
+			m.Periods[rk.FirstBreach], PctText(rk.Periods[rk.FirstBreach].PBreach))
 	} else {
 		fmt.Fprintf(w, "No period has P(breach) above %s\n", breach)
 	}

@@ -14,11 +14,13 @@
 // lays the rows of every shard in the order of the whole portfolio, and
 // adds the partial sums: roll-ups, resource loads and their variances
 // (forecast.VarianceParts) are sums over series, so the merge gives what
-// one run gives, up to the order of the additions.
+// one run gives, up to the order of the additions. It fills the same
+// report model as a run over every series (report.PortfolioSummary,
+// report.StressSummary), so it writes the same text, files and charts.
 //
 // # sums.json
 //
-// A JSON document, version 1 (SumsVersion), whose arrays of numbers are
+// A JSON document, version 2 (SumsVersion), whose arrays of numbers are
 // strings: the numbers as little-endian IEEE 754 float64, base64 (standard
 // alphabet, padded), so that nothing is lost to decimal printing. Fields:
 // version, kind ("plan"), plan, units, freq, end (the history's last
@@ -36,8 +38,20 @@
 // its first member), members, floor (sum of the members' floors), var (the
 // variance parts: h, n, z, own, indep) and per scenario baseline,
 // adjusted, risk_weighted and the summed standard deviation of each
-// event), and resources (id, units, per_unit, capacity, and the group of
-// its series).
+// event), resources (id, units, per_unit, capacity, and the group of
+// its series), tail and common (the shard's summed history over the last
+// report.ChartHistory periods, each series aligned on its last period,
+// and its shortest history), chart_count (plan --charts; -1 all, -2
+// none) and charts (the charts of the shard's own chart_count
+// most-changed series: index, size (report.ChangeSize), series and the
+// curves of report.PlanChart).
+//
+// A stress run's sums.json (kind "stress") holds the settings (periods,
+// freq, scenarios, paths, seed, breach, chart: the scenario the charts
+// band, frozen and opening), the sums (the total, then each resource
+// with its capacity and, with frozen production, the shard's baseline
+// and planned demand on it) and demand: per scenario, sum and period, the
+// shard's part of every path.
 //
 // # manifest.json
 //

@@ -11,7 +11,6 @@ import (
 	"os"
 	"path/filepath"
 	"slices"
-	"strings"
 
 	"forelay/forecast"
 	"forelay/scenario/plan"
@@ -19,12 +18,16 @@ import (
 	"forelay/scenario/supply"
 )
 
-// A Merged is what a merge writes: its files, in order, a line of text
-// and the warnings of the whole run.
+// A Merged is what a merge writes: the report of the whole run (plan and
+// stress), or its files and a line of text (fit).
 type Merged struct {
-	Files    []File
-	Text     string
-	Warnings []string
+	Report *report.Report
+	Files  []File
+	Text   string
+	Shards int
+	// NoChart is set when the shards were run without charts (plan
+	// --charts none).
+	NoChart bool
 }
 
 // MergePlan merges the shards of a portfolio plan in dirs (the --out
@@ -57,49 +60,83 @@ func MergePlan(dirs []string) (*Merged, error) {
 	if err != nil {
 		return nil, err
 	}
-	m := &Merged{Warnings: mergedWarnings(sums[0].Warnings, own)}
 	rows, err := mergeRows(dirs, sums)
 	if err != nil {
 		return nil, err
 	}
-	m.Files = append(m.Files, File{"plan.csv", rows})
+	sum, err := mergedSummary(sums, own)
+	if err != nil {
+		return nil, err
+	}
+	rep := report.PortfolioSummaryReport(sum)
+	rep.CSVData = rows
+	return &Merged{Report: rep, Shards: ms[0].Shard.N, NoChart: sums[0].ChartCount == NoCharts}, nil
+}
+
+// mergedSummary returns the summary of the whole portfolio from the
+// shards' sums and series (ownSeries).
+func mergedSummary(sums []*PlanSums, own []OwnSeries) (*report.PortfolioSummary, error) {
+	s0 := sums[0]
+	sum := &report.PortfolioSummary{Plan: s0.Plan, Units: s0.Units, Levels: s0.Levels, HistoryEnd: s0.End, Inputs: s0.Inputs,
+		Z: s0.Z, Scenarios: s0.Scenarios, CaseEvents: s0.CaseEvents, Notes: s0.Notes, Warnings: mergedWarnings(s0.Warnings, own)}
+	freq, err := forecast.ParseFrequency(s0.Freq)
+	if err != nil {
+		return nil, fmt.Errorf("sums.json: %w", err)
+	}
+	for _, label := range s0.Periods {
+		per, err := forecast.ParsePeriod(label, freq)
+		if err != nil {
+			return nil, fmt.Errorf("sums.json: %w", err)
+		}
+		sum.Periods = append(sum.Periods, per)
+	}
 	groups, err := mergeGroups(sums)
 	if err != nil {
 		return nil, err
 	}
-	s0 := sums[0]
-	rt, err := rollupTable(s0, groups)
-	if err != nil {
-		return nil, err
-	}
-	tables := []struct {
-		name string
-		t    *report.Table
-	}{{"rollup.csv", rt}, {"summary.csv", summaryTable(s0, own)}}
-	loads, err := resourceLoads(sums)
-	if err != nil {
-		return nil, err
-	}
-	if len(s0.Resources) > 0 {
-		tables = append(tables, struct {
-			name string
-			t    *report.Table
-		}{"resources.csv", resourcesTable(s0, loads)})
-	}
-	for _, t := range tables {
-		b, err := t.t.CSVBytes()
-		if err != nil {
-			return nil, err
+	for k := range s0.Scenarios {
+		var rs []plan.Rollup
+		for _, g := range groups {
+			ru, err := g.rollup(s0, k)
+			if err != nil {
+				return nil, fmt.Errorf("group %q: %w", g.Group, err)
+			}
+			rs = append(rs, ru)
 		}
-		m.Files = append(m.Files, File{t.name, b})
+		sum.Rollups = append(sum.Rollups, rs)
 	}
-	js, err := planJSON(s0, own, groups, loads, m.Warnings)
-	if err != nil {
+	for _, g := range groups {
+		sum.GroupSizes = append(sum.GroupSizes, g.Members)
+	}
+	if sum.Resources, err = resourceLoads(sums); err != nil {
 		return nil, err
 	}
-	m.Files = append(m.Files, File{"plan.json", js})
-	m.Text = fmt.Sprintf("merged %d shards of forelay plan %s: %d series, %d scenario(s), %d periods\n", ms[0].Shard.N, s0.Plan, s0.Series, len(s0.Scenarios), len(s0.Periods))
-	return m, nil
+	for _, o := range own {
+		ss := report.SeriesSummary{Name: o.Name, New: o.New, MAD: o.MAD, MSE: o.MSE, Baseline: o.BaselinePeriods}
+		for _, a := range o.AdjustedPeriods {
+			ss.Adjusted = append(ss.Adjusted, a)
+		}
+		sum.Series = append(sum.Series, ss)
+	}
+	sum.HistoryTail = mergedTail(sums)
+	sum.SeriesCharts = mergedCharts(sums, s0.ChartCount)
+	return sum, nil
+}
+
+// mergedTail returns the summed history of the whole portfolio over the
+// last periods every series with history covers, at most
+// report.ChartHistory: the shards' tails added, cut to the shortest
+// history.
+func mergedTail(sums []*PlanSums) []float64 {
+	common := 0
+	tail := make([]float64, len(sums[0].Tail))
+	for _, s := range sums {
+		if s.Common > 0 && (common == 0 || s.Common < common) {
+			common = s.Common
+		}
+		addTo(tail, s.Tail)
+	}
+	return tail[len(tail)-min(common, len(tail)):]
 }
 
 // agree checks that the shards' sums describe the same portfolio.
@@ -120,6 +157,8 @@ func agree(dirs []string, sums []*PlanSums) error {
 			what = "the file's warnings"
 		case len(s.Resources) != len(a.Resources):
 			what = "resources"
+		case len(s.Tail) != len(a.Tail), s.ChartCount != a.ChartCount:
+			what = "charts"
 		}
 		if what != "" {
 			return fmt.Errorf("%w: %s and %s differ in %s", ErrApart, dirs[0], dirs[i+1], what)
@@ -382,119 +421,44 @@ func (m *mergedGroup) rollup(s0 *PlanSums, k int) (plan.Rollup, error) {
 	return r, nil
 }
 
-// rollupTable is rollup.csv (report's rollupCSV) of the merged groups.
-func rollupTable(s0 *PlanSums, groups []*mergedGroup) (*report.Table, error) {
-	t := &report.Table{Head: []string{"scenario", "level", "group", "period", "baseline", "adjusted", "risk_weighted", "lower", "upper"}}
-	for k := range s0.Scenarios {
-		for _, g := range groups {
-			ru, err := g.rollup(s0, k)
-			if err != nil {
-				return nil, fmt.Errorf("group %q: %w", g.Group, err)
-			}
-			for j, per := range s0.Periods {
-				t.Rows = append(t.Rows, []string{ru.Scenario, ru.Level, ru.Group, per, report.CSV2(ru.Baseline[j]),
-					report.CSV2(ru.Adjusted[j]), report.CSV2(ru.RiskWeighted[j]), report.CSV2(ru.Lower[j]), report.CSV2(ru.Upper[j])})
-			}
-		}
-	}
-	return t, nil
-}
-
-// summaryTable is summary.csv (report's summaryCSV): every series in every
-// scenario ranked by the size of its change, ties by name.
-func summaryTable(s0 *PlanSums, own []OwnSeries) *report.Table {
-	t := &report.Table{Head: []string{"scenario", "rank", "series", "baseline", "adjusted", "change", "change_pct"}}
-	for k, name := range s0.Scenarios {
-		order := make([]int, len(own))
-		for i := range order {
-			order[i] = i
-		}
-		change := func(i int) float64 { return own[i].Adjusted[k] - own[i].Baseline }
-		slices.SortStableFunc(order, func(a, b int) int {
-			if c := cmp.Compare(math.Abs(change(b)), math.Abs(change(a))); c != 0 {
-				return c
-			}
-			return strings.Compare(own[a].Name, own[b].Name)
-		})
-		for r, i := range order {
-			o := own[i]
-			pct := ""
-			if o.Baseline != 0 {
-				pct = report.CSV2(100 * change(i) / o.Baseline)
-			}
-			t.Rows = append(t.Rows, []string{name, fmt.Sprint(r + 1), o.Name, report.CSV2(o.Baseline), report.CSV2(o.Adjusted[k]), report.CSV2(change(i)), pct})
-		}
-	}
-	return t
-}
-
-// A resourceLoad is a resource's merged load in one scenario, with its
-// spread and normal breach risk (supply.PortfolioLoadRisk).
-type resourceLoad struct {
-	members                            int
-	load, util, sd, pBreach, shortfall []float64
-}
-
-// resourceLoads returns each scenario's merged resource loads.
-func resourceLoads(sums []*PlanSums) ([][]resourceLoad, error) {
+// resourceLoads returns the merged resources with their loads in each
+// scenario, their spread and normal breach risk (as
+// supply.PortfolioLoadRisk gives them for the whole portfolio).
+func resourceLoads(sums []*PlanSums) ([]report.ResourceLoad, error) {
 	s0 := sums[0]
-	merged := make([]*mergedGroup, len(s0.Resources))
-	for j := range s0.Resources {
+	var out []report.ResourceLoad
+	for j, res := range s0.Resources {
 		m := &mergedGroup{}
 		m.First = -1
 		for _, s := range sums {
 			if err := m.add(s.Resources[j].Sums); err != nil {
-				return nil, fmt.Errorf("resource %q: %w", s0.Resources[j].ID, err)
+				return nil, fmt.Errorf("resource %q: %w", res.ID, err)
 			}
 		}
-		merged[j] = m
-	}
-	out := make([][]resourceLoad, len(s0.Scenarios))
-	for k := range s0.Scenarios {
-		for j, res := range s0.Resources {
-			r := supply.Resource{ID: res.ID, Units: res.Units, PerUnit: res.PerUnit}
-			if len(res.Capacity) > 0 {
-				r.Capacity = res.Capacity
-			}
-			ru, err := merged[j].rollup(s0, k)
+		rl := report.ResourceLoad{Resource: supply.Resource{ID: res.ID, Units: res.Units, PerUnit: res.PerUnit}, Size: m.Members}
+		if len(res.Capacity) > 0 {
+			rl.Capacity = res.Capacity
+		}
+		for k := range s0.Scenarios {
+			ru, err := m.rollup(s0, k)
 			if err != nil {
 				return nil, err
 			}
 			n := len(s0.Periods)
-			l := resourceLoad{members: merged[j].Members, load: make([]float64, n), sd: make([]float64, n), pBreach: make([]float64, n), shortfall: make([]float64, n)}
+			l := &supply.LoadRisk{Load: make([]float64, n), SD: make([]float64, n), PBreach: make([]float64, n), Shortfall: make([]float64, n)}
 			for i := range n {
-				l.load[i] = ru.Adjusted[i] * res.PerUnit
-				if l.members > 0 {
-					l.sd[i] = res.PerUnit * math.Sqrt(ru.Var[i])
+				l.Load[i] = ru.Adjusted[i] * res.PerUnit
+				if m.Members > 0 {
+					l.SD[i] = res.PerUnit * math.Sqrt(ru.Var[i])
 				}
-				l.pBreach[i], l.shortfall[i] = math.NaN(), math.NaN()
-				if r.Capacity != nil {
-					l.pBreach[i], l.shortfall[i] = supply.NormalBreach(l.load[i], l.sd[i], r.Capacity[i])
+				l.PBreach[i], l.Shortfall[i] = math.NaN(), math.NaN()
+				if rl.Capacity != nil {
+					l.PBreach[i], l.Shortfall[i] = supply.NormalBreach(l.Load[i], l.SD[i], rl.Capacity[i])
 				}
 			}
-			l.util = r.Utilisation(l.load)
-			out[k] = append(out[k], l)
+			rl.Risk = append(rl.Risk, l)
 		}
+		out = append(out, rl)
 	}
 	return out, nil
-}
-
-// resourcesTable is resources.csv (report's resourcesCSV) of the merged
-// resources.
-func resourcesTable(s0 *PlanSums, loads [][]resourceLoad) *report.Table {
-	t := &report.Table{Head: []string{"scenario", "resource", "period", "load", "capacity", "utilisation", "load_sd", "p_breach", "expected_shortfall"}}
-	for k, name := range s0.Scenarios {
-		for j, res := range s0.Resources {
-			l := loads[k][j]
-			for i, per := range s0.Periods {
-				capacity := ""
-				if len(res.Capacity) > 0 {
-					capacity = report.CSV2(res.Capacity[i])
-				}
-				t.Rows = append(t.Rows, []string{name, res.ID, per, report.CSV2(l.load[i]), capacity, report.CSVNum(l.util[i], 4),
-					report.CSVNum(l.sd[i], 2), report.CSVNum(l.pBreach[i], 4), report.CSVNum(l.shortfall[i], 2)})
-			}
-		}
-	}
-	return t
 }

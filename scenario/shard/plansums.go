@@ -7,11 +7,12 @@ import (
 
 	"forelay/forecast"
 	"forelay/scenario/plan"
+	"forelay/scenario/report"
 	"forelay/scenario/series"
 )
 
 // SumsVersion is the version of sums.json.
-const SumsVersion = 1
+const SumsVersion = 2
 
 // PlanSums is sums.json of a shard of a portfolio plan (see the package
 // documentation).
@@ -40,6 +41,18 @@ type PlanSums struct {
 	Own        []OwnSeries       `json:"own"`
 	Groups     []GroupSums       `json:"groups"`
 	Resources  []ResourceSum     `json:"resources"`
+	// Tail is the summed history of the shard's series over the last
+	// report.ChartHistory periods, each series aligned on its last period
+	// (a shorter one adds to the last periods only), and Common the
+	// length of the shortest history among them (0 when none has any):
+	// the merge charts the total's history from them.
+	Tail   Floats `json:"tail"`
+	Common int    `json:"common"`
+	// ChartCount is the number of most-changed series charted (plan
+	// --charts; report.AllCharts for all), and Charts the charts of the
+	// shard's own most-changed series, as many.
+	ChartCount int           `json:"chart_count"`
+	Charts     []SeriesChart `json:"charts"`
 }
 
 // An EventUse is an event of the file and whether a series of the shard
@@ -141,9 +154,10 @@ func (pj *PartsJSON) parts() (*forecast.VarianceParts, error) {
 }
 
 // NewPlanSums returns the partial sums of the portfolio of one shard
-// (plan.ReadShard, then plan.BuildPortfolio). It returns an error when
-// pf is not a shard's, or that of forecast.SumVarianceParts.
-func NewPlanSums(pf *plan.Portfolio) (*PlanSums, error) {
+// (plan.ReadShard, then plan.BuildPortfolio), with the charts of its
+// charts most-changed series (report.AllCharts for all). It returns an
+// error when pf is not a shard's, or that of forecast.SumVarianceParts.
+func NewPlanSums(pf *plan.Portfolio, charts int) (*PlanSums, error) {
 	sh := pf.Shard
 	if sh == nil {
 		return nil, fmt.Errorf("shard: the portfolio is not that of a shard")
@@ -195,6 +209,17 @@ func NewPlanSums(pf *plan.Portfolio) (*PlanSums, error) {
 		}
 		s.Own = append(s.Own, o)
 	}
+	s.tail(pf)
+	s.ChartCount = charts
+	var summaries []report.SeriesSummary
+	for i, p := range pf.Plans {
+		ss := report.SeriesSummary{Name: p.History.Name, Baseline: p.Baseline}
+		for k := range p.Scenarios {
+			ss.Adjusted = append(ss.Adjusted, s.Own[i].AdjustedPeriods[k])
+		}
+		summaries = append(summaries, ss)
+	}
+	s.Charts = shardCharts(pf, summaries, charts)
 	s.Warnings = []string{}
 	for _, w := range pf.Warnings {
 		if n, ok := seriesOf(w, mine); ok {
@@ -257,6 +282,24 @@ func NewPlanSums(pf *plan.Portfolio) (*PlanSums, error) {
 		s.Resources = append(s.Resources, rs)
 	}
 	return s, nil
+}
+
+// tail sets the summed history of the shard's series (Tail and Common).
+func (s *PlanSums) tail(pf *plan.Portfolio) {
+	n := report.ChartHistory(pf.Shard.First.Freq)
+	s.Tail = make(Floats, n)
+	for _, p := range pf.Plans {
+		h := p.History.Values
+		if len(h) == 0 {
+			continue
+		}
+		if s.Common == 0 || len(h) < s.Common {
+			s.Common = len(h)
+		}
+		for i := range min(n, len(h)) {
+			s.Tail[n-1-i] += h[len(h)-1-i]
+		}
+	}
 }
 
 // seriesOf returns the index of the own series a warning of the portfolio
@@ -338,9 +381,10 @@ func groupSums(pf *plan.Portfolio, s *PlanSums, members []int) (GroupSums, error
 }
 
 // PlanFiles returns the files of a shard of a portfolio plan: plan.csv
-// (PlanRows) and sums.json (NewPlanSums).
-func PlanFiles(pf *plan.Portfolio) ([]File, error) {
-	s, err := NewPlanSums(pf)
+// (PlanRows) and sums.json (NewPlanSums, with charts of the charts
+// most-changed series).
+func PlanFiles(pf *plan.Portfolio, charts int) ([]File, error) {
+	s, err := NewPlanSums(pf, charts)
 	if err != nil {
 		return nil, err
 	}

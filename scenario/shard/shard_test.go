@@ -124,7 +124,7 @@ func TestMergedRollupsEqualWhole(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		s, err := NewPlanSums(pf)
+		s, err := NewPlanSums(pf, 0)
 		if err != nil {
 			t.Fatal(err)
 		}

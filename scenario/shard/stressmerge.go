@@ -1,11 +1,11 @@
 package shard
 
 import (
-	"encoding/json"
 	"errors"
 	"fmt"
 	"slices"
 
+	"forelay/forecast"
 	"forelay/scenario/report"
 	"forelay/scenario/sim"
 	"forelay/scenario/supply"
@@ -42,7 +42,8 @@ func MergeStress(dirs []string) (*Merged, error) {
 			continue
 		}
 		if !slices.Equal(s.Periods, total.Periods) || !slices.Equal(s.Scenarios, total.Scenarios) || s.Paths != total.Paths || s.Seed != total.Seed ||
-			len(s.Sums) != len(total.Sums) || s.Breach != total.Breach || s.Series != total.Series {
+			len(s.Sums) != len(total.Sums) || s.Breach != total.Breach || s.Series != total.Series || s.Freq != total.Freq ||
+			s.Chart != total.Chart || s.Frozen != total.Frozen || s.Opening != total.Opening {
 			return nil, fmt.Errorf("%w: %s and %s simulate different runs", ErrApart, dirs[0], d)
 		}
 		if s.Fitted > 0 {
@@ -52,8 +53,14 @@ func MergeStress(dirs []string) (*Merged, error) {
 			total.Window = s.Window
 		}
 		series += s.Fitted
-		for j := range s.Sums {
-			total.Sums[j].Members += s.Sums[j].Members
+		for j, sum := range s.Sums {
+			total.Sums[j].Members += sum.Members
+			if s.Frozen {
+				addTo(total.Sums[j].Baseline, sum.Baseline)
+				for k := range sum.Planned {
+					addTo(total.Sums[j].Planned[k], sum.Planned[k])
+				}
+			}
 		}
 		for k := range s.Demand {
 			for j := range s.Demand[k] {
@@ -64,18 +71,15 @@ func MergeStress(dirs []string) (*Merged, error) {
 		}
 	}
 	total.Fitted = series
-	run := stressRun(total)
-	b, err := stressTable(total, run).CSVBytes()
+	m, err := stressSummary(total)
 	if err != nil {
 		return nil, err
 	}
-	js, err := json.MarshalIndent(report.MergedStressDoc(run), "", "  ")
-	if err != nil {
-		return nil, err
+	if total.Chart < 0 || total.Chart >= len(total.Scenarios) {
+		return nil, fmt.Errorf("%s: sums.json charts scenario %d of %d", dirs[0], total.Chart, len(total.Scenarios))
 	}
-	text := fmt.Sprintf("merged %d shards of forelay stress: %d series, %d paths, seed %d, errors drawn over %d periods\n",
-		ms[0].Shard.N, total.Series, total.Paths, total.Seed, total.Window)
-	return &Merged{Files: []File{{"stress.csv", b}, {"stress.json", append(js, '\n')}}, Text: text, Warnings: total.Warnings}, nil
+	rep := report.StressSummaryReport(m, total.Chart)
+	return &Merged{Report: rep, Shards: ms[0].Shard.N}, nil
 }
 
 // checkShape checks that the paths of s have the lengths its settings say.
@@ -98,24 +102,56 @@ func checkShape(s *StressSums) error {
 			}
 		}
 	}
-	for _, sum := range s.Sums {
+	for j, sum := range s.Sums {
 		if len(sum.Capacity) > 0 && len(sum.Capacity) != len(s.Periods) {
 			return errors.New("capacity of the wrong number of periods")
 		}
+		if !s.Frozen || j == 0 {
+			continue
+		}
+		if len(sum.Baseline) != len(s.Periods) || len(sum.Planned) != len(s.Scenarios) {
+			return errors.New("baseline loads of the wrong shape")
+		}
+		for _, p := range sum.Planned {
+			if len(p) != len(s.Periods) {
+				return errors.New("planned loads of the wrong number of periods")
+			}
+		}
+	}
+	if len(s.Sums) == 0 || len(s.Scenarios) == 0 || len(s.Periods) == 0 {
+		return errors.New("no sums, scenarios or periods")
 	}
 	return nil
 }
 
-// stressRun works out the risks of the added paths: each sum's mean,
-// quantiles and breach risks against its capacity (supply.CapacityRisk).
-func stressRun(s *StressSums) *report.MergedStress {
-	m := &report.MergedStress{Plan: s.Plan, Units: s.Units, Series: s.Series, Fitted: s.Fitted, Paths: s.Paths, Window: s.Window,
-		Seed: s.Seed, Breach: s.Breach, Inputs: s.Inputs, Warnings: s.Warnings, Periods: s.Periods, Scenarios: s.Scenarios, CaseEvents: s.CaseEvents}
+// stressSummary works out the risks of the added paths: each sum's mean,
+// quantiles and breach risks against its capacity (supply.CapacityRisk)
+// and, when the file freezes production, each resource's stock projected
+// with production held at its baseline load (supply.ProjectStock).
+func stressSummary(s *StressSums) (*report.StressSummary, error) {
+	m := &report.StressSummary{Plan: s.Plan, Units: s.Units, Series: s.Series, Fitted: s.Fitted, Paths: s.Paths, Window: s.Window,
+		Seed: s.Seed, Breach: s.Breach, Inputs: s.Inputs, Warnings: s.Warnings, Scenarios: s.Scenarios, CaseEvents: s.CaseEvents}
+	freq, err := forecast.ParseFrequency(s.Freq)
+	if err != nil {
+		return nil, fmt.Errorf("sums.json: %w", err)
+	}
+	for _, label := range s.Periods {
+		per, err := forecast.ParsePeriod(label, freq)
+		if err != nil {
+			return nil, fmt.Errorf("sums.json: %w", err)
+		}
+		m.Periods = append(m.Periods, per)
+	}
 	for _, sum := range s.Sums[1:] {
-		m.Resources = append(m.Resources, report.MergedResource{ID: sum.Name, Units: sum.Units, PerUnit: sum.PerUnit, Series: sum.Members})
+		var capacity []float64
+		if len(sum.Capacity) > 0 {
+			capacity = sum.Capacity
+		}
+		m.Resources = append(m.Resources, report.StressResource{ID: sum.Name, Units: sum.Units, PerUnit: sum.PerUnit, Capacity: capacity, Series: sum.Members})
 	}
 	for k, name := range s.Scenarios {
 		var risks []supply.Risk
+		var stocks []supply.StockProjection
 		for j, sum := range s.Sums {
 			demand := make([][]float64, len(s.Periods))
 			for t := range demand {
@@ -125,35 +161,32 @@ func stressRun(s *StressSums) *report.MergedStress {
 			if len(sum.Capacity) > 0 {
 				capacity = sum.Capacity
 			}
-			rk := supply.CapacityRisk(sim.NewPathSet(name, demand), capacity, s.Breach)
+			ps := sim.NewPathSet(name, demand)
+			rk := supply.CapacityRisk(ps, capacity, s.Breach)
 			if j == 0 {
+				rk.Name = name
 				m.Total = append(m.Total, rk)
-			} else {
-				risks = append(risks, rk)
+				continue
+			}
+			risks = append(risks, rk)
+			if s.Frozen {
+				prod, planned := perUnit(sum.Baseline, sum.PerUnit), perUnit(sum.Planned[k], sum.PerUnit)
+				stocks = append(stocks, supply.ProjectStock(prod, planned, capacity, s.Opening, ps))
 			}
 		}
 		m.Risks = append(m.Risks, risks)
-	}
-	return m
-}
-
-// stressTable is stress.csv of a portfolio (report's portfolioStressCSV,
-// without frozen production) of the merged run.
-func stressTable(s *StressSums, m *report.MergedStress) *report.Table {
-	tb := &report.Table{Head: []string{"scenario", "resource", "period", "mean", "p5", "p10", "p50", "p90", "p95", "capacity", "p_breach",
-		"expected_shortfall", "shortfall_if_breach", "util_p50", "util_p90"}}
-	for k, name := range s.Scenarios {
-		for j, sum := range s.Sums {
-			rk := m.Total[k]
-			if j > 0 {
-				rk = m.Risks[k][j-1]
-			}
-			for t, pr := range rk.Periods {
-				tb.AddRow(name, sum.Name, s.Periods[t], report.CSVNum(pr.Mean, 2), report.CSVNum(pr.P5, 2), report.CSVNum(pr.P10, 2),
-					report.CSVNum(pr.P50, 2), report.CSVNum(pr.P90, 2), report.CSVNum(pr.P95, 2), report.CSVNum(pr.Capacity, 2), report.CSVNum(pr.PBreach, 4),
-					report.CSVNum(pr.ExpectedShortfall, 2), report.CSVNum(pr.ShortfallIfBreach, 2), report.CSVNum(pr.UtilP50, 4), report.CSVNum(pr.UtilP90, 4))
-			}
+		if s.Frozen {
+			m.Frozen = append(m.Frozen, stocks)
 		}
 	}
-	return tb
+	return m, nil
+}
+
+// perUnit returns demand times a resource's load per unit.
+func perUnit(demand []float64, per float64) []float64 {
+	out := make([]float64, len(demand))
+	for t, d := range demand {
+		out[t] = d * per
+	}
+	return out
 }

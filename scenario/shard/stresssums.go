@@ -32,6 +32,14 @@ type StressSums struct {
 	Fitted     int               `json:"fitted"`
 	Breach     float64           `json:"breach"`
 	Warnings   []string          `json:"warnings"`
+	// Freq is the name of the periods; Chart the index of the scenario
+	// whose band the charts draw (stress --scenario).
+	Freq  string `json:"freq"`
+	Chart int    `json:"chart"`
+	// Frozen tells whether the file freezes production, and Opening is
+	// the stock before the first period (stress --opening-stock).
+	Frozen  bool    `json:"frozen"`
+	Opening float64 `json:"opening"`
 	// Sums names the sums: sim.TotalSum, then each resource's id, with
 	// its capacity per period (empty for the total or without one).
 	Sums []StressSum `json:"sums"`
@@ -48,22 +56,33 @@ type StressSum struct {
 	Units   string  `json:"units"`
 	PerUnit float64 `json:"per_unit"`
 	Members int     `json:"members"`
+	// Baseline is the demand of the shard's series on a resource under
+	// their baselines, per period, and Planned[k] under their plans in
+	// scenario k (both before per_unit): the parts of the loads that
+	// frozen production holds production at and projects stock against.
+	// Empty unless the file freezes production.
+	Baseline Floats   `json:"baseline,omitempty"`
+	Planned  []Floats `json:"planned,omitempty"`
 }
 
 // NewStressSums simulates the shard's part of each sum of a portfolio
-// stress (supply.PortfolioSums) with opt, its settings breach. A shard
-// without series of its own adds zeros. A file that freezes production is
-// refused: the baseline loads it holds production at are not summed over
-// shards yet.
-func NewStressSums(pf *plan.Portfolio, opt sim.SimOptions, breach float64) (*StressSums, error) {
+// stress (supply.PortfolioSums) with opt and the settings s (Breach and,
+// when the file freezes production, Opening); chart is the index of the
+// scenario whose band the charts draw. A shard without series of its own
+// adds zeros. It returns the error of supply.CheckPortfolioProduction.
+func NewStressSums(pf *plan.Portfolio, opt sim.SimOptions, st supply.StressSettings, chart int) (*StressSums, error) {
 	f := pf.File
 	if pf.Shard == nil {
 		return nil, fmt.Errorf("shard: the portfolio is not that of a shard")
 	}
-	if pr := f.Production; pr != nil && pr.Mode == scenario.Frozen {
-		return nil, f.ValueError("production", pr.Pos, "a stress run in shards does not take frozen production yet; run it without --shard, or leave production out")
+	if err := supply.CheckPortfolioProduction(pf); err != nil {
+		return nil, err
 	}
-	s := &StressSums{Version: SumsVersion, Kind: "stress", Series: len(pf.Shard.All), Paths: opt.Paths, Seed: opt.Seed, Breach: breach, Warnings: []string{}}
+	s := &StressSums{Version: SumsVersion, Kind: "stress", Series: len(pf.Shard.All), Paths: opt.Paths, Seed: opt.Seed, Breach: st.Breach,
+		Warnings: []string{}, Freq: pf.Shard.First.Freq.String(), Chart: chart}
+	if pr := f.Production; pr != nil && pr.Mode == scenario.Frozen {
+		s.Frozen, s.Opening = true, st.Opening
+	}
 	if s.Paths == 0 {
 		s.Paths = sim.DefaultPaths
 	}
@@ -83,14 +102,30 @@ func NewStressSums(pf *plan.Portfolio, opt sim.SimOptions, breach float64) (*Str
 	s.Sums = append(s.Sums, StressSum{Name: sim.TotalSum, Members: len(pf.Plans)})
 	for _, r := range f.AllResources() {
 		ss := StressSum{Name: r.ID, Units: r.Units, PerUnit: r.PerUnit}
+		var own []string
 		for _, n := range pf.Names {
 			if series.Match(r.Series, n) {
 				ss.Members++
+				own = append(own, n)
 			}
 		}
 		if r.Capacity != nil {
 			for t := range hz {
 				ss.Capacity = append(ss.Capacity, r.Capacity.At(pf.Shard.First.Add(t)))
+			}
+		}
+		if s.Frozen {
+			demand := func(pick func(p *plan.Plan) []float64) Floats {
+				return supply.Resource{Series: own, PerUnit: 1}.Load(hz, func(name string) []float64 {
+					if p := pf.PlanOf(name); p != nil {
+						return pick(p)
+					}
+					return nil
+				})
+			}
+			ss.Baseline = demand(func(p *plan.Plan) []float64 { return p.Baseline })
+			for k := range f.Cases() {
+				ss.Planned = append(ss.Planned, demand(func(p *plan.Plan) []float64 { return p.Scenarios[k].Adjusted }))
 			}
 		}
 		s.Sums = append(s.Sums, ss)
@@ -131,8 +166,8 @@ func NewStressSums(pf *plan.Portfolio, opt sim.SimOptions, breach float64) (*Str
 
 // StressFiles returns the files of a shard of a portfolio stress run:
 // sums.json (NewStressSums).
-func StressFiles(pf *plan.Portfolio, opt sim.SimOptions, breach float64) ([]File, error) {
-	s, err := NewStressSums(pf, opt, breach)
+func StressFiles(pf *plan.Portfolio, opt sim.SimOptions, st supply.StressSettings, chart int) ([]File, error) {
+	s, err := NewStressSums(pf, opt, st, chart)
 	if err != nil {
 		return nil, err
 	}
