@@ -1,6 +1,7 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 
 	"github.com/spf13/cobra"
@@ -71,7 +72,11 @@ func mergeRun(opts *MergeOptions) error {
 		return &inputError{err: err}
 	}
 	if m.Report != nil {
-		return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart || m.NoChart, false, m.Report)
+		err := emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart || m.NoChart, false, m.Report)
+		if errors.Is(err, shard.ErrCorrupt) {
+			return &inputError{err: err}
+		}
+		return err
 	}
 	set := report.NewFiles(opts.Out)
 	defer set.Discard()

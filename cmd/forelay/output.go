@@ -51,8 +51,8 @@ func emit(ios *IOStreams, shared *sharedFlags, out string, asJSON, noChart, xlsx
 				return err
 			}
 			set.Add(r.Name+".csv", csv)
-		} else if r.CSVData != nil {
-			set.Add(r.Name+".csv", r.CSVData)
+		} else if r.CSVWrite != nil {
+			set.AddFrom(r.Name+".csv", r.CSVWrite)
 		}
 		for _, more := range r.MoreCSV {
 			csv, err := more.Table.CSVBytes()

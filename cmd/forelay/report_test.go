@@ -94,6 +94,13 @@ func TestReportExamples(t *testing.T) {
 			if !bytes.Contains(page, []byte("sha256:")) || !bytes.Contains(page, []byte("Caution: this plan is a statistical estimate.")) {
 				t.Error("the page lacks the input digests or the caution")
 			}
+			// The page holds no CSV file, so its text points to none
+			// (the input files it names are those it was made from).
+			for _, f := range []string{"summary.csv", "rollup.csv", "resources.csv", "track-summary.csv", "stress.csv", "buffer.csv"} {
+				if bytes.Contains(page, []byte(" "+f)) || bytes.Contains(page, []byte(">"+f)) {
+					t.Errorf("the page points to %s, which it does not hold", f)
+				}
+			}
 		})
 	}
 }

@@ -1,8 +1,10 @@
 package report
 
 import (
+	"bufio"
 	"errors"
 	"fmt"
+	"io"
 	"io/fs"
 	"math"
 	"os"
@@ -70,6 +72,40 @@ func (o *Files) Add(name string, data []byte) {
 	}
 	if err := os.WriteFile(filepath.Join(o.stage, name), data, 0o644); err != nil {
 		o.err = fmt.Errorf("writing %s: %w", filepath.Join(o.dir, name), err)
+		return
+	}
+	if !o.seen[name] {
+		o.seen[name] = true
+		o.names = append(o.names, name)
+	}
+}
+
+// AddFrom writes a file into the staging directory as Add does, its
+// bytes written by write through a buffer, so that a large file is never
+// held in memory whole. An error of write is kept and returned by Commit,
+// as a failure to write is.
+func (o *Files) AddFrom(name string, write func(w io.Writer) error) {
+	if o.err != nil {
+		return
+	}
+	if o.err = o.makeStage(); o.err != nil {
+		return
+	}
+	fh, err := os.Create(filepath.Join(o.stage, name))
+	if err != nil {
+		o.err = fmt.Errorf("writing %s: %w", filepath.Join(o.dir, name), err)
+		return
+	}
+	bw := bufio.NewWriterSize(fh, 1<<16)
+	err = write(bw)
+	if err == nil {
+		err = bw.Flush()
+	}
+	if cerr := fh.Close(); err == nil && cerr != nil {
+		err = fmt.Errorf("writing %s: %w", filepath.Join(o.dir, name), cerr)
+	}
+	if err != nil {
+		o.err = err
 		return
 	}
 	if !o.seen[name] {

@@ -1,6 +1,10 @@
 package report
 
 import (
+	"errors"
+	"fmt"
+	"io"
+	"io/fs"
 	"os"
 	"path/filepath"
 	"strings"
@@ -124,5 +128,43 @@ func TestFilesWrittenAsProduced(t *testing.T) {
 	assertNoStage(t, parent)
 	if _, err := os.Stat(filepath.Join(parent, "out2")); !os.IsNotExist(err) {
 		t.Errorf("out2 exists after a failed run (stat err %v)", err)
+	}
+}
+
+// TestFilesAddFrom checks a file streamed into the set: its bytes land
+// with the others, and a writer that fails part-way leaves nothing
+// written, the error returned by Commit.
+func TestFilesAddFrom(t *testing.T) {
+	dir := filepath.Join(t.TempDir(), "out")
+	set := NewFiles(dir)
+	set.Add("a.txt", []byte("a\n"))
+	set.AddFrom("b.csv", func(w io.Writer) error {
+		for i := range 3 {
+			if _, err := fmt.Fprintf(w, "row %d\n", i); err != nil {
+				return err
+			}
+		}
+		return nil
+	})
+	if _, err := set.Commit(); err != nil {
+		t.Fatal(err)
+	}
+	if b, err := os.ReadFile(filepath.Join(dir, "b.csv")); err != nil || string(b) != "row 0\nrow 1\nrow 2\n" {
+		t.Fatalf("b.csv: %q, %v", b, err)
+	}
+
+	failed := filepath.Join(t.TempDir(), "out")
+	set = NewFiles(failed)
+	defer set.Discard()
+	set.Add("a.txt", []byte("a\n"))
+	set.AddFrom("b.csv", func(w io.Writer) error {
+		fmt.Fprintln(w, "row 0")
+		return errors.New("shard cut short")
+	})
+	if _, err := set.Commit(); err == nil || err.Error() != "shard cut short" {
+		t.Fatalf("Commit: %v, want the writer's error", err)
+	}
+	if _, err := os.Stat(failed); !errors.Is(err, fs.ErrNotExist) {
+		t.Errorf("%s exists after a failed write: %v", failed, err)
 	}
 }

@@ -76,6 +76,7 @@ func ForPortfolioHandover(h PortfolioHandover) (*Book, error) {
 	b.Sections = append(b.Sections, Section{ID: "levels", Title: "Totals per level",
 		Intro: "The plan summed over the horizon for every group of each level, the baseline and each scenario.", Text: &lv})
 
+	sum.inPage = true
 	r := PortfolioSummaryReport(sum)
 	r.CSV = portfolioCSV(pf)
 	r.Charts = append(scenarioTotals(sum), r.Charts[1:]...)
@@ -92,7 +93,9 @@ func ForPortfolioHandover(h PortfolioHandover) (*Book, error) {
 		b.add("prebuild", "Pre-build per resource", "", captioned(PortfolioBuffer(h.Buffer), bufferCaption))
 	}
 	if h.Track != nil {
-		b.add("tracking", "Tracking against new actuals", "", captioned(ForPortfolioTrack(*h.Track), trackCaption))
+		tr := *h.Track
+		tr.InPage = true
+		b.add("tracking", "Tracking against new actuals", "", captioned(ForPortfolioTrack(tr), trackCaption))
 	}
 
 	var every Text

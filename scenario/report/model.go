@@ -26,9 +26,9 @@ type Report struct {
 	Doc any
 	// CSV is the table of Name.csv, in plain numbers; nil for none.
 	CSV *Table
-	// CSVData are the bytes of Name.csv when CSV is nil and the file was
-	// put together elsewhere: the rows a merge of shards joins.
-	CSVData []byte
+	// CSVWrite, when CSV is nil, writes Name.csv: the rows a merge of
+	// shards streams from the shards' files, never held in memory whole.
+	CSVWrite func(w io.Writer) error
 	// MoreCSV are further tables written as their own CSV files with
 	// --out (rollup.csv beside plan.csv, say), in order.
 	MoreCSV []CSVFile

@@ -290,7 +290,11 @@ func portfolioText(w *Text, s *PortfolioSummary) {
 		if n == 0 {
 			continue
 		}
-		fmt.Fprintf(w, "Most changed series (%d of %d changed; all in summary.csv):\n", countChanged(top), len(top))
+		all := "all in summary.csv"
+		if s.inPage {
+			all = "all in the table of every series"
+		}
+		fmt.Fprintf(w, "Most changed series (%d of %d changed; %s):\n", countChanged(top), len(top), all)
 		mt := NewTable("series", "baseline"+units, "plan"+units, "vs baseline", "change")
 		for _, c := range top[:n] {
 			d := forecast.Decimals([]float64{c.baseline, c.adjusted})

@@ -52,8 +52,11 @@ type PortfolioSummary struct {
 	// empty when the series' plans are not at hand (a merge).
 	MoreTables []CSVFile
 
-	// detail, when set, writes more of scenario k after its roll-ups.
+	// detail, when set, writes more of scenario k after its roll-ups;
+	// inPage is set when the report goes into a page whose table of every
+	// series stands in for summary.csv (the handover report).
 	detail func(w *Text, k int)
+	inPage bool
 }
 
 // A SeriesSummary is one series of a portfolio: whether a scope creates

@@ -28,6 +28,9 @@ type PortfolioTrack struct {
 	// Warnings are the portfolio's warnings (or those about the inputs of
 	// a saved plan), then those about the actuals.
 	Warnings []string
+	// InPage is set when the report goes into a page without its CSV
+	// files (the handover report): the text then points to no file.
+	InPage bool
 }
 
 // ForPortfolioTrack returns the report of "forelay track" on a portfolio:

@@ -34,7 +34,7 @@ func portfolioTrackText(w *Text, t PortfolioTrack) {
 			parts[i] = fmt.Sprintf("%d %s", n[v], v)
 		}
 		fmt.Fprintf(w, "Latest period of each series: %s (of %d series tracked)\n", strings.Join(parts, ", "), len(tr.Series))
-		flaggedText(w, tr, units, n[forecast.Bias]+n[forecast.Outlier])
+		flaggedText(w, tr, units, n[forecast.Bias]+n[forecast.Outlier], t.InPage)
 	}
 	rollupTrackText(w, t, units)
 	if total := totalTrack(t); total != nil {
@@ -68,15 +68,19 @@ func trackedSpan(tr *plan.PortfolioTracking) (first, last forecast.Period) {
 
 // flaggedText lists the series whose latest verdict is bias or outlier,
 // the TopFlagged largest tracking signals first.
-func flaggedText(w *Text, tr *plan.PortfolioTracking, units string, flagged int) {
+func flaggedText(w *Text, tr *plan.PortfolioTracking, units string, flagged int, inPage bool) {
 	if flagged == 0 {
 		fmt.Fprintln(w, "No series shows bias or an outlier in its latest period.")
 		return
 	}
 	fmt.Fprintln(w)
 	shown := min(flagged, TopFlagged)
-	fmt.Fprintf(w, "Series with bias or an outlier in their latest period (%d of %d, by |tracking signal|; every series in track-summary.csv):\n",
-		shown, flagged)
+	every := "; every series in track-summary.csv"
+	if inPage {
+		every = ""
+	}
+	fmt.Fprintf(w, "Series with bias or an outlier in their latest period (%d of %d, by |tracking signal|%s):\n",
+		shown, flagged, every)
 	sdec := signalDecimals(tr.Config)
 	tb := NewTable("series", "period", "verdict", "actual"+units, "plan"+units, "error"+units, "cum. error"+units,
 		"tracking signal", "sigmas", "rules").Left(0, 1, 2, 9)

@@ -74,13 +74,9 @@ func shardCharts(pf *plan.Portfolio, series []report.SeriesSummary, n int) []Ser
 }
 
 // mergedCharts returns the charts of the n series of the whole portfolio
-// the events change most, from the shards' own most-changed series: the
-// largest change first, ties in the order of the portfolio.
-func mergedCharts(sums []*PlanSums, n int) []report.Chart {
-	var all []SeriesChart
-	for _, s := range sums {
-		all = append(all, s.Charts...)
-	}
+// the events change most, from all, the shards' own most-changed series:
+// the largest change first, ties in the order of the portfolio.
+func mergedCharts(all []SeriesChart, n int) []report.Chart {
 	slices.SortFunc(all, func(a, b SeriesChart) int {
 		if c := cmp.Compare(b.Size, a.Size); c != 0 {
 			return c

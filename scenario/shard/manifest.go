@@ -18,6 +18,11 @@ const ManifestVersion = 1
 // do not belong together.
 var ErrApart = errors.New("the shards do not belong together")
 
+// ErrCorrupt is wrapped by the errors of a shard whose files do not hold
+// what its sums.json says (a plan.csv cut short or edited): an error of
+// the input, found while the merged files are written.
+var ErrCorrupt = errors.New("a shard's files disagree with its sums")
+
 // A Manifest says how a shard was made (see the package documentation).
 type Manifest struct {
 	Version int    `json:"version"`

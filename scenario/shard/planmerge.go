@@ -1,7 +1,7 @@
 package shard
 
 import (
-	"bytes"
+	"bufio"
 	"cmp"
 	"encoding/csv"
 	"errors"
@@ -32,17 +32,21 @@ type Merged struct {
 
 // MergePlan merges the shards of a portfolio plan in dirs (the --out
 // directories of "forelay plan --shard K/N", given in any order) into the
-// files of one run over every series: plan.csv, rollup.csv, summary.csv
-// and, when the file has resources, resources.csv. The per-series rows are
-// those of the shards, laid in the order of the whole portfolio; roll-ups
-// and resources are the added partial sums. Errors wrap ErrApart when the
+// report of one run over every series (report.PortfolioSummaryReport):
+// plan.csv, rollup.csv, summary.csv, resources.csv (when the file has
+// resources), plan.json, the charts and the text. The per-series rows are
+// those of the shards, streamed in the order of the whole portfolio when
+// the report's CSV is written; roll-ups and resources are the added
+// partial sums. The shards are read one at a time, each folded into the
+// sums before the next, so the merge holds one shard's partial sums at a
+// time besides the series of every shard. Errors wrap ErrApart when the
 // shards do not belong together.
 func MergePlan(dirs []string) (*Merged, error) {
 	dirs, ms, err := readShards(dirs, "plan")
 	if err != nil {
 		return nil, err
 	}
-	sums := make([]*PlanSums, len(dirs))
+	pm := &planMerge{dirs: dirs, groups: map[groupKey]*mergedGroup{}}
 	for i, d := range dirs {
 		var s PlanSums
 		if err := readJSON(d, "sums.json", &s); err != nil {
@@ -51,32 +55,163 @@ func MergePlan(dirs []string) (*Merged, error) {
 		if s.Version != SumsVersion || s.Kind != "plan" {
 			return nil, fmt.Errorf("%s: sums.json of version %d, kind %q; this forelay merges version %d of a plan", d, s.Version, s.Kind, SumsVersion)
 		}
-		sums[i] = &s
+		if err := pm.add(i, &s); err != nil {
+			return nil, err
+		}
 	}
-	if err := agree(dirs, sums); err != nil {
-		return nil, err
-	}
-	own, err := ownSeries(dirs, sums)
+	own, err := pm.series()
 	if err != nil {
 		return nil, err
 	}
-	rows, err := mergeRows(dirs, sums)
-	if err != nil {
-		return nil, err
-	}
-	sum, err := mergedSummary(sums, own)
+	sum, err := pm.summary(own)
 	if err != nil {
 		return nil, err
 	}
 	rep := report.PortfolioSummaryReport(sum)
-	rep.CSVData = rows
-	return &Merged{Report: rep, Shards: ms[0].Shard.N, NoChart: sums[0].ChartCount == NoCharts}, nil
+	rep.CSVWrite = pm.writeRows
+	return &Merged{Report: rep, Shards: ms[0].Shard.N, NoChart: pm.head.ChartCount == NoCharts}, nil
 }
 
-// mergedSummary returns the summary of the whole portfolio from the
-// shards' sums and series (ownSeries).
-func mergedSummary(sums []*PlanSums, own []OwnSeries) (*report.PortfolioSummary, error) {
-	s0 := sums[0]
+// A planMerge adds up the shards of a plan, one at a time.
+type planMerge struct {
+	dirs []string
+	// head is the first shard's sums without its series, groups, charts
+	// and resources' sums: what every shard says of the whole portfolio.
+	head *PlanSums
+	// own holds each shard's series; future, per event of the file,
+	// whether some shard plans it.
+	own    [][]OwnSeries
+	future []bool
+	// groups and order are the merged roll-ups, resources the merged
+	// resources in file order.
+	groups    map[groupKey]*mergedGroup
+	order     []*mergedGroup
+	resources []*mergedGroup
+	// charts are the shards' most-changed series; tail and common the
+	// added history tails and the shortest history.
+	charts []SeriesChart
+	tail   []float64
+	common int
+}
+
+// A groupKey names a roll-up: its depth and group.
+type groupKey struct {
+	depth int
+	group string
+}
+
+// add folds shard i's sums into the merge, after checking that they
+// describe the same portfolio as the first shard's.
+func (pm *planMerge) add(i int, s *PlanSums) error {
+	if pm.head == nil {
+		h := *s
+		h.Own, h.Groups, h.Charts = nil, nil, nil
+		h.Resources = slices.Clone(s.Resources)
+		for j := range h.Resources {
+			h.Resources[j].Sums = GroupSums{}
+		}
+		pm.head = &h
+		pm.future = make([]bool, len(s.Events))
+		pm.tail = make([]float64, len(s.Tail))
+		for range s.Resources {
+			m := &mergedGroup{}
+			m.First = -1
+			pm.resources = append(pm.resources, m)
+		}
+	} else if err := agree(pm.dirs[0], pm.dirs[i], pm.head, s); err != nil {
+		return err
+	}
+	for j, e := range s.Events {
+		pm.future[j] = pm.future[j] || e.Future
+	}
+	for _, g := range s.Groups {
+		k := groupKey{g.Depth, g.Group}
+		m, ok := pm.groups[k]
+		if !ok {
+			m = &mergedGroup{GroupSums: GroupSums{Level: g.Level, Depth: g.Depth, Group: g.Group, First: -1}}
+			pm.groups[k] = m
+			pm.order = append(pm.order, m)
+		}
+		if err := m.add(g); err != nil {
+			return fmt.Errorf("%s: group %q: %w", pm.dirs[i], g.Group, err)
+		}
+	}
+	for j, r := range s.Resources {
+		if err := pm.resources[j].add(r.Sums); err != nil {
+			return fmt.Errorf("%s: resource %q: %w", pm.dirs[i], r.ID, err)
+		}
+	}
+	pm.own = append(pm.own, s.Own)
+	pm.charts = append(pm.charts, s.Charts...)
+	if s.Common > 0 && (pm.common == 0 || s.Common < pm.common) {
+		pm.common = s.Common
+	}
+	addTo(pm.tail, s.Tail)
+	return nil
+}
+
+// agree checks that the sums s of shard dir describe the same portfolio
+// as a, those of shard first.
+func agree(first, dir string, a, s *PlanSums) error {
+	what := ""
+	switch {
+	case s.Series != a.Series:
+		what = fmt.Sprintf("%d and %d series", a.Series, s.Series)
+	case !slices.Equal(s.Periods, a.Periods):
+		what = "periods"
+	case !slices.Equal(s.Scenarios, a.Scenarios):
+		what = "scenarios"
+	case !slices.EqualFunc(s.Events, a.Events, func(x, y EventUse) bool { return x.ID == y.ID }), s.Depth != a.Depth,
+		!slices.Equal(s.Levels, a.Levels), s.Z != a.Z, s.Floor != a.Floor:
+		what = "the scenario file"
+	case !slices.Equal(s.Warnings, a.Warnings):
+		what = "the file's warnings"
+	case !slices.EqualFunc(s.Resources, a.Resources, func(x, y ResourceSum) bool { return x.ID == y.ID }):
+		what = "resources"
+	case len(s.Tail) != len(a.Tail), s.ChartCount != a.ChartCount:
+		what = "charts"
+	}
+	if what != "" {
+		return fmt.Errorf("%w: %s and %s differ in %s", ErrApart, first, dir, what)
+	}
+	return nil
+}
+
+// series returns every shard's series, in the order of the whole
+// portfolio, checking that each index is there once.
+func (pm *planMerge) series() ([]OwnSeries, error) {
+	all := make([]OwnSeries, pm.head.Series)
+	from := make([]int, len(all))
+	for i := range from {
+		from[i] = -1
+	}
+	for i, own := range pm.own {
+		for _, o := range own {
+			if o.Index < 0 || o.Index >= len(all) {
+				return nil, fmt.Errorf("%w: %s plans series %q at index %d of %d", ErrApart, pm.dirs[i], o.Name, o.Index, len(all))
+			}
+			if j := from[o.Index]; j >= 0 {
+				return nil, fmt.Errorf("%w: %s and %s both plan series %q", ErrApart, pm.dirs[j], pm.dirs[i], o.Name)
+			}
+			if len(o.Adjusted) != len(pm.head.Scenarios) || len(o.AdjustedPeriods) != len(pm.head.Scenarios) {
+				return nil, fmt.Errorf("%s: series %q has %d totals for %d scenarios", pm.dirs[i], o.Name, len(o.Adjusted), len(pm.head.Scenarios))
+			}
+			from[o.Index] = i
+			all[o.Index] = o
+		}
+	}
+	for i, j := range from {
+		if j < 0 {
+			return nil, fmt.Errorf("%w: no shard plans series %d of %d", ErrApart, i+1, len(all))
+		}
+	}
+	return all, nil
+}
+
+// summary returns the summary of the whole portfolio from the added sums
+// and every series (series).
+func (pm *planMerge) summary(own []OwnSeries) (*report.PortfolioSummary, error) {
+	s0 := pm.head
 	sum := &report.PortfolioSummary{Plan: s0.Plan, Units: s0.Units, Levels: s0.Levels, HistoryEnd: s0.End, Inputs: s0.Inputs,
 		Z: s0.Z, Scenarios: s0.Scenarios, CaseEvents: s0.CaseEvents, Notes: s0.Notes, Warnings: mergedWarnings(s0.Warnings, own)}
 	freq, err := forecast.ParseFrequency(s0.Freq)
@@ -90,10 +225,7 @@ func mergedSummary(sums []*PlanSums, own []OwnSeries) (*report.PortfolioSummary,
 		}
 		sum.Periods = append(sum.Periods, per)
 	}
-	groups, err := mergeGroups(sums)
-	if err != nil {
-		return nil, err
-	}
+	groups := pm.rollupGroups()
 	for k := range s0.Scenarios {
 		var rs []plan.Rollup
 		for _, g := range groups {
@@ -108,7 +240,7 @@ func mergedSummary(sums []*PlanSums, own []OwnSeries) (*report.PortfolioSummary,
 	for _, g := range groups {
 		sum.GroupSizes = append(sum.GroupSizes, g.Members)
 	}
-	if sum.Resources, err = resourceLoads(sums); err != nil {
+	if sum.Resources, err = pm.resourceLoads(); err != nil {
 		return nil, err
 	}
 	for _, o := range own {
@@ -118,208 +250,16 @@ func mergedSummary(sums []*PlanSums, own []OwnSeries) (*report.PortfolioSummary,
 		}
 		sum.Series = append(sum.Series, ss)
 	}
-	sum.HistoryTail = mergedTail(sums)
-	sum.SeriesCharts = mergedCharts(sums, s0.ChartCount)
+	sum.HistoryTail = pm.tail[len(pm.tail)-min(pm.common, len(pm.tail)):]
+	sum.SeriesCharts = mergedCharts(pm.charts, s0.ChartCount)
 	return sum, nil
 }
 
-// mergedTail returns the summed history of the whole portfolio over the
-// last periods every series with history covers, at most
-// report.ChartHistory: the shards' tails added, cut to the shortest
-// history.
-func mergedTail(sums []*PlanSums) []float64 {
-	common := 0
-	tail := make([]float64, len(sums[0].Tail))
-	for _, s := range sums {
-		if s.Common > 0 && (common == 0 || s.Common < common) {
-			common = s.Common
-		}
-		addTo(tail, s.Tail)
-	}
-	return tail[len(tail)-min(common, len(tail)):]
-}
-
-// agree checks that the shards' sums describe the same portfolio.
-func agree(dirs []string, sums []*PlanSums) error {
-	a := sums[0]
-	for i, s := range sums[1:] {
-		what := ""
-		switch {
-		case s.Series != a.Series:
-			what = fmt.Sprintf("%d and %d series", a.Series, s.Series)
-		case !slices.Equal(s.Periods, a.Periods):
-			what = "periods"
-		case !slices.Equal(s.Scenarios, a.Scenarios):
-			what = "scenarios"
-		case len(s.Events) != len(a.Events), s.Depth != a.Depth, !slices.Equal(s.Levels, a.Levels), s.Z != a.Z, s.Floor != a.Floor:
-			what = "the scenario file"
-		case !slices.Equal(s.Warnings, a.Warnings):
-			what = "the file's warnings"
-		case len(s.Resources) != len(a.Resources):
-			what = "resources"
-		case len(s.Tail) != len(a.Tail), s.ChartCount != a.ChartCount:
-			what = "charts"
-		}
-		if what != "" {
-			return fmt.Errorf("%w: %s and %s differ in %s", ErrApart, dirs[0], dirs[i+1], what)
-		}
-	}
-	return nil
-}
-
-// ownSeries returns every shard's series, in the order of the whole
-// portfolio, checking that each index is there once.
-func ownSeries(dirs []string, sums []*PlanSums) ([]OwnSeries, error) {
-	all := make([]OwnSeries, sums[0].Series)
-	from := make([]int, len(all))
-	for i := range from {
-		from[i] = -1
-	}
-	for i, s := range sums {
-		for _, o := range s.Own {
-			if o.Index < 0 || o.Index >= len(all) {
-				return nil, fmt.Errorf("%w: %s plans series %q at index %d of %d", ErrApart, dirs[i], o.Name, o.Index, len(all))
-			}
-			if j := from[o.Index]; j >= 0 {
-				return nil, fmt.Errorf("%w: %s and %s both plan series %q", ErrApart, dirs[j], dirs[i], o.Name)
-			}
-			if len(o.Adjusted) != len(s.Scenarios) {
-				return nil, fmt.Errorf("%s: series %q has %d totals for %d scenarios", dirs[i], o.Name, len(o.Adjusted), len(s.Scenarios))
-			}
-			from[o.Index] = i
-			all[o.Index] = o
-		}
-	}
-	for i, j := range from {
-		if j < 0 {
-			return nil, fmt.Errorf("%w: no shard plans series %d of %d", ErrApart, i+1, len(all))
-		}
-	}
-	return all, nil
-}
-
-// mergedWarnings returns the file's warnings, then each series', in order.
-func mergedWarnings(file []string, own []OwnSeries) []string {
-	out := slices.Clone(file)
-	for _, o := range own {
-		out = append(out, o.Warnings...)
-	}
-	return out
-}
-
-// mergeRows lays the shards' plan.csv rows in the order of the whole
-// portfolio, keeping the columns of the events some shard plans.
-func mergeRows(dirs []string, sums []*PlanSums) ([]byte, error) {
-	s0 := sums[0]
-	head := slices.Clone(planHead)
-	keep := make([]int, len(planHead))
-	for i := range keep {
-		keep[i] = i
-	}
-	for j, e := range s0.Events {
-		for _, s := range sums {
-			if s.Events[j].ID != e.ID {
-				return nil, fmt.Errorf("%w: the shards' events differ", ErrApart)
-			}
-		}
-		if slices.ContainsFunc(sums, func(s *PlanSums) bool { return s.Events[j].Future }) {
-			head = append(head, e.ID)
-			keep = append(keep, len(planHead)+j)
-		}
-	}
-	readers := make([]*csv.Reader, len(dirs))
-	for i, d := range dirs {
-		fh, err := os.Open(filepath.Join(d, "plan.csv"))
-		if err != nil {
-			return nil, err
-		}
-		defer fh.Close()
-		readers[i] = csv.NewReader(fh)
-		h, err := readers[i].Read()
-		if err != nil {
-			return nil, fmt.Errorf("%s: %w", filepath.Join(d, "plan.csv"), err)
-		}
-		if len(h) != len(planHead)+len(s0.Events) {
-			return nil, fmt.Errorf("%s: %d columns, want %d", filepath.Join(d, "plan.csv"), len(h), len(planHead)+len(s0.Events))
-		}
-	}
-	var b bytes.Buffer
-	w := csv.NewWriter(&b)
-	if err := w.Write(head); err != nil {
-		return nil, err
-	}
-	out := make([]string, len(keep))
-	for _, name := range s0.Scenarios {
-		at := make([]int, len(sums))
-		for {
-			best := -1
-			for i, s := range sums {
-				if at[i] < len(s.Own) && (best < 0 || s.Own[at[i]].Index < sums[best].Own[at[best]].Index) {
-					best = i
-				}
-			}
-			if best < 0 {
-				break
-			}
-			o := sums[best].Own[at[best]]
-			at[best]++
-			for range s0.Periods {
-				rec, err := readers[best].Read()
-				if err == io.EOF {
-					err = errors.New("ends early")
-				}
-				if err != nil {
-					return nil, fmt.Errorf("%s: %w", filepath.Join(dirs[best], "plan.csv"), err)
-				}
-				if rec[0] != name || rec[1] != o.Name {
-					return nil, fmt.Errorf("%s: row of %s, %s where %s, %s was due", filepath.Join(dirs[best], "plan.csv"), rec[0], rec[1], name, o.Name)
-				}
-				for c, j := range keep {
-					out[c] = rec[j]
-				}
-				if err := w.Write(out); err != nil {
-					return nil, err
-				}
-			}
-		}
-	}
-	w.Flush()
-	return b.Bytes(), w.Error()
-}
-
-// A mergedGroup is a roll-up added up over the shards.
-type mergedGroup struct {
-	GroupSums
-	parts *forecast.VarianceParts
-	// sigma holds each scenario's summed standard deviations by event,
-	// events in the order first met.
-	sigma [][]EventSum
-}
-
-// mergeGroups adds up the shards' groups: the total, then the groups of
+// rollupGroups returns the merged roll-ups: the total, then the groups of
 // each level from the widest, each level's groups in the order of their
 // first member in the whole portfolio.
-func mergeGroups(sums []*PlanSums) ([]*mergedGroup, error) {
-	type key struct {
-		depth int
-		group string
-	}
-	byKey := map[key]*mergedGroup{}
-	var order []*mergedGroup
-	for _, s := range sums {
-		for _, g := range s.Groups {
-			k := key{g.Depth, g.Group}
-			m, ok := byKey[k]
-			if !ok {
-				m = &mergedGroup{GroupSums: GroupSums{Level: g.Level, Depth: g.Depth, Group: g.Group, First: -1}}
-				byKey[k] = m
-				order = append(order, m)
-			}
-			if err := m.add(g); err != nil {
-				return nil, fmt.Errorf("group %q: %w", g.Group, err)
-			}
-		}
-	}
+func (pm *planMerge) rollupGroups() []*mergedGroup {
+	order := slices.Clone(pm.order)
 	slices.SortStableFunc(order, func(a, b *mergedGroup) int {
 		if c := cmp.Compare(a.Depth, b.Depth); c != 0 {
 			return c
@@ -332,7 +272,104 @@ func mergeGroups(sums []*PlanSums) ([]*mergedGroup, error) {
 			out = append(out, g)
 		}
 	}
-	return out, nil
+	return out
+}
+
+// mergedWarnings returns the file's warnings, then each series', in order.
+func mergedWarnings(file []string, own []OwnSeries) []string {
+	out := slices.Clone(file)
+	for _, o := range own {
+		out = append(out, o.Warnings...)
+	}
+	return out
+}
+
+// writeRows writes plan.csv of the whole portfolio to out: the shards'
+// rows streamed in the order of the whole portfolio, keeping the columns
+// of the events some shard plans. A shard's plan.csv that does not hold
+// the rows its sums.json says is an error wrapping ErrCorrupt.
+func (pm *planMerge) writeRows(out io.Writer) error {
+	s0 := pm.head
+	head := slices.Clone(planHead)
+	keep := make([]int, len(planHead))
+	for i := range keep {
+		keep[i] = i
+	}
+	for j, e := range s0.Events {
+		if pm.future[j] {
+			head = append(head, e.ID)
+			keep = append(keep, len(planHead)+j)
+		}
+	}
+	readers := make([]*csv.Reader, len(pm.dirs))
+	for i, d := range pm.dirs {
+		path := filepath.Join(d, "plan.csv")
+		fh, err := os.Open(path)
+		if err != nil {
+			return fmt.Errorf("%w: %w", ErrCorrupt, err)
+		}
+		defer fh.Close()
+		readers[i] = csv.NewReader(bufio.NewReaderSize(fh, 1<<16))
+		readers[i].ReuseRecord = true
+		h, err := readers[i].Read()
+		if err != nil {
+			return fmt.Errorf("%w: %s: %w", ErrCorrupt, path, err)
+		}
+		if len(h) != len(planHead)+len(s0.Events) {
+			return fmt.Errorf("%w: %s: %d columns, want %d", ErrCorrupt, path, len(h), len(planHead)+len(s0.Events))
+		}
+	}
+	w := csv.NewWriter(out)
+	if err := w.Write(head); err != nil {
+		return err
+	}
+	row := make([]string, len(keep))
+	for _, name := range s0.Scenarios {
+		at := make([]int, len(pm.own))
+		for {
+			best := -1
+			for i, own := range pm.own {
+				if at[i] < len(own) && (best < 0 || own[at[i]].Index < pm.own[best][at[best]].Index) {
+					best = i
+				}
+			}
+			if best < 0 {
+				break
+			}
+			o := pm.own[best][at[best]]
+			at[best]++
+			for range s0.Periods {
+				rec, err := readers[best].Read()
+				if err == io.EOF {
+					err = errors.New("ends early")
+				}
+				path := filepath.Join(pm.dirs[best], "plan.csv")
+				if err != nil {
+					return fmt.Errorf("%w: %s: %w", ErrCorrupt, path, err)
+				}
+				if rec[0] != name || rec[1] != o.Name {
+					return fmt.Errorf("%w: %s: row of %s, %s where %s, %s was due", ErrCorrupt, path, rec[0], rec[1], name, o.Name)
+				}
+				for c, j := range keep {
+					row[c] = rec[j]
+				}
+				if err := w.Write(row); err != nil {
+					return err
+				}
+			}
+		}
+	}
+	w.Flush()
+	return w.Error()
+}
+
+// A mergedGroup is a roll-up added up over the shards.
+type mergedGroup struct {
+	GroupSums
+	parts *forecast.VarianceParts
+	// sigma holds each scenario's summed standard deviations by event,
+	// events in the order first met.
+	sigma [][]EventSum
 }
 
 // add adds the sums of one shard's members of the group.
@@ -424,17 +461,11 @@ func (m *mergedGroup) rollup(s0 *PlanSums, k int) (plan.Rollup, error) {
 // resourceLoads returns the merged resources with their loads in each
 // scenario, their spread and normal breach risk (as
 // supply.PortfolioLoadRisk gives them for the whole portfolio).
-func resourceLoads(sums []*PlanSums) ([]report.ResourceLoad, error) {
-	s0 := sums[0]
+func (pm *planMerge) resourceLoads() ([]report.ResourceLoad, error) {
+	s0 := pm.head
 	var out []report.ResourceLoad
 	for j, res := range s0.Resources {
-		m := &mergedGroup{}
-		m.First = -1
-		for _, s := range sums {
-			if err := m.add(s.Resources[j].Sums); err != nil {
-				return nil, fmt.Errorf("resource %q: %w", res.ID, err)
-			}
-		}
+		m := pm.resources[j]
 		rl := report.ResourceLoad{Resource: supply.Resource{ID: res.ID, Units: res.Units, PerUnit: res.PerUnit}, Size: m.Members}
 		if len(res.Capacity) > 0 {
 			rl.Capacity = res.Capacity
@@ -442,7 +473,7 @@ func resourceLoads(sums []*PlanSums) ([]report.ResourceLoad, error) {
 		for k := range s0.Scenarios {
 			ru, err := m.rollup(s0, k)
 			if err != nil {
-				return nil, err
+				return nil, fmt.Errorf("resource %q: %w", res.ID, err)
 			}
 			n := len(s0.Periods)
 			l := &supply.LoadRisk{Load: make([]float64, n), SD: make([]float64, n), PBreach: make([]float64, n), Shortfall: make([]float64, n)}

@@ -138,10 +138,13 @@ func TestMergedRollupsEqualWhole(t *testing.T) {
 		}
 		sums = append(sums, &back)
 	}
-	groups, err := mergeGroups(sums)
-	if err != nil {
-		t.Fatal(err)
+	pm := &planMerge{dirs: []string{"s0", "s1", "s2"}, groups: map[groupKey]*mergedGroup{}}
+	for i, s := range sums {
+		if err := pm.add(i, s); err != nil {
+			t.Fatal(err)
+		}
 	}
+	groups := pm.rollupGroups()
 	for k, name := range sums[0].Scenarios {
 		want, err := whole.Rollups(name)
 		if err != nil {
