@@ -214,16 +214,9 @@ func (pm *planMerge) summary(own []OwnSeries) (*report.PortfolioSummary, error) 
 	s0 := pm.head
 	sum := &report.PortfolioSummary{Plan: s0.Plan, Units: s0.Units, Levels: s0.Levels, HistoryEnd: s0.End, Inputs: s0.Inputs,
 		Z: s0.Z, Scenarios: s0.Scenarios, CaseEvents: s0.CaseEvents, Notes: s0.Notes, Warnings: mergedWarnings(s0.Warnings, own)}
-	freq, err := forecast.ParseFrequency(s0.Freq)
-	if err != nil {
-		return nil, fmt.Errorf("sums.json: %w", err)
-	}
-	for _, label := range s0.Periods {
-		per, err := forecast.ParsePeriod(label, freq)
-		if err != nil {
-			return nil, fmt.Errorf("sums.json: %w", err)
-		}
-		sum.Periods = append(sum.Periods, per)
+	var err error
+	if sum.Periods, err = parsePeriods(s0.Freq, s0.Periods); err != nil {
+		return nil, err
 	}
 	groups := pm.rollupGroups()
 	for k := range s0.Scenarios {

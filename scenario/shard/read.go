@@ -7,6 +7,8 @@ import (
 	"os"
 	"path/filepath"
 	"slices"
+
+	"forelay/forecast"
 )
 
 // A File is one file a shard or a merge writes, by name.
@@ -68,4 +70,20 @@ func Command(dir string) (string, error) {
 		return "", err
 	}
 	return m.Command, nil
+}
+
+// parsePeriods reads the period labels of a sums.json, of frequency freq
+// (its name).
+func parsePeriods(freq string, labels []string) ([]forecast.Period, error) {
+	f, err := forecast.ParseFrequency(freq)
+	if err != nil {
+		return nil, fmt.Errorf("sums.json: %w", err)
+	}
+	out := make([]forecast.Period, len(labels))
+	for i, label := range labels {
+		if out[i], err = forecast.ParsePeriod(label, f); err != nil {
+			return nil, fmt.Errorf("sums.json: %w", err)
+		}
+	}
+	return out, nil
 }

@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"slices"
 
-	"forelay/forecast"
 	"forelay/scenario/report"
 	"forelay/scenario/sim"
 	"forelay/scenario/supply"
@@ -131,16 +130,9 @@ func checkShape(s *StressSums) error {
 func stressSummary(s *StressSums) (*report.StressSummary, error) {
 	m := &report.StressSummary{Plan: s.Plan, Units: s.Units, Series: s.Series, Fitted: s.Fitted, Paths: s.Paths, Window: s.Window,
 		Seed: s.Seed, Breach: s.Breach, Inputs: s.Inputs, Warnings: s.Warnings, Scenarios: s.Scenarios, CaseEvents: s.CaseEvents}
-	freq, err := forecast.ParseFrequency(s.Freq)
-	if err != nil {
-		return nil, fmt.Errorf("sums.json: %w", err)
-	}
-	for _, label := range s.Periods {
-		per, err := forecast.ParsePeriod(label, freq)
-		if err != nil {
-			return nil, fmt.Errorf("sums.json: %w", err)
-		}
-		m.Periods = append(m.Periods, per)
+	var err error
+	if m.Periods, err = parsePeriods(s.Freq, s.Periods); err != nil {
+		return nil, err
 	}
 	for _, sum := range s.Sums[1:] {
 		var capacity []float64
