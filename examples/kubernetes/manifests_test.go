@@ -93,11 +93,53 @@ func container(t *testing.T, name string, job *batchv1.Job) corev1.Container {
 			t.Errorf("%s: no %s request", name, r)
 		}
 	}
+	// Go's soft memory limit, in its own notation (a number of bytes
+	// with B, KiB, MiB, GiB or TiB), must lie under the container's
+	// limit, or the pod is killed before the collector works harder.
+	limit, ok := c.Resources.Limits[corev1.ResourceMemory]
+	soft, err := goMemLimit(envOf(c, "GOMEMLIMIT"))
+	switch {
+	case !ok:
+		t.Errorf("%s: no memory limit", name)
+	case err != nil:
+		t.Errorf("%s: GOMEMLIMIT: %v", name, err)
+	case soft >= limit.Value():
+		t.Errorf("%s: GOMEMLIMIT of %d bytes, not under the memory limit of %d", name, soft, limit.Value())
+	}
 	if len(c.VolumeMounts) != 1 || c.VolumeMounts[0].MountPath != mount || len(pod.Volumes) != 1 ||
 		pod.Volumes[0].Name != c.VolumeMounts[0].Name || pod.Volumes[0].PersistentVolumeClaim == nil {
 		t.Errorf("%s: want one volume from a claim, mounted at %s", name, mount)
 	}
 	return c
+}
+
+// envOf returns the value of the container's environment variable name,
+// or "".
+func envOf(c corev1.Container, name string) string {
+	for _, e := range c.Env {
+		if e.Name == name {
+			return e.Value
+		}
+	}
+	return ""
+}
+
+// goMemLimit reads a GOMEMLIMIT value in bytes: digits and one of the
+// suffixes the Go runtime documents (B, KiB, MiB, GiB, TiB).
+func goMemLimit(v string) (int64, error) {
+	for _, u := range []struct {
+		suffix string
+		scale  int64
+	}{{"TiB", 1 << 40}, {"GiB", 1 << 30}, {"MiB", 1 << 20}, {"KiB", 1 << 10}, {"B", 1}} {
+		if num, ok := strings.CutSuffix(v, u.suffix); ok {
+			n, err := strconv.ParseInt(num, 10, 64)
+			if err != nil || n <= 0 {
+				return 0, fmt.Errorf("%q: want a positive whole number before %s", v, u.suffix)
+			}
+			return n * u.scale, nil
+		}
+	}
+	return 0, fmt.Errorf("%q: want a number of bytes with B, KiB, MiB, GiB or TiB", v)
 }
 
 // shardCount checks the Indexed Job of the shards and returns N.
@@ -139,10 +181,8 @@ func TestManifests(t *testing.T) {
 	if !slices.Equal(rerun.Args, shards.Args) {
 		t.Errorf("job-rerun-index.yaml: args %q, want those of job-shards.yaml %q", rerun.Args, shards.Args)
 	}
-	if len(rerun.Env) != 1 || rerun.Env[0].Name != "JOB_COMPLETION_INDEX" {
-		t.Errorf("job-rerun-index.yaml: want JOB_COMPLETION_INDEX set")
-	} else if k, err := strconv.Atoi(rerun.Env[0].Value); err != nil || k < 0 || k >= n {
-		t.Errorf("job-rerun-index.yaml: index %q, want 0 to %d", rerun.Env[0].Value, n-1)
+	if k, err := strconv.Atoi(envOf(rerun, "JOB_COMPLETION_INDEX")); err != nil || k < 0 || k >= n {
+		t.Errorf("job-rerun-index.yaml: index %q, want JOB_COMPLETION_INDEX set, 0 to %d", envOf(rerun, "JOB_COMPLETION_INDEX"), n-1)
 	}
 	df, err := os.ReadFile("Dockerfile")
 	if err != nil {
@@ -228,10 +268,10 @@ func TestJobsRunLocally(t *testing.T) {
 		}
 	}
 	for k := range n {
-		env := map[string]string{"JOB_COMPLETION_INDEX": strconv.Itoa(k)}
+		env := map[string]string{"JOB_COMPLETION_INDEX": strconv.Itoa(k), "GOMEMLIMIT": envOf(shards, "GOMEMLIMIT")}
 		runIn(env, localArgs(shards.Args, env, data)...)
 	}
-	runIn(nil, localArgs(merge.Args, nil, data)...)
+	runIn(map[string]string{"GOMEMLIMIT": envOf(merge, "GOMEMLIMIT")}, localArgs(merge.Args, nil, data)...)
 	runIn(nil, "plan", filepath.Join(data, "plan.yaml"), "--out", filepath.Join(tmp, "whole"), "--charts", "none")
 	outDir := localArgs([]string{merge.Args[2]}, nil, data)[0]
 	compare(t, filepath.Join(tmp, "whole"), outDir)

@@ -1,11 +1,13 @@
 package shard
 
 import (
+	"bytes"
 	"encoding/base64"
 	"encoding/binary"
 	"encoding/json"
 	"fmt"
 	"math"
+	"strconv"
 )
 
 // Floats are numbers written to JSON as a base64 string of little-endian
@@ -21,16 +23,23 @@ func (f Floats) MarshalJSON() ([]byte, error) {
 	return json.Marshal(base64.StdEncoding.EncodeToString(b))
 }
 
-// UnmarshalJSON reads numbers written by MarshalJSON.
+// UnmarshalJSON reads numbers written by MarshalJSON, decoding the
+// base64 straight from the JSON string (its alphabet needs no escapes).
 func (f *Floats) UnmarshalJSON(data []byte) error {
-	var s string
-	if err := json.Unmarshal(data, &s); err != nil {
-		return err
+	if len(data) < 2 || data[0] != '"' || data[len(data)-1] != '"' || bytes.IndexByte(data[1:len(data)-1], '\\') >= 0 {
+		var s string
+		if err := json.Unmarshal(data, &s); err != nil {
+			return err
+		}
+		data = []byte(strconv.Quote(s))
 	}
-	b, err := base64.StdEncoding.DecodeString(s)
+	src := data[1 : len(data)-1]
+	b := make([]byte, base64.StdEncoding.DecodedLen(len(src)))
+	n, err := base64.StdEncoding.Decode(b, src)
 	if err != nil {
 		return err
 	}
+	b = b[:n]
 	if len(b)%8 != 0 {
 		return fmt.Errorf("%d bytes of numbers: not a whole number of float64s", len(b))
 	}

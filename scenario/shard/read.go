@@ -1,7 +1,7 @@
 package shard
 
 import (
-	"bytes"
+	"bufio"
 	"encoding/json"
 	"fmt"
 	"os"
@@ -47,14 +47,16 @@ func readShards(dirs []string, command string) ([]string, []*Manifest, error) {
 	return sd, sm, nil
 }
 
-// readJSON decodes dir/name strictly into v.
+// readJSON decodes dir/name strictly into v, streaming the file through
+// the decoder (a shard's sums.json may be large).
 func readJSON(dir, name string, v any) error {
 	path := filepath.Join(dir, name)
-	b, err := os.ReadFile(path)
+	fh, err := os.Open(path)
 	if err != nil {
 		return err
 	}
-	dec := json.NewDecoder(bytes.NewReader(b))
+	defer fh.Close()
+	dec := json.NewDecoder(bufio.NewReaderSize(fh, 1<<16))
 	dec.DisallowUnknownFields()
 	if err := dec.Decode(v); err != nil {
 		return fmt.Errorf("%s: %w", path, err)
