@@ -56,3 +56,33 @@ func TestFloatsRoundTrip(t *testing.T) {
 		}
 	}
 }
+
+// FuzzFloats reads arbitrary JSON values as numbers of sums.json: never a
+// panic, and whatever reads writes back to the same numbers.
+func FuzzFloats(f *testing.F) {
+	for _, seed := range []string{`""`, `"AAAAAAAA8D8="`, `"AAAAAAAA8D8=AAAA"`, `null`, `"\u0041AAAAAAA8D8="`, `"\/"`, `12`, `"`, `"AAAAAAAAAAA"`} {
+		f.Add([]byte(seed))
+	}
+	f.Fuzz(func(t *testing.T, data []byte) {
+		var x Floats
+		if err := x.UnmarshalJSON(data); err != nil {
+			return
+		}
+		b, err := json.Marshal(x)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var y Floats
+		if err := json.Unmarshal(b, &y); err != nil {
+			t.Fatal(err)
+		}
+		if len(x) != len(y) {
+			t.Fatalf("%d numbers read back as %d", len(x), len(y))
+		}
+		for i := range x {
+			if math.Float64bits(x[i]) != math.Float64bits(y[i]) {
+				t.Fatalf("number %d changed", i)
+			}
+		}
+	})
+}
