@@ -8,7 +8,7 @@ package scenario
 // events. The error is that of the first event whose shares cannot be
 // made.
 func (f *File) SharesOf(names []string, weight func(e *Event, series string) float64) (map[string]map[string]SeriesShare, error) {
-	out := make(map[string]map[string]SeriesShare, len(names))
+	out := map[string]map[string]SeriesShare{} // the series some event moves
 	for _, e := range f.Events {
 		shares, err := e.Shares(names, func(s string) float64 { return weight(e, s) })
 		if err != nil {

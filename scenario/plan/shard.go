@@ -1,6 +1,8 @@
 package plan
 
 import (
+	"slices"
+
 	"forelay/forecast"
 	"forelay/scenario"
 )
@@ -31,7 +33,10 @@ type ShardOf struct {
 // the shard's own series, not with the file. Errors are those of
 // ReadSelection.
 func ReadShard(f *scenario.File, mine func(name string) bool) (*Inputs, error) {
-	keep := func(name string) bool { return mine(name) || sharesByBaseline(f, name) }
+	keep := mine
+	if slices.ContainsFunc(f.Events, func(e *scenario.Event) bool { return e.Effect.Split == scenario.SplitBaseline }) {
+		keep = func(name string) bool { return mine(name) || sharesByBaseline(f, name) }
+	}
 	in, err := readSelection(f, keep)
 	if err != nil {
 		return nil, err
@@ -46,13 +51,6 @@ func sharesByBaseline(f *scenario.File, name string) bool {
 	asked := false
 	f.SharesOf([]string{name}, func(*scenario.Event, string) float64 { asked = true; return 1 })
 	return asked
-}
-
-// fits reports whether BuildPortfolio fits the series called name: every
-// series, or in a shard the shard's own and those that share an effect
-// split by baseline (and those a scope creates, which need no fit).
-func (in *Inputs) fits(f *scenario.File, ser forecast.Series) bool {
-	return in.shard == nil || ser.Len() == 0 || in.shard(ser.Name) || sharesByBaseline(f, ser.Name)
 }
 
 // plans reports whether BuildPortfolio plans the series called name.
