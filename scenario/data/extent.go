@@ -18,17 +18,17 @@ const maxSeries = math.MaxInt32 - 1
 // tried first. at is the row's label cell, where too many series are
 // reported.
 func (hr *historyReader) seriesOf(name []byte, at pos) (int, error) {
-	if hr.last >= 0 && hr.ext[hr.last].name == string(name) {
+	if hr.last >= 0 && hr.ext.named(hr.last, name) {
 		return hr.last, nil
 	}
-	i := hr.index.find(name, hr.ext)
+	i := hr.index.find(name, &hr.ext)
 	if i < 0 {
-		if len(hr.ext) >= maxSeries {
+		if hr.ext.Len() >= maxSeries {
 			return 0, hr.errPos(at, "", fmt.Errorf("%w: more than %d series", ErrTooLarge, maxSeries))
 		}
-		i = len(hr.ext)
-		hr.ext = append(hr.ext, hr.newExtent(string(name)))
-		hr.index.add(i, hr.ext)
+		i = hr.ext.Len()
+		hr.ext.push(name, hr.newExtent(name))
+		hr.index.add(i, &hr.ext)
 	}
 	hr.last = i
 	return i, nil
@@ -36,17 +36,17 @@ func (hr *historyReader) seriesOf(name []byte, at pos) (int, error) {
 
 // newExtent starts the extent of a new series, with a column when its
 // values are kept.
-func (hr *historyReader) newExtent(name string) extent {
-	if hr.opt.Keep != nil && !hr.opt.Keep(name) {
-		return extent{name: name, first: noValue, last: noValue, series: -1}
+func (hr *historyReader) newExtent(name []byte) extent {
+	if hr.opt.Keep != nil && !hr.opt.Keep(string(name)) {
+		return extent{first: noValue, last: noValue, series: -1}
 	}
-	c := &column{name: name, field: hr.valueField}
+	c := &column{name: string(name), field: hr.valueField}
 	if n := len(hr.cols); n > 0 {
 		// Series tend to have the same length.
 		c.pts = make([]point, 0, len(hr.cols[n-1].pts))
 	}
 	hr.cols = append(hr.cols, c)
-	return extent{name: name, series: int32(len(hr.cols) - 1)}
+	return extent{series: int32(len(hr.cols) - 1)}
 }
 
 // offset returns the number of periods from the first label of the file
@@ -62,7 +62,7 @@ func (hr *historyReader) offset(p forecast.Period) int32 { return int32(p.Sub(hr
 // the steps between them count towards the frequency of dates; the
 // earliest row out of order is reported after the file is read.
 func (hr *historyReader) add(i int, pt point) {
-	e := &hr.ext[i]
+	e := hr.ext.at(i)
 	if e.series >= 0 {
 		c := hr.cols[e.series]
 		c.pts = append(c.pts, pt)
@@ -73,7 +73,7 @@ func (hr *historyReader) add(i int, pt point) {
 	if started {
 		switch d := int(off - e.prev); {
 		case d <= 0 && hr.order == nil:
-			hr.order = hr.extentOrder(e, pt)
+			hr.order = hr.extentOrder(i, pt)
 		case d > 0 && (hr.extentGap == 0 || d < hr.extentGap):
 			hr.extentGap = d
 		}
@@ -98,23 +98,24 @@ func (hr *historyReader) add(i int, pt point) {
 // does not come after the latest row of the series of e. A period that
 // repeats one before the latest row is reported as out of order, since
 // the rows before the latest are not kept.
-func (hr *historyReader) extentOrder(e *extent, pt point) *ParseError {
+func (hr *historyReader) extentOrder(i int, pt point) *ParseError {
+	e := hr.ext.at(i)
 	prev := hr.anchor.Add(int(e.prev))
 	if prev == pt.period {
 		return hr.errPos(pt.label, hr.periodField, fmt.Errorf("%w %s of series %q (first on line %d)",
-			ErrDuplicatePeriod, pt.period, e.name, e.line))
+			ErrDuplicatePeriod, pt.period, hr.ext.Name(i), e.line))
 	}
 	return hr.errPos(pt.label, hr.periodField, fmt.Errorf("%w: %s of series %q comes after %s (line %d)",
-		ErrUnsorted, pt.period, e.name, prev, e.line))
+		ErrUnsorted, pt.period, hr.ext.Name(i), prev, e.line))
 }
 
 // emptyExtent returns the error of the earliest series read for its
 // extent only that has no value, or nil.
 func (hr *historyReader) emptyExtent() *ParseError {
 	var first *ParseError
-	for i, e := range hr.ext {
-		if e.series < 0 && e.first == noValue {
-			first = earliest(first, hr.errPos(hr.blank[i], hr.valueField, fmt.Errorf("%w: series %q has no values", ErrEmptyCell, e.name)))
+	for i := range hr.ext.Len() {
+		if e := hr.ext.at(i); e.series < 0 && e.first == noValue {
+			first = earliest(first, hr.errPos(hr.blank[i], hr.valueField, fmt.Errorf("%w: series %q has no values", ErrEmptyCell, hr.ext.Name(i))))
 		}
 	}
 	return first
@@ -125,27 +126,28 @@ func (hr *historyReader) emptyExtent() *ParseError {
 // periods; for a wide file, one for each series.
 func (hr *historyReader) extents(series []forecast.Series) Extents {
 	if !hr.long {
-		hr.ext = make([]extent, len(series))
 		for i, s := range series {
-			hr.ext[i] = extent{name: s.Name, series: int32(i)}
+			hr.ext.push([]byte(s.Name), extent{series: int32(i)})
 		}
 	}
-	for i := range hr.ext {
-		if e := &hr.ext[i]; e.series >= 0 {
+	hr.ext.freeze()
+	for i := range hr.ext.Len() {
+		if e := hr.ext.at(i); e.series >= 0 {
 			s := series[e.series]
 			e.first = hr.offset(s.Start)
 			e.last = e.first + int32(s.Len()) - 1
 		}
 	}
-	return Extents{origin: hr.anchor, list: hr.ext}
+	hr.ext.origin = hr.anchor
+	return hr.ext
 }
 
 // weekExtents turns the periods of the series read for their extent only
 // from days into weeks (see parsePeriods): every date falls on the
 // weekday of the first one, so each step of 7 days is one week.
 func (hr *historyReader) weekExtents() {
-	for i := range hr.ext {
-		if e := &hr.ext[i]; e.series < 0 && e.first != noValue {
+	for i := range hr.ext.Len() {
+		if e := hr.ext.at(i); e.series < 0 && e.first != noValue {
 			e.first, e.last = e.first/7, e.last/7
 		}
 	}

@@ -178,10 +178,11 @@ type History struct {
 func (h *History) Lookup(name string) (forecast.Series, error) {
 	x := &h.Extents
 	if x.Len() == 0 { // a History built by hand
-		x = &Extents{list: make([]extent, len(h.Series))}
+		x = &Extents{}
 		for i, s := range h.Series {
-			x.list[i] = extent{name: s.Name, series: int32(i)}
+			x.push([]byte(s.Name), extent{series: int32(i)})
 		}
+		x.freeze()
 	}
 	for i := range x.Len() {
 		if name != x.Name(i) && (name != "" || x.Len() != 1) {
@@ -304,7 +305,7 @@ type historyReader struct {
 	// long layout: every series in file order (see extent.go), the index
 	// that finds one by name, and the index of the series of the last row
 	// (-1 before the first)
-	ext   []extent
+	ext   Extents
 	index nameIndex
 	last  int
 	name  []byte // long layout: the series name of this row

@@ -9,20 +9,20 @@ import (
 // finds each again, and none that was not added.
 func TestNameIndex(t *testing.T) {
 	var x nameIndex
-	var list []extent
-	if x.find([]byte("a"), list) != -1 {
+	var list Extents
+	if x.find([]byte("a"), &list) != -1 {
 		t.Fatal("found a name in an empty index")
 	}
 	const n = 5000
 	for i := range n {
-		list = append(list, extent{name: fmt.Sprintf("milk/%d", i)})
-		x.add(i, list)
+		list.push(fmt.Appendf(nil, "milk/%d", i), extent{})
+		x.add(i, &list)
 	}
 	for i := range n {
-		if got := x.find([]byte(fmt.Sprintf("milk/%d", i)), list); got != i {
+		if got := x.find([]byte(fmt.Sprintf("milk/%d", i)), &list); got != i {
 			t.Fatalf("find(milk/%d) = %d", i, got)
 		}
-		if got := x.find([]byte(fmt.Sprintf("cream/%d", i)), list); got != -1 {
+		if got := x.find([]byte(fmt.Sprintf("cream/%d", i)), &list); got != -1 {
 			t.Fatalf("find(cream/%d) = %d, want -1", i, got)
 		}
 	}

@@ -114,22 +114,23 @@ func BuildPortfolioProgress(f *scenario.File, in *Inputs, workers int, progress 
 	created := f.NewSeries(all)
 	all = append(all, created...)
 	first := r.first
-	equal, err := f.SharesOf(all, func(*scenario.Event, string) float64 { return 1 })
-	if err != nil {
-		return nil, err
-	}
-	pf := &Portfolio{File: f, Names: all, Levels: in.Levels, Plans: make([]*Plan, len(all)), Span: r.span}
 	// The series fitted: those whose values were read (in a shard, its
 	// own and those that share an effect split by baseline, see
 	// ReadShard) and those a scope creates.
-	tick := progress.Counter(len(all))
 	var fit []int
 	for i := range all {
 		if i >= len(r.names) || r.read(i) {
 			fit = append(fit, i)
-		} else {
-			tick() // another shard's series, not needed for a split
 		}
+	}
+	equal, err := f.SharesOf(all, func(*scenario.Event, string) float64 { return 1 }, in.fitted(all, fit))
+	if err != nil {
+		return nil, err
+	}
+	pf := &Portfolio{File: f, Names: all, Levels: in.Levels, Plans: make([]*Plan, len(all)), Span: r.span}
+	tick := progress.Counter(len(all))
+	for range len(all) - len(fit) {
+		tick() // another shard's series, not needed for a split
 	}
 	bases := make([][]float64, len(fit))
 	err = eachSeries(len(fit), workers, func(j int) string { return all[fit[j]] }, func(j int) error {
@@ -160,7 +161,7 @@ func BuildPortfolioProgress(f *scenario.File, in *Inputs, workers int, progress 
 	for j, i := range fit {
 		base[all[i]] = bases[j]
 	}
-	shares, err := f.SharesOf(all, func(e *scenario.Event, s string) float64 { return e.SpanWeight(first, base[s]) })
+	shares, err := f.SharesOf(all, func(e *scenario.Event, s string) float64 { return e.SpanWeight(first, base[s]) }, in.shard)
 	var se *scenario.SplitError
 	if errors.As(err, &se) {
 		return nil, f.ValueError(fmt.Sprintf("event %q: effect.split", se.Event.ID), se.Event.Pos,

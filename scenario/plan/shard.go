@@ -49,8 +49,22 @@ func ReadShard(f *scenario.File, mine func(name string) bool) (*Inputs, error) {
 // share of an effect split by the series' baselines, were it selected.
 func sharesByBaseline(f *scenario.File, name string) bool {
 	asked := false
-	f.SharesOf([]string{name}, func(*scenario.Event, string) float64 { asked = true; return 1 })
+	f.SharesOf([]string{name}, func(*scenario.Event, string) float64 { asked = true; return 1 }, nil)
 	return asked
+}
+
+// fitted returns, for a shard, whether the series called name is one of
+// those BuildPortfolio fits, all[i] for i in fit; nil (every series) for
+// a whole portfolio.
+func (in *Inputs) fitted(all []string, fit []int) func(name string) bool {
+	if in.shard == nil {
+		return nil
+	}
+	set := make(map[string]bool, len(fit))
+	for _, i := range fit {
+		set[all[i]] = true
+	}
+	return func(name string) bool { return set[name] }
 }
 
 // plans reports whether BuildPortfolio plans the series called name.
