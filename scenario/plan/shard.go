@@ -23,15 +23,17 @@ type ShardOf struct {
 
 // ReadShard reads the inputs of f like ReadSelection for a portfolio that
 // plans only the series mine says are the shard's own. The history is
-// read in full, but the values of a series are kept only when it is the
-// shard's own or when it shares an effect split by baseline (every shard
-// fits those, to split the effect as the whole portfolio does); of every
-// other series only its name, first and last period are kept, what the
-// facts every shard must agree on need: the plan's end (the latest last
-// period of the selected series), the periods the Monte Carlo draws over
-// (Portfolio.Span) and the series left out as stale. Memory so grows with
-// the shard's own series, not with the file. Errors are those of
-// ReadSelection.
+// streamed in full, but the values of a series are kept only when it is
+// the shard's own or when it shares an effect split by baseline (every
+// shard fits those, to split the effect as the whole portfolio does); of
+// every other series only its name, first and last period are kept
+// (data.History.Extents), what the facts every shard must agree on need:
+// the plan's end (the latest last period of the selected series), the
+// periods the Monte Carlo draws over (Portfolio.Span) and the series left
+// out as stale. BuildPortfolio then holds no plan, share or map entry for
+// them: a series of another shard costs the shard about 100 bytes with
+// its name, kept to the end (see TestShardKeepsLittlePerForeignSeries).
+// Errors are those of ReadSelection.
 func ReadShard(f *scenario.File, mine func(name string) bool) (*Inputs, error) {
 	keep := mine
 	if slices.ContainsFunc(f.Events, func(e *scenario.Event) bool { return e.Effect.Split == scenario.SplitBaseline }) {
