@@ -138,3 +138,19 @@ func TestKeepFindsErrors(t *testing.T) {
 		t.Errorf("error %v, want 2024-01 out of order at 4:3", err)
 	}
 }
+
+// TestKeepChecksEveryName: the names of the series not kept count
+// towards the limit of name lengths, as when every series is kept.
+func TestKeepChecksEveryName(t *testing.T) {
+	src := "series,period,value\na,2024-01,1\nmilk-whole-1l,2024-01,2\n"
+	for _, keep := range []func(string) bool{nil, func(n string) bool { return n == "a" }} {
+		h, err := ReadHistory(strings.NewReader(src), "h.csv", ReadOptions{Keep: keep})
+		if err != nil {
+			t.Fatal(err)
+		}
+		var se *SizeError
+		if err := h.CheckNameLength(5); !errors.As(err, &se) || !strings.Contains(err.Error(), `series "milk-whole-1l"`) {
+			t.Errorf("keep %v: CheckNameLength(5) = %v, want milk-whole-1l too long", keep != nil, err)
+		}
+	}
+}

@@ -148,3 +148,17 @@ func (x *Extents) Names() []string {
 	}
 	return out
 }
+
+// extents returns h.Extents, or for a History built by hand, which has
+// none, extents listing h.Series.
+func (h *History) extents() *Extents {
+	if h.Extents.Len() > 0 || len(h.Series) == 0 {
+		return &h.Extents
+	}
+	x := &Extents{}
+	for i, s := range h.Series {
+		x.push([]byte(s.Name), extent{series: int32(i)})
+	}
+	x.freeze()
+	return x
+}

@@ -176,14 +176,7 @@ type History struct {
 // When no series matches it returns an error wrapping ErrNoSeries whose
 // message lists the series of the file.
 func (h *History) Lookup(name string) (forecast.Series, error) {
-	x := &h.Extents
-	if x.Len() == 0 { // a History built by hand
-		x = &Extents{}
-		for i, s := range h.Series {
-			x.push([]byte(s.Name), extent{series: int32(i)})
-		}
-		x.freeze()
-	}
+	x := h.extents()
 	for i := range x.Len() {
 		if name != x.Name(i) && (name != "" || x.Len() != 1) {
 			continue
