@@ -23,19 +23,32 @@ func (hr *historyReader) seriesOf(name []byte, at pos) (int, error) {
 	}
 	i := hr.index.find(name, &hr.ext)
 	if i < 0 {
-		if hr.ext.Len() >= maxSeries {
-			return 0, hr.errPos(at, "", fmt.Errorf("%w: more than %d series", ErrTooLarge, maxSeries))
-		}
 		i = hr.ext.Len()
-		hr.ext.push(name, hr.newExtent(name))
+		if err := hr.pushExtent(name, at, hr.newExtent); err != nil {
+			return 0, err
+		}
 		hr.index.add(i, &hr.ext)
 	}
 	hr.last = i
 	return i, nil
 }
 
-// newExtent starts the extent of a new series, with a column when its
-// values are kept.
+// pushExtent adds the series called name after the others, with the
+// extent that start returns, unless the file has too many series or
+// names too long for Extents (an error at the cell at).
+func (hr *historyReader) pushExtent(name []byte, at pos, start func(name []byte) extent) error {
+	if hr.ext.Len() >= maxSeries {
+		return hr.errPos(at, "", fmt.Errorf("%w: more than %d series", ErrTooLarge, maxSeries))
+	}
+	if !hr.ext.roomFor(len(name)) {
+		return hr.errPos(at, "", fmt.Errorf("%w: the names of %d series take more than %d bytes", ErrTooLarge, extentChunk, math.MaxUint32))
+	}
+	hr.ext.push(name, start(name))
+	return nil
+}
+
+// newExtent starts the extent of a new series of a long file, with a
+// column when its values are kept.
 func (hr *historyReader) newExtent(name []byte) extent {
 	if hr.opt.Keep != nil && !hr.opt.Keep(string(name)) {
 		return extent{first: noValue, last: noValue, series: -1}
@@ -48,6 +61,10 @@ func (hr *historyReader) newExtent(name []byte) extent {
 	hr.cols = append(hr.cols, c)
 	return extent{series: int32(len(hr.cols) - 1)}
 }
+
+// wideExtent starts the extent of the series of the next column of a
+// wide file, whose values are kept.
+func (hr *historyReader) wideExtent([]byte) extent { return extent{series: int32(len(hr.cols))} }
 
 // offset returns the number of periods from the first label of the file
 // to p, in the frequency of the labels' form. Labels have four-digit
@@ -95,9 +112,9 @@ func (hr *historyReader) add(i int, pt point) {
 }
 
 // extentOrder returns the error of checkOrder for the row of pt, which
-// does not come after the latest row of the series of e. A period that
-// repeats one before the latest row is reported as out of order, since
-// the rows before the latest are not kept.
+// does not come after the latest row of series i. A period that repeats
+// one before the latest row is reported as out of order, since the rows
+// before the latest are not kept.
 func (hr *historyReader) extentOrder(i int, pt point) *ParseError {
 	e := hr.ext.at(i)
 	prev := hr.anchor.Add(int(e.prev))
@@ -121,15 +138,9 @@ func (hr *historyReader) emptyExtent() *ParseError {
 	return first
 }
 
-// extents returns the Extents of the file, given series, the series of
-// its columns: those of a long file, the series kept whole given their
-// periods; for a wide file, one for each series.
+// extents returns the Extents of the file, the series kept whole given
+// their periods; series are the series of the columns.
 func (hr *historyReader) extents(series []forecast.Series) Extents {
-	if !hr.long {
-		for i, s := range series {
-			hr.ext.push([]byte(s.Name), extent{series: int32(i)})
-		}
-	}
 	hr.ext.freeze()
 	for i := range hr.ext.Len() {
 		if e := hr.ext.at(i); e.series >= 0 {

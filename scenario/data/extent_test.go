@@ -154,3 +154,20 @@ func TestKeepChecksEveryName(t *testing.T) {
 		}
 	}
 }
+
+// TestExtentsOfWideFile: the extents of a wide file are its columns, each
+// from its first value to its last (the empty cells around them are not
+// part of the series).
+func TestExtentsOfWideFile(t *testing.T) {
+	src := "period,north,south\n2026-01,120,\n2026-02,131,88\n2026-03,,90\n"
+	h, err := ReadHistory(strings.NewReader(src), "h.csv", ReadOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	x := &h.Extents
+	// north: 2026-01 and 2026-02; south: 2026-02 and 2026-03.
+	if x.Len() != 2 || x.Name(1) != "south" || x.Series(1) != 1 || x.Start(0).String() != "2026-01" || x.Next(0).String() != "2026-03" ||
+		x.Start(1).String() != "2026-02" || x.Next(1).String() != "2026-04" {
+		t.Errorf("extents %q from %v to %v and %v to %v", x.Names(), x.Start(0), x.Next(0), x.Start(1), x.Next(1))
+	}
+}

@@ -2,6 +2,7 @@ package data
 
 import (
 	"hash/maphash"
+	"math"
 
 	"forelay/forecast"
 )
@@ -76,6 +77,17 @@ func (x *Extents) push(name []byte, e extent) {
 	c.buf = append(c.buf, name...)
 	c.list = append(c.list, e)
 	x.n++
+}
+
+// roomFor reports whether the chunk that the next series goes into has
+// room for a name of n bytes: the offsets of the names in a chunk have 32
+// bits.
+func (x *Extents) roomFor(n int) bool {
+	used := 0
+	if x.n%extentChunk != 0 {
+		used = len(x.chunks[len(x.chunks)-1].buf)
+	}
+	return uint64(used)+uint64(n) <= math.MaxUint32
 }
 
 // freeze turns the names of the last chunk into a string, once it is full

@@ -295,7 +295,7 @@ type historyReader struct {
 	slots []slot
 
 	cols []*column // the series kept whole, in file order
-	// long layout: every series in file order (see extent.go), the index
+	// every series in file order (see extent.go); long layout: the index
 	// that finds one by name, and the index of the series of the last row
 	// (-1 before the first)
 	ext   Extents
@@ -547,6 +547,9 @@ func (hr *historyReader) readHeader(cells []cell) error {
 				return hr.errAt(c, "", fmt.Errorf("%w: %q is already column %d", ErrDuplicateColumn, c.text, j+1))
 			}
 			seen[k] = i + 1
+			if err := hr.pushExtent([]byte(c.text), pos{c.line, c.col}, hr.wideExtent); err != nil {
+				return err
+			}
 			hr.cols = append(hr.cols, &column{name: c.text, header: c, field: c.text})
 		}
 		if len(hr.cols) == 0 {
