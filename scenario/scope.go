@@ -263,9 +263,10 @@ func (f *File) NewSeries(names []string) []string {
 }
 
 // seriesWithNew returns names followed by the names the scopes create
-// that are not among them, each once.
+// that are not among them, each once: names itself when there are none,
+// and otherwise a copy.
 func (f *File) seriesWithNew(names []string) []string {
-	all := append([]string(nil), names...)
+	all := slices.Clip(names) // the first append copies
 	for _, e := range f.Events {
 		for _, s := range e.Scope {
 			if s.New && !slices.Contains(all, s.Series) {

@@ -77,8 +77,22 @@ func (e *SplitError) Unwrap() error { return ErrNoSplitBase }
 // scope moves every series of names in full. Shares returns a *SplitError
 // when the weights of the sharing series sum to 0.
 func (e *Event) Shares(names []string, weight func(series string) float64) ([]SeriesShare, error) {
+	return e.sharesOf(names, weight, nil)
+}
+
+// sharesOf is Shares returning the shares of the series want says only
+// (nil: all): the others count towards the split all the same, but a
+// plan that needs the shares of a few of many series does not hold those
+// of every one.
+func (e *Event) sharesOf(names []string, weight func(series string) float64, want func(series string) bool) ([]SeriesShare, error) {
 	var out []SeriesShare
+	var w []float64 // weights of out under SplitBaseline
+	split := e.Effect.Split
+	if e.Effect.IsPercent || e.Effect.FromPast {
+		split = SplitNone
+	}
 	sharing := 0 // series taking the event's effect
+	total := 0.0 // their weights under SplitBaseline
 	for _, n := range names {
 		s := SeriesShare{Series: n, Entry: -1, Share: 1, Effect: e.Effect}
 		for i, en := range e.Scope {
@@ -93,50 +107,52 @@ func (e *Event) Shares(names []string, weight func(series string) float64) ([]Se
 		if s.Entry < 0 && len(e.Scope) > 0 {
 			continue
 		}
-		if s.Entry < 0 || e.Scope[s.Entry].Effect == nil {
+		wn := 0.0
+		if e.shared(s) {
 			sharing++
+			if split == SplitBaseline {
+				wn = max(weight(n), 0)
+				total += wn
+			}
 		}
-		s.Effect.Split = SplitNone
-		out = append(out, s)
+		if want == nil || want(n) {
+			s.Effect.Split = SplitNone
+			out, w = append(out, s), append(w, wn)
+		}
 	}
-	split := e.Effect.Split
-	if e.Effect.IsPercent || e.Effect.FromPast || sharing == 0 {
+	if sharing == 0 {
 		split = SplitNone
 	}
-	shared := func(s SeriesShare) bool { return s.Entry < 0 || e.Scope[s.Entry].Effect == nil }
 	switch split {
 	case SplitEqual:
 		for i := range out {
-			if shared(out[i]) {
+			if e.shared(out[i]) {
 				out[i].Share = 1 / float64(sharing)
 			}
 		}
 	case SplitBaseline:
-		w := make([]float64, len(out))
-		total := 0.0
-		for i, s := range out {
-			if shared(s) {
-				w[i] = max(weight(s.Series), 0)
-				total += w[i]
-			}
-		}
 		if !(total > 0) || math.IsInf(total, 0) {
 			return nil, &SplitError{Event: e, Sharing: sharing}
 		}
-		for i, s := range out {
-			if shared(s) {
+		for i := range out {
+			if e.shared(out[i]) {
 				out[i].Share = w[i] / total
 			}
 		}
 	}
 	for i := range out {
-		if shared(out[i]) && out[i].Share != 1 {
+		if e.shared(out[i]) && out[i].Share != 1 {
 			out[i].Effect.Units = e.Effect.Units * out[i].Share
 		}
-		out[i].Range = e.rangeOf(out[i].Effect, shared(out[i]), out[i].Share)
+		out[i].Range = e.rangeOf(out[i].Effect, e.shared(out[i]), out[i].Share)
 	}
 	return out, nil
 }
+
+// shared reports whether the series of s shares the event's effect: it
+// is matched by no entry (the event has no scope), or by one without an
+// effect of its own.
+func (e *Event) shared(s SeriesShare) bool { return s.Entry < 0 || e.Scope[s.Entry].Effect == nil }
 
 // rangeOf returns the range of ef, a series' effect (see
 // SeriesShare.Range): shared says the series shares the event's effect,

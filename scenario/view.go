@@ -2,15 +2,16 @@ package scenario
 
 // SharesOf resolves the scope of every event of f against names, the
 // plan's series (Event.Shares), and returns them keyed by series name and
-// then by event id: what each event does to each series it moves. weight
-// gives a series' weight for an event whose effect is split by baseline
-// (Event.SpanWeight of the series' baseline); it is called only for such
-// events. The error is that of the first event whose shares cannot be
-// made.
-func (f *File) SharesOf(names []string, weight func(e *Event, series string) float64) (map[string]map[string]SeriesShare, error) {
-	out := make(map[string]map[string]SeriesShare, len(names))
+// then by event id: what each event does to each series it moves, for
+// the series want says (nil: every one; the others still count towards
+// each split). weight gives a series' weight for an event whose effect is
+// split by baseline (Event.SpanWeight of the series' baseline); it is
+// called only for such events. The error is that of the first event whose
+// shares cannot be made.
+func (f *File) SharesOf(names []string, weight func(e *Event, series string) float64, want func(series string) bool) (map[string]map[string]SeriesShare, error) {
+	out := map[string]map[string]SeriesShare{} // the series some event moves
 	for _, e := range f.Events {
-		shares, err := e.Shares(names, func(s string) float64 { return weight(e, s) })
+		shares, err := e.sharesOf(names, func(s string) float64 { return weight(e, s) }, want)
 		if err != nil {
 			return nil, err
 		}

@@ -38,7 +38,7 @@ func TestSharesRange(t *testing.T) {
 	}
 	names := []string{"milk/whole/north", "milk/skim/north", "milk/whole/south", "milk/choc/schools"}
 	w := map[string]float64{"milk/whole/north": 300, "milk/skim/north": 100}
-	got, err := f.SharesOf(names, func(_ *Event, s string) float64 { return w[s] })
+	got, err := f.SharesOf(names, func(_ *Event, s string) float64 { return w[s] }, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -64,6 +64,15 @@ func TestSharesRange(t *testing.T) {
 	if _, ok := got["milk/whole/south"]["contract"]; ok {
 		t.Error("the contract moves milk/whole/south")
 	}
+	// Asking for one series gives its shares alone, the split still
+	// counting the others.
+	one, err := f.SharesOf(names, func(_ *Event, s string) float64 { return w[s] }, func(s string) bool { return s == "milk/skim/north" })
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(one) != 1 || !reflect.DeepEqual(one["milk/skim/north"], got["milk/skim/north"]) {
+		t.Errorf("shares of milk/skim/north alone = %+v, want %+v", one, got["milk/skim/north"])
+	}
 }
 
 // TestForSeries: a series' view holds its events with its own effect and
@@ -76,7 +85,7 @@ func TestForSeries(t *testing.T) {
 	}
 	before := f.Events[0].Effect
 	names := []string{"milk/whole/north", "milk/whole/south"}
-	shares, err := f.SharesOf(names, func(*Event, string) float64 { return 1 })
+	shares, err := f.SharesOf(names, func(*Event, string) float64 { return 1 }, nil)
 	if err != nil {
 		t.Fatal(err)
 	}

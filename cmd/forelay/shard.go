@@ -161,9 +161,9 @@ func fitShardRun(opts *FitOptions, s shard.Spec) error {
 	}
 	var series []forecast.Series
 	var own []int
-	for i, ser := range h.Series {
-		if s.Owns(ser.Name) {
-			series = append(series, ser)
+	for i := range h.Extents.Len() {
+		if k := h.Extents.Series(i); k >= 0 {
+			series = append(series, h.Series[k])
 			own = append(own, i)
 		}
 	}
@@ -178,7 +178,7 @@ func fitShardRun(opts *FitOptions, s shard.Spec) error {
 	if err != nil {
 		return err
 	}
-	files, err := shard.FitFiles([]byte(out.String()), len(h.Series), own)
+	files, err := shard.FitFiles([]byte(out.String()), h.Extents.Len(), own)
 	if err != nil {
 		return err
 	}

@@ -139,10 +139,10 @@ type ReadOptions struct {
 	// Format names the sheet of a workbook and the decimal mark of a CSV
 	// file (see "Workbooks" and "CSV as spreadsheets save it").
 	Format
-	// Keep, when set, says which series of a long file to keep whole; of
-	// the others only the extent is kept (see extent.go): their Values
-	// are zeros of the right length that share one array, never to be
-	// written to. Nil keeps every series.
+	// Keep, when set, says which series of a long file to keep whole,
+	// with their values, in History.Series; of the others only the name
+	// and the periods they run over are kept, in History.Extents (see
+	// extent.go). Nil keeps every series.
 	Keep func(name string) bool
 }
 
@@ -154,8 +154,12 @@ type History struct {
 	Layout string
 	// Series holds the series in file order (column order for the wide
 	// layout, order of first appearance for the long one). Each has at least
-	// one value and no gaps.
+	// one value and no gaps. With ReadOptions.Keep, it holds only the
+	// series kept whole.
 	Series []forecast.Series
+	// Extents lists every series of the file, in the same order, with
+	// the periods it runs over, whether it is in Series or not.
+	Extents Extents
 	// Filled lists every value that a fill mode made up, by series in the
 	// order of Series and then by period. It is nil when nothing was filled.
 	Filled []Filled
@@ -167,23 +171,27 @@ type History struct {
 }
 
 // Lookup returns the series called name. An empty name picks the only
-// series of a file that has exactly one. When no series matches it returns
-// an error wrapping ErrNoSeries whose message lists the series of the file.
+// series of a file that has exactly one. A series whose values were not
+// kept (ReadOptions.Keep) comes with as many zeros as it has periods.
+// When no series matches it returns an error wrapping ErrNoSeries whose
+// message lists the series of the file.
 func (h *History) Lookup(name string) (forecast.Series, error) {
-	if name == "" && len(h.Series) == 1 {
-		return h.Series[0], nil
-	}
-	for _, s := range h.Series {
-		if s.Name == name {
-			return s, nil
+	x := h.extents()
+	for i := range x.Len() {
+		if name != x.Name(i) && (name != "" || x.Len() != 1) {
+			continue
 		}
+		if k := x.Series(i); k >= 0 {
+			return h.Series[k], nil
+		}
+		return forecast.Series{Name: x.Name(i), Start: x.Start(i), Values: make([]float64, x.Periods(i))}, nil
 	}
-	names := make([]string, len(h.Series))
-	for i, s := range h.Series {
-		names[i] = strconv.Quote(s.Name)
+	names := make([]string, x.Len())
+	for i := range names {
+		names[i] = strconv.Quote(x.Name(i))
 	}
 	if name == "" {
-		return forecast.Series{}, fmt.Errorf("%w: %s holds %d series, name one of %s", ErrNoSeries, h.File, len(h.Series), strings.Join(names, ", "))
+		return forecast.Series{}, fmt.Errorf("%w: %s holds %d series, name one of %s", ErrNoSeries, h.File, len(names), strings.Join(names, ", "))
 	}
 	return forecast.Series{}, fmt.Errorf("%w %q in %s (it has %s)", ErrNoSeries, name, h.File, strings.Join(names, ", "))
 }
@@ -248,13 +256,6 @@ type column struct {
 	header cell
 	field  string
 	pts    []point
-	// extent marks a series read for its extent only (ReadOptions.Keep):
-	// pts holds its first and last point with a value, and gap the
-	// smallest step between its rows' periods.
-	extent bool
-	gap    int
-	prev   forecast.Period
-	rows   int
 }
 
 // A slotKind says what a cell of a long row holds.
@@ -293,15 +294,23 @@ type historyReader struct {
 	// problem met is the leftmost one
 	slots []slot
 
-	cols   []*column
-	byName map[string]*column // long layout: the series by name
-	last   *column            // long layout: the series of the last row
-	name   []byte             // long layout: the series name of this row
+	cols []*column // the series kept whole, in file order
+	// every series in file order (see extent.go); long layout: the index
+	// that finds one by name, and the index of the series of the last row
+	// (-1 before the first)
+	ext   Extents
+	index nameIndex
+	last  int
+	name  []byte // long layout: the series name of this row
 	// long layout: the key cells of this row, trimmed, in key order
 	keyText []string
 	nrows   int // data rows read
-	// zeros are the values of every series read for its extent only
-	zeros []float64
+	// Of the series read for their extent only: the smallest step between
+	// two rows of one, the value cell of the first row of each that has
+	// no value yet (by index in ext), and the earliest row out of order.
+	extentGap int
+	blank     map[int]pos
+	order     *ParseError
 
 	form     forecast.Frequency // frequency of the label form
 	formCell cell               // first label, where the form was set
@@ -428,7 +437,7 @@ func (hr *historyReader) setSlots() {
 	}
 	slices.SortFunc(hr.slots, func(a, b slot) int { return cmp.Compare(a.col, b.col) })
 	hr.keyText = make([]string, len(hr.keyCols))
-	hr.byName = make(map[string]*column, 1024)
+	hr.last = -1
 }
 
 // readLongRow checks the cells of a long data row from the left and adds
@@ -466,30 +475,12 @@ func (hr *historyReader) readLongRow(cr *Rows, rec []string) error {
 	} else {
 		hr.name = appendKey(hr.name[:0], hr.keyText)
 	}
-	hr.add(hr.columnOf(hr.name), pt)
+	i, err := hr.seriesOf(hr.name, pt.label)
+	if err != nil {
+		return err
+	}
+	hr.add(i, pt)
 	return nil
-}
-
-// columnOf returns the series called name, adding it after the others
-// when it is new. Rows of one series usually follow each other, so the
-// series of the last row is tried first.
-func (hr *historyReader) columnOf(name []byte) *column {
-	if hr.last != nil && hr.last.name == string(name) {
-		return hr.last
-	}
-	c := hr.byName[string(name)]
-	if c == nil {
-		c = &column{name: string(name), field: hr.valueField}
-		c.extent = hr.opt.Keep != nil && !hr.opt.Keep(c.name)
-		if hr.last != nil && !c.extent {
-			// Series tend to have the same length.
-			c.pts = make([]point, 0, len(hr.last.pts))
-		}
-		hr.byName[c.name] = c
-		hr.cols = append(hr.cols, c)
-	}
-	hr.last = c
-	return c
 }
 
 // readWideRow checks the cells of a wide data row from the left and adds
@@ -556,6 +547,9 @@ func (hr *historyReader) readHeader(cells []cell) error {
 				return hr.errAt(c, "", fmt.Errorf("%w: %q is already column %d", ErrDuplicateColumn, c.text, j+1))
 			}
 			seen[k] = i + 1
+			if err := hr.pushExtent([]byte(c.text), pos{c.line, c.col}, hr.wideExtent); err != nil {
+				return err
+			}
 			hr.cols = append(hr.cols, &column{name: c.text, header: c, field: c.text})
 		}
 		if len(hr.cols) == 0 {
@@ -637,11 +631,8 @@ func (hr *historyReader) frequency() (forecast.Frequency, error) {
 	}
 	// Dates: the smallest spacing between consecutive dates of a series
 	// decides between days and weeks.
-	minGap := 0
+	minGap := hr.extentGap
 	for _, c := range hr.cols {
-		if c.extent && c.gap > 0 && (minGap == 0 || c.gap < minGap) {
-			minGap = c.gap
-		}
 		for i := 1; i < len(c.pts); i++ {
 			if d := c.pts[i].period.Sub(c.pts[i-1].period); d > 0 && (minGap == 0 || d < minGap) {
 				minGap = d
@@ -675,6 +666,8 @@ func (hr *historyReader) parsePeriods(f forecast.Frequency) error {
 			c.pts[i].period = week.Add(c.pts[i].period.Sub(hr.anchor) / 7)
 		}
 	}
+	hr.weekExtents()
+	hr.anchor = week
 	return nil
 }
 
@@ -697,7 +690,7 @@ func (hr *historyReader) forSeries(c *column) string {
 // build checks order and gaps, fills, and assembles the History.
 func (hr *historyReader) build() (*History, error) {
 	// Order: periods increase within each series.
-	var first *ParseError
+	first := hr.order
 	for _, c := range hr.cols {
 		first = earliest(first, hr.checkOrder(c))
 	}
@@ -718,9 +711,10 @@ func (hr *historyReader) build() (*History, error) {
 		h.Series = append(h.Series, s)
 		h.Filled = append(h.Filled, filled...)
 	}
-	if first != nil {
+	if first = earliest(first, hr.emptyExtent()); first != nil {
 		return nil, first
 	}
+	h.Extents = hr.extents(h.Series)
 	return h, nil
 }
 
@@ -760,9 +754,6 @@ func (hr *historyReader) checkOrder(c *column) *ParseError {
 
 // series turns one column into a Series, checking and filling its gaps.
 func (hr *historyReader) series(c *column) (forecast.Series, []Filled, *ParseError) {
-	if c.extent {
-		return hr.extentSeries(c)
-	}
 	lo, hi := -1, -1 // first and last point with a value
 	for i, pt := range c.pts {
 		if !math.IsNaN(pt.v) {

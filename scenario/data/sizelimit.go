@@ -95,11 +95,13 @@ func (b *boundedReader) Read(p []byte) (int, error) {
 
 // CheckNameLength returns a *ParseError wrapping a *SizeError for the first
 // series whose name has more than max characters (runes), nil when every
-// name is within the limit.
+// name is within the limit. Every series of the file is checked, those
+// whose values were not kept (ReadOptions.Keep) included.
 func (h *History) CheckNameLength(max int) error {
-	for _, s := range h.Series {
-		if utf8.RuneCountInString(s.Name) > max {
-			return &ParseError{File: h.File, Field: fmt.Sprintf("series %.40q...", s.Name), Err: &SizeError{Limit: "name-length", Max: int64(max)}}
+	x := h.extents()
+	for i := range x.Len() {
+		if name := x.Name(i); utf8.RuneCountInString(name) > max {
+			return &ParseError{File: h.File, Field: fmt.Sprintf("series %.40q...", name), Err: &SizeError{Limit: "name-length", Max: int64(max)}}
 		}
 	}
 	return nil

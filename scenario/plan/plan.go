@@ -242,7 +242,7 @@ func scoped(f *scenario.File, in *Inputs) (*scenario.File, error) {
 	if err := f.CheckSeries([]string{name}, all); err != nil {
 		return nil, err
 	}
-	shares, err := f.SharesOf([]string{name}, func(*scenario.Event, string) float64 { return 1 })
+	shares, err := f.SharesOf([]string{name}, func(*scenario.Event, string) float64 { return 1 }, nil)
 	if err != nil {
 		return nil, err
 	}

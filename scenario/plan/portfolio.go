@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"maps"
 	"slices"
-	"strings"
 
 	"forelay/forecast"
 	"forelay/scenario"
@@ -107,56 +106,62 @@ func BuildPortfolio(f *scenario.File, in *Inputs, workers int) (*Portfolio, erro
 // series whose history is cleaned and baseline fitted (the first pass; see
 // forecast.Progress); the portfolio is that of BuildPortfolio.
 func BuildPortfolioProgress(f *scenario.File, in *Inputs, workers int, progress forecast.Progress) (*Portfolio, error) {
-	series, warnings, err := CheckPortfolio(f, in)
+	r, warnings, err := checkPortfolio(f, in)
 	if err != nil {
 		return nil, err
 	}
-	all := seriesNames(series)
+	all := slices.Clip(r.names)
 	created := f.NewSeries(all)
 	all = append(all, created...)
-	first := series[0].Next()
-	for _, name := range created {
-		series = append(series, forecast.Series{Name: name, Start: first})
+	first := r.first
+	// The series fitted: those whose values were read (in a shard, its
+	// own and those that share an effect split by baseline, see
+	// ReadShard) and those a scope creates.
+	var fit []int
+	for i := range all {
+		if i >= len(r.names) || r.read(i) {
+			fit = append(fit, i)
+		}
 	}
-	equal, err := f.SharesOf(all, func(*scenario.Event, string) float64 { return 1 })
+	equal, err := f.SharesOf(all, func(*scenario.Event, string) float64 { return 1 }, in.fitted(all, fit))
 	if err != nil {
 		return nil, err
 	}
-	pf := &Portfolio{File: f, Names: all, Levels: in.Levels, Plans: make([]*Plan, len(series)), index: make(map[string]int, len(all)),
-		Span: selectedSpan(in, first)}
-	for i, name := range all {
-		pf.index[name] = i
+	pf := &Portfolio{File: f, Names: all, Levels: in.Levels, Plans: make([]*Plan, len(all)), Span: r.span}
+	tick := progress.Counter(len(all))
+	for range len(all) - len(fit) {
+		tick() // another shard's series, not needed for a split
 	}
-	bases := make([][]float64, len(series))
-	name := func(i int) string { return series[i].Name }
-	tick := progress.Counter(len(series))
-	err = eachSeries(len(series), workers, name, func(i int) error {
+	bases := make([][]float64, len(fit))
+	err = eachSeries(len(fit), workers, func(j int) string { return all[fit[j]] }, func(j int) error {
 		defer tick()
-		ser := series[i]
-		if !in.fits(f, ser) {
-			return nil // another shard's series, not needed for a split
+		i := fit[j]
+		view := f.ForSeries(all[i], equal[all[i]])
+		var p *Plan
+		var base []float64
+		if i >= len(r.names) { // created by a scope: no history to clean or fit
+			p, base = newSeriesPlan(view, forecast.Series{Name: all[i], Start: first}, in.Digests), make([]float64, f.Horizon)
+		} else {
+			ser := r.series(i)
+			one := &Inputs{History: in.History, Series: ser, Selected: []string{ser.Name}, Levels: in.Levels, Digests: in.Digests}
+			var spec forecast.Spec
+			p, spec = newPlan(view, one)
+			if err := p.clean(spec); err != nil {
+				return err
+			}
+			base = p.Fit.Model.Forecast(f.Horizon)
 		}
-		one := &Inputs{History: in.History, Series: ser, Selected: []string{ser.Name}, Levels: in.Levels, Digests: in.Digests}
-		view := f.ForSeries(ser.Name, equal[ser.Name])
-		if ser.Len() == 0 { // created by a scope: no history to clean or fit
-			pf.Plans[i], bases[i] = newSeriesPlan(view, ser, in.Digests), make([]float64, f.Horizon)
-			return nil
-		}
-		p, spec := newPlan(view, one)
-		if err := p.clean(spec); err != nil {
-			return err
-		}
-		pf.Plans[i], bases[i] = p, p.Fit.Model.Forecast(f.Horizon)
+		pf.Plans[i], bases[j] = p, base
 		return nil
 	})
 	if err != nil {
 		return nil, err
 	}
-	base := make(map[string][]float64, len(series))
-	for i, b := range bases {
-		base[series[i].Name] = b
+	base := make(map[string][]float64, len(fit))
+	for j, i := range fit {
+		base[all[i]] = bases[j]
 	}
-	shares, err := f.SharesOf(all, func(e *scenario.Event, s string) float64 { return e.SpanWeight(first, base[s]) })
+	shares, err := f.SharesOf(all, func(e *scenario.Event, s string) float64 { return e.SpanWeight(first, base[s]) }, in.shard)
 	var se *scenario.SplitError
 	if errors.As(err, &se) {
 		return nil, f.ValueError(fmt.Sprintf("event %q: effect.split", se.Event.ID), se.Event.Pos,
@@ -165,9 +170,9 @@ func BuildPortfolioProgress(f *scenario.File, in *Inputs, workers int, progress 
 	if err != nil {
 		return nil, err
 	}
-	err = eachSeries(len(series), workers, name, func(i int) error {
-		p := pf.Plans[i]
-		if p == nil || !in.plans(p.History.Name) {
+	err = eachSeries(len(fit), workers, func(j int) string { return all[fit[j]] }, func(j int) error {
+		p := pf.Plans[fit[j]]
+		if !in.plans(p.History.Name) {
 			return nil // planned by another shard (fitted here for a split only)
 		}
 		p.retarget(f.ForSeries(p.History.Name, shares[p.History.Name]))
@@ -183,8 +188,13 @@ func BuildPortfolioProgress(f *scenario.File, in *Inputs, workers int, progress 
 	}
 	if in.shard != nil {
 		pf.keepShard(in.shard, first, in.Digests)
+	} else {
+		pf.index = make(map[string]int, len(all))
+		for i, name := range all {
+			pf.index[name] = i
+		}
 	}
-	lint := f.Lint(series[0])
+	lint := f.Lint(r.series(0))
 	pf.Warnings = append(append(pf.Warnings, warnings...), lint...)
 	seen := make(map[string]bool, len(pf.Warnings))
 	for _, w := range pf.Warnings {
@@ -218,6 +228,12 @@ func (p *Plan) retarget(view *scenario.File) {
 			p.Future[i] = v
 		}
 	}
+}
+
+// createsSeries reports whether a scope entry of e creates a series
+// (new: true).
+func createsSeries(e *scenario.Event) bool {
+	return slices.ContainsFunc(e.Scope, func(s scenario.ScopeEntry) bool { return s.New })
 }
 
 // noNewSeries refuses a scope entry with new: true in a plan of one
@@ -254,63 +270,33 @@ func newSeriesPlan(view *scenario.File, ser forecast.Series, digests map[string]
 // brought up to date) is left out with a warning naming how many, the
 // first few and the fix, so that one stale series never stops the plan
 // of thousands. The scopes and resources are then checked against the
-// series planned (File.CheckSeries).
+// series planned (File.CheckSeries). A series whose values were not read
+// (a series of another shard, see ReadShard) comes with zeros.
 func CheckPortfolio(f *scenario.File, in *Inputs) ([]forecast.Series, []string, error) {
-	byName := make(map[string]int, len(in.History.Series))
-	for i, s := range in.History.Series {
-		byName[s.Name] = i
-	}
-	var all []forecast.Series
-	last := forecast.Period{}
-	for _, name := range in.Selected {
-		j, ok := byName[name]
-		if !ok {
-			_, err := in.History.Lookup(name) // the error naming the file's series
-			return nil, nil, f.ValueError("history.series", f.History.Pos, "%v", err)
-		}
-		ser := in.History.Series[j]
-		if next := ser.Next(); last.IsZero() || last.Before(next) {
-			last = next
-		}
-		all = append(all, ser)
-	}
-	var series []forecast.Series
-	var stale []string
-	for _, ser := range all {
-		if ser.Next() == last {
-			series = append(series, ser)
-		} else {
-			stale = append(stale, fmt.Sprintf("%q (to %s)", ser.Name, ser.Period(ser.Len()-1)))
-		}
-	}
-	var warnings []string
-	if len(stale) > 0 {
-		const shown = 3
-		list := strings.Join(stale[:min(shown, len(stale))], ", ")
-		if len(stale) > shown {
-			list += ", ..."
-		}
-		warnings = append(warnings, fmt.Sprintf("%d of %d series end before %s, the last period of the others, and are left out of the plan: %s; bring their history up to date, or leave them out of history.series",
-			len(stale), len(all), last.Add(-1), list))
-	}
-	if err := f.CheckSeries(seriesNames(series), names(in.History)); err != nil {
+	r, warnings, err := checkPortfolio(f, in)
+	if err != nil {
 		return nil, nil, err
+	}
+	series := make([]forecast.Series, len(r.names))
+	for i := range series {
+		series[i] = r.series(i)
 	}
 	return series, warnings, nil
 }
 
-// selectedSpan returns the number of periods from the earliest start of
-// the series in.Selected names to first.
-func selectedSpan(in *Inputs, first forecast.Period) int {
-	chosen := make(map[string]bool, len(in.Selected))
-	for _, n := range in.Selected {
-		chosen[n] = true
+// checkPortfolio is CheckPortfolio, returning the series to plan as a
+// roster.
+func checkPortfolio(f *scenario.File, in *Inputs) (*roster, []string, error) {
+	r, warnings, err := newRoster(f, in)
+	if err != nil {
+		return nil, nil, err
 	}
-	span := 0
-	for _, s := range in.History.Series {
-		if chosen[s.Name] {
-			span = max(span, first.Sub(s.Start))
-		}
+	var file []string // needed for scope entries with new: true only
+	if slices.ContainsFunc(f.Events, createsSeries) {
+		file = names(in.History)
 	}
-	return span
+	if err := f.CheckSeries(r.names, file); err != nil {
+		return nil, nil, err
+	}
+	return r, warnings, nil
 }

@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"strings"
 
-	"forelay/forecast"
 	"forelay/scenario"
 	"forelay/scenario/data"
 	"forelay/scenario/series"
@@ -105,16 +104,7 @@ func (in *Inputs) one(f *scenario.File) error {
 func (in *Inputs) One(f *scenario.File) error { return in.one(f) }
 
 // names returns the names of the series of h, in file order.
-func names(h *data.History) []string { return seriesNames(h.Series) }
-
-// seriesNames returns the names of ss, in order.
-func seriesNames(ss []forecast.Series) []string {
-	out := make([]string, len(ss))
-	for i, s := range ss {
-		out[i] = s.Name
-	}
-	return out
-}
+func names(h *data.History) []string { return h.Extents.Names() }
 
 // quoteAll quotes each word and joins them with commas.
 func quoteAll(words []string) string {

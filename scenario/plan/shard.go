@@ -1,6 +1,8 @@
 package plan
 
 import (
+	"slices"
+
 	"forelay/forecast"
 	"forelay/scenario"
 )
@@ -21,17 +23,22 @@ type ShardOf struct {
 
 // ReadShard reads the inputs of f like ReadSelection for a portfolio that
 // plans only the series mine says are the shard's own. The history is
-// read in full, but the values of a series are kept only when it is the
-// shard's own or when it shares an effect split by baseline (every shard
-// fits those, to split the effect as the whole portfolio does); of every
-// other series only its name, first and last period are kept, what the
-// facts every shard must agree on need: the plan's end (the latest last
-// period of the selected series), the periods the Monte Carlo draws over
-// (Portfolio.Span) and the series left out as stale. Memory so grows with
-// the shard's own series, not with the file. Errors are those of
-// ReadSelection.
+// streamed in full, but the values of a series are kept only when it is
+// the shard's own or when it shares an effect split by baseline (every
+// shard fits those, to split the effect as the whole portfolio does); of
+// every other series only its name, first and last period are kept
+// (data.History.Extents), what the facts every shard must agree on need:
+// the plan's end (the latest last period of the selected series), the
+// periods the Monte Carlo draws over (Portfolio.Span) and the series left
+// out as stale. BuildPortfolio then holds no plan, share or map entry for
+// them: a series of another shard costs the shard about 100 bytes with
+// its name, kept to the end (see TestShardKeepsLittlePerForeignSeries).
+// Errors are those of ReadSelection.
 func ReadShard(f *scenario.File, mine func(name string) bool) (*Inputs, error) {
-	keep := func(name string) bool { return mine(name) || sharesByBaseline(f, name) }
+	keep := mine
+	if slices.ContainsFunc(f.Events, func(e *scenario.Event) bool { return e.Effect.Split == scenario.SplitBaseline }) {
+		keep = func(name string) bool { return mine(name) || sharesByBaseline(f, name) }
+	}
 	in, err := readSelection(f, keep)
 	if err != nil {
 		return nil, err
@@ -44,15 +51,22 @@ func ReadShard(f *scenario.File, mine func(name string) bool) (*Inputs, error) {
 // share of an effect split by the series' baselines, were it selected.
 func sharesByBaseline(f *scenario.File, name string) bool {
 	asked := false
-	f.SharesOf([]string{name}, func(*scenario.Event, string) float64 { asked = true; return 1 })
+	f.SharesOf([]string{name}, func(*scenario.Event, string) float64 { asked = true; return 1 }, nil)
 	return asked
 }
 
-// fits reports whether BuildPortfolio fits the series called name: every
-// series, or in a shard the shard's own and those that share an effect
-// split by baseline (and those a scope creates, which need no fit).
-func (in *Inputs) fits(f *scenario.File, ser forecast.Series) bool {
-	return in.shard == nil || ser.Len() == 0 || in.shard(ser.Name) || sharesByBaseline(f, ser.Name)
+// fitted returns, for a shard, whether the series called name is one of
+// those BuildPortfolio fits, all[i] for i in fit; nil (every series) for
+// a whole portfolio.
+func (in *Inputs) fitted(all []string, fit []int) func(name string) bool {
+	if in.shard == nil {
+		return nil
+	}
+	set := make(map[string]bool, len(fit))
+	for _, i := range fit {
+		set[all[i]] = true
+	}
+	return func(name string) bool { return set[name] }
 }
 
 // plans reports whether BuildPortfolio plans the series called name.

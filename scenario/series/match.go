@@ -24,16 +24,26 @@ func Check(pattern string) error {
 	if pattern == "" {
 		return fmt.Errorf("%w: empty", ErrBadPattern)
 	}
-	for i, lv := range strings.Split(pattern, "/") {
+	rest := pattern
+	for i := 0; ; i++ {
+		lv, tail, more := strings.Cut(rest, "/")
 		switch {
 		case lv == "":
 			return fmt.Errorf("%w: %q has an empty level (level %d); levels are separated by one /", ErrBadPattern, pattern, i+1)
 		case lv != "**" && strings.Contains(lv, "**"):
 			return fmt.Errorf("%w: %q: ** stands for whole levels and must be a level of its own (a/**/b); use * within a level", ErrBadPattern, pattern)
 		}
+		if !more {
+			return nil
+		}
+		rest = tail
 	}
-	return nil
 }
+
+// stackLevels is the depth of pattern and name up to which Match
+// allocates nothing: it is called for every series of a file and every
+// entry of a scope.
+const stackLevels = 8
 
 // Match reports whether name matches pattern (see the package
 // documentation). A pattern that Check refuses matches nothing.
@@ -41,29 +51,47 @@ func Match(pattern, name string) bool {
 	if Check(pattern) != nil {
 		return false
 	}
-	return matchLevels(strings.Split(pattern, "/"), strings.Split(name, "/"))
+	var pat, levels [stackLevels]string
+	return matchLevels(appendLevels(pat[:0], pattern), appendLevels(levels[:0], name))
+}
+
+// appendLevels appends the levels of s, split at "/", to dst.
+func appendLevels(dst []string, s string) []string {
+	for {
+		lv, rest, more := strings.Cut(s, "/")
+		dst = append(dst, lv)
+		if !more {
+			return dst
+		}
+		s = rest
+	}
 }
 
 // matchLevels matches the levels of a pattern against those of a name. The
 // table ok[i][j] says whether pat[i:] matches name[j:]; it is filled from
-// the end, so the time is len(pat)*len(name) level matches at most.
+// the end, row by row (row i needs row i+1 only), so the time is
+// len(pat)*len(name) level matches at most.
 func matchLevels(pat, name []string) bool {
-	ok := make([][]bool, len(pat)+1)
-	for i := range ok {
-		ok[i] = make([]bool, len(name)+1)
+	n := len(name) + 1
+	var buf [2 * (stackLevels + 1)]bool
+	rows := buf[:]
+	if 2*n > len(rows) {
+		rows = make([]bool, 2*n)
 	}
-	ok[len(pat)][len(name)] = true
+	next, row := rows[:n], rows[n:2*n] // rows i+1 and i
+	next[len(name)] = true             // the row below the last: only the empty rest matches
 	for i := len(pat) - 1; i >= 0; i-- {
 		for j := len(name); j >= 0; j-- {
 			if pat[i] == "**" {
 				// none of the levels left, or name[j] and then more
-				ok[i][j] = ok[i+1][j] || j < len(name) && ok[i][j+1]
+				row[j] = next[j] || j < len(name) && row[j+1]
 				continue
 			}
-			ok[i][j] = j < len(name) && ok[i+1][j+1] && matchLevel(pat[i], name[j])
+			row[j] = j < len(name) && next[j+1] && matchLevel(pat[i], name[j])
 		}
+		next, row = row, next
 	}
-	return ok[0][0]
+	return next[0]
 }
 
 // matchLevel matches one level, in which "*" matches any run of
@@ -95,12 +123,12 @@ func matchLevel(pat, s string) bool {
 }
 
 // Select returns the names that match at least one of the patterns, in
-// the order of names and each once, and the patterns that match no name,
-// in their own order. Names are compared as they are (trimmed by the
+// the order of names, and the patterns that match no name, in their own
+// order. names are distinct, as the series of a file are, so that each
+// is selected once. Names are compared as they are (trimmed by the
 // reader of the file).
 func Select(patterns []string, names []string) (selected []string, unmatched []string) {
 	hit := make([]bool, len(patterns))
-	seen := make(map[string]bool)
 	for _, n := range names {
 		chosen := false
 		for k, p := range patterns {
@@ -109,8 +137,7 @@ func Select(patterns []string, names []string) (selected []string, unmatched []s
 				chosen = true
 			}
 		}
-		if chosen && !seen[n] {
-			seen[n] = true
+		if chosen {
 			selected = append(selected, n)
 		}
 	}

@@ -122,3 +122,16 @@ func TestDepth(t *testing.T) {
 		}
 	}
 }
+
+// TestMatchAllocs guards that Match allocates nothing for patterns and
+// names of up to stackLevels levels: it runs for every series of a file
+// against every scope entry and selector, in every shard.
+func TestMatchAllocs(t *testing.T) {
+	if n := testing.AllocsPerRun(100, func() { Match("milk/**/grocer-*", "milk/whole-1l/grocer-north") }); n != 0 {
+		t.Errorf("Match allocates %v times, want 0", n)
+	}
+	deep := "a/b/c/d/e/f/g/h/i/j"
+	if !Match("**/j", deep) || Match("**/x", deep) || !Match(deep, deep) {
+		t.Errorf("Match is wrong past %d levels", stackLevels)
+	}
+}
