@@ -2,6 +2,8 @@ package scenario
 
 import (
 	"fmt"
+	"slices"
+	"strings"
 	"unicode/utf8"
 
 	"gopkg.in/yaml.v3"
@@ -69,6 +71,35 @@ func (f *File) AllResources() []Resource {
 		return nil
 	}
 	return []Resource{{ID: CapacityResource, Series: "**", PerUnit: 1, Units: f.Units, Capacity: f.Capacity, Pos: f.Capacity.Pos}}
+}
+
+// PickResources returns the resources of AllResources whose ids are in
+// ids, in file order, or all of them when ids is empty. An id the file
+// has no resource for is an error that names the ids there are.
+func (f *File) PickResources(ids []string) ([]Resource, error) {
+	all := f.AllResources()
+	if len(ids) == 0 {
+		return all, nil
+	}
+	have := make([]string, len(all))
+	for i, r := range all {
+		have[i] = r.ID
+	}
+	for _, id := range ids {
+		if !slices.Contains(have, id) {
+			if len(have) == 0 {
+				return nil, fmt.Errorf("%q: %s has no resources and no capacity", id, f.Path)
+			}
+			return nil, fmt.Errorf("%q: %s has no such resource (it has %s)", id, f.Path, strings.Join(have, ", "))
+		}
+	}
+	var out []Resource
+	for _, r := range all {
+		if slices.Contains(ids, r.ID) {
+			out = append(out, r)
+		}
+	}
+	return out, nil
 }
 
 // resource decodes one resource. Its errors are named after its id

@@ -19,6 +19,7 @@ type BufferOptions struct {
 	JSON         bool
 	NoChart      bool
 	Sim          simFlags
+	Resources    resourceFlags
 	Service      float64
 	LeadTime     float64
 	OpeningStock float64
@@ -62,6 +63,7 @@ func newCmdBuffer(f *Factory, runF func(*BufferOptions) error) *cobra.Command {
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip buffer.png and buffer.svg")
 	addXLSXFlag(fl, &opts.XLSX, "buffer")
 	opts.Sim.register(fl)
+	opts.Resources.register(fl)
 	fl.Float64Var(&opts.Service, "service", 0.95, "cycle service level, between 0 and 1 (not a fill rate)")
 	fl.Float64Var(&opts.LeadTime, "lead-time", 1, "replenishment lead time in periods, at least 1, for the safety stock")
 	fl.Float64Var(&opts.OpeningStock, "opening-stock", 0, "stock at the start of the first period")
@@ -96,12 +98,18 @@ func (o *BufferOptions) check() error {
 // bufferRun loads the plan, checks it has a capacity, simulates it (with
 // --demand mc), sizes the buffer and emits the report.
 func bufferRun(opts *BufferOptions) error {
+	if err := opts.Resources.check(opts.File, opts.Shared); err != nil {
+		return err
+	}
 	p, pf, err := buildPlanOrPortfolio(opts.File, opts.Shared, opts.Sim.Workers)
 	if err != nil {
 		return err
 	}
 	if pf != nil {
 		return portfolioBufferRun(opts, pf)
+	}
+	if err := opts.Resources.single(opts.File); err != nil {
+		return err
 	}
 	sc, err := pickScenario(p, opts.Scenario)
 	if err != nil {
@@ -131,7 +139,10 @@ func portfolioBufferRun(opts *BufferOptions, pf *plan.Portfolio) error {
 	if err != nil {
 		return err
 	}
-	res := supply.PortfolioResources(pf)
+	res, err := opts.Resources.portfolio(pf)
+	if err != nil {
+		return err
+	}
 	if err := supply.PortfolioBufferCapacity(pf, res); err != nil {
 		return &inputError{err: err}
 	}

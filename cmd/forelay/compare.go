@@ -9,14 +9,15 @@ import (
 
 // CompareOptions are the settings of "forelay compare".
 type CompareOptions struct {
-	IO      *IOStreams
-	Shared  *sharedFlags
-	File    string
-	Out     string
-	JSON    bool
-	NoChart bool
-	Sim     simFlags
-	Service float64
+	IO        *IOStreams
+	Shared    *sharedFlags
+	File      string
+	Out       string
+	JSON      bool
+	NoChart   bool
+	Sim       simFlags
+	Resources resourceFlags
+	Service   float64
 	// XLSX also writes the workbook into Out.
 	XLSX bool
 }
@@ -49,6 +50,7 @@ func newCmdCompare(f *Factory, runF func(*CompareOptions) error) *cobra.Command 
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip the charts")
 	addXLSXFlag(fl, &opts.XLSX, "compare")
 	opts.Sim.register(fl)
+	opts.Resources.register(fl)
 	fl.Float64Var(&opts.Service, "service", 0.95, "cycle service level of the pre-build need, between 0 and 1")
 	return cmd
 }
@@ -67,17 +69,26 @@ func (o *CompareOptions) check() error {
 // compareRun loads the plan, simulates it, compares its scenarios and
 // emits the report.
 func compareRun(opts *CompareOptions) error {
+	if err := opts.Resources.check(opts.File, opts.Shared); err != nil {
+		return err
+	}
 	p, pf, err := buildPlanOrPortfolio(opts.File, opts.Shared, opts.Sim.Workers)
 	if err != nil {
 		return err
 	}
 	if pf != nil {
-		res := supply.PortfolioResources(pf)
+		res, err := opts.Resources.portfolio(pf)
+		if err != nil {
+			return err
+		}
 		mc, err := simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim, opts.Shared)
 		if err != nil {
 			return err
 		}
 		return emit(opts.IO, opts.Shared, opts.Out, opts.JSON, opts.NoChart, opts.XLSX, report.PortfolioCompare(supply.ComparePortfolio(mc, res, opts.Service)))
+	}
+	if err := opts.Resources.single(opts.File); err != nil {
+		return err
 	}
 	mc, err := simulate(p, &opts.Sim, opts.Shared)
 	if err != nil {

@@ -67,9 +67,9 @@ func TestCompletions(t *testing.T) {
 	}
 }
 
-// TestResourceCompletion checks the completion of resource ids, which no
-// command's flag takes yet: a command with a --resource flag gets the
-// ids of the file's resources, or "capacity" for a top-level capacity.
+// TestResourceCompletion checks the completion of --resource on the
+// commands that take it: the ids of the file's resources, or "capacity"
+// for a top-level capacity.
 func TestResourceCompletion(t *testing.T) {
 	for _, tc := range []struct {
 		file string
@@ -78,14 +78,12 @@ func TestResourceCompletion(t *testing.T) {
 		{filepath.Join(examplesDir(), "portfolio", "plan.yaml"), []string{"bottling-line", "cup-filler"}},
 		{filepath.Join(examplesDir(), "dairy", "plan.yaml"), []string{"capacity"}},
 	} {
-		root := &cobra.Command{Use: "forelay"}
-		load := &cobra.Command{Use: "load FILE", Run: func(*cobra.Command, []string) {}}
-		load.Flags().String("resource", "", "a resource id")
-		root.AddCommand(load)
-		registerCompletions(root)
-		got, _ := complete(t, root, "load", tc.file, "--resource", "")
-		if !slices.Equal(got, tc.want) {
-			t.Errorf("%s: %q, want %q", tc.file, got, tc.want)
+		for _, command := range []string{"stress", "buffer", "compare"} {
+			f := &Factory{IO: &IOStreams{In: strings.NewReader(""), Out: &bytes.Buffer{}, ErrOut: &bytes.Buffer{}}, Now: fixedNow}
+			got, _ := complete(t, newRootCmd(f), command, tc.file, "--resource", "")
+			if !slices.Equal(got, tc.want) {
+				t.Errorf("%s %s: %q, want %q", command, tc.file, got, tc.want)
+			}
 		}
 	}
 }

@@ -8,6 +8,7 @@ import (
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
 	"strconv"
+	"strings"
 
 	"forelay/scenario"
 	"forelay/scenario/plan"
@@ -117,17 +118,23 @@ func stressShardRun(opts *StressOptions, s shard.Spec) error {
 	if err != nil {
 		return flagErrorf("--scenario %v", err)
 	}
+	rs, err := opts.Resources.file(f)
+	if err != nil {
+		return err
+	}
 	pf, err := plan.BuildPortfolio(f, in, opts.Sim.Workers)
 	if err != nil {
 		return &inputError{err: err}
 	}
 	o := opts.Sim.options(opts.Shared)
-	files, err := shard.StressFiles(pf, o, supply.StressSettings{Breach: opts.Breach, Opening: opts.OpeningStock}, chart)
+	files, err := shard.StressFiles(pf, shard.StressRun{Options: o, Settings: supply.StressSettings{Breach: opts.Breach, Opening: opts.OpeningStock},
+		Chart: chart, Resources: rs})
 	if err != nil {
 		return &inputError{err: err}
 	}
 	m := shard.NewManifest(version, "stress", s, in.Digests, []string{"stress", "--breach=" + strconv.FormatFloat(opts.Breach, 'g', -1, 64),
-		"--scenario=" + f.Cases()[chart].Name, "--opening-stock=" + strconv.FormatFloat(opts.OpeningStock, 'g', -1, 64)})
+		"--scenario=" + f.Cases()[chart].Name, "--opening-stock=" + strconv.FormatFloat(opts.OpeningStock, 'g', -1, 64),
+		"--resource=" + strings.Join(opts.Resources.IDs, ",")})
 	m.Seed, m.Paths = o.Seed, o.Paths
 	return writeShard(opts.IO, opts.Shared, opts.Out, m, pf.Warnings, files)
 }

@@ -17,6 +17,7 @@ type StressOptions struct {
 	JSON         bool
 	NoChart      bool
 	Sim          simFlags
+	Resources    resourceFlags
 	Breach       float64
 	OpeningStock float64
 	Scenario     string
@@ -54,6 +55,7 @@ func newCmdStress(f *Factory, runF func(*StressOptions) error) *cobra.Command {
 	fl.BoolVar(&opts.NoChart, "no-chart", false, "with --out, skip the charts")
 	addXLSXFlag(fl, &opts.XLSX, "stress")
 	opts.Sim.register(fl)
+	opts.Resources.register(fl)
 	fl.Float64Var(&opts.Breach, "breach", 0.1, "report the first period whose probability of demand above capacity exceeds this")
 	fl.Float64Var(&opts.OpeningStock, "opening-stock", 0, "stock before the first period, for frozen production")
 	fl.StringVar(&opts.Shard, "shard", "", shardFlagHelp)
@@ -84,12 +86,18 @@ func stressRun(opts *StressOptions) error {
 		}
 		return stressShardRun(opts, s)
 	}
+	if err := opts.Resources.check(opts.File, opts.Shared); err != nil {
+		return err
+	}
 	p, pf, err := buildPlanOrPortfolio(opts.File, opts.Shared, opts.Sim.Workers)
 	if err != nil {
 		return err
 	}
 	if pf != nil {
 		return portfolioStressRun(opts, pf)
+	}
+	if err := opts.Resources.single(opts.File); err != nil {
+		return err
 	}
 	chart, err := pickScenario(p, opts.Scenario)
 	if err != nil {
@@ -120,7 +128,10 @@ func portfolioStressRun(opts *StressOptions, pf *plan.Portfolio) error {
 	if err := supply.CheckPortfolioProduction(pf); err != nil {
 		return &inputError{err: err}
 	}
-	res := supply.PortfolioResources(pf)
+	res, err := opts.Resources.portfolio(pf)
+	if err != nil {
+		return err
+	}
 	mc, err := simulatePortfolio(pf, supply.PortfolioSums(pf, res), &opts.Sim, opts.Shared)
 	if err != nil {
 		return err

@@ -3,8 +3,10 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"fmt"
 	"os"
 	"path/filepath"
+	"slices"
 	"strings"
 	"testing"
 
@@ -151,4 +153,45 @@ func TestStressExitCodes(t *testing.T) {
 			}
 		})
 	}
+}
+
+// TestResourcePicked runs stress and buffer on the generated portfolio
+// with --resource cup-filler and checks that the picked resource and the
+// total are reported as in the run over every resource: the Monte Carlo's
+// random numbers depend only on the seed, the paths and the events, so
+// leaving a resource out changes none of the others' numbers. The same
+// stress run in 2 shards merges to the picked run's files and text.
+func TestResourcePicked(t *testing.T) {
+	dir := portfolioCopy(t)
+	keep := func(csv []byte, col int, ids ...string) []string {
+		var out []string
+		for i, line := range strings.Split(strings.TrimSpace(string(csv)), "\n") {
+			cells := strings.Split(line, ",")
+			if i == 0 || slices.Contains(ids, cells[col]) {
+				out = append(out, line)
+			}
+		}
+		return out
+	}
+	for _, c := range []struct {
+		command, file string
+		col           int // of the resource
+	}{{"stress", "stress.csv", 1}, {"buffer", "buffer.csv", 0}} {
+		runOK(t, dir, c.command, "plan.yaml", "--paths", "300", "--out", "all-"+c.command, "--no-chart")
+		runOK(t, dir, c.command, "plan.yaml", "--paths", "300", "--resource", "cup-filler", "--out", "one-"+c.command, "--no-chart")
+		want := keep(readFile(t, dir, "all-"+c.command, c.file), c.col, "total", "cup-filler")
+		got := keep(readFile(t, dir, "one-"+c.command, c.file), c.col, "total", "cup-filler", "bottling-line")
+		if strings.Join(got, "\n") != strings.Join(want, "\n") {
+			t.Errorf("%s --resource cup-filler: %d rows differ from the run over every resource's %d", c.command, len(got), len(want))
+		}
+	}
+	whole := runOK(t, dir, "stress", "plan.yaml", "--paths", "300", "--resource", "cup-filler", "--out", "one")
+	var shards []string
+	for k := range 2 {
+		out := fmt.Sprintf("s%d", k)
+		runOK(t, dir, "stress", "plan.yaml", "--paths", "300", "--resource", "cup-filler", "--shard", fmt.Sprintf("%d/2", k), "--out", out)
+		shards = append(shards, out)
+	}
+	text := runOK(t, dir, append([]string{"merge", "--out", "merged"}, shards...)...)
+	sameRun(t, dir, "one", "merged", whole, text)
 }

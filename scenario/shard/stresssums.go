@@ -65,12 +65,24 @@ type StressSum struct {
 	Planned  []Floats `json:"planned,omitempty"`
 }
 
+// A StressRun is what a stress run in shards simulates besides the
+// portfolio: the Monte Carlo's options, the settings (Breach and, when the
+// file freezes production, Opening), the index of the scenario whose band
+// the charts draw, and the file's resources to report on (some of
+// AllResources, scenario.File.PickResources).
+type StressRun struct {
+	Options   sim.SimOptions
+	Settings  supply.StressSettings
+	Chart     int
+	Resources []scenario.Resource
+}
+
 // NewStressSums simulates the shard's part of each sum of a portfolio
-// stress (supply.PortfolioSums) with opt and the settings s (Breach and,
-// when the file freezes production, Opening); chart is the index of the
-// scenario whose band the charts draw. A shard without series of its own
-// adds zeros. It returns the error of supply.CheckPortfolioProduction.
-func NewStressSums(pf *plan.Portfolio, opt sim.SimOptions, st supply.StressSettings, chart int) (*StressSums, error) {
+// stress (supply.PortfolioSums of run's resources) as run says. A shard
+// without series of its own adds zeros. It returns the error of
+// supply.CheckPortfolioProduction.
+func NewStressSums(pf *plan.Portfolio, run StressRun) (*StressSums, error) {
+	opt, st, chart := run.Options, run.Settings, run.Chart
 	f := pf.File
 	if pf.Shard == nil {
 		return nil, fmt.Errorf("shard: the portfolio is not that of a shard")
@@ -100,7 +112,7 @@ func NewStressSums(pf *plan.Portfolio, opt sim.SimOptions, st supply.StressSetti
 	}
 	s.Plan, s.Units, s.Inputs = f.Plan, f.Units, pf.Shard.Inputs
 	s.Sums = append(s.Sums, StressSum{Name: sim.TotalSum, Members: len(pf.Plans)})
-	for _, r := range f.AllResources() {
+	for _, r := range run.Resources {
 		ss := StressSum{Name: r.ID, Units: r.Units, PerUnit: r.PerUnit}
 		var own []string
 		for _, n := range pf.Names {
@@ -145,7 +157,7 @@ func NewStressSums(pf *plan.Portfolio, opt sim.SimOptions, st supply.StressSetti
 		}
 		return s, nil
 	}
-	mc, err := sim.SimulatePortfolio(pf, supply.PortfolioSums(pf, supply.PortfolioResources(pf)), opt)
+	mc, err := sim.SimulatePortfolio(pf, supply.PortfolioSums(pf, supply.PortfolioResourcesOf(pf, run.Resources)), opt)
 	if err != nil {
 		return nil, err
 	}
@@ -166,8 +178,8 @@ func NewStressSums(pf *plan.Portfolio, opt sim.SimOptions, st supply.StressSetti
 
 // StressFiles returns the files of a shard of a portfolio stress run:
 // sums.json (NewStressSums).
-func StressFiles(pf *plan.Portfolio, opt sim.SimOptions, st supply.StressSettings, chart int) ([]File, error) {
-	s, err := NewStressSums(pf, opt, st, chart)
+func StressFiles(pf *plan.Portfolio, run StressRun) ([]File, error) {
+	s, err := NewStressSums(pf, run)
 	if err != nil {
 		return nil, err
 	}

@@ -3,6 +3,7 @@ package supply
 import (
 	"math"
 
+	"forelay/scenario"
 	"forelay/scenario/plan"
 	"forelay/scenario/series"
 )
@@ -90,9 +91,16 @@ func (r Resource) Utilisation(load []float64) []float64 {
 // its pattern matches, in the order of Portfolio.Names, and its capacity
 // in each plan period.
 func PortfolioResources(pf *plan.Portfolio) []Resource {
+	return PortfolioResourcesOf(pf, pf.File.AllResources())
+}
+
+// PortfolioResourcesOf returns the resources rs of a portfolio's file (some
+// of AllResources, scenario.File.PickResources), each as
+// PortfolioResources gives it.
+func PortfolioResourcesOf(pf *plan.Portfolio, rs []scenario.Resource) []Resource {
 	periods := pf.Plans[0].Periods
 	var out []Resource
-	for _, r := range pf.File.AllResources() {
+	for _, r := range rs {
 		res := Resource{ID: r.ID, Units: r.Units, PerUnit: r.PerUnit}
 		for _, n := range pf.Names {
 			if series.Match(r.Series, n) {
