@@ -36,6 +36,29 @@ func parseShard(value, out string) (shard.Spec, bool, error) {
 	return s, true, nil
 }
 
+// A mergeFlag is a flag that shapes the report a merge writes, whether
+// it was given to a shard, and whether forelay merge takes it.
+type mergeFlag struct {
+	given bool
+	flag  string
+	merge bool
+}
+
+// refuseInShard refuses the first flag given to a shard that shapes the
+// report: a shard writes its rows and sums, and forelay merge the report.
+func refuseInShard(flags ...mergeFlag) error {
+	for _, f := range flags {
+		if !f.given {
+			continue
+		}
+		if f.merge {
+			return flagErrorf("%s: not taken with --shard; a shard writes its rows and sums, and forelay merge writes the report: give %s to the merge", f.flag, f.flag)
+		}
+		return flagErrorf("%s: not taken with --shard; a shard writes its rows and sums, and forelay merge writes the report, which has no %s (run the portfolio whole for it)", f.flag, f.flag)
+	}
+	return nil
+}
+
 // readShard loads a scenario file and reads the inputs of shard s of its
 // portfolio; a file that plans one series is refused.
 func readShard(path string, shared *sharedFlags, s shard.Spec) (*scenario.File, *plan.Inputs, error) {
@@ -82,6 +105,10 @@ func writeShard(ios *IOStreams, shared *sharedFlags, out string, m *shard.Manife
 
 // planShardRun plans shard s of the portfolio of opts.File.
 func planShardRun(opts *PlanOptions, s shard.Spec) error {
+	if err := refuseInShard(mergeFlag{opts.JSON, "--json", true}, mergeFlag{opts.XLSX, "--xlsx", false}, mergeFlag{opts.Detail, "--detail", false},
+		mergeFlag{opts.Event != "", "--event", false}, mergeFlag{opts.NoChart, "--no-chart", true}, mergeFlag{opts.Shared.ChartSize.W > 0, "--chart-size", true}); err != nil {
+		return err
+	}
 	f, in, err := readShard(opts.File, opts.Shared, s)
 	if err != nil {
 		return err
@@ -107,6 +134,10 @@ func planShardRun(opts *PlanOptions, s shard.Spec) error {
 
 // stressShardRun simulates shard s of the portfolio of opts.File.
 func stressShardRun(opts *StressOptions, s shard.Spec) error {
+	if err := refuseInShard(mergeFlag{opts.JSON, "--json", true}, mergeFlag{opts.XLSX, "--xlsx", false}, mergeFlag{opts.NoChart, "--no-chart", true},
+		mergeFlag{opts.Shared.ChartSize.W > 0, "--chart-size", true}); err != nil {
+		return err
+	}
 	f, in, err := readShard(opts.File, opts.Shared, s)
 	if err != nil {
 		return err
