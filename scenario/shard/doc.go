@@ -20,7 +20,7 @@
 //
 // # sums.json
 //
-// A JSON document, version 2 (SumsVersion), whose arrays of numbers are
+// A JSON document, version 3 (SumsVersion), whose arrays of numbers are
 // strings: the numbers as little-endian IEEE 754 float64, base64 (standard
 // alphabet, padded), so that nothing is lost to decimal printing. Fields:
 // version, kind ("plan"), plan, units, freq, end (the history's last
@@ -36,7 +36,9 @@
 // adjusted_periods, what plan.json holds of it), groups (the total and each group of
 // each level over the shard's series: level, depth, group, first (index of
 // its first member), members, floor (sum of the members' floors), var (the
-// variance parts: h, n, z, own, indep) and per scenario baseline,
+// variance parts: h, n, z, own, indep; only on the groups of the deepest
+// level, or the total when names have one level, since the merge adds a
+// wider group's from its children; null elsewhere) and per scenario baseline,
 // adjusted, risk_weighted and the summed standard deviation of each
 // event), resources (id, units, per_unit, capacity, and the group of
 // its series), tail and common (the shard's summed history over the last

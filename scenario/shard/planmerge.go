@@ -92,6 +92,9 @@ type planMerge struct {
 	charts []SeriesChart
 	tail   []float64
 	common int
+	// derived is set once the groups above the deepest level have their
+	// variance parts (deriveParts).
+	derived bool
 }
 
 // A groupKey names a roll-up: its depth and group.
@@ -218,7 +221,10 @@ func (pm *planMerge) summary(own []OwnSeries) (*report.PortfolioSummary, error) 
 	if sum.Periods, err = parsePeriods(s0.Freq, s0.Periods); err != nil {
 		return nil, err
 	}
-	groups := pm.rollupGroups()
+	groups, err := pm.rollupGroups()
+	if err != nil {
+		return nil, err
+	}
 	for k := range s0.Scenarios {
 		var rs []plan.Rollup
 		for _, g := range groups {
@@ -250,8 +256,10 @@ func (pm *planMerge) summary(own []OwnSeries) (*report.PortfolioSummary, error) 
 
 // rollupGroups returns the merged roll-ups: the total, then the groups of
 // each level from the widest, each level's groups in the order of their
-// first member in the whole portfolio.
-func (pm *planMerge) rollupGroups() []*mergedGroup {
+// first member in the whole portfolio. The variance parts of a group
+// above the deepest level are the sum of its children's, added from the
+// deepest level up, children in that order.
+func (pm *planMerge) rollupGroups() ([]*mergedGroup, error) {
 	order := slices.Clone(pm.order)
 	slices.SortStableFunc(order, func(a, b *mergedGroup) int {
 		if c := cmp.Compare(a.Depth, b.Depth); c != 0 {
@@ -259,13 +267,51 @@ func (pm *planMerge) rollupGroups() []*mergedGroup {
 		}
 		return cmp.Compare(a.First, b.First)
 	})
+	if err := pm.deriveParts(order); err != nil {
+		return nil, err
+	}
 	var out []*mergedGroup
 	for _, g := range order {
 		if g.Members > 0 || g.Depth == 0 {
 			out = append(out, g)
 		}
 	}
-	return out
+	return out, nil
+}
+
+// deriveParts gives each group above the deepest level, once, the sum of
+// its children's variance parts, from the deepest level up, children in
+// order.
+func (pm *planMerge) deriveParts(order []*mergedGroup) error {
+	if pm.derived {
+		return nil
+	}
+	pm.derived = true
+	deepest := max(pm.head.Depth-1, 0)
+	for _, g := range order {
+		if g.Depth != deepest && g.parts != nil {
+			return fmt.Errorf("sums.json: group %q carries variance parts; only the groups of the deepest level do", g.Group)
+		}
+	}
+	for d := deepest; d >= 1; d-- {
+		for _, g := range order {
+			if g.Depth != d || g.parts == nil {
+				continue
+			}
+			k := groupKey{0, plan.TotalGroup}
+			if d > 1 {
+				k = groupKey{d - 1, prefix(g.Group, d-1)}
+			}
+			parent, ok := pm.groups[k]
+			if !ok {
+				return fmt.Errorf("sums.json: group %q has no group %q above it", g.Group, k.group)
+			}
+			if err := parent.addParts(g.parts); err != nil {
+				return fmt.Errorf("group %q: %w", k.group, err)
+			}
+		}
+	}
+	return nil
 }
 
 // mergedWarnings returns the file's warnings, then each series', in order.
@@ -372,17 +418,14 @@ func (m *mergedGroup) add(g GroupSums) error {
 	}
 	m.Members += g.Members
 	m.Floor += g.Floor
-	if g.Var == nil {
-		return errors.New("no variance parts")
-	}
-	p, err := g.Var.parts()
-	if err != nil {
-		return err
-	}
-	if m.parts == nil {
-		m.parts = p
-	} else if err := m.parts.Add(p); err != nil {
-		return err
+	if g.Var != nil {
+		p, err := g.Var.parts()
+		if err != nil {
+			return err
+		}
+		if err := m.addParts(p); err != nil {
+			return err
+		}
 	}
 	if m.Scenarios == nil {
 		for _, sc := range g.Scenarios {
@@ -415,6 +458,17 @@ func (m *mergedGroup) add(g GroupSums) error {
 		}
 	}
 	return nil
+}
+
+// addParts adds the variance parts p to the group's.
+func (m *mergedGroup) addParts(p *forecast.VarianceParts) error {
+	if m.parts == nil {
+		m.parts = &forecast.VarianceParts{H: p.H, N: p.N, Own: map[int][][]float64{}, Indep: make([]float64, len(p.Indep))}
+		for range p.Z {
+			m.parts.Z = append(m.parts.Z, make([]float64, p.N))
+		}
+	}
+	return m.parts.Add(p)
 }
 
 func addTo(dst, src []float64) {

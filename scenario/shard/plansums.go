@@ -12,7 +12,7 @@ import (
 )
 
 // SumsVersion is the version of sums.json.
-const SumsVersion = 2
+const SumsVersion = 3
 
 // PlanSums is sums.json of a shard of a portfolio plan (see the package
 // documentation).
@@ -232,7 +232,7 @@ func NewPlanSums(pf *plan.Portfolio, charts int) (*PlanSums, error) {
 	for i := range all {
 		all[i] = i
 	}
-	g, err := groupSums(pf, s, all)
+	g, err := groupSums(pf, s, all, s.Depth == 1)
 	if err != nil {
 		return nil, err
 	}
@@ -249,7 +249,7 @@ func NewPlanSums(pf *plan.Portfolio, charts int) (*PlanSums, error) {
 			groups[pre] = append(groups[pre], i)
 		}
 		for _, pre := range order {
-			g, err := groupSums(pf, s, groups[pre])
+			g, err := groupSums(pf, s, groups[pre], d == s.Depth-1)
 			if err != nil {
 				return nil, fmt.Errorf("group %q: %w", pre, err)
 			}
@@ -274,7 +274,7 @@ func NewPlanSums(pf *plan.Portfolio, charts int) (*PlanSums, error) {
 				idx = append(idx, i)
 			}
 		}
-		g, err := groupSums(pf, s, idx)
+		g, err := groupSums(pf, s, idx, true)
 		if err != nil {
 			return nil, fmt.Errorf("resource %q: %w", r.ID, err)
 		}
@@ -326,8 +326,12 @@ func prefix(name string, d int) string {
 }
 
 // groupSums returns the partial sums of the plans of members (indices in
-// pf.Plans, in order).
-func groupSums(pf *plan.Portfolio, s *PlanSums, members []int) (GroupSums, error) {
+// pf.Plans, in order), with the parts of the variance of their sum when
+// withVar is set: only the groups of the deepest level (the total when the
+// names have one level) and the resources carry them, since every other
+// group is a union of groups of the deepest level, whose parts the merge
+// adds.
+func groupSums(pf *plan.Portfolio, s *PlanSums, members []int, withVar bool) (GroupSums, error) {
 	f := pf.File
 	hz := len(s.Periods)
 	g := GroupSums{First: -1, Members: len(members)}
@@ -344,11 +348,13 @@ func groupSums(pf *plan.Portfolio, s *PlanSums, members []int) (GroupSums, error
 			g.Floor += *p.Floor
 		}
 	}
-	parts, err := forecast.SumVarianceParts(fits, hz, pf.Span, pf.Shard.First, f.Bands.Widen, f.Bands.From)
-	if err != nil {
-		return GroupSums{}, err
+	if withVar {
+		parts, err := forecast.SumVarianceParts(fits, hz, pf.Span, pf.Shard.First, f.Bands.Widen, f.Bands.From)
+		if err != nil {
+			return GroupSums{}, err
+		}
+		g.Var = partsJSON(parts)
 	}
-	g.Var = partsJSON(parts)
 	for k := range s.Scenarios {
 		sc := ScenarioSums{Baseline: make(Floats, hz), Adjusted: make(Floats, hz), RiskWeighted: make(Floats, hz)}
 		at := map[string]int{}

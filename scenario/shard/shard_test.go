@@ -144,7 +144,10 @@ func TestMergedRollupsEqualWhole(t *testing.T) {
 			t.Fatal(err)
 		}
 	}
-	groups := pm.rollupGroups()
+	groups, err := pm.rollupGroups()
+	if err != nil {
+		t.Fatal(err)
+	}
 	for k, name := range sums[0].Scenarios {
 		want, err := whole.Rollups(name)
 		if err != nil {
