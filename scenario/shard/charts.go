@@ -110,13 +110,7 @@ func curveOf(c plots.Curve) ChartCurve {
 
 // curve returns the plots.Curve, nil where the numbers are empty.
 func (c ChartCurve) curve() plots.Curve {
-	orNil := func(f Floats) []float64 {
-		if len(f) == 0 {
-			return nil
-		}
-		return f
-	}
-	return plots.Curve{Name: c.Name, Start: c.Start, Values: orNil(c.Values), Lower: orNil(c.Lower), Upper: orNil(c.Upper)}
+	return plots.Curve{Name: c.Name, Start: c.Start, Values: c.Values.orNil(), Lower: c.Lower.orNil(), Upper: c.Upper.orNil()}
 }
 
 func windowsOf(ws []plots.Window) []ChartWindow {

@@ -14,6 +14,15 @@ import (
 // float64s, so that they read back bit for bit.
 type Floats []float64
 
+// orNil returns the numbers, or nil when there are none: what an absent
+// capacity or band is to the packages that read them.
+func (f Floats) orNil() []float64 {
+	if len(f) == 0 {
+		return nil
+	}
+	return f
+}
+
 // MarshalJSON writes the numbers as one base64 string.
 func (f Floats) MarshalJSON() ([]byte, error) {
 	b := make([]byte, 8*len(f))

@@ -513,10 +513,7 @@ func (pm *planMerge) resourceLoads() ([]report.ResourceLoad, error) {
 	var out []report.ResourceLoad
 	for j, res := range s0.Resources {
 		m := pm.resources[j]
-		rl := report.ResourceLoad{Resource: supply.Resource{ID: res.ID, Units: res.Units, PerUnit: res.PerUnit}, Size: m.Members}
-		if len(res.Capacity) > 0 {
-			rl.Capacity = res.Capacity
-		}
+		rl := report.ResourceLoad{Resource: supply.Resource{ID: res.ID, Units: res.Units, PerUnit: res.PerUnit, Capacity: res.Capacity.orNil()}, Size: m.Members}
 		for k := range s0.Scenarios {
 			ru, err := m.rollup(s0, k)
 			if err != nil {

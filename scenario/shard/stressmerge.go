@@ -135,11 +135,7 @@ func stressSummary(s *StressSums) (*report.StressSummary, error) {
 		return nil, err
 	}
 	for _, sum := range s.Sums[1:] {
-		var capacity []float64
-		if len(sum.Capacity) > 0 {
-			capacity = sum.Capacity
-		}
-		m.Resources = append(m.Resources, report.StressResource{ID: sum.Name, Units: sum.Units, PerUnit: sum.PerUnit, Capacity: capacity, Series: sum.Members})
+		m.Resources = append(m.Resources, report.StressResource{ID: sum.Name, Units: sum.Units, PerUnit: sum.PerUnit, Capacity: sum.Capacity.orNil(), Series: sum.Members})
 	}
 	for k, name := range s.Scenarios {
 		var risks []supply.Risk
@@ -149,10 +145,7 @@ func stressSummary(s *StressSums) (*report.StressSummary, error) {
 			for t := range demand {
 				demand[t] = s.Demand[k][j][t]
 			}
-			var capacity []float64
-			if len(sum.Capacity) > 0 {
-				capacity = sum.Capacity
-			}
+			capacity := sum.Capacity.orNil()
 			ps := sim.NewPathSet(name, demand)
 			rk := supply.CapacityRisk(ps, capacity, s.Breach)
 			if j == 0 {
