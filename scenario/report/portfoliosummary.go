@@ -70,6 +70,19 @@ type SeriesSummary struct {
 	Adjusted [][]float64
 }
 
+// SeriesSummaryOf returns what a portfolio's report shows of the plan of
+// one of its series.
+func SeriesSummaryOf(p *plan.Plan) SeriesSummary {
+	ss := SeriesSummary{Name: p.History.Name, New: p.Fit == nil, Baseline: p.Baseline}
+	if p.Fit != nil {
+		ss.MAD, ss.MSE = p.Fit.Accuracy.MAD, p.Fit.Accuracy.MSE
+	}
+	for _, sp := range p.Scenarios {
+		ss.Adjusted = append(ss.Adjusted, sp.Adjusted)
+	}
+	return ss
+}
+
 // A ResourceLoad is a resource with the number of series it loads and
 // its load in each scenario.
 type ResourceLoad struct {
@@ -114,14 +127,7 @@ func newPortfolioSummary(pf *plan.Portfolio, n int) (*PortfolioSummary, error) {
 		s.Resources = append(s.Resources, rl)
 	}
 	for _, p := range pf.Plans {
-		ss := SeriesSummary{Name: p.History.Name, New: p.Fit == nil, Baseline: p.Baseline}
-		if p.Fit != nil {
-			ss.MAD, ss.MSE = p.Fit.Accuracy.MAD, p.Fit.Accuracy.MSE
-		}
-		for _, sp := range p.Scenarios {
-			ss.Adjusted = append(ss.Adjusted, sp.Adjusted)
-		}
-		s.Series = append(s.Series, ss)
+		s.Series = append(s.Series, SeriesSummaryOf(p))
 	}
 	if n == AllCharts {
 		n = len(pf.Plans)

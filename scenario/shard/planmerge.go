@@ -243,11 +243,7 @@ func (pm *planMerge) summary(own []OwnSeries) (*report.PortfolioSummary, error) 
 		return nil, err
 	}
 	for _, o := range own {
-		ss := report.SeriesSummary{Name: o.Name, New: o.New, MAD: o.MAD, MSE: o.MSE, Baseline: o.BaselinePeriods}
-		for _, a := range o.AdjustedPeriods {
-			ss.Adjusted = append(ss.Adjusted, a)
-		}
-		sum.Series = append(sum.Series, ss)
+		sum.Series = append(sum.Series, o.summary())
 	}
 	sum.HistoryTail = pm.tail[len(pm.tail)-min(pm.common, len(pm.tail)):]
 	sum.SeriesCharts = mergedCharts(pm.charts, s0.ChartCount)

@@ -80,6 +80,15 @@ type OwnSeries struct {
 	AdjustedPeriods []Floats `json:"adjusted_periods"`
 }
 
+// summary returns what the portfolio's report shows of the series.
+func (o OwnSeries) summary() report.SeriesSummary {
+	ss := report.SeriesSummary{Name: o.Name, New: o.New, MAD: o.MAD, MSE: o.MSE, Baseline: o.BaselinePeriods}
+	for _, a := range o.AdjustedPeriods {
+		ss.Adjusted = append(ss.Adjusted, a)
+	}
+	return ss
+}
+
 // GroupSums are the partial sums of a group of series over the shard's
 // members.
 type GroupSums struct {
@@ -196,29 +205,21 @@ func NewPlanSums(pf *plan.Portfolio, charts int) (*PlanSums, error) {
 	}
 	hz := f.Horizon
 	mine := map[string]int{}
+	var summaries []report.SeriesSummary
 	for i, p := range pf.Plans {
 		mine[p.History.Name] = i
-		o := OwnSeries{Name: p.History.Name, Index: sh.Index[i], Baseline: plan.Total(p.Baseline), Warnings: []string{},
-			New: p.Fit == nil, BaselinePeriods: p.Baseline}
-		if p.Fit != nil {
-			o.MAD, o.MSE = p.Fit.Accuracy.MAD, p.Fit.Accuracy.MSE
-		}
-		for _, sp := range p.Scenarios {
-			o.Adjusted = append(o.Adjusted, plan.Total(sp.Adjusted))
-			o.AdjustedPeriods = append(o.AdjustedPeriods, sp.Adjusted)
+		ss := report.SeriesSummaryOf(p)
+		summaries = append(summaries, ss)
+		o := OwnSeries{Name: ss.Name, Index: sh.Index[i], Baseline: plan.Total(ss.Baseline), Warnings: []string{},
+			New: ss.New, MAD: ss.MAD, MSE: ss.MSE, BaselinePeriods: ss.Baseline}
+		for _, adj := range ss.Adjusted {
+			o.Adjusted = append(o.Adjusted, plan.Total(adj))
+			o.AdjustedPeriods = append(o.AdjustedPeriods, adj)
 		}
 		s.Own = append(s.Own, o)
 	}
 	s.tail(pf)
 	s.ChartCount = charts
-	var summaries []report.SeriesSummary
-	for i, p := range pf.Plans {
-		ss := report.SeriesSummary{Name: p.History.Name, Baseline: p.Baseline}
-		for k := range p.Scenarios {
-			ss.Adjusted = append(ss.Adjusted, s.Own[i].AdjustedPeriods[k])
-		}
-		summaries = append(summaries, ss)
-	}
 	s.Charts = shardCharts(pf, summaries, charts)
 	s.Warnings = []string{}
 	for _, w := range pf.Warnings {
