@@ -31,9 +31,8 @@
 // event of the file, in file order, and whether a series of the shard
 // plans it: future), z, floor (whether the plan has a floor), warnings
 // (those of the file, the same in every shard), own (each series of the
-// shard: name, index in the whole portfolio, baseline total, adjusted
-// total per scenario, its warnings, new, mad, mse, baseline_periods and
-// adjusted_periods, what plan.json holds of it), groups (the total and each group of
+// shard: name, index in the whole portfolio, its warnings, new, mad, mse,
+// baseline_periods and adjusted_periods, what plan.json holds of it), groups (the total and each group of
 // each level over the shard's series: level, depth, group, first (index of
 // its first member), members, floor (sum of the members' floors), var (the
 // variance parts: h, n, z, own, indep; only on the groups of the deepest

@@ -196,8 +196,8 @@ func (pm *planMerge) series() ([]OwnSeries, error) {
 			if j := from[o.Index]; j >= 0 {
 				return nil, fmt.Errorf("%w: %s and %s both plan series %q", ErrApart, pm.dirs[j], pm.dirs[i], o.Name)
 			}
-			if len(o.Adjusted) != len(pm.head.Scenarios) || len(o.AdjustedPeriods) != len(pm.head.Scenarios) {
-				return nil, fmt.Errorf("%s: series %q has %d totals for %d scenarios", pm.dirs[i], o.Name, len(o.Adjusted), len(pm.head.Scenarios))
+			if len(o.AdjustedPeriods) != len(pm.head.Scenarios) {
+				return nil, fmt.Errorf("%s: series %q has plans for %d scenarios, not %d", pm.dirs[i], o.Name, len(o.AdjustedPeriods), len(pm.head.Scenarios))
 			}
 			from[o.Index] = i
 			all[o.Index] = o

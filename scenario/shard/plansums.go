@@ -63,12 +63,11 @@ type EventUse struct {
 }
 
 // An OwnSeries is a series of the shard: its index in the whole portfolio,
-// its totals over the horizon and its own warnings.
+// its own warnings and its plan (its totals over the horizon are summed
+// from the periods where they are needed).
 type OwnSeries struct {
 	Name     string   `json:"name"`
 	Index    int      `json:"index"`
-	Baseline float64  `json:"baseline"`
-	Adjusted Floats   `json:"adjusted"`
 	Warnings []string `json:"warnings"`
 	// New marks a series a scope creates; MAD and MSE are its in-sample
 	// accuracy (0 when New), BaselinePeriods its baseline and
@@ -210,10 +209,9 @@ func NewPlanSums(pf *plan.Portfolio, charts int) (*PlanSums, error) {
 		mine[p.History.Name] = i
 		ss := report.SeriesSummaryOf(p)
 		summaries = append(summaries, ss)
-		o := OwnSeries{Name: ss.Name, Index: sh.Index[i], Baseline: plan.Total(ss.Baseline), Warnings: []string{},
+		o := OwnSeries{Name: ss.Name, Index: sh.Index[i], Warnings: []string{},
 			New: ss.New, MAD: ss.MAD, MSE: ss.MSE, BaselinePeriods: ss.Baseline}
 		for _, adj := range ss.Adjusted {
-			o.Adjusted = append(o.Adjusted, plan.Total(adj))
 			o.AdjustedPeriods = append(o.AdjustedPeriods, adj)
 		}
 		s.Own = append(s.Own, o)
